@@ -1,0 +1,149 @@
+/**
+ * The error catalogue. Every problem gloaming reports is a `GloamingError` with a
+ * permanent `code`, a message that says what is wrong and what would be right, and,
+ * where it applies, the place it comes from: a file with line and column, or a field.
+ *
+ * Library code never throws strings; callers can rely on `instanceof GloamingError`
+ * and read `code`, `place`, `actual` and `expected` to render their own messages.
+ */
+
+/** Where an input problem was found. All parts are optional; lines and columns are 1-based. */
+export interface Place {
+  /** File path, as given by the caller (relative paths are kept relative). */
+  file?: string;
+  line?: number;
+  column?: number;
+  /** Dotted field path inside a structured input, e.g. `sky.bortle` or `elements.eccentricity`. */
+  field?: string;
+}
+
+/** Permanent error codes with a short title each. Add codes; never reuse or rename one. */
+export const ERROR_CODES = {
+  'invalid-value': 'A value is out of range or of the wrong kind',
+  'missing-field': 'A required field is missing',
+  'unknown-field': 'A field is not part of the schema',
+  'unknown-body': 'No body or object has this id',
+  'unknown-site': 'No site has this id',
+  'unknown-zone': 'The time zone is not a known IANA zone',
+  'invalid-date': 'A date or instant cannot be read',
+  'invalid-yaml': 'A YAML file cannot be parsed',
+  'invalid-argument': 'A command-line argument is wrong',
+  'unknown-placeholder': 'A placeholder name is not known',
+  'invalid-placeholder': 'A placeholder is malformed or has a wrong attribute',
+  'unsafe-output': 'Built output contains a value that must never be published',
+} as const;
+
+export type ErrorCode = keyof typeof ERROR_CODES;
+
+export interface GloamingErrorOptions {
+  place?: Place;
+  /** The offending value, as the user wrote it. */
+  actual?: unknown;
+  /** What would be right, in words ("a number from -90 to 90"). */
+  expected?: string;
+  /** A concrete suggestion ("did you mean 'jupiter'?"). */
+  hint?: string;
+  cause?: unknown;
+}
+
+/** Formats a place as `file:line:column` / `field`, the way compilers do. */
+export function formatPlace(place: Place | undefined): string {
+  if (!place) return '';
+  const parts: string[] = [];
+  if (place.file) {
+    let loc = place.file;
+    if (place.line !== undefined) {
+      loc += `:${place.line}`;
+      if (place.column !== undefined) loc += `:${place.column}`;
+    }
+    parts.push(loc);
+  }
+  if (place.field) parts.push(parts.length ? `field '${place.field}'` : place.field);
+  return parts.join(' ');
+}
+
+function describeValue(value: unknown): string {
+  if (typeof value === 'string') return `'${value}'`;
+  if (value === undefined) return 'nothing';
+  try {
+    return JSON.stringify(value) ?? String(value);
+  } catch {
+    return String(value);
+  }
+}
+
+/** An input problem with its place, the offending value and what was expected. */
+export class GloamingError extends Error {
+  override name = 'GloamingError';
+  readonly code: ErrorCode;
+  readonly place: Place | undefined;
+  readonly actual: unknown;
+  readonly expected: string | undefined;
+  readonly hint: string | undefined;
+  /** The message without the place prefix. */
+  readonly reason: string;
+  /** Whether an offending value was given (it may itself be `undefined`). */
+  readonly hasActual: boolean;
+
+  constructor(code: ErrorCode, reason: string, options: GloamingErrorOptions = {}) {
+    const where = formatPlace(options.place);
+    let text = reason;
+    if ('actual' in options) text += ` (got ${describeValue(options.actual)})`;
+    if (options.expected) text += `; expected ${options.expected}`;
+    if (options.hint) text += ` — ${options.hint}`;
+    super(where ? `${where}: ${text}` : text, options.cause === undefined ? undefined : { cause: options.cause });
+    this.code = code;
+    this.place = options.place;
+    this.actual = options.actual;
+    this.expected = options.expected;
+    this.hint = options.hint;
+    this.reason = reason;
+    this.hasActual = 'actual' in options;
+  }
+
+  /** A copy of this error placed inside a file (or a larger structure); its own line, column and field win. */
+  at(outer: Place): GloamingError {
+    const options: GloamingErrorOptions = { place: { ...outer, ...this.place }, cause: this.cause };
+    if (this.hasActual) options.actual = this.actual;
+    if (this.expected) options.expected = this.expected;
+    if (this.hint) options.hint = this.hint;
+    return new GloamingError(this.code, this.reason, options);
+  }
+
+}
+
+/** Levenshtein distance, for "did you mean" suggestions. */
+function editDistance(a: string, b: string): number {
+  const row = Array.from({ length: b.length + 1 }, (_, j) => j);
+  for (let i = 1; i <= a.length; i++) {
+    let prev = row[0]!;
+    row[0] = i;
+    for (let j = 1; j <= b.length; j++) {
+      const tmp = row[j]!;
+      row[j] = Math.min(row[j]! + 1, row[j - 1]! + 1, prev + (a[i - 1] === b[j - 1] ? 0 : 1));
+      prev = tmp;
+    }
+  }
+  return row[b.length]!;
+}
+
+/** The closest candidate to `word`, if it is close enough to be a likely typo. */
+export function closest(word: string, candidates: Iterable<string>): string | undefined {
+  let best: string | undefined;
+  let bestDistance = Infinity;
+  const lower = word.toLowerCase();
+  for (const candidate of candidates) {
+    const d = editDistance(lower, candidate.toLowerCase());
+    if (d < bestDistance) {
+      bestDistance = d;
+      best = candidate;
+    }
+  }
+  return best !== undefined && bestDistance <= Math.max(2, Math.floor(word.length / 3)) ? best : undefined;
+}
+
+/** A "did you mean" hint, or undefined when nothing is close. */
+export function didYouMean(word: string, candidates: Iterable<string>): string | undefined {
+  const match = closest(word, candidates);
+  return match ? `did you mean '${match}'?` : undefined;
+}
