@@ -82,6 +82,8 @@ export class GloamingError extends Error {
   readonly hint: string | undefined;
   /** The message without the place prefix. */
   readonly reason: string;
+  /** The message without the place prefix: reason, offending value, expectation and hint. */
+  readonly detail: string;
   /** Whether an offending value was given (it may itself be `undefined`). */
   readonly hasActual: boolean;
 
@@ -98,6 +100,7 @@ export class GloamingError extends Error {
     this.expected = options.expected;
     this.hint = options.hint;
     this.reason = reason;
+    this.detail = text;
     this.hasActual = 'actual' in options;
   }
 

@@ -1,0 +1,151 @@
+/**
+ * Bodies: the things gloaming can observe. The Sun, the Moon and the planets come from
+ * `astronomy-engine` (VSOP87 for planets, a truncated ELP for the Moon); comets and asteroids
+ * defined by orbital elements implement the same `Body` interface in `lib/orbit/`, so every
+ * later step (observe, events, visibility, description) treats them alike.
+ */
+import * as Astronomy from 'astronomy-engine';
+import { GloamingError, didYouMean } from './errors.ts';
+
+export type BodyKind = 'sun' | 'moon' | 'planet' | 'comet' | 'asteroid';
+
+/** An expected visual magnitude, possibly as a range when the model is uncertain (comets). */
+export interface MagnitudeEstimate {
+  /** Best estimate, V magnitude. */
+  value: number;
+  /** Brightest plausible value (smaller number), when the source gives a band. */
+  brightest?: number;
+  /** Faintest plausible value (larger number), when the source gives a band. */
+  faintest?: number;
+}
+
+/** Geometry of a body against the Sun and the Earth at one moment (all geocentric). */
+export interface Illumination {
+  /** Distance Sun–body, AU (r). */
+  heliocentricDistanceAu: number;
+  /** Distance Earth centre–body, AU (Δ). */
+  geocentricDistanceAu: number;
+  /** Sun–body–Earth angle, degrees (α). */
+  phaseAngleDeg: number;
+  /** Fraction of the disc lit as seen from Earth, 0–1. */
+  illuminatedFraction: number;
+  magnitude: MagnitudeEstimate;
+}
+
+export interface Body {
+  /** Stable lower-case id used on the command line and in placeholders (`jupiter`, `example-comet`). */
+  readonly id: string;
+  /** Display name ("Jupiter", "Comet Example"). */
+  readonly name: string;
+  readonly kind: BodyKind;
+  /** Mean equatorial radius, km; 0 for bodies treated as points. Gives the semidiameter for rise and set. */
+  readonly radiusKm: number;
+  /**
+   * Geocentric position, J2000 mean equator (EQJ), AU, at observation time `time`, corrected for
+   * light travel time. With `aberration: true` the body is taken where it was when the light left
+   * it and the Earth where it is at `time` (the apparent direction, including aberration to first
+   * order); with `false` both are taken at the light departure time. This is the convention of
+   * `astronomy-engine`'s `GeoVector`, which planets use directly.
+   */
+  geoVector(time: Astronomy.AstroTime, options: { aberration: boolean }): Astronomy.Vector;
+  /** Distances, phase and expected magnitude at `time` (geocentric). */
+  illumination(time: Astronomy.AstroTime): Illumination;
+}
+
+const PLANETS = {
+  sun: { body: Astronomy.Body.Sun, name: 'Sun', kind: 'sun', radiusKm: 695_700 },
+  moon: { body: Astronomy.Body.Moon, name: 'Moon', kind: 'moon', radiusKm: 1737.4 },
+  mercury: { body: Astronomy.Body.Mercury, name: 'Mercury', kind: 'planet', radiusKm: 2439.7 },
+  venus: { body: Astronomy.Body.Venus, name: 'Venus', kind: 'planet', radiusKm: 6051.8 },
+  mars: { body: Astronomy.Body.Mars, name: 'Mars', kind: 'planet', radiusKm: 3396.2 },
+  jupiter: { body: Astronomy.Body.Jupiter, name: 'Jupiter', kind: 'planet', radiusKm: 71_492 },
+  saturn: { body: Astronomy.Body.Saturn, name: 'Saturn', kind: 'planet', radiusKm: 60_268 },
+  uranus: { body: Astronomy.Body.Uranus, name: 'Uranus', kind: 'planet', radiusKm: 25_559 },
+  neptune: { body: Astronomy.Body.Neptune, name: 'Neptune', kind: 'planet', radiusKm: 24_764 },
+} as const satisfies Record<string, { body: Astronomy.Body; name: string; kind: BodyKind; radiusKm: number }>;
+
+/** Ids of the built-in bodies, in the order bulletins list them. */
+export const BUILT_IN_IDS = Object.keys(PLANETS) as (keyof typeof PLANETS)[];
+/** The planets Mercury–Neptune. */
+export const PLANET_IDS = BUILT_IN_IDS.filter((id) => PLANETS[id].kind === 'planet');
+
+/** A body computed by `astronomy-engine`. Exposes the engine's enum for callers that need it. */
+export interface EngineBody extends Body {
+  readonly engineBody: Astronomy.Body;
+}
+
+function engineBody(id: keyof typeof PLANETS): EngineBody {
+  const spec = PLANETS[id];
+  return {
+    id,
+    name: spec.name,
+    kind: spec.kind,
+    radiusKm: spec.radiusKm,
+    engineBody: spec.body,
+    geoVector: (time, { aberration }) => Astronomy.GeoVector(spec.body, time, aberration),
+    illumination(time) {
+      if (spec.body === Astronomy.Body.Sun) {
+        const geo = Astronomy.GeoVector(Astronomy.Body.Sun, time, true).Length();
+        // Apparent V magnitude of the Sun, −26.74 at 1 AU (Allen's Astrophysical Quantities, 4th ed.).
+        return {
+          heliocentricDistanceAu: 0,
+          geocentricDistanceAu: geo,
+          phaseAngleDeg: 0,
+          illuminatedFraction: 1,
+          magnitude: { value: -26.74 + 5 * Math.log10(geo) },
+        };
+      }
+      const info = Astronomy.Illumination(spec.body, time);
+      return {
+        heliocentricDistanceAu: info.helio_dist,
+        geocentricDistanceAu: info.geo_dist,
+        phaseAngleDeg: info.phase_angle,
+        illuminatedFraction: info.phase_fraction,
+        magnitude: { value: info.mag },
+      };
+    },
+  };
+}
+
+const BUILT_IN = new Map<string, EngineBody>(BUILT_IN_IDS.map((id) => [id, engineBody(id)]));
+
+/** A registry of bodies: the built-in ones plus any objects loaded from `content/objects/`. */
+export class BodyRegistry {
+  readonly #extra = new Map<string, Body>();
+
+  /** Adds an object; its id must not clash with a built-in body or another object. */
+  add(body: Body): this {
+    if (BUILT_IN.has(body.id) || this.#extra.has(body.id)) {
+      throw new GloamingError('invalid-value', `body id '${body.id}' is already taken`, {
+        place: { field: 'id' },
+        actual: body.id,
+        expected: 'an id not used by a built-in body or another object',
+      });
+    }
+    this.#extra.set(body.id, body);
+    return this;
+  }
+
+  /** All known ids: built-in first, then objects in the order they were added. */
+  ids(): string[] {
+    return [...BUILT_IN.keys(), ...this.#extra.keys()];
+  }
+
+  /** Looks up a body by id (case-insensitive); unknown ids raise `unknown-body` with a suggestion. */
+  get(id: string, place?: { field?: string }): Body {
+    const key = id.trim().toLowerCase();
+    const found = BUILT_IN.get(key) ?? this.#extra.get(key);
+    if (found) return found;
+    const hint = didYouMean(key, this.ids());
+    throw new GloamingError('unknown-body', `unknown body '${id}'`, {
+      ...(place ? { place } : {}),
+      expected: `one of ${this.ids().join(', ')}`,
+      ...(hint ? { hint } : {}),
+    });
+  }
+}
+
+/** The built-in body with this id (sun, moon, mercury … neptune). */
+export function builtInBody(id: (typeof BUILT_IN_IDS)[number]): EngineBody {
+  return BUILT_IN.get(id)!;
+}

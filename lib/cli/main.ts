@@ -1,0 +1,218 @@
+/**
+ * `gloaming` command line: `position`, `night` (and later commands). Prints JSON with `--json`,
+ * a short summary otherwise. Wrong input exits with code 2 and one line naming the argument,
+ * the bad value and what is expected.
+ */
+import { parseArgs, type ParseArgsConfig } from 'node:util';
+import { resolve } from 'node:path';
+import { BodyRegistry, BUILT_IN_IDS, type Body } from '../body.ts';
+import { findSite, loadSites } from '../content.ts';
+import { compass, describeAltitude } from '../describe.ts';
+import { GloamingError } from '../errors.ts';
+import { computeNight } from '../night.ts';
+import { observe } from '../observe.ts';
+import { defineSite, parseSkyArgument, type Site } from '../site.ts';
+import { formatInstant, parseInstant, parseLocalDate } from '../time.ts';
+import { nightJson, positionJson, round } from './format.ts';
+import { MISSING_REASON_TEXT, type EventTime } from '../events.ts';
+import { PHASE_LABEL } from '../moon.ts';
+
+const FLAG_OF_FIELD: Record<string, string> = {
+  latitude: '--lat',
+  longitude: '--lon',
+  elevation: '--elevation',
+  timeZone: '--tz',
+  sky: '--sky',
+  date: '--date',
+  at: '--at',
+  body: '--body',
+  site: '--site',
+};
+
+const COMMON = {
+  lat: { type: 'string' },
+  lon: { type: 'string' },
+  elevation: { type: 'string' },
+  site: { type: 'string' },
+  content: { type: 'string' },
+  body: { type: 'string', multiple: true },
+  json: { type: 'boolean' },
+  help: { type: 'boolean', short: 'h' },
+} as const satisfies ParseArgsConfig['options'];
+
+const HELP: Record<string, string> = {
+  main: `gloaming — computed night-sky bulletins
+
+Usage: gloaming <command> [options]
+
+Commands:
+  position   where a body is at one instant (topocentric and J2000 coordinates, altitude, magnitude)
+  night      the night that begins on a local evening: twilight, the Moon, rise/transit/set of bodies
+
+Run 'gloaming <command> --help' for the options of a command.`,
+  position: `gloaming position — where a body is at one instant
+
+Usage: gloaming position (--lat <deg> --lon <deg> [--elevation <m>] | --site <id>) --at <instant> --body <id> [--json]
+
+  --lat <deg>         latitude, degrees north (−90…90)
+  --lon <deg>         longitude, degrees east (−180…180)
+  --elevation <m>     height above sea level, metres (default 0)
+  --site <id>         a site from content/sites/ instead of --lat/--lon
+  --at <instant>      ISO 8601 instant with zone, e.g. 2026-12-04T18:30:00Z
+  --body <id>         ${BUILT_IN_IDS.join(', ')}, or an object id from content/objects/
+  --content <dir>     content folder (default ./content)
+  --json              print one JSON object`,
+  night: `gloaming night — the night that begins on a local evening
+
+Usage: gloaming night (--lat <deg> --lon <deg> [--elevation <m>] --tz <zone> | --site <id>) --date <YYYY-MM-DD>
+                      [--body <id> ...] [--sky bortle:<n>|sqm:<x>|nelm:<x>] [--json]
+
+  --lat, --lon, --elevation, --site, --content   as for 'position'
+  --tz <zone>         IANA time zone, e.g. Europe/Berlin
+  --date <date>       local date of the evening, YYYY-MM-DD
+  --body <id>         repeatable; default: the Moon and all planets
+  --sky <quality>     bortle:<1–9>, sqm:<mag/arcsec²> or nelm:<magnitude>
+  --json              print one JSON object
+
+Event times are ISO 8601 with the site's UTC offset, or null when the event does not happen
+between local noon and the next local noon (a reason is given).`,
+};
+
+/** A command-line problem: exit code 2, one line. */
+class UsageError extends Error {}
+
+function toNumber(text: string | undefined, flag: string, expected: string): number | undefined {
+  if (text === undefined) return undefined;
+  const n = Number(text);
+  if (text.trim() === '' || !Number.isFinite(n)) throw new UsageError(`${flag}: '${text}' is not a number; expected ${expected}`);
+  return n;
+}
+
+function requireFlag<T>(value: T | undefined, flag: string, expected: string): T {
+  if (value === undefined) throw new UsageError(`${flag} is required; expected ${expected}`);
+  return value;
+}
+
+function registry(contentDir: string): BodyRegistry {
+  void contentDir;
+  return new BodyRegistry();
+}
+
+function siteFrom(values: Record<string, unknown>, needZone: boolean): Site {
+  const contentDir = resolve(String(values.content ?? 'content'));
+  if (typeof values.site === 'string') {
+    return findSite(loadSites(resolve(contentDir, 'sites')), values.site, { field: 'site' });
+  }
+  const latitude = requireFlag(toNumber(values.lat as string | undefined, '--lat', 'degrees north, −90 to 90'), '--lat', 'degrees north, −90 to 90 (or --site <id>)');
+  const longitude = requireFlag(toNumber(values.lon as string | undefined, '--lon', 'degrees east, −180 to 180'), '--lon', 'degrees east, −180 to 180');
+  const elevation = toNumber(values.elevation as string | undefined, '--elevation', 'metres above sea level');
+  const tz = needZone ? requireFlag(values.tz as string | undefined, '--tz', "an IANA time zone such as 'Europe/Berlin'") : 'UTC';
+  return defineSite({
+    latitude,
+    longitude,
+    ...(elevation !== undefined ? { elevation } : {}),
+    timeZone: tz,
+    ...(typeof values.sky === 'string' ? { sky: parseSkyArgument(values.sky) } : {}),
+  });
+}
+
+function bodiesFrom(values: Record<string, unknown>, fallback: string[]): Body[] {
+  const reg = registry(String(values.content ?? 'content'));
+  const ids = (values.body as string[] | undefined) ?? fallback;
+  return ids.map((id) => reg.get(id, { field: 'body' }));
+}
+
+function timeText(e: EventTime, zone: string): string {
+  return e.time ? formatInstant(e.time, zone).slice(11, 16) : `— (${MISSING_REASON_TEXT[e.reason]})`;
+}
+
+function runPosition(args: string[], out: (s: string) => void): void {
+  const { values } = parseArgs({ args, options: { ...COMMON, at: { type: 'string' } }, strict: true });
+  if (values.help) return out(HELP.position!);
+  const site = siteFrom(values, false);
+  const at = parseInstant(requireFlag(values.at, '--at', 'an ISO 8601 instant, e.g. 2026-12-04T18:30:00Z'));
+  const ids = requireFlag(values.body, '--body', `a body id: ${BUILT_IN_IDS.join(', ')}`);
+  if (ids.length !== 1) throw new UsageError(`--body: give exactly one body for 'position' (got ${ids.length})`);
+  const [body] = bodiesFrom(values, []);
+  const o = observe(site, body!, at);
+  if (values.json) return out(JSON.stringify(positionJson(o), null, 2));
+  const dir = compass(o.azimuthDeg);
+  out(
+    `${o.body.name} at ${o.time.date.toISOString()}: ${describeAltitude(o.altitudeDeg).words} in the ${dir.word} (azimuth ${round(o.azimuthDeg, 1)}°), ` +
+      `magnitude ${round(o.magnitude.value, 1)}, in ${o.constellation}; ${round(o.elongationDeg, 1)}° from the Sun.`,
+  );
+}
+
+function runNight(args: string[], out: (s: string) => void): void {
+  const { values } = parseArgs({
+    args,
+    options: { ...COMMON, tz: { type: 'string' }, date: { type: 'string' }, sky: { type: 'string' } },
+    strict: true,
+  });
+  if (values.help) return out(HELP.night!);
+  const site = siteFrom(values, true);
+  const date = requireFlag(values.date, '--date', 'the local date of the evening, YYYY-MM-DD');
+  parseLocalDate(date);
+  const bodies = bodiesFrom(values, ['moon', 'mercury', 'venus', 'mars', 'jupiter', 'saturn', 'uranus', 'neptune']).filter(
+    (b) => b.kind !== 'moon' || values.body !== undefined,
+  );
+  const report = computeNight(site, date, bodies);
+  if (values.json) return out(JSON.stringify(nightJson(report), null, 2));
+  const zone = site.timeZone;
+  const s = report.sun;
+  const lines = [
+    `Night of ${date} at ${round(site.latitudeDeg, 4)}°, ${round(site.longitudeDeg, 4)}° (${zone})`,
+    `Sun: sets ${timeText(s.set, zone)}, civil dusk ${timeText(s.civilDusk, zone)}, nautical dusk ${timeText(s.nauticalDusk, zone)}, ` +
+      `astronomical dusk ${timeText(s.astronomicalDusk, zone)}; astronomical dawn ${timeText(s.astronomicalDawn, zone)}, rises ${timeText(s.rise, zone)}`,
+    `Moon: ${PHASE_LABEL[report.moon.phase.name]}, ${Math.round(report.moon.phase.illuminatedFraction * 100)}% lit; rises ${timeText(report.moon.rise, zone)}, ` +
+      `transits ${timeText(report.moon.transit, zone)}, sets ${timeText(report.moon.set, zone)}`,
+    ...report.bodies.map(
+      (b) => `${b.body.name}: rises ${timeText(b.rise, zone)}, transits ${timeText(b.transit, zone)}, sets ${timeText(b.set, zone)}`,
+    ),
+  ];
+  out(lines.join('\n'));
+}
+
+const COMMANDS: Record<string, (args: string[], out: (s: string) => void) => void> = {
+  position: runPosition,
+  night: runNight,
+};
+
+/** Runs the command line; returns the exit code (0 ok, 2 bad input, 1 unexpected failure). */
+export function main(argv: string[], out: (s: string) => void = console.log, err: (s: string) => void = console.error): number {
+  const [command, ...rest] = argv;
+  if (!command || command === '--help' || command === '-h' || command === 'help') {
+    out(HELP.main!);
+    return command ? 0 : 2;
+  }
+  const run = COMMANDS[command];
+  if (!run) {
+    err(`gloaming: unknown command '${command}'; expected one of ${Object.keys(COMMANDS).join(', ')}`);
+    return 2;
+  }
+  try {
+    run(rest, out);
+    return 0;
+  } catch (error) {
+    if (error instanceof UsageError) {
+      err(`gloaming ${command}: ${error.message}`);
+      return 2;
+    }
+    if (error instanceof GloamingError) {
+      const field = error.place?.field;
+      const flag = field && !error.place?.file ? (FLAG_OF_FIELD[field.split('.')[0]!] ?? field) : undefined;
+      err(`gloaming ${command}: ${flag ? `${flag}: ${error.detail}` : error.message}`);
+      return 2;
+    }
+    if (error instanceof Error && 'code' in error && String(error.code).startsWith('ERR_PARSE_ARGS')) {
+      err(`gloaming ${command}: ${error.message}; see 'gloaming ${command} --help'`);
+      return 2;
+    }
+    err(`gloaming ${command}: internal error: ${error instanceof Error ? (error.stack ?? error.message) : String(error)}`);
+    return 1;
+  }
+}
+
+if (import.meta.main) {
+  process.exitCode = main(process.argv.slice(2));
+}

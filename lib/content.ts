@@ -1,0 +1,54 @@
+/**
+ * Content loading: sites from `content/sites/*.yaml`. Each file is parsed with positions, so a
+ * bad value is reported as `file:line:column field '…': what is wrong; what is expected`.
+ */
+import { readdirSync, readFileSync } from 'node:fs';
+import { basename, join } from 'node:path';
+import { GloamingError, didYouMean } from './errors.ts';
+import { defineSite, type Site } from './site.ts';
+import { loadYaml, validateYaml } from './yaml.ts';
+
+/** Parses one site file. The id defaults to the file name without `.yaml`. */
+export function parseSite(text: string, file: string): Site {
+  const source = loadYaml(text, file);
+  return validateYaml(source, (data) => {
+    const withId = data && typeof data === 'object' && !Array.isArray(data) && !('id' in data) ? { id: basename(file).replace(/\.ya?ml$/, ''), ...data } : data;
+    return defineSite(withId);
+  });
+}
+
+/** Every `*.yaml` file of a folder, sorted by name (so builds are deterministic). */
+export function yamlFiles(dir: string): string[] {
+  let names: string[];
+  try {
+    names = readdirSync(dir);
+  } catch {
+    return [];
+  }
+  return names.filter((n) => /\.ya?ml$/.test(n)).sort().map((n) => join(dir, n));
+}
+
+/** Loads all sites of `content/sites/` (or another folder), checking that ids are unique. */
+export function loadSites(dir: string): Map<string, Site> {
+  const sites = new Map<string, Site>();
+  for (const file of yamlFiles(dir)) {
+    const site = parseSite(readFileSync(file, 'utf8'), file);
+    if (sites.has(site.id)) {
+      throw new GloamingError('invalid-value', `site id '${site.id}' is used twice`, { place: { file, field: 'id' }, expected: 'a unique id per site' });
+    }
+    sites.set(site.id, site);
+  }
+  return sites;
+}
+
+/** The site with `id`, or an `unknown-site` error with a suggestion. */
+export function findSite(sites: Map<string, Site>, id: string, place?: { field?: string }): Site {
+  const site = sites.get(id);
+  if (site) return site;
+  const hint = didYouMean(id, sites.keys());
+  throw new GloamingError('unknown-site', `unknown site '${id}'`, {
+    ...(place ? { place } : {}),
+    expected: sites.size ? `one of ${[...sites.keys()].join(', ')}` : 'a site defined in content/sites/',
+    ...(hint ? { hint } : {}),
+  });
+}

@@ -1,0 +1,131 @@
+/**
+ * Daily events of one night: rise, transit and set of any body, and the Sun's twilights.
+ * All are zero crossings found by `search.ts` on a body's `Track`.
+ *
+ * Definitions (USNO "Rise, Set, and Twilight Definitions"; Meeus, *Astronomical Algorithms*, ch. 15):
+ * - rise / set: the upper limb touches the ideal horizon, i.e. the geometric altitude of the
+ *   centre is −(34′ + semidiameter) (34′ = standard horizontal refraction);
+ * - transit: upper culmination, hour angle 0;
+ * - civil / nautical / astronomical dusk and dawn: the Sun's centre is geometrically 6°, 12°, 18°
+ *   below the horizon.
+ * An event that does not happen within the night is `null`, with a reason saying why.
+ */
+import { findCrossings, type Crossing } from './search.ts';
+import { HORIZON_REFRACTION_DEG } from './observe.ts';
+import { dateFromUt, type NightFrame, type Track } from './track.ts';
+
+/** Why an event is missing from a night. */
+export type MissingReason =
+  | 'always-above' // circumpolar: never sets this night
+  | 'always-below' // never rises this night
+  | 'outside-night' // happens, but before local noon or after the next local noon
+  | 'stays-above' // twilight: the Sun never gets that far below the horizon (no darkness of that kind)
+  | 'stays-below'; // twilight: the Sun never gets that high (polar night)
+
+export const MISSING_REASON_TEXT: Record<MissingReason, string> = {
+  'always-above': 'stays above the horizon all night',
+  'always-below': 'stays below the horizon all night',
+  'outside-night': 'happens outside this night (before local noon or after the next local noon)',
+  'stays-above': 'the Sun does not sink that far below the horizon this night',
+  'stays-below': 'the Sun stays below that altitude all night',
+};
+
+/** An event time, or null with the reason it does not happen. */
+export type EventTime = { time: Date; reason?: undefined } | { time: null; reason: MissingReason };
+
+export interface RiseTransitSet {
+  rise: EventTime;
+  transit: EventTime & { altitudeDeg?: number };
+  set: EventTime;
+}
+
+const SEARCH_STEP_DAYS = 10 / 1440;
+
+/** Geometric altitude of the centre minus the rise/set altitude −(34′ + semidiameter), degrees. */
+function horizonFunction(track: Track): (ut: number) => number {
+  return (ut) => track.at(ut).geometricAltitudeDeg + HORIZON_REFRACTION_DEG + track.semidiameterDeg(ut);
+}
+
+function first(crossings: Crossing[], direction: 1 | -1): Crossing | undefined {
+  return crossings.find((c) => c.direction === direction);
+}
+
+/** Altitude extremes over the night, sampled (for explaining missing events). */
+function altitudeRange(f: (ut: number) => number, frame: NightFrame): { min: number; max: number } {
+  let min = Infinity;
+  let max = -Infinity;
+  for (let ut = frame.ut0; ut <= frame.ut1; ut += SEARCH_STEP_DAYS) {
+    const v = f(ut);
+    if (v < min) min = v;
+    if (v > max) max = v;
+  }
+  return { min, max };
+}
+
+function missing(f: (ut: number) => number, frame: NightFrame, twilight: boolean): EventTime {
+  const { min, max } = altitudeRange(f, frame);
+  if (min > 0) return { time: null, reason: twilight ? 'stays-above' : 'always-above' };
+  if (max < 0) return { time: null, reason: twilight ? 'stays-below' : 'always-below' };
+  return { time: null, reason: 'outside-night' };
+}
+
+/** Rise, transit and set of a body within the night of `frame` (the first of each). */
+export function riseTransitSet(frame: NightFrame, track: Track): RiseTransitSet {
+  const f = horizonFunction(track);
+  const crossings = findCrossings(f, frame.ut0, frame.ut1, { stepDays: SEARCH_STEP_DAYS });
+  const rise = first(crossings, 1);
+  const set = first(crossings, -1);
+  const transits = findCrossings((ut) => track.at(ut).hourAngleHours, frame.ut0, frame.ut1, {
+    stepDays: SEARCH_STEP_DAYS,
+    accept: (a, b) => Math.abs(a) < 6 && Math.abs(b) < 6,
+  });
+  const transit = transits[0];
+  return {
+    rise: rise ? { time: dateFromUt(rise.ut) } : missing(f, frame, false),
+    set: set ? { time: dateFromUt(set.ut) } : missing(f, frame, false),
+    transit: transit
+      ? { time: dateFromUt(transit.ut), altitudeDeg: track.at(transit.ut).geometricAltitudeDeg }
+      : { time: null, reason: 'outside-night' },
+  };
+}
+
+/** The Sun's events of one night, in the order they happen on an ordinary night. */
+export interface SunEvents {
+  set: EventTime;
+  civilDusk: EventTime;
+  nauticalDusk: EventTime;
+  astronomicalDusk: EventTime;
+  astronomicalDawn: EventTime;
+  nauticalDawn: EventTime;
+  civilDawn: EventTime;
+  rise: EventTime;
+}
+
+/** Sunset, twilights and sunrise of the night of `frame`. */
+export function sunEvents(frame: NightFrame): SunEvents {
+  const sun = frame.sun;
+  const rs = riseTransitSet(frame, sun);
+  const twilight = (depthDeg: number): { dusk: EventTime; dawn: EventTime } => {
+    const f = (ut: number): number => sun.at(ut).geometricAltitudeDeg + depthDeg;
+    const c = findCrossings(f, frame.ut0, frame.ut1, { stepDays: SEARCH_STEP_DAYS });
+    const dusk = first(c, -1);
+    const dawn = first(c, 1);
+    return {
+      dusk: dusk ? { time: dateFromUt(dusk.ut) } : missing(f, frame, true),
+      dawn: dawn ? { time: dateFromUt(dawn.ut) } : missing(f, frame, true),
+    };
+  };
+  const civil = twilight(6);
+  const nautical = twilight(12);
+  const astronomical = twilight(18);
+  return {
+    set: rs.set,
+    civilDusk: civil.dusk,
+    nauticalDusk: nautical.dusk,
+    astronomicalDusk: astronomical.dusk,
+    astronomicalDawn: astronomical.dawn,
+    nauticalDawn: nautical.dawn,
+    civilDawn: civil.dawn,
+    rise: rs.rise,
+  };
+}

@@ -1,0 +1,79 @@
+/**
+ * The Moon's phase: name, lit fraction, phase angle and age.
+ *
+ * Phase names follow the Moon's geocentric ecliptic elongation from the Sun (0° new, 90° first
+ * quarter, 180° full, 270° last quarter). A principal phase name is used within ±6.1° of its
+ * exact elongation — half a day either side of the instant, at the Moon's mean elongation rate of
+ * 12.19°/day — so the name matches the calendar day of the event; otherwise the intermediate name.
+ */
+import * as Astronomy from 'astronomy-engine';
+import { astroTime, type Instant } from './observe.ts';
+
+export type PhaseName =
+  | 'new-moon'
+  | 'waxing-crescent'
+  | 'first-quarter'
+  | 'waxing-gibbous'
+  | 'full-moon'
+  | 'waning-gibbous'
+  | 'last-quarter'
+  | 'waning-crescent';
+
+export const PHASE_LABEL: Record<PhaseName, string> = {
+  'new-moon': 'New Moon',
+  'waxing-crescent': 'Waxing crescent',
+  'first-quarter': 'First quarter',
+  'waxing-gibbous': 'Waxing gibbous',
+  'full-moon': 'Full Moon',
+  'waning-gibbous': 'Waning gibbous',
+  'last-quarter': 'Last quarter',
+  'waning-crescent': 'Waning crescent',
+};
+
+/** Half-width of a principal phase, degrees of elongation (half a day at 12.19°/day). */
+const PRINCIPAL_HALF_WIDTH_DEG = 6.1;
+
+export interface MoonPhase {
+  name: PhaseName;
+  /** Geocentric ecliptic longitude of the Moon minus that of the Sun, degrees 0–360. */
+  elongationDeg: number;
+  /** Fraction of the disc lit, 0–1. */
+  illuminatedFraction: number;
+  /** Sun–Moon–Earth angle, degrees (0 at full). */
+  phaseAngleDeg: number;
+  /** Days since the most recent new Moon. */
+  ageDays: number;
+}
+
+/** The phase name for an elongation in degrees (0–360). */
+export function phaseName(elongationDeg: number): PhaseName {
+  const e = ((elongationDeg % 360) + 360) % 360;
+  const principal: [number, PhaseName][] = [
+    [0, 'new-moon'],
+    [90, 'first-quarter'],
+    [180, 'full-moon'],
+    [270, 'last-quarter'],
+    [360, 'new-moon'],
+  ];
+  for (const [at, name] of principal) if (Math.abs(e - at) <= PRINCIPAL_HALF_WIDTH_DEG) return name;
+  if (e < 90) return 'waxing-crescent';
+  if (e < 180) return 'waxing-gibbous';
+  if (e < 270) return 'waning-gibbous';
+  return 'waning-crescent';
+}
+
+/** The Moon's phase at `instant` (geocentric). */
+export function moonPhase(instant: Instant): MoonPhase {
+  const time = astroTime(instant);
+  const elongationDeg = Astronomy.MoonPhase(time);
+  const illum = Astronomy.Illumination(Astronomy.Body.Moon, time);
+  // The previous new Moon lies within the last 30 days; search forward from 31 days before.
+  const lastNew = Astronomy.SearchMoonPhase(0, time.AddDays(-(elongationDeg / 12.19) - 2), 4);
+  return {
+    name: phaseName(elongationDeg),
+    elongationDeg,
+    illuminatedFraction: illum.phase_fraction,
+    phaseAngleDeg: illum.phase_angle,
+    ageDays: lastNew ? time.ut - lastNew.ut : (elongationDeg / 360) * 29.530589,
+  };
+}

@@ -1,0 +1,210 @@
+/**
+ * Civil time in a site's zone. All conversions go through the platform's IANA zone data
+ * (`Intl.DateTimeFormat`), never through hand-made offset tables, so daylight-saving changes are
+ * right wherever the platform is right.
+ *
+ * Vocabulary:
+ * - a *local date* is a `YYYY-MM-DD` string in the site's zone;
+ * - a *night* runs from local noon of its date to local noon of the next date, so the evening
+ *   and the following morning belong to the same night;
+ * - a *week* is the ISO 8601 week (Monday to Sunday) containing a date.
+ */
+import { GloamingError } from './errors.ts';
+
+const formatters = new Map<string, Intl.DateTimeFormat>();
+
+function formatter(zone: string): Intl.DateTimeFormat {
+  let f = formatters.get(zone);
+  if (!f) {
+    f = new Intl.DateTimeFormat('en-US', {
+      timeZone: zone,
+      hourCycle: 'h23',
+      year: 'numeric',
+      month: '2-digit',
+      day: '2-digit',
+      hour: '2-digit',
+      minute: '2-digit',
+      second: '2-digit',
+    });
+    formatters.set(zone, f);
+  }
+  return f;
+}
+
+/** Checks that `zone` is an IANA zone the platform knows; returns its canonical spelling. */
+export function assertTimeZone(zone: string, field = 'timeZone'): string {
+  try {
+    return new Intl.DateTimeFormat('en-US', { timeZone: zone }).resolvedOptions().timeZone;
+  } catch {
+    throw new GloamingError('unknown-zone', `unknown time zone '${zone}'`, {
+      place: { field },
+      expected: "an IANA time zone such as 'Europe/Berlin' or 'America/Santiago'",
+    });
+  }
+}
+
+/** Calendar fields of an instant in a zone. */
+export interface ZonedParts {
+  year: number;
+  month: number;
+  day: number;
+  hour: number;
+  minute: number;
+  second: number;
+}
+
+/** The wall-clock fields of `instant` in `zone` (seconds truncated). */
+export function zonedParts(instant: Date, zone: string): ZonedParts {
+  const parts = formatter(zone).formatToParts(instant);
+  const get = (type: Intl.DateTimeFormatPartTypes): number => Number(parts.find((p) => p.type === type)!.value);
+  return {
+    year: get('year'),
+    month: get('month'),
+    day: get('day'),
+    hour: get('hour'),
+    minute: get('minute'),
+    second: get('second'),
+  };
+}
+
+/** UTC offset of `zone` at `instant`, minutes east of Greenwich (e.g. +60 for CET). */
+export function offsetMinutes(instant: Date, zone: string): number {
+  const p = zonedParts(instant, zone);
+  const asUtc = Date.UTC(p.year, p.month - 1, p.day, p.hour, p.minute, p.second);
+  const truncated = Math.floor(instant.getTime() / 1000) * 1000;
+  return Math.round((asUtc - truncated) / 60_000);
+}
+
+const DATE_RE = /^(\d{4})-(\d{2})-(\d{2})$/;
+
+/** Reads a `YYYY-MM-DD` date; raises `invalid-date` naming `field` when it is not a real date. */
+export function parseLocalDate(text: string, field = 'date'): { year: number; month: number; day: number } {
+  const m = DATE_RE.exec(text.trim());
+  const value = m && { year: Number(m[1]), month: Number(m[2]), day: Number(m[3]) };
+  if (!value || !isRealDate(value.year, value.month, value.day)) {
+    throw new GloamingError('invalid-date', `cannot read the date '${text}'`, {
+      place: { field },
+      expected: 'a calendar date written YYYY-MM-DD, e.g. 2026-12-04',
+    });
+  }
+  return value;
+}
+
+function isRealDate(year: number, month: number, day: number): boolean {
+  const d = new Date(Date.UTC(year, month - 1, day));
+  return d.getUTCFullYear() === year && d.getUTCMonth() === month - 1 && d.getUTCDate() === day;
+}
+
+const INSTANT_RE = /^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}(:\d{2}(\.\d+)?)?(Z|[+-]\d{2}:?\d{2})$/;
+
+/** Reads an ISO 8601 instant with an explicit offset or `Z`; raises `invalid-date` otherwise. */
+export function parseInstant(text: string, field = 'at'): Date {
+  const d = new Date(text.trim());
+  if (!INSTANT_RE.test(text.trim()) || Number.isNaN(d.getTime())) {
+    throw new GloamingError('invalid-date', `cannot read the instant '${text}'`, {
+      place: { field },
+      expected: 'an ISO 8601 instant with a zone, e.g. 2026-12-04T18:30:00Z or 2026-12-04T19:30+01:00',
+    });
+  }
+  return d;
+}
+
+/** Formats a date as `YYYY-MM-DD`. */
+export function formatLocalDate(year: number, month: number, day: number): string {
+  return `${String(year).padStart(4, '0')}-${String(month).padStart(2, '0')}-${String(day).padStart(2, '0')}`;
+}
+
+/** The local date `days` after `date` (calendar arithmetic, no zone involved). */
+export function addDays(date: string, days: number): string {
+  const { year, month, day } = parseLocalDate(date);
+  const d = new Date(Date.UTC(year, month - 1, day + days));
+  return formatLocalDate(d.getUTCFullYear(), d.getUTCMonth() + 1, d.getUTCDate());
+}
+
+/**
+ * The instant at which the wall clock in `zone` shows `date` `hour:minute`.
+ * In a spring-forward gap the wall time does not exist: the instant returned is the one the
+ * clock jumps to (e.g. 02:30 → 03:30). In an autumn fold the earlier of the two instants is returned.
+ */
+export function zonedTime(date: string, hour: number, minute: number, zone: string): Date {
+  const { year, month, day } = parseLocalDate(date);
+  const wall = Date.UTC(year, month - 1, day, hour, minute);
+  // Two fixed-point steps converge for every real zone rule (offsets change at most once a day).
+  let guess = wall - offsetMinutes(new Date(wall), zone) * 60_000;
+  guess = wall - offsetMinutes(new Date(guess), zone) * 60_000;
+  const before = wall - offsetMinutes(new Date(guess - 3 * 3600_000), zone) * 60_000;
+  // Autumn fold: the earlier reading also maps back to the wall time.
+  if (before < guess && offsetMinutes(new Date(before), zone) * 60_000 + before === wall) return new Date(before);
+  return new Date(guess);
+}
+
+/** The local date in `zone` of `instant`. */
+export function localDateOf(instant: Date, zone: string): string {
+  const p = zonedParts(instant, zone);
+  return formatLocalDate(p.year, p.month, p.day);
+}
+
+/**
+ * ISO 8601 text of `instant` with the zone's offset, to the second: `2026-12-04T17:42:10+01:00`.
+ * This is the form every gloaming event time takes in JSON.
+ */
+export function formatInstant(instant: Date, zone: string): string {
+  const rounded = new Date(Math.round(instant.getTime() / 1000) * 1000);
+  const p = zonedParts(rounded, zone);
+  const off = offsetMinutes(rounded, zone);
+  const sign = off < 0 ? '-' : '+';
+  const abs = Math.abs(off);
+  const pad = (n: number): string => String(n).padStart(2, '0');
+  return (
+    `${formatLocalDate(p.year, p.month, p.day)}T${pad(p.hour)}:${pad(p.minute)}:${pad(p.second)}` +
+    `${sign}${pad(Math.floor(abs / 60))}:${pad(abs % 60)}`
+  );
+}
+
+/** A night: from local noon of `date` to local noon of the next date. */
+export interface Night {
+  /** Local date of the evening, `YYYY-MM-DD`. */
+  date: string;
+  /** Local noon of `date`. */
+  start: Date;
+  /** Local noon of the next date. */
+  end: Date;
+  timeZone: string;
+}
+
+/** The night that begins on the local evening of `date` in `zone`. */
+export function nightOf(date: string, zone: string): Night {
+  parseLocalDate(date);
+  return { date, start: zonedTime(date, 12, 0, zone), end: zonedTime(addDays(date, 1), 12, 0, zone), timeZone: zone };
+}
+
+/** An ISO 8601 week. */
+export interface IsoWeek {
+  /** ISO week-numbering year (may differ from the calendar year near New Year). */
+  year: number;
+  /** Week number 1–53. */
+  week: number;
+  /** `YYYY-Www`, e.g. `2026-W53`. */
+  id: string;
+  /** The seven local dates Monday…Sunday. */
+  days: string[];
+}
+
+/** The ISO 8601 week (Monday–Sunday) that contains `date`. */
+export function isoWeekOf(date: string): IsoWeek {
+  const { year, month, day } = parseLocalDate(date);
+  const d = new Date(Date.UTC(year, month - 1, day));
+  const weekday = (d.getUTCDay() + 6) % 7; // Monday = 0
+  const monday = addDays(date, -weekday);
+  // The week belongs to the year of its Thursday.
+  const thursday = new Date(Date.UTC(year, month - 1, day - weekday + 3));
+  const isoYear = thursday.getUTCFullYear();
+  const jan1 = Date.UTC(isoYear, 0, 1);
+  const week = 1 + Math.floor((thursday.getTime() - jan1) / (7 * 86_400_000));
+  return {
+    year: isoYear,
+    week,
+    id: `${isoYear}-W${String(week).padStart(2, '0')}`,
+    days: Array.from({ length: 7 }, (_, i) => addDays(monday, i)),
+  };
+}
