@@ -34,10 +34,10 @@ const outFile = `${root}lib/stars/catalogue.json`;
 const MAG_LIMIT = 5.5;
 
 /**
- * Labels in the `name` field that are not names of single stars (from memory: these label a
- * cluster and an infrared source that share θ¹ Ori's Hipparcos entries).
+ * Labels in the `name` field that are not names of single stars (from memory: a cluster and an
+ * infrared source that share θ¹ Ori's Hipparcos entries, and the nickname of the ε Lyr system).
  */
-const NOT_STAR_NAMES = new Set(['Trapezium', "Becklin's Star"]);
+const NOT_STAR_NAMES = new Set(['Trapezium', "Becklin's Star", 'Double Double']);
 
 interface StarFeature {
   id: number;
