@@ -1,0 +1,33 @@
+/**
+ * Benchmarks of the computation core (issue #2): one site-night for the Moon and all planets
+ * (positions at hourly nodes, rise/transit/set, the Sun's twilights, Moon phase) and a year of
+ * consecutive nights for one site.
+ */
+import { builtInBody, PLANET_IDS } from '../lib/body.ts';
+import { defineSite } from '../lib/site.ts';
+import { computeNight } from '../lib/night.ts';
+import { addDays } from '../lib/time.ts';
+import { measure, report, type BenchRow } from './harness.ts';
+
+const site = defineSite({ id: 'bench', latitude: 51.48, longitude: -0.0, timeZone: 'Europe/London' });
+const bodies = PLANET_IDS.map((id) => builtInBody(id));
+
+export async function run(): Promise<BenchRow[]> {
+  let i = 0;
+  const rows: BenchRow[] = [];
+  rows.push(
+    await measure('core: one site-night, Moon + 7 planets + twilight', () => computeNight(site, addDays('2026-01-01', i++ % 365), bodies), { targetMs: 10 }),
+  );
+  rows.push(
+    await measure(
+      'core: a year of nights, one site',
+      () => {
+        for (let d = 0; d < 365; d++) computeNight(site, addDays('2027-01-01', d), bodies);
+      },
+      { targetMs: 1500, timeMs: 3000 },
+    ),
+  );
+  return rows;
+}
+
+if (import.meta.main) report(await run());
