@@ -110,7 +110,7 @@ export function moonlightNl(input: {
   moonPhaseAngleDeg: number;
   kV: number;
 }): number {
-  if (!(input.moonAltitudeDeg >= 0)) return 0;
+  if (input.moonAltitudeDeg < 0) return 0;
   const alpha = Math.abs(input.moonPhaseAngleDeg);
   let illuminance = pow10(-0.4 * (moonMagnitudeKs91(alpha) + 16.57));
   if (alpha < 7) illuminance *= 1 + 0.35 * (1 - alpha / 7);
