@@ -40,6 +40,8 @@ export interface Body {
   readonly kind: BodyKind;
   /** Mean equatorial radius, km; 0 for bodies treated as points. Gives the semidiameter for rise and set. */
   readonly radiusKm: number;
+  /** Apparent coma diameter of a diffuse comet, arcminutes; absent for point-like bodies. */
+  readonly comaDiameterArcmin?: number;
   /**
    * Geocentric position, J2000 mean equator (EQJ), AU, at observation time `time`, corrected for
    * light travel time. With `aberration: true` the body is taken where it was when the light left

@@ -8,11 +8,17 @@ import { builtInBody } from './body.ts';
 import { riseTransitSet, sunEvents, type RiseTransitSet, type SunEvents } from './events.ts';
 import { moonPhase, type MoonPhase } from './moon.ts';
 import type { Site } from './site.ts';
-import { nightOf, zonedTime, addDays, type Night } from './time.ts';
-import { NightFrame } from './track.ts';
+import { localMidnight, nightOf, type Night } from './time.ts';
 
+export { localMidnight };
+import { NightFrame } from './track.ts';
+import { NightVisibility, type Visibility } from './visibility.ts';
+
+/** One body's night: rise, transit and set, and (computed on first use) its visibility. */
 export interface BodyNight extends RiseTransitSet {
   body: Body;
+  /** Best time, window and verdict (see `lib/visibility.ts`), computed once on first read. */
+  readonly visibility: Visibility;
 }
 
 export interface NightReport {
@@ -25,11 +31,8 @@ export interface NightReport {
     phase: MoonPhase;
   };
   bodies: BodyNight[];
-}
-
-/** Local midnight that splits the night of `night.date` (start of the next date). */
-export function localMidnight(night: Night): Date {
-  return zonedTime(addDays(night.date, 1), 0, 0, night.timeZone);
+  /** The margin model of this night (sky quality, extinction, Moon phase fixed for the night). */
+  readonly sky: NightVisibility;
 }
 
 /**
@@ -40,12 +43,28 @@ export function computeNight(site: Site, date: string, bodies: readonly Body[]):
   const night = nightOf(date, site.timeZone);
   const frame = new NightFrame(site, night);
   const moonBody = builtInBody('moon');
-  return {
+  let sky: NightVisibility | undefined;
+  const report: NightReport = {
     site,
     night,
     frame,
     sun: sunEvents(frame),
     moon: { ...riseTransitSet(frame, frame.track(moonBody)), phase: moonPhase(localMidnight(night)) },
-    bodies: bodies.map((body) => ({ body, ...riseTransitSet(frame, frame.track(body)) })),
+    bodies: bodies.map((body) => {
+      let visibility: Visibility | undefined;
+      return {
+        body,
+        ...riseTransitSet(frame, frame.track(body)),
+        get visibility(): Visibility {
+          visibility ??= report.sky.visibility(body);
+          return visibility;
+        },
+      };
+    }),
+    get sky(): NightVisibility {
+      sky ??= new NightVisibility(report);
+      return sky;
+    },
   };
+  return report;
 }

@@ -178,6 +178,11 @@ export function nightOf(date: string, zone: string): Night {
   return { date, start: zonedTime(date, 12, 0, zone), end: zonedTime(addDays(date, 1), 12, 0, zone), timeZone: zone };
 }
 
+/** Local midnight that splits the night of `night.date` (the start of the next date). */
+export function localMidnight(night: Night): Date {
+  return zonedTime(addDays(night.date, 1), 0, 0, night.timeZone);
+}
+
 /** An ISO 8601 week. */
 export interface IsoWeek {
   /** ISO week-numbering year (may differ from the calendar year near New Year). */

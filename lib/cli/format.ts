@@ -9,6 +9,8 @@ import type { NightReport } from '../night.ts';
 import type { Observation } from '../observe.ts';
 import { PHASE_LABEL } from '../moon.ts';
 import { formatInstant } from '../time.ts';
+import { REASON_TEXT, type Visibility } from '../visibility.ts';
+import type { WeekReport } from '../week.ts';
 
 /** Rounds to `digits` decimals, keeping JSON short and deterministic. */
 export function round(value: number, digits: number): number {
@@ -105,7 +107,55 @@ export function nightJson(report: NightReport): Record<string, unknown> {
         set: eventJson(b.set, zone),
         ...(b.transit.time ? { transitAltitude: round(b.transit.altitudeDeg ?? NaN, 2) } : {}),
         ...(reasons(events) ? { reasons: reasons(events) } : {}),
+        ...visibilityJson(b.visibility, zone),
       };
     }),
+  };
+}
+
+/** The visibility fields of a body's night entry (issue #4 shape). */
+export function visibilityJson(v: Visibility, zone: string): Record<string, unknown> {
+  const b = v.best;
+  return {
+    best: b
+      ? {
+          time: formatInstant(b.time, zone),
+          altitude: round(b.altitudeDeg, 2),
+          azimuth: round(b.azimuthDeg, 2),
+          direction: compass(b.azimuthDeg).abbreviation,
+          magnitude: round(b.magnitude, 2),
+          extinctedMagnitude: round(b.extinctedMagnitude, 2),
+          limitingMagnitude: round(b.limitingMagnitude, 2),
+          skyBrightness: round(b.skyBrightnessMagArcsec2, 2),
+          margin: round(b.margin, 2),
+        }
+      : null,
+    window: v.window ? { start: formatInstant(v.window.start, zone), end: formatInstant(v.window.end, zone) } : null,
+    verdict: v.verdict,
+    instrument: v.instrument?.id ?? null,
+    outsideViewingHours: v.outsideViewingHours,
+    reason: v.reason ? REASON_TEXT[v.reason] : null,
+  };
+}
+
+/** The `gloaming week --json` object: per body, the best night, the week's changes and each night's verdict. */
+export function weekJson(report: WeekReport): Record<string, unknown> {
+  const zone = report.site.timeZone;
+  return {
+    site: nightJson(report.nights[0]!).site,
+    week: report.week.id,
+    nights: report.nights.map((n) => {
+      const j = nightJson({ ...n, bodies: [] });
+      return { date: n.night.date, sun: j.sun, moon: j.moon };
+    }),
+    bodies: report.bodies.map((b) => ({
+      body: b.body.id,
+      name: b.body.name,
+      bestNight: b.bestNight,
+      magnitude: { first: round(b.magnitude.first, 2), last: round(b.magnitude.last, 2) },
+      changes: b.changes,
+      moonInterference: b.moonInterference,
+      nights: b.nights.map((n) => ({ date: n.date, ...visibilityJson(n.visibility, zone) })),
+    })),
   };
 }

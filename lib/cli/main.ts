@@ -13,7 +13,9 @@ import { computeNight } from '../night.ts';
 import { observe } from '../observe.ts';
 import { defineSite, parseSkyArgument, type Site } from '../site.ts';
 import { formatInstant, parseInstant, parseLocalDate } from '../time.ts';
-import { nightJson, positionJson, round } from './format.ts';
+import { nightJson, positionJson, round, weekJson } from './format.ts';
+import { computeWeek } from '../week.ts';
+import { REASON_TEXT } from '../visibility.ts';
 import { MISSING_REASON_TEXT, type EventTime } from '../events.ts';
 import { PHASE_LABEL } from '../moon.ts';
 
@@ -47,7 +49,8 @@ Usage: gloaming <command> [options]
 
 Commands:
   position   where a body is at one instant (topocentric and J2000 coordinates, altitude, magnitude)
-  night      the night that begins on a local evening: twilight, the Moon, rise/transit/set of bodies
+  night      the night that begins on a local evening: twilight, the Moon, rise/transit/set, best time and verdict
+  week       the seven nights of the ISO week containing a date: best night and the week's changes per body
 
 Run 'gloaming <command> --help' for the options of a command.`,
   position: `gloaming position — where a body is at one instant
@@ -75,8 +78,33 @@ Usage: gloaming night (--lat <deg> --lon <deg> [--elevation <m>] --tz <zone> | -
   --json              print one JSON object
 
 Event times are ISO 8601 with the site's UTC offset, or null when the event does not happen
-between local noon and the next local noon (a reason is given).`,
+between local noon and the next local noon (a reason is given). Each body also gets its best
+viewing time, window and verdict (naked-eye, binoculars, telescope, not-visible) for the site's sky.`,
+  week: `gloaming week — the ISO week (Monday–Sunday) containing a date
+
+Usage: gloaming week (--lat <deg> --lon <deg> [--elevation <m>] --tz <zone> | --site <id>) --date <YYYY-MM-DD>
+                     [--body <id> ...] [--sky bortle:<n>|sqm:<x>|nelm:<x>] [--json]
+
+Options as for 'night'. Per body: the best night, magnitude on the first and last night, the
+week's changes in words, the nights with Moon interference, and each night's best time and verdict.`,
 };
+
+/**
+ * Joins a value-taking flag with a following negative number (`--lat -33.9` → `--lat=-33.9`),
+ * which `parseArgs` would otherwise read as an option.
+ */
+function joinNegativeNumbers(args: string[]): string[] {
+  const out: string[] = [];
+  for (let i = 0; i < args.length; i++) {
+    const a = args[i]!;
+    const next = args[i + 1];
+    if (/^--[a-z]/.test(a) && !a.includes('=') && next !== undefined && /^-\d/.test(next)) {
+      out.push(`${a}=${next}`);
+      i++;
+    } else out.push(a);
+  }
+  return out;
+}
 
 /** A command-line problem: exit code 2, one line. */
 class UsageError extends Error {}
@@ -166,16 +194,44 @@ function runNight(args: string[], out: (s: string) => void): void {
       `astronomical dusk ${timeText(s.astronomicalDusk, zone)}; astronomical dawn ${timeText(s.astronomicalDawn, zone)}, rises ${timeText(s.rise, zone)}`,
     `Moon: ${PHASE_LABEL[report.moon.phase.name]}, ${Math.round(report.moon.phase.illuminatedFraction * 100)}% lit; rises ${timeText(report.moon.rise, zone)}, ` +
       `transits ${timeText(report.moon.transit, zone)}, sets ${timeText(report.moon.set, zone)}`,
-    ...report.bodies.map(
-      (b) => `${b.body.name}: rises ${timeText(b.rise, zone)}, transits ${timeText(b.transit, zone)}, sets ${timeText(b.set, zone)}`,
-    ),
+    ...report.bodies.map((b) => {
+      const v = b.visibility;
+      const seen = v.best
+        ? `best ${formatInstant(v.best.time, zone).slice(11, 16)}${v.outsideViewingHours ? ' (outside viewing hours)' : ''}, ${compass(v.best.azimuthDeg).abbreviation} ${Math.round(v.best.altitudeDeg)}° up, ${v.verdict}`
+        : `not visible: ${REASON_TEXT[v.reason!]}`;
+      return `${b.body.name}: rises ${timeText(b.rise, zone)}, transits ${timeText(b.transit, zone)}, sets ${timeText(b.set, zone)}; ${seen}`;
+    }),
   ];
+  out(lines.join('\n'));
+}
+
+function runWeek(args: string[], out: (s: string) => void): void {
+  const { values } = parseArgs({
+    args,
+    options: { ...COMMON, tz: { type: 'string' }, date: { type: 'string' }, sky: { type: 'string' } },
+    strict: true,
+  });
+  if (values.help) return out(HELP.week!);
+  const site = siteFrom(values, true);
+  const date = requireFlag(values.date, '--date', 'a local date inside the week, YYYY-MM-DD');
+  parseLocalDate(date);
+  const bodies = bodiesFrom(values, ['moon', 'mercury', 'venus', 'mars', 'jupiter', 'saturn', 'uranus', 'neptune']);
+  const report = computeWeek(site, date, bodies);
+  if (values.json) return out(JSON.stringify(weekJson(report), null, 2));
+  const zone = site.timeZone;
+  const lines = [`Week ${report.week.id} (${report.week.days[0]} – ${report.week.days[6]}) at ${round(site.latitudeDeg, 4)}°, ${round(site.longitudeDeg, 4)}° (${zone})`];
+  for (const b of report.bodies) {
+    const best = b.nights.find((n) => n.date === b.bestNight)?.visibility;
+    const when = best?.best ? `best on ${b.bestNight} at ${formatInstant(best.best.time, zone).slice(11, 16)} (${best.verdict})` : `not visible this week: ${REASON_TEXT[b.nights[0]!.visibility.reason ?? 'too-faint']}`;
+    lines.push(`${b.body.name}: ${when}${b.changes.length ? `; ${b.changes.join('; ')}` : ''}`);
+  }
   out(lines.join('\n'));
 }
 
 const COMMANDS: Record<string, (args: string[], out: (s: string) => void) => void> = {
   position: runPosition,
   night: runNight,
+  week: runWeek,
 };
 
 /** Runs the command line; returns the exit code (0 ok, 2 bad input, 1 unexpected failure). */
@@ -191,7 +247,7 @@ export function main(argv: string[], out: (s: string) => void = console.log, err
     return 2;
   }
   try {
-    run(rest, out);
+    run(joinNegativeNumbers(rest), out);
     return 0;
   } catch (error) {
     if (error instanceof UsageError) {

@@ -1,0 +1,252 @@
+/**
+ * What a person will actually see: the best viewing time, the window and a verdict for one
+ * body on one night, from the sky-brightness and limiting-magnitude model of `lib/sky/`.
+ *
+ * Definitions (also in the README):
+ * - *margin* (magnitudes) = limiting magnitude at the target's place in the sky and moment
+ *   − (the body's magnitude + extinction k·X). Positive: visible with that instrument.
+ *   Only moments when the body stands above the site's skyline and its minimum altitude count.
+ * - *viewing hours*: the site's audience hours, or by default sunset to local midnight.
+ * - *verdict*: the least optical aid (naked eye, then binoculars, then telescope) whose margin
+ *   becomes positive within the viewing hours; if none, the same search over the rest of the
+ *   night (a morning object), flagged `outsideViewingHours`; otherwise `not-visible`.
+ * - *best time*: the moment of largest margin for the verdict's instrument within the searched
+ *   span; the *window* is the continuous span around it where that margin stays positive.
+ * - *reason* (when not visible) is found by asking what would change the answer: below the
+ *   horizon; too close to the Sun (< 8° elongation); lost in twilight (visible without
+ *   twilight); washed out by moonlight (visible without the Moon); otherwise too faint.
+ */
+import * as Astronomy from 'astronomy-engine';
+import type { Body } from './body.ts';
+import type { NightReport } from './night.ts';
+import { skylineAltitudeDeg, type Site } from './site.ts';
+import { darkSkyFromQuality } from './sky/quality.ts';
+import { extinctionCoefficientGreen, extinctionMag } from './sky/extinction.ts';
+import { skyBrightness, type SkyBrightness } from './sky/brightness.ts';
+import { limitingMagnitude, DEFAULT_INSTRUMENTS, type Instrument, type InstrumentKind } from './sky/threshold.ts';
+import { findCrossings, findMaximum } from './search.ts';
+import { dateFromUt, utDays, type Track } from './track.ts';
+import { addDays, localMidnight, zonedTime } from './time.ts';
+
+const RAD = Math.PI / 180;
+/** Below this elongation a body is reported as too close to the Sun, degrees (near conjunction). */
+export const TOO_CLOSE_TO_SUN_DEG = 8;
+/** Sampling step of the visibility search, days (5 minutes). */
+const STEP_DAYS = 5 / 1440;
+
+export type Verdict = InstrumentKind | 'not-visible';
+export type NotVisibleReason = 'below-horizon' | 'too-close-to-sun' | 'twilight' | 'moonlight' | 'too-faint' | 'is-the-sun';
+
+export const REASON_TEXT: Record<NotVisibleReason, string> = {
+  'below-horizon': 'below the horizon',
+  'too-close-to-sun': 'too close to the Sun',
+  twilight: 'lost in twilight',
+  moonlight: 'washed out by moonlight',
+  'too-faint': 'too faint',
+  'is-the-sun': 'the Sun is never a target: never look at it directly',
+};
+
+/** The state of the sky at the best moment. */
+export interface BestMoment {
+  time: Date;
+  /** Apparent (refracted) altitude, degrees. */
+  altitudeDeg: number;
+  azimuthDeg: number;
+  /** Magnitude outside the atmosphere, V. */
+  magnitude: number;
+  /** Magnitude after extinction, V. */
+  extinctedMagnitude: number;
+  /** Limiting magnitude for the verdict's instrument at that place and moment. */
+  limitingMagnitude: number;
+  /** Sky brightness at the target, V mag/arcsec². */
+  skyBrightnessMagArcsec2: number;
+  margin: number;
+  /** Angle from the Sun at that moment, degrees. */
+  sunSeparationDeg: number;
+  /** The sky brightness's parts at the target, nL: night sky, moonlight, twilight. */
+  skyParts: { darkNl: number; moonNl: number; twilightNl: number };
+}
+
+export interface Visibility {
+  verdict: Verdict;
+  /** Which instrument the best time and window refer to (null when not visible). */
+  instrument: Instrument | null;
+  best: BestMoment | null;
+  window: { start: Date; end: Date } | null;
+  /** True when the body is only visible outside the audience's viewing hours. */
+  outsideViewingHours: boolean;
+  reason: NotVisibleReason | null;
+}
+
+export interface VisibilityOptions {
+  /** Instruments to try, least optical aid first. Default: naked eye, 10×50 binoculars, 100 mm telescope. */
+  instruments?: Instrument[];
+  /** V extinction coefficient override, mag/airmass (default: Green 1992 from the site's elevation). */
+  kV?: number;
+  /** Search span override (UT days); default the site's viewing hours. */
+  span?: { ut0: number; ut1: number };
+}
+
+/** The viewing hours of a night as UT days: the site's hours, or sunset to local midnight. */
+export function viewingSpan(report: NightReport): { ut0: number; ut1: number } {
+  const { site, night } = report;
+  const h = site.viewingHours;
+  if (h) {
+    const at = (minutes: number): number => {
+      const day = Math.floor(minutes / 1440);
+      const m = minutes - day * 1440;
+      return utDays(zonedTime(addDays(night.date, day), Math.floor(m / 60), m % 60, night.timeZone));
+    };
+    return { ut0: Math.max(report.frame.ut0, at(h.startMinutes)), ut1: Math.min(report.frame.ut1, at(h.endMinutes)) };
+  }
+  const sunset = report.sun.set.time;
+  // Polar night: no sunset → from the end of civil dusk, or from 18:00 local, to midnight.
+  const start = sunset ?? report.sun.civilDusk.time ?? zonedTime(night.date, 18, 0, night.timeZone);
+  return { ut0: utDays(start), ut1: utDays(localMidnight(night)) };
+}
+
+/** Angle between two vectors, degrees. */
+function separationDeg(a: [number, number, number], b: [number, number, number]): number {
+  const dot = a[0] * b[0] + a[1] * b[1] + a[2] * b[2];
+  const cross = Math.hypot(a[1] * b[2] - a[2] * b[1], a[2] * b[0] - a[0] * b[2], a[0] * b[1] - a[1] * b[0]);
+  return Math.atan2(cross, dot) / RAD;
+}
+
+/** The sky state of a body at `ut`, or null when it is not above the skyline and minimum altitude. */
+interface SkyState {
+  altitudeDeg: number;
+  azimuthDeg: number;
+  sky: SkyBrightness;
+  sunSeparationDeg: number;
+}
+
+/** A per-night evaluator of margins, with the Moon's phase and the body's brightness fixed for the night. */
+export class NightVisibility {
+  readonly report: NightReport;
+  readonly kV: number;
+  readonly #darkZenithNl: number;
+  readonly #moonPhaseDeg: number;
+
+  constructor(report: NightReport, options: { kV?: number } = {}) {
+    this.report = report;
+    this.kV = options.kV ?? extinctionCoefficientGreen(report.site.elevationM);
+    this.#darkZenithNl = darkSkyFromQuality(report.site.sky).zenithNl;
+    this.#moonPhaseDeg = report.moon.phase.phaseAngleDeg;
+  }
+
+  /**
+   * Sky state at `ut` for a body's track: null when the body is below the skyline or the minimum altitude.
+   * With `without`, the twilight or the Moon is left out (for finding why a body is not visible).
+   */
+  state(track: Track, ut: number, without?: 'twilight' | 'moon'): SkyState | null {
+    const site: Site = this.report.site;
+    const p = track.at(ut);
+    const altitudeDeg = p.geometricAltitudeDeg + Astronomy.Refraction('normal', p.geometricAltitudeDeg);
+    if (altitudeDeg < Math.max(site.minAltitudeDeg, skylineAltitudeDeg(site, p.azimuthDeg))) return null;
+    const frame = this.report.frame;
+    const v = track.vectorAt(ut);
+    const sunVec = frame.sun.vectorAt(ut);
+    const sunAlt = frame.sun.at(ut).geometricAltitudeDeg;
+    const isMoon = track.body.kind === 'moon';
+    const moonVec = frame.moon.vectorAt(ut);
+    const moonAlt = isMoon || without === 'moon' ? -90 : frame.moon.at(ut).geometricAltitudeDeg;
+    const sunSeparationDeg = separationDeg(v, sunVec);
+    const sky = skyBrightness({
+      target: { altitudeDeg, sunSeparationDeg, moonSeparationDeg: isMoon ? 90 : separationDeg(v, moonVec) },
+      sun: { altitudeDeg: without === 'twilight' ? -90 : sunAlt },
+      moon: { altitudeDeg: moonAlt, phaseAngleDeg: this.#moonPhaseDeg },
+      darkSkyZenithNl: this.#darkZenithNl,
+      kV: this.kV,
+    });
+    return { altitudeDeg, azimuthDeg: p.azimuthDeg, sky, sunSeparationDeg };
+  }
+
+  /** The margin function of a body for an instrument (NaN when the body is not up). */
+  marginFunction(body: Body, instrument: Instrument, magnitude: number, without?: 'twilight' | 'moon'): (ut: number) => number {
+    const track = this.report.frame.track(body);
+    const coma = body.comaDiameterArcmin;
+    return (ut) => {
+      const s = this.state(track, ut, without);
+      if (!s) return NaN;
+      const lim = limitingMagnitude({ skyNl: s.sky.totalNl, instrument, ...(coma ? { comaDiameterArcmin: coma } : {}) });
+      return lim - (magnitude + extinctionMag(this.kV, s.altitudeDeg));
+    };
+  }
+
+  /** Best time, window and verdict for `body` on this night. */
+  visibility(body: Body, options: VisibilityOptions = {}): Visibility {
+    const none = (reason: NotVisibleReason): Visibility => ({ verdict: 'not-visible', instrument: null, best: null, window: null, outsideViewingHours: false, reason });
+    if (body.kind === 'sun') return none('is-the-sun');
+    const instruments = options.instruments ?? [DEFAULT_INSTRUMENTS['naked-eye'], DEFAULT_INSTRUMENTS.binoculars, DEFAULT_INSTRUMENTS.telescope];
+    const frame = this.report.frame;
+    const hours = options.span ?? viewingSpan(this.report);
+    const magnitude = body.illumination(Astronomy.MakeTime(dateFromUt((hours.ut0 + hours.ut1) / 2))).magnitude.value;
+    // The rest of the night: from the end of the viewing hours to sunrise (or the night's end).
+    const sunrise = this.report.sun.rise.time;
+    const rest = { ut0: hours.ut1, ut1: sunrise ? utDays(sunrise) : frame.ut1 };
+    const spans: { span: { ut0: number; ut1: number }; outside: boolean }[] = [{ span: hours, outside: false }];
+    if (rest.ut1 - rest.ut0 > STEP_DAYS) spans.push({ span: rest, outside: true });
+    for (const { span, outside } of spans) {
+      if (span.ut1 <= span.ut0) continue;
+      for (const instrument of instruments) {
+        const f = this.marginFunction(body, instrument, magnitude);
+        const best = findMaximum(f, span.ut0, span.ut1, { stepDays: STEP_DAYS });
+        if (!best || !(best.value > 0)) continue;
+        const window = this.#window(f, best.ut, span);
+        return { verdict: instrument.kind, instrument, best: this.#moment(body, instrument, magnitude, best.ut), window, outsideViewingHours: outside, reason: null };
+      }
+    }
+    return none(this.#reason(body, instruments, magnitude, { ut0: hours.ut0, ut1: rest.ut1 > hours.ut1 ? rest.ut1 : hours.ut1 }));
+  }
+
+  #window(f: (ut: number) => number, bestUt: number, span: { ut0: number; ut1: number }): { start: Date; end: Date } {
+    const g = (ut: number): number => {
+      const v = f(ut);
+      return Number.isNaN(v) ? -1 : v;
+    };
+    const before = findCrossings(g, span.ut0, bestUt, { stepDays: STEP_DAYS }).filter((c) => c.direction === 1);
+    const after = findCrossings(g, bestUt, span.ut1, { stepDays: STEP_DAYS }).filter((c) => c.direction === -1);
+    const start = before.length ? before[before.length - 1]!.ut : span.ut0;
+    const end = after.length ? after[0]!.ut : span.ut1;
+    return { start: dateFromUt(start), end: dateFromUt(end) };
+  }
+
+  #moment(body: Body, instrument: Instrument, magnitude: number, ut: number): BestMoment {
+    const s = this.state(this.report.frame.track(body), ut)!;
+    const coma = body.comaDiameterArcmin;
+    const lim = limitingMagnitude({ skyNl: s.sky.totalNl, instrument, ...(coma ? { comaDiameterArcmin: coma } : {}) });
+    const extincted = magnitude + extinctionMag(this.kV, s.altitudeDeg);
+    return {
+      time: dateFromUt(ut),
+      altitudeDeg: s.altitudeDeg,
+      azimuthDeg: s.azimuthDeg,
+      magnitude,
+      extinctedMagnitude: extincted,
+      limitingMagnitude: lim,
+      skyBrightnessMagArcsec2: s.sky.magPerArcsec2,
+      margin: lim - extincted,
+      sunSeparationDeg: s.sunSeparationDeg,
+      skyParts: { darkNl: s.sky.darkNl, moonNl: s.sky.moonNl, twilightNl: s.sky.twilightNl },
+    };
+  }
+
+  #reason(body: Body, instruments: Instrument[], magnitude: number, span: { ut0: number; ut1: number }): NotVisibleReason {
+    const track = this.report.frame.track(body);
+    let up = false;
+    for (let ut = span.ut0; ut <= span.ut1; ut += STEP_DAYS) if (this.state(track, ut)) up = true;
+    if (!up) {
+      const elongation = separationDeg(track.vectorAt(span.ut0), this.report.frame.sun.vectorAt(span.ut0));
+      return elongation < TOO_CLOSE_TO_SUN_DEG ? 'too-close-to-sun' : 'below-horizon';
+    }
+    const elongation = separationDeg(track.vectorAt(span.ut0), this.report.frame.sun.vectorAt(span.ut0));
+    if (elongation < TOO_CLOSE_TO_SUN_DEG) return 'too-close-to-sun';
+    const best = instruments[instruments.length - 1]!;
+    const visibleWithout = (without: 'twilight' | 'moon'): boolean => {
+      const m = findMaximum(this.marginFunction(body, best, magnitude, without), span.ut0, span.ut1, { stepDays: STEP_DAYS });
+      return !!m && m.value > 0;
+    };
+    if (visibleWithout('twilight')) return 'twilight';
+    if (visibleWithout('moon')) return 'moonlight';
+    return 'too-faint';
+  }
+}
