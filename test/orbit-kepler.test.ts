@@ -204,15 +204,17 @@ describe('against astronomia (npm, independent implementation of Meeus ch. 30, 3
     }
   });
 
-  it('strong hyperbolas (1.1 ≤ e ≤ 5), where astronomia has no module: the hyperbolic Kepler equation holds', () => {
+  it('strong hyperbolas (1.1 ≤ e ≤ 20, up to ±1e5 days), where astronomia has no module: the hyperbolic Kepler equation holds', () => {
     // Textbook relations (e.g. Danby, Fundamentals of Celestial Mechanics, §6.10; Battin ch. 4):
     // tanh(H/2) = √((e−1)/(e+1)) tan(ν/2), e sinh H − H = n (t − T) with n = k (q/(e−1))^{−3/2},
     // and r = q(1 + e)/(1 + e cos ν).
     const rnd = random(66);
-    for (let k = 0; k < 250; k++) {
-      const e = rnd(1.1, 5);
-      const q = rnd(0.1, 5);
-      const dt = rnd(-5000, 5000);
+    for (let k = 0; k < 1000; k++) {
+      let e = k % 2 ? rnd(1.1, 5) : rnd(5, 20);
+      let q = rnd(0.01, 5);
+      let dt = k % 3 ? rnd(-5000, 5000) : rnd(-1e5, 1e5);
+      // A case whose first Laguerre step once overflowed cosh (kept as a regression check).
+      if (k === 0) [q, e, dt] = [0.028638782211876837, 11.018445434988683, -7424.230955090163];
       const pos = conicPosition(q, e, dt);
       const nu = pos.trueAnomalyDeg * DEG;
       const H = 2 * Math.atanh(Math.sqrt((e - 1) / (e + 1)) * Math.tan(nu / 2));
@@ -221,7 +223,7 @@ describe('against astronomia (npm, independent implementation of Meeus ch. 30, 3
       const residual = e * Math.sinh(H) - H - meanAnomaly;
       expect(Math.abs(residual), `Kepler residual e=${e} q=${q} dt=${dt}`).toBeLessThan(1e-9 * Math.max(1, Math.abs(meanAnomaly)));
       const rConic = (q * (1 + e)) / (1 + e * Math.cos(nu));
-      expect(Math.abs(pos.radiusAu - rConic) / rConic).toBeLessThan(1e-11);
+      expect(Math.abs(pos.radiusAu - rConic) / rConic).toBeLessThan(1e-8);
     }
   });
 });

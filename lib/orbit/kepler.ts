@@ -123,9 +123,15 @@ export function conicPosition(perihelionDistanceAu: number, eccentricity: number
 /** The universal anomaly s ≥ 0 with F(s) = q s c₁ + μ s³ c₃ = dt (dt > 0). */
 function solveUniversal(q: number, e: number, beta: number, dt: number, sMaxOrbit: number): number {
   const mu = GM_SUN_AU3_PER_DAY2;
-  // Bracket: F(0) = 0 and F'(s) = r ≥ q, so s ≤ dt/q; for ellipses also s ≤ π/√β.
+  // Bracket: F(0) = 0 and F'(s) = r ≥ q, so s ≤ dt/q; for ellipses also s ≤ π/√β; for
+  // hyperbolas e sinh H − H ≥ (e − 1) sinh H gives H ≤ asinh(M/(e − 1)), with H = √(−β) s.
   let lo = 0;
   let hi = Math.min(dt / q, sMaxOrbit);
+  if (beta < 0) {
+    const sqrtMinusBeta = Math.sqrt(-beta);
+    const meanAnomaly = ((-beta * sqrtMinusBeta) / mu) * dt;
+    hi = Math.min(hi, Math.asinh(meanAnomaly / (e - 1)) / sqrtMinusBeta);
+  }
 
   // Starting value: Barker's equation (exact for e = 1), W = 3k/√2 · dt/q^{3/2}
   // (Meeus 2nd ed. ch. 34); replaced by a Kepler-equation starter when far from parabolic.
@@ -155,7 +161,7 @@ function solveUniversal(q: number, e: number, beta: number, dt: number, sMaxOrbi
     const c = stumpff(beta * s2, scratch);
     const f = q * s * c[1] + mu * s2 * s * c[3] - dt;
     if (f === 0) return s;
-    if (f > 0) hi = s;
+    if (!(f < 0)) hi = s; // f > 0, or overflow (NaN) far beyond the root
     else lo = s;
     const f1 = q * c[0] + mu * s2 * c[2]; // r
     const f2 = mu * e * s * c[1]; // dr/ds

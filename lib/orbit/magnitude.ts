@@ -1,10 +1,11 @@
 /**
  * Expected visual magnitudes of comets and asteroids.
  *
- * - Comets: total (coma) magnitude m = M1 + 5 log10 Δ + K1 log10 r, the standard power law
- *   (Meeus, *Astronomical Algorithms* 2nd ed., ch. 33, "magnitude of a comet", with g = M1 and
- *   κ = K1; K1 = 2.5 n, the common default n = 4 gives K1 = 10). Comet brightness is uncertain, so
- *   a second K1 or a ± band gives a range.
+ * - Comets: total (coma) magnitude m = M1 + 5 log10 Δ + K1 log10 r, the standard power law used
+ *   by the Minor Planet Center and JPL's small-body database for total magnitudes (M1, K1), and
+ *   given as m = g + 5 log Δ + κ log r in Meeus, *Astronomical Algorithms* 2nd ed., end of ch. 33
+ *   (chapter reference from memory). K1 = 2.5 n; the common default n = 4 gives K1 = 10. Comet
+ *   brightness is uncertain, so a second K1 or a ± band gives a range.
  * - Asteroids: the IAU H–G system, Bowell E., Hapke B., Domingue D., Lumme K., Peltoniemi J.,
  *   Harris A.W. 1989, "Application of photometric models to asteroids", in *Asteroids II*,
  *   pp. 524–556 (University of Arizona Press), with the full two-part phase functions of its
@@ -15,7 +16,7 @@
 import type { MagnitudeEstimate } from '../body.ts';
 import type { MagnitudeModel } from './elements.ts';
 
-/** Comet total magnitude m = M1 + 5 log10 Δ + K1 log10 r (Meeus 2nd ed. ch. 33). */
+/** Comet total magnitude m = M1 + 5 log10 Δ + K1 log10 r; r and Δ in AU (see the module note). */
 export function cometMagnitude(M1: number, K1: number, heliocentricDistanceAu: number, geocentricDistanceAu: number): number {
   return M1 + 5 * Math.log10(geocentricDistanceAu) + K1 * Math.log10(heliocentricDistanceAu);
 }
