@@ -15,10 +15,13 @@
  *   e.g. `α1`), `flam` (Flamsteed number), `c` (IAU constellation abbreviation). All fields optional.
  * - `lib/stars/patterns.yaml`: every star a pattern uses is kept even when fainter than the limit.
  *
- * Output rows: [hip, raDeg, decDeg, vMag, bv | null, bayer, flamsteed, name, con]; empty string
- * when a designation or name is missing. Constellations missing from starnames.json are filled
- * from the IAU boundaries with astronomy-engine's `Constellation` and listed in
- * `constellationFromBoundaries`.
+ * Output rows: [hip, raDeg, decDeg, vMag, bv | null, bayer, flamsteed, name, con, designationCon];
+ * empty string when a designation or name is missing. `con` is the IAU constellation that holds
+ * the star. It is the source's `c` when that agrees with the IAU boundaries (astronomy-engine's
+ * `Constellation`); where `c` is missing, malformed or names the constellation of a displaced
+ * Flamsteed designation, `con` comes from the boundaries, the star is listed in
+ * `constellationFromBoundaries`, and a displaced designation's constellation is kept in
+ * `designationCon` (so that "10 UMa" still reads as its designation).
  */
 import { readFileSync, writeFileSync, existsSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
@@ -79,7 +82,7 @@ for (const f of selected) {
   if (!prev || f.properties.mag < prev.mag) brightestWithName.set(name, { hip: f.id, mag: f.properties.mag });
 }
 
-type Row = [number, number, number, number, number | null, string, string, string, string];
+type Row = [number, number, number, number, number | null, string, string, string, string, string];
 const rows: Row[] = [];
 const conFromBoundaries: number[] = [];
 for (const f of selected.sort((a, b) => a.id - b.id)) {
@@ -91,13 +94,21 @@ for (const f of selected.sort((a, b) => a.id - b.id)) {
   const bayer = entry.bayer && !entry.bayer.startsWith('undefined') ? entry.bayer : '';
   let name = entry.name ?? '';
   if (NOT_STAR_NAMES.has(name) || (name && brightestWithName.get(name)?.hip !== f.id)) name = '';
-  let con = entry.c ?? '';
-  if (!con) {
-    con = Constellation(raDeg / 15, decDeg).symbol;
+  // `c` in starnames.json is the constellation of the star's designation. It is also the IAU
+  // constellation that holds the star, except for a few Flamsteed stars left outside their
+  // constellation when the boundaries were drawn (e.g. 10 UMa lies in Lynx): `con` is the
+  // constellation by the IAU boundaries; `designationCon` keeps the designation's one when it differs.
+  const sourceCon = entry.c && /^[A-Z][A-Za-z]{2}$/.test(entry.c) ? entry.c : '';
+  const boundaryCon = Constellation(raDeg / 15, decDeg).symbol;
+  let con = sourceCon;
+  let designationCon = '';
+  if (sourceCon !== boundaryCon) {
+    con = boundaryCon;
+    if (sourceCon) designationCon = sourceCon;
     conFromBoundaries.push(f.id);
   }
   const bv = f.properties.bv === '' ? null : round(Number(f.properties.bv), 3);
-  rows.push([f.id, raDeg, decDeg, f.properties.mag, bv, bayer, entry.flam ?? '', name, con]);
+  rows.push([f.id, raDeg, decDeg, f.properties.mag, bv, bayer, entry.flam ?? '', name, con, designationCon]);
 }
 
 const header = {
@@ -108,7 +119,7 @@ const header = {
   nameNote:
     "name: the `name` field of starnames.json (documented by d3-celestial as the official IAU name); a name the field gives to several stars is kept on the brightest only, and labels that are not star names are dropped.",
   magnitudeLimit: MAG_LIMIT,
-  fields: ['hip', 'raDeg', 'decDeg', 'vMag', 'bv', 'bayer', 'flamsteed', 'name', 'con'],
+  fields: ['hip', 'raDeg', 'decDeg', 'vMag', 'bv', 'bayer', 'flamsteed', 'name', 'con', 'designationCon'],
   constellationFromBoundaries: conFromBoundaries,
 };
 

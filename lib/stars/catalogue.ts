@@ -28,15 +28,20 @@ export interface Star {
   flamsteed: string;
   /** Proper name (IAU-approved name as given by the source), or "" when none. */
   name: string;
-  /** IAU constellation abbreviation ("Ori"). */
+  /** IAU constellation abbreviation ("Ori"): the constellation whose boundaries hold the star. */
   con: string;
+  /**
+   * Constellation of the star's Bayer/Flamsteed designation when it differs from `con` (a few
+   * Flamsteed stars lie outside the constellation of their number, e.g. 10 UMa in Lynx), else "".
+   */
+  designationCon: string;
   /** Bayer (preferred) or Flamsteed designation with constellation, e.g. "α¹ Cru", "61 Cyg"; "HIP n" when neither exists. */
   designation: string;
   /** The name to show a reader: the proper name, else the designation. */
   label: string;
 }
 
-type Row = [number, number, number, number, number | null, string, string, string, string];
+type Row = [number, number, number, number, number | null, string, string, string, string, string];
 
 interface CatalogueFile {
   source: string;
@@ -63,9 +68,9 @@ let cache: { file: CatalogueFile; list: Star[]; byHip: Map<number, Star>; byName
 function load(): NonNullable<typeof cache> {
   if (cache) return cache;
   const file = JSON.parse(readFileSync(new URL('./catalogue.json', import.meta.url), 'utf8')) as CatalogueFile;
-  const list: Star[] = file.stars.map(([hip, raDeg, decDeg, vMag, bv, bayer, flamsteed, name, con]) => {
-    const designation = designationOf(bayer, flamsteed, con, hip);
-    return { hip, raDeg, decDeg, vMag, bv, bayer, flamsteed, name, con, designation, label: name || designation };
+  const list: Star[] = file.stars.map(([hip, raDeg, decDeg, vMag, bv, bayer, flamsteed, name, con, designationCon]) => {
+    const designation = designationOf(bayer, flamsteed, designationCon || con, hip);
+    return { hip, raDeg, decDeg, vMag, bv, bayer, flamsteed, name, con, designationCon, designation, label: name || designation };
   });
   const byHip = new Map(list.map((s) => [s.hip, s]));
   const byName = new Map<string, Star>();
