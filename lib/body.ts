@@ -44,10 +44,11 @@ export interface Body {
   readonly comaDiameterArcmin?: number;
   /**
    * Geocentric position, J2000 mean equator (EQJ), AU, at observation time `time`, corrected for
-   * light travel time. With `aberration: true` the body is taken where it was when the light left
-   * it and the Earth where it is at `time` (the apparent direction, including aberration to first
-   * order); with `false` both are taken at the light departure time. This is the convention of
-   * `astronomy-engine`'s `GeoVector`, which planets use directly.
+   * light travel time τ: the body is taken where it was when the light left it (t − τ). With
+   * `aberration: true` the Earth is also taken at t − τ, so the Earth's motion during τ shifts the
+   * direction by the annual aberration (the apparent direction); with `false` the Earth is taken
+   * at t (the astrometric direction). This is the convention of `astronomy-engine`'s `GeoVector`
+   * and `BackdatePosition`, which planets use directly.
    */
   geoVector(time: Astronomy.AstroTime, options: { aberration: boolean }): Astronomy.Vector;
   /** Distances, phase and expected magnitude at `time` (geocentric). */

@@ -91,11 +91,22 @@ export function findMaximum(f: (ut: number) => number, ut0: number, ut1: number,
     }
   }
   if (best < 0) return null;
-  // Golden-section search inside the neighbouring samples, when both neighbours are defined.
-  let lo = ut0 + Math.max(0, best - 1) * h;
-  let hi = ut0 + Math.min(n, best + 1) * h;
-  if (!Number.isFinite(values[best - 1] ?? NaN) && best > 0) lo = ut0 + best * h;
-  if (!Number.isFinite(values[best + 1] ?? NaN) && best < n) hi = ut0 + best * h;
+  // Search between the neighbouring samples. Where a neighbour is undefined (the function starts
+  // or stops being defined there, e.g. a body clearing the skyline), first locate that edge by
+  // bisection, so the maximum of a function that peaks at its edge does not depend on the step.
+  const edge = (defined: number, undefinedAt: number): number => {
+    let a = defined;
+    let b = undefinedAt;
+    while (Math.abs(b - a) > tolerance) {
+      const m = (a + b) / 2;
+      if (Number.isFinite(f(m))) a = m;
+      else b = m;
+    }
+    return a;
+  };
+  const at = (i: number): number => ut0 + i * h;
+  let lo = best > 0 ? (Number.isFinite(values[best - 1]!) ? at(best - 1) : edge(at(best), at(best - 1))) : at(best);
+  let hi = best < n ? (Number.isFinite(values[best + 1]!) ? at(best + 1) : edge(at(best), at(best + 1))) : at(best);
   const g = (Math.sqrt(5) - 1) / 2;
   let c = hi - g * (hi - lo);
   let d = lo + g * (hi - lo);
