@@ -13,8 +13,9 @@
  * - *best time*: the moment of largest margin for the verdict's instrument within the searched
  *   span; the *window* is the continuous span around it where that margin stays positive.
  * - *reason* (when not visible) is found by asking what would change the answer: below the
- *   horizon; too close to the Sun (< 8° elongation); lost in twilight (visible without
- *   twilight); washed out by moonlight (visible without the Moon); otherwise too faint.
+ *   horizon; too close to the Sun (< 8° elongation); hidden by daylight or lost in twilight
+ *   (visible without the Sun's light; daylight when the Sun is up at the moment it would be
+ *   best seen); washed out by moonlight (visible without the Moon); otherwise too faint.
  */
 import * as Astronomy from 'astronomy-engine';
 import type { Body } from './body.ts';
@@ -35,11 +36,12 @@ export const TOO_CLOSE_TO_SUN_DEG = 8;
 const STEP_DAYS = 5 / 1440;
 
 export type Verdict = InstrumentKind | 'not-visible';
-export type NotVisibleReason = 'below-horizon' | 'too-close-to-sun' | 'twilight' | 'moonlight' | 'too-faint' | 'is-the-sun';
+export type NotVisibleReason = 'below-horizon' | 'too-close-to-sun' | 'daylight' | 'twilight' | 'moonlight' | 'too-faint' | 'is-the-sun';
 
 export const REASON_TEXT: Record<NotVisibleReason, string> = {
   'below-horizon': 'below the horizon',
   'too-close-to-sun': 'too close to the Sun',
+  daylight: 'hidden by daylight',
   twilight: 'lost in twilight',
   moonlight: 'washed out by moonlight',
   'too-faint': 'too faint',
@@ -85,6 +87,8 @@ export interface VisibilityOptions {
   kV?: number;
   /** Search span override (UT days); default the site's viewing hours. */
   span?: { ut0: number; ut1: number };
+  /** Sampling step of the search, days (default 5 minutes); refinement makes results independent of it. */
+  stepDays?: number;
 }
 
 /** The viewing hours of a night as UT days: the site's hours, or sunset to local midnight. */
@@ -177,6 +181,7 @@ export class NightVisibility {
   visibility(body: Body, options: VisibilityOptions = {}): Visibility {
     const none = (reason: NotVisibleReason): Visibility => ({ verdict: 'not-visible', instrument: null, best: null, window: null, outsideViewingHours: false, reason });
     if (body.kind === 'sun') return none('is-the-sun');
+    const step = options.stepDays ?? STEP_DAYS;
     const instruments = options.instruments ?? [DEFAULT_INSTRUMENTS['naked-eye'], DEFAULT_INSTRUMENTS.binoculars, DEFAULT_INSTRUMENTS.telescope];
     const frame = this.report.frame;
     const hours = options.span ?? viewingSpan(this.report);
@@ -185,27 +190,28 @@ export class NightVisibility {
     const sunrise = this.report.sun.rise.time;
     const rest = { ut0: hours.ut1, ut1: sunrise ? utDays(sunrise) : frame.ut1 };
     const spans: { span: { ut0: number; ut1: number }; outside: boolean }[] = [{ span: hours, outside: false }];
-    if (rest.ut1 - rest.ut0 > STEP_DAYS) spans.push({ span: rest, outside: true });
+    if (!options.span && rest.ut1 - rest.ut0 > step) spans.push({ span: rest, outside: true });
     for (const { span, outside } of spans) {
       if (span.ut1 <= span.ut0) continue;
       for (const instrument of instruments) {
         const f = this.marginFunction(body, instrument, magnitude);
-        const best = findMaximum(f, span.ut0, span.ut1, { stepDays: STEP_DAYS });
+        const best = findMaximum(f, span.ut0, span.ut1, { stepDays: step });
         if (!best || !(best.value > 0)) continue;
-        const window = this.#window(f, best.ut, span);
+        const window = this.#window(f, best.ut, span, step);
         return { verdict: instrument.kind, instrument, best: this.#moment(body, instrument, magnitude, best.ut), window, outsideViewingHours: outside, reason: null };
       }
     }
-    return none(this.#reason(body, instruments, magnitude, { ut0: hours.ut0, ut1: rest.ut1 > hours.ut1 ? rest.ut1 : hours.ut1 }));
+    const searched = { ut0: hours.ut0, ut1: !options.span && rest.ut1 > hours.ut1 ? rest.ut1 : hours.ut1 };
+    return none(this.#reason(body, instruments, magnitude, searched, step));
   }
 
-  #window(f: (ut: number) => number, bestUt: number, span: { ut0: number; ut1: number }): { start: Date; end: Date } {
+  #window(f: (ut: number) => number, bestUt: number, span: { ut0: number; ut1: number }, step: number): { start: Date; end: Date } {
     const g = (ut: number): number => {
       const v = f(ut);
       return Number.isNaN(v) ? -1 : v;
     };
-    const before = findCrossings(g, span.ut0, bestUt, { stepDays: STEP_DAYS }).filter((c) => c.direction === 1);
-    const after = findCrossings(g, bestUt, span.ut1, { stepDays: STEP_DAYS }).filter((c) => c.direction === -1);
+    const before = findCrossings(g, span.ut0, bestUt, { stepDays: step }).filter((c) => c.direction === 1);
+    const after = findCrossings(g, bestUt, span.ut1, { stepDays: step }).filter((c) => c.direction === -1);
     const start = before.length ? before[before.length - 1]!.ut : span.ut0;
     const end = after.length ? after[0]!.ut : span.ut1;
     return { start: dateFromUt(start), end: dateFromUt(end) };
@@ -230,10 +236,10 @@ export class NightVisibility {
     };
   }
 
-  #reason(body: Body, instruments: Instrument[], magnitude: number, span: { ut0: number; ut1: number }): NotVisibleReason {
+  #reason(body: Body, instruments: Instrument[], magnitude: number, span: { ut0: number; ut1: number }, step: number): NotVisibleReason {
     const track = this.report.frame.track(body);
     let up = false;
-    for (let ut = span.ut0; ut <= span.ut1; ut += STEP_DAYS) if (this.state(track, ut)) up = true;
+    for (let ut = span.ut0; ut <= span.ut1 && !up; ut += step) if (this.state(track, ut)) up = true;
     if (!up) {
       const elongation = separationDeg(track.vectorAt(span.ut0), this.report.frame.sun.vectorAt(span.ut0));
       return elongation < TOO_CLOSE_TO_SUN_DEG ? 'too-close-to-sun' : 'below-horizon';
@@ -241,11 +247,12 @@ export class NightVisibility {
     const elongation = separationDeg(track.vectorAt(span.ut0), this.report.frame.sun.vectorAt(span.ut0));
     if (elongation < TOO_CLOSE_TO_SUN_DEG) return 'too-close-to-sun';
     const best = instruments[instruments.length - 1]!;
-    const visibleWithout = (without: 'twilight' | 'moon'): boolean => {
-      const m = findMaximum(this.marginFunction(body, best, magnitude, without), span.ut0, span.ut1, { stepDays: STEP_DAYS });
-      return !!m && m.value > 0;
+    const visibleWithout = (without: 'twilight' | 'moon'): { ut: number } | null => {
+      const m = findMaximum(this.marginFunction(body, best, magnitude, without), span.ut0, span.ut1, { stepDays: step });
+      return m && m.value > 0 ? m : null;
     };
-    if (visibleWithout('twilight')) return 'twilight';
+    const withoutSun = visibleWithout('twilight');
+    if (withoutSun) return this.report.frame.sun.at(withoutSun.ut).geometricAltitudeDeg > 0 ? 'daylight' : 'twilight';
     if (visibleWithout('moon')) return 'moonlight';
     return 'too-faint';
   }
