@@ -34,6 +34,12 @@ export interface BulletinTemplate {
   body: string;
   /** 1-based line of the file on which `body` starts, so positions in the body map to the file. */
   bodyLine: number;
+  /**
+   * 1-based line and column of front matter fields in the file, keyed by dotted path
+   * (`sites`, `sites.1`, `bodies.0`, …), so problems found later (an unknown site or body) are
+   * reported where they are written. Optional: without it, errors name the file and field only.
+   */
+  fieldPlaces?: Record<string, { line: number; column: number }>;
 }
 
 /** One page the site will publish: a template applied to a site and a week. */

@@ -1,0 +1,358 @@
+/**
+ * The placeholder vocabulary: one table, one entry per placeholder. An entry names the
+ * placeholder, says whether it is written inline (`:name{…}`) or as a block on its own line
+ * (`::name{…}`), lists its attributes with types and defaults, gives an example for the docs, and
+ * renders from the shared week data (`WeekData`). Adding a placeholder is adding one entry.
+ *
+ * Entries with `needs` are reserved: their names are taken, and using them is a clear build error
+ * until the data they need exists (best time and verdicts #4, guide patterns #5, charts #7,
+ * events #8).
+ *
+ * Output is semantic HTML: `<time datetime>` for instants and dates, `<data value>` for numbers,
+ * `data-*` attributes carrying the exact values, and classes `gl gl-<name>` for styling.
+ */
+import type { ElementContent, Properties } from 'hast';
+import type { Body } from '../body.ts';
+import { compass, handMeasure, fists } from '../describe.ts';
+import type { EventTime, MissingReason } from '../events.ts';
+import { PHASE_LABEL } from '../moon.ts';
+import type { Site } from '../site.ts';
+import { addDays, formatInstant, zonedTime } from '../time.ts';
+import type { AttributeSpec, AttributeValue, ClockTime } from './attributes.ts';
+import { el, exact, formatClock, formatDay, formatDayRange, formatNumber, type Clock, type TimePrecision } from './format.ts';
+import type { WeekData } from './week.ts';
+
+/** A target within this angle of the Sun (geocentric, at local midnight of the night) triggers the eye-safety caution. */
+export const NEAR_SUN_DEG = 15;
+
+/** What a render function gets: the placeholder's typed attributes and the shared week. */
+export interface PlaceholderCall {
+  name: string;
+  site: Site;
+  week: WeekData;
+  /** Night 0–6 of the week (0 = Monday evening) the placeholder is about. */
+  night: number;
+  clock: Clock;
+  /** Attribute values, defaults filled in. */
+  attrs: ReadonlyMap<string, AttributeValue>;
+  /** Names of the attributes the author wrote (as opposed to defaults). */
+  given: ReadonlySet<string>;
+  /** Records that `body` is a near-Sun target (adds the eye-safety caution to the page). */
+  nearSun(body: Body): void;
+}
+
+export interface PlaceholderSpec {
+  name: string;
+  /** `inline` is written `:name{…}` inside a sentence; `block` is `::name{…}` on its own line. */
+  form: 'inline' | 'block';
+  /** One line for the placeholder table. */
+  summary: string;
+  attributes: Readonly<Record<string, AttributeSpec>>;
+  /** An example as written in a template. */
+  example: string;
+  /** Reserved: what the placeholder needs before it can render (e.g. `the best-viewing-time model (#4)`). */
+  needs?: string;
+  render?: (call: PlaceholderCall) => ElementContent;
+}
+
+// ---------------------------------------------------------------------------------------------
+// Shared attributes
+
+const NIGHT: AttributeSpec = { type: { kind: 'night' }, default: 'Monday, or the one-off date', doc: 'which night of the week' };
+const CLOCK: AttributeSpec = { type: { kind: 'clock' }, default: "the site's locale", doc: '12- or 24-hour clock' };
+const TIME_PRECISION: AttributeSpec = { type: { kind: 'time-precision' }, default: 'minute', doc: 'times are rounded to this' };
+const BODY: AttributeSpec = { type: { kind: 'body' }, required: true, doc: 'the body or object' };
+const TWILIGHT: AttributeSpec = { type: { kind: 'choice', values: ['civil', 'nautical', 'astronomical'] }, default: 'astronomical', doc: 'which twilight' };
+const DIGITS = (fallback: number, doc = 'decimals shown'): AttributeSpec => ({ type: { kind: 'integer', min: 0, max: 2 }, default: String(fallback), doc });
+const RESERVED_BEST = { best: 'the best-viewing-time model (issue #4)' };
+
+const TIME_ATTRS = { night: NIGHT, clock: CLOCK, precision: TIME_PRECISION };
+
+// ---------------------------------------------------------------------------------------------
+// Helpers
+
+function classes(call: PlaceholderCall, ...extra: string[]): Properties {
+  return { className: ['gl', `gl-${call.name}`, ...extra] };
+}
+
+function nightDate(call: PlaceholderCall): string {
+  return call.week.week.days[call.night]!;
+}
+
+function precisionOf(call: PlaceholderCall): TimePrecision {
+  return (call.attrs.get('precision') as TimePrecision | undefined) ?? 'minute';
+}
+
+function digitsOf(call: PlaceholderCall, fallback: number): number {
+  return (call.attrs.get('precision') as number | undefined) ?? fallback;
+}
+
+function bodyOf(call: PlaceholderCall): Body {
+  const body = call.attrs.get('body') as Body;
+  if (body.kind !== 'sun' && call.week.elongationDeg(call.night, body) < NEAR_SUN_DEG) call.nearSun(body);
+  return body;
+}
+
+/** An instant as `<time datetime="…">16:29</time>`. */
+function timeElement(call: PlaceholderCall, instant: Date, data: Properties = {}): ElementContent {
+  return el(
+    'time',
+    { ...classes(call), dateTime: formatInstant(instant, call.site.timeZone), dataNight: nightDate(call), ...data },
+    formatClock(instant, call.site, { clock: call.clock, precision: precisionOf(call) }),
+  );
+}
+
+/** An event that does not happen this night, in honest words. */
+function missingElement(call: PlaceholderCall, reason: MissingReason, phrase: string, data: Properties = {}): ElementContent {
+  return el('span', { ...classes(call, 'gl-none'), dataNight: nightDate(call), dataReason: reason, ...data }, phrase);
+}
+
+function eventElement(call: PlaceholderCall, event: EventTime, phrases: Record<MissingReason, string>, data: Properties = {}): ElementContent {
+  return event.time ? timeElement(call, event.time, data) : missingElement(call, event.reason, phrases[event.reason], data);
+}
+
+const RISE_PHRASES: Record<MissingReason, string> = {
+  'always-below': 'does not rise this night',
+  'always-above': 'stays up all night',
+  'outside-night': 'does not rise this night',
+  'stays-above': 'stays up all night',
+  'stays-below': 'does not rise this night',
+};
+const SET_PHRASES: Record<MissingReason, string> = {
+  ...RISE_PHRASES,
+  'always-above': 'does not set this night',
+  'outside-night': 'does not set this night',
+  'stays-above': 'does not set this night',
+};
+const TRANSIT_PHRASES: Record<MissingReason, string> = {
+  'always-below': 'does not cross the meridian this night',
+  'always-above': 'does not cross the meridian this night',
+  'outside-night': 'does not cross the meridian this night',
+  'stays-above': 'does not cross the meridian this night',
+  'stays-below': 'does not cross the meridian this night',
+};
+const SUN_PHRASES: Record<MissingReason, string> = {
+  'always-above': 'the Sun stays up all night',
+  'stays-above': 'the Sun stays up all night',
+  'always-below': 'the Sun stays below the horizon all day',
+  'stays-below': 'the Sun stays below the horizon all day',
+  'outside-night': 'not during this night',
+};
+const TWILIGHT_DEPTH_DEG = { civil: 6, nautical: 12, astronomical: 18 } as const;
+type TwilightKind = keyof typeof TWILIGHT_DEPTH_DEG;
+
+function twilightPhrases(kind: TwilightKind): Record<MissingReason, string> {
+  const depth = TWILIGHT_DEPTH_DEG[kind];
+  const light = `no ${kind} darkness this night: the Sun stays less than ${depth}° below the horizon`;
+  const dark = `dark all day: the Sun stays more than ${depth}° below the horizon`;
+  return { 'stays-above': light, 'always-above': light, 'stays-below': dark, 'always-below': dark, 'outside-night': 'not during this night' };
+}
+
+/** The instant of a moment attribute on the placeholder's night: a rise/transit/set event or a clock time. */
+function momentOf(call: PlaceholderCall, body: Body): { event: EventTime; at: string } {
+  const moment = call.attrs.get('at') as string | ClockTime;
+  if (typeof moment === 'string') {
+    const bn = call.week.bodyNight(call.night, body);
+    const event = moment === 'rise' ? bn.rise : moment === 'set' ? bn.set : bn.transit;
+    return { event, at: moment };
+  }
+  // Clock times before noon belong to the morning after the evening date.
+  const date = moment.hour < 12 ? addDays(nightDate(call), 1) : nightDate(call);
+  const label = `${String(moment.hour).padStart(2, '0')}:${String(moment.minute).padStart(2, '0')}`;
+  return { event: { time: zonedTime(date, moment.hour, moment.minute, call.site.timeZone) }, at: label };
+}
+
+function momentPhrases(at: string): Record<MissingReason, string> {
+  return at === 'rise' ? RISE_PHRASES : at === 'set' ? SET_PHRASES : TRANSIT_PHRASES;
+}
+
+const PHASE_WORDS: Record<keyof typeof PHASE_LABEL, string> = Object.fromEntries(
+  Object.entries(PHASE_LABEL).map(([k, v]) => [k, v.charAt(0).toLowerCase() + v.slice(1)]),
+) as Record<keyof typeof PHASE_LABEL, string>;
+
+// ---------------------------------------------------------------------------------------------
+// Renderers
+
+function sunTime(field: 'set' | 'rise') {
+  return (call: PlaceholderCall): ElementContent => eventElement(call, call.week.nights[call.night]!.sun[field], SUN_PHRASES);
+}
+
+function twilight(edge: 'dusk' | 'dawn') {
+  return (call: PlaceholderCall): ElementContent => {
+    const kind = call.attrs.get('kind') as TwilightKind;
+    const sun = call.week.nights[call.night]!.sun;
+    const key = `${kind}${edge === 'dusk' ? 'Dusk' : 'Dawn'}` as const;
+    return eventElement(call, sun[key], twilightPhrases(kind), { dataTwilight: kind });
+  };
+}
+
+function bodyEvent(field: 'rise' | 'transit' | 'set') {
+  const phrases = field === 'rise' ? RISE_PHRASES : field === 'set' ? SET_PHRASES : TRANSIT_PHRASES;
+  return (call: PlaceholderCall): ElementContent => {
+    const body = bodyOf(call);
+    const event = call.week.bodyNight(call.night, body)[field];
+    return eventElement(call, event, phrases, { dataBody: body.id });
+  };
+}
+
+function direction(call: PlaceholderCall): ElementContent {
+  const body = bodyOf(call);
+  const { event, at } = momentOf(call, body);
+  if (!event.time) return missingElement(call, event.reason, momentPhrases(at)[event.reason], { dataBody: body.id, dataAt: at });
+  const o = call.week.observe(body, event.time);
+  const style = call.attrs.get('style') as string;
+  const point = compass(o.azimuthDeg);
+  let words = style === 'short' ? point.abbreviation : style === 'degrees' ? `${formatNumber(o.azimuthDeg, 0)}°` : point.word;
+  if (typeof call.attrs.get('at') !== 'string' && o.altitudeDeg < 0) words += ' (below the horizon then)';
+  return el(
+    'data',
+    { ...classes(call), value: exact(o.azimuthDeg, 2), dataBody: body.id, dataAt: at, dataAzimuthDeg: exact(o.azimuthDeg, 3), dataAltitudeDeg: exact(o.altitudeDeg, 3), dataTime: formatInstant(event.time, call.site.timeZone) },
+    words,
+  );
+}
+
+function altitude(call: PlaceholderCall): ElementContent {
+  const body = bodyOf(call);
+  const { event, at } = momentOf(call, body);
+  if (!event.time) return missingElement(call, event.reason, momentPhrases(at)[event.reason], { dataBody: body.id, dataAt: at });
+  const o = call.week.observe(body, event.time);
+  const digits = digitsOf(call, 0);
+  const deg = `${formatNumber(o.altitudeDeg, digits)}°`;
+  const words = o.altitudeDeg < 0 ? `below the horizon (${deg})` : `${deg} (${handMeasure(o.altitudeDeg)})`;
+  return el(
+    'data',
+    { ...classes(call, ...(o.altitudeDeg < 0 ? ['gl-below'] : [])), value: exact(o.altitudeDeg, 2), dataBody: body.id, dataAt: at, dataAltitudeDeg: exact(o.altitudeDeg, 3), dataFists: String(fists(o.altitudeDeg)), dataTime: formatInstant(event.time, call.site.timeZone) },
+    words,
+  );
+}
+
+function magnitude(call: PlaceholderCall): ElementContent {
+  const body = bodyOf(call);
+  const m = call.week.magnitudes(body);
+  const digits = digitsOf(call, 1);
+  const band = m.brightest !== Math.min(...m.values) || m.faintest !== Math.max(...m.values) ? { dataBrightest: exact(m.brightest, 2), dataFaintest: exact(m.faintest, 2) } : {};
+  if (call.given.has('night')) {
+    const v = m.values[call.night]!;
+    return el('data', { ...classes(call), value: exact(v, 2), dataBody: body.id, dataNight: nightDate(call), ...band }, formatNumber(v, digits));
+  }
+  const first = m.values[0]!;
+  const last = m.values[6]!;
+  const a = formatNumber(first, digits);
+  const b = formatNumber(last, digits);
+  const lo = Math.min(...m.values);
+  const hi = Math.max(...m.values);
+  const text = formatNumber(lo, digits) === formatNumber(hi, digits) ? a : `${a} to ${b}`;
+  return el(
+    'data',
+    { ...classes(call), value: exact(first, 2), dataBody: body.id, dataWeek: call.week.week.id, dataMagnitudeFirst: exact(first, 2), dataMagnitudeLast: exact(last, 2), dataMagnitudeMin: exact(lo, 2), dataMagnitudeMax: exact(hi, 2), ...band },
+    text,
+  );
+}
+
+function moonPhase(call: PlaceholderCall): ElementContent {
+  const p = call.week.nights[call.night]!.moon.phase;
+  return el(
+    'data',
+    { ...classes(call), value: p.name, dataNight: nightDate(call), dataElongationDeg: exact(p.elongationDeg, 2), dataIlluminatedFraction: exact(p.illuminatedFraction, 4), dataAgeDays: exact(p.ageDays, 2) },
+    PHASE_WORDS[p.name],
+  );
+}
+
+function moonLit(call: PlaceholderCall): ElementContent {
+  const f = call.week.nights[call.night]!.moon.phase.illuminatedFraction;
+  return el('data', { ...classes(call), value: exact(f, 4), dataNight: nightDate(call) }, `${formatNumber(f * 100, digitsOf(call, 0))}%`);
+}
+
+function dateOf(call: PlaceholderCall): ElementContent {
+  const date = nightDate(call);
+  const weekday = call.attrs.get('style') === 'short' ? 'short' : 'long';
+  return el('time', { ...classes(call), dateTime: date }, formatDay(date, call.site, { weekday }));
+}
+
+function weekOf(call: PlaceholderCall): ElementContent {
+  const days = call.week.week.days;
+  return el('time', { ...classes(call), dateTime: call.week.week.id }, formatDayRange(days[0]!, days[6]!, call.site));
+}
+
+function moonAndTwilight(call: PlaceholderCall): ElementContent {
+  const kind = call.attrs.get('kind') as TwilightKind;
+  const head = ['Night', 'Sunset', `End of ${kind} twilight`, `Start of ${kind} twilight`, 'Moonrise', 'Moonset', 'Moon'];
+  const rows: ElementContent[] = call.week.nights.map((report, i) => {
+    const cell = (child: ElementContent): ElementContent => el('td', {}, [child]);
+    const sub: PlaceholderCall = { ...call, night: i };
+    const as = (name: string): PlaceholderCall => ({ ...sub, name });
+    const p = report.moon.phase;
+    return el('tr', { dataNight: report.night.date }, [
+      el('th', { scope: 'row' }, [el('time', { dateTime: report.night.date }, formatDay(report.night.date, call.site, { weekday: 'short' }))]),
+      cell(eventElement(as('sunset'), report.sun.set, SUN_PHRASES)),
+      cell(eventElement(as('dark'), report.sun[`${kind}Dusk`], twilightPhrases(kind), { dataTwilight: kind })),
+      cell(eventElement(as('dawn'), report.sun[`${kind}Dawn`], twilightPhrases(kind), { dataTwilight: kind })),
+      cell(eventElement(as('rise'), report.moon.rise, RISE_PHRASES, { dataBody: 'moon' })),
+      cell(eventElement(as('set'), report.moon.set, SET_PHRASES, { dataBody: 'moon' })),
+      cell(el('data', { className: ['gl', 'gl-moon-phase'], value: p.name, dataIlluminatedFraction: exact(p.illuminatedFraction, 4) }, `${PHASE_WORDS[p.name]}, ${formatNumber(p.illuminatedFraction * 100, 0)}% lit`)),
+    ]);
+  });
+  const days = call.week.week.days;
+  return el('figure', { ...classes(call), dataWeek: call.week.week.id }, [
+    el('table', {}, [
+      el('caption', {}, `Sun, twilight and Moon at ${call.site.name}, ${formatDayRange(days[0]!, days[6]!, call.site)} (local time)`),
+      el('thead', {}, [el('tr', {}, head.map((h) => el('th', { scope: 'col' }, h)))]),
+      el('tbody', {}, rows),
+    ]),
+  ]);
+}
+
+// ---------------------------------------------------------------------------------------------
+// The table
+
+const DEFINITIONS: PlaceholderSpec[] = [
+  { name: 'week', form: 'inline', summary: "the page's week as a date range", attributes: {}, example: ':week', render: weekOf },
+  { name: 'date', form: 'inline', summary: 'the date of a night of the week', attributes: { night: NIGHT, style: { type: { kind: 'choice', values: ['long', 'short'] }, default: 'long', doc: 'weekday and month written out or abbreviated' } }, example: ':date{night=fri}', render: dateOf },
+  { name: 'sunset', form: 'inline', summary: 'sunset (upper limb on the horizon, standard refraction)', attributes: TIME_ATTRS, example: ':sunset{night=sat}', render: sunTime('set') },
+  { name: 'sunrise', form: 'inline', summary: 'sunrise the morning after the night', attributes: TIME_ATTRS, example: ':sunrise', render: sunTime('rise') },
+  { name: 'dark', form: 'inline', summary: 'end of evening twilight (Sun 6°, 12° or 18° below the horizon)', attributes: { kind: TWILIGHT, ...TIME_ATTRS }, example: ':dark{kind=nautical}', render: twilight('dusk') },
+  { name: 'dawn', form: 'inline', summary: 'start of morning twilight', attributes: { kind: TWILIGHT, ...TIME_ATTRS }, example: ':dawn', render: twilight('dawn') },
+  { name: 'rise', form: 'inline', summary: 'rise time of a body (or an honest phrase when it does not rise)', attributes: { body: BODY, ...TIME_ATTRS }, example: ':rise{body=jupiter}', render: bodyEvent('rise') },
+  { name: 'transit', form: 'inline', summary: 'time a body crosses the meridian, highest in the sky', attributes: { body: BODY, ...TIME_ATTRS }, example: ':transit{body=saturn}', render: bodyEvent('transit') },
+  { name: 'set', form: 'inline', summary: 'set time of a body', attributes: { body: BODY, ...TIME_ATTRS }, example: ':set{body=moon night=3}', render: bodyEvent('set') },
+  {
+    name: 'direction',
+    form: 'inline',
+    summary: 'compass direction of a body at a moment',
+    attributes: {
+      body: BODY,
+      at: { type: { kind: 'moment', values: ['rise', 'transit', 'set'], reserved: RESERVED_BEST }, required: true, doc: 'the moment (a clock time before 12:00 is the next morning)' },
+      style: { type: { kind: 'choice', values: ['word', 'short', 'degrees'] }, default: 'word', doc: 'west-southwest, WSW or 247°' },
+      night: NIGHT,
+    },
+    example: ':direction{body=venus at=set}',
+    render: direction,
+  },
+  {
+    name: 'altitude',
+    form: 'inline',
+    summary: 'height above the horizon in degrees and fists (apparent, with refraction)',
+    attributes: {
+      body: BODY,
+      at: { type: { kind: 'moment', values: ['transit'], reserved: RESERVED_BEST }, required: true, doc: 'the moment (a clock time before 12:00 is the next morning)' },
+      precision: DIGITS(0),
+      night: NIGHT,
+    },
+    example: ':altitude{body=jupiter at=21:00}',
+    render: altitude,
+  },
+  { name: 'magnitude', form: 'inline', summary: 'expected magnitude: over the week (a range when it changes), or on one night', attributes: { body: BODY, night: { ...NIGHT, default: 'the whole week' }, precision: DIGITS(1) }, example: ':magnitude{body=mars}', render: magnitude },
+  { name: 'moon-phase', form: 'inline', summary: "the Moon's phase at local midnight", attributes: { night: NIGHT }, example: ':moon-phase{night=sun}', render: moonPhase },
+  { name: 'moon-lit', form: 'inline', summary: "the lit fraction of the Moon's disc at local midnight, in per cent", attributes: { night: NIGHT, precision: DIGITS(0) }, example: ':moon-lit', render: moonLit },
+  { name: 'moon-and-twilight', form: 'block', summary: 'a table of the week: sunset, twilight, moonrise, moonset and phase for each night', attributes: { kind: TWILIGHT, clock: CLOCK, precision: TIME_PRECISION }, example: '::moon-and-twilight', render: moonAndTwilight },
+  { name: 'best-time', form: 'inline', summary: 'best viewing time of a body', attributes: { body: BODY, night: NIGHT }, example: ':best-time{body=jupiter}', needs: 'the best-viewing-time model (issue #4)' },
+  { name: 'window', form: 'inline', summary: 'viewing window of a body', attributes: { body: BODY, night: NIGHT }, example: ':window{body=jupiter}', needs: 'the best-viewing-time model (issue #4)' },
+  { name: 'verdict', form: 'inline', summary: 'naked eye, binoculars, telescope or not visible, with the reason', attributes: { body: BODY, night: NIGHT }, example: ':verdict{body=comet-lumen}', needs: 'the visibility model (issue #4)' },
+  { name: 'guide', form: 'inline', summary: 'where to look from a nearby star pattern', attributes: { body: BODY, night: NIGHT }, example: ':guide{body=mars}', needs: 'the guide patterns (issue #5)' },
+  { name: 'targets', form: 'block', summary: 'every naked-eye or binocular target of the week, by best time', attributes: {}, example: '::targets', needs: 'the visibility model (issue #4)' },
+  { name: 'chart', form: 'block', summary: 'a finder chart for a body', attributes: { body: BODY, night: NIGHT }, example: '::chart{body=jupiter}', needs: 'finder charts (issue #7)' },
+  { name: 'events', form: 'block', summary: "the week's events for the site", attributes: {}, example: '::events', needs: 'the events search (issue #8)' },
+];
+
+/** Every placeholder by name. */
+export const PLACEHOLDERS: ReadonlyMap<string, PlaceholderSpec> = new Map(DEFINITIONS.map((d) => [d.name, d]));

@@ -1,0 +1,103 @@
+/**
+ * Rendering one bulletin page: the template's Markdown through one unified pipeline
+ * (remark-parse → remark-directive → remarkPlaceholders → remark-rehype → rehype-stringify),
+ * then the eye-safety cautions and the final publishability check.
+ */
+import rehypeStringify from 'rehype-stringify';
+import remarkDirective from 'remark-directive';
+import remarkParse from 'remark-parse';
+import remarkRehype from 'remark-rehype';
+import { unified } from 'unified';
+import type { Body } from '../body.ts';
+import { GloamingError } from '../errors.ts';
+import { isoWeekOf } from '../time.ts';
+import { fieldPlace } from './frontmatter.ts';
+import { NEAR_SUN_DEG } from './placeholders.ts';
+import { remarkPlaceholders, type PlaceholderScope } from './plugin.ts';
+import { ECLIPSE_CAUTION, assertPublishable, nearSunCaution } from './safety.ts';
+import type { BulletinTemplate, RenderContext, RenderedBulletin } from './types.ts';
+import { WeekCache, type WeekData } from './week.ts';
+
+declare module 'vfile' {
+  interface DataMap {
+    /** The scope a page is rendered for, handed to `remarkPlaceholders` by `renderBulletin`. */
+    gloamingScope: PlaceholderScope;
+  }
+}
+
+/** One processor for every page; the page's scope travels in the file's data. */
+const processor = unified()
+  .use(remarkParse)
+  .use(remarkDirective)
+  .use(remarkPlaceholders, {
+    scope: (file) => {
+      const scope = file.data.gloamingScope;
+      if (!scope) throw new GloamingError('invalid-argument', 'renderBulletin: no placeholder scope was given');
+      return scope;
+    },
+  })
+  .use(remarkRehype)
+  .use(rehypeStringify)
+  .freeze();
+
+/** Front matter bodies, resolved; unknown ids are positioned errors with a suggestion. */
+function frontMatterBodies(template: BulletinTemplate, context: RenderContext): Body[] {
+  return (template.frontMatter.bodies ?? []).map((id, i) => {
+    try {
+      return context.bodies.get(id, { field: `bodies.${i}` });
+    } catch (error) {
+      if (error instanceof GloamingError) throw error.at(fieldPlace(template, `bodies.${i}`));
+      throw error;
+    }
+  });
+}
+
+/** Cautions for a page: near-Sun targets (front matter bodies on any night, placeholder bodies on their night) and eclipses. */
+function cautionsFor(template: BulletinTemplate, week: WeekData, listed: Body[], shown: Body[]): string[] {
+  const near = new Map<string, Body>();
+  for (const body of listed) {
+    if (body.kind === 'sun' || week.nights.some((_, i) => week.elongationDeg(i, body) < NEAR_SUN_DEG)) near.set(body.id, body);
+  }
+  for (const body of shown) near.set(body.id, body);
+  const names = [...near.values()].filter((b) => b.kind !== 'sun').map((b) => b.name);
+  const cautions: string[] = [];
+  if (near.size > 0) cautions.push(nearSunCaution(names));
+  if (template.frontMatter.eclipse) cautions.push(ECLIPSE_CAUTION);
+  return cautions;
+}
+
+/**
+ * Renders `template` for `context.site` and `context.week`. Pass one `WeekCache` to every call of
+ * a build so each site-week is computed once. The default night is Monday of the week, or the
+ * one-off bulletin's date when it falls in the week. Throws `GloamingError` for any problem in the
+ * template (placed at `file:line:column`) and `unsafe-output` if the HTML is not publishable.
+ */
+export async function renderBulletin(template: BulletinTemplate, context: RenderContext, cache: WeekCache = new WeekCache()): Promise<RenderedBulletin> {
+  return renderBulletinSync(template, context, cache);
+}
+
+/** The synchronous form of `renderBulletin` (same result). */
+export function renderBulletinSync(template: BulletinTemplate, context: RenderContext, cache: WeekCache = new WeekCache()): RenderedBulletin {
+  const listed = frontMatterBodies(template, context);
+  const date = template.frontMatter.date;
+  const scope: PlaceholderScope = {
+    site: context.site,
+    week: context.week,
+    bodies: context.bodies,
+    cache,
+    file: template.file,
+    lineOffset: template.bodyLine - 1,
+    ...(date !== undefined && isoWeekOf(date).id === context.week.id ? { defaultNight: date } : {}),
+  };
+  const file = processor.processSync({ value: template.body, path: template.file, data: { gloamingScope: scope } });
+  const html = String(file);
+  assertPublishable(html, template.file);
+  const shown = file.data.placeholders?.nearSun ?? [];
+  const week = cache.get(context.site, context.week);
+  return {
+    html,
+    title: template.frontMatter.title,
+    description: template.frontMatter.description ?? '',
+    cautions: cautionsFor(template, week, listed, shown),
+  };
+}

@@ -1,0 +1,141 @@
+/**
+ * The shared week data every placeholder reads: for one site and one ISO week, the seven nights
+ * (Monday to Sunday evenings) with the Sun's and the Moon's events, and each requested body's
+ * rise, transit and set. Each site-night is computed once (`computeNight`), each body once per
+ * night on that night's shared frame, and the result is shared by every placeholder and every
+ * page of the same site and week through a `WeekCache`.
+ */
+import * as Astronomy from 'astronomy-engine';
+import type { Body } from '../body.ts';
+import { builtInBody } from '../body.ts';
+import { riseTransitSet } from '../events.ts';
+import { computeNight, localMidnight, type BodyNight, type NightReport } from '../night.ts';
+import { observe, type Observation } from '../observe.ts';
+import type { Site } from '../site.ts';
+import type { IsoWeek } from '../time.ts';
+import type { Visibility } from '../visibility.ts';
+
+/** One body over the week: its expected magnitude at local midnight of each night. */
+export interface WeekMagnitudes {
+  /** V magnitude at local midnight of each of the 7 nights, Monday first. */
+  values: number[];
+  /** Model band (brightest, faintest) over the week, when the body's model gives one (comets). */
+  brightest: number;
+  faintest: number;
+}
+
+/** The data of one site and one week. Bodies are computed on first use and then kept. */
+export class WeekData {
+  readonly site: Site;
+  readonly week: IsoWeek;
+  /** The seven nights, Monday evening first (`week.days[i]` is `nights[i].night.date`). */
+  readonly nights: readonly NightReport[];
+  readonly #bodyNights = new Map<string, BodyNight>();
+  readonly #observations = new Map<string, Observation>();
+  readonly #magnitudes = new Map<string, WeekMagnitudes>();
+
+  constructor(site: Site, week: IsoWeek) {
+    this.site = site;
+    this.week = week;
+    this.nights = week.days.map((date) => computeNight(site, date, []));
+  }
+
+  /** Index 0–6 of a local date inside this week, or −1. */
+  indexOf(date: string): number {
+    return this.week.days.indexOf(date);
+  }
+
+  /** Rise, transit and set of `body` on night `index` (0 = Monday), computed on the night's shared frame. */
+  bodyNight(index: number, body: Body): BodyNight {
+    const key = `${index}:${body.id}`;
+    let b = this.#bodyNights.get(key);
+    if (!b) {
+      const report = this.nights[index]!;
+      let visibility: Visibility | undefined;
+      const made: BodyNight = {
+        body,
+        ...riseTransitSet(report.frame, report.frame.track(body)),
+        // Same lazy form as `computeNight`: the visibility model runs only when a placeholder reads it.
+        get visibility(): Visibility {
+          visibility ??= report.sky.visibility(body);
+          return visibility;
+        },
+      };
+      this.#bodyNights.set(key, made);
+      b = made;
+    }
+    return b;
+  }
+
+  /** Exact position of `body` at `instant` from the site (`observe`), memoised per instant. */
+  observe(body: Body, instant: Date): Observation {
+    const key = `${body.id}@${instant.getTime()}`;
+    let o = this.#observations.get(key);
+    if (!o) {
+      o = observe(this.site, body, instant);
+      this.#observations.set(key, o);
+    }
+    return o;
+  }
+
+  /** Local midnight that splits night `index` (the moment magnitudes and elongations are taken at). */
+  midnight(index: number): Date {
+    return localMidnight(this.nights[index]!.night);
+  }
+
+  /** Expected magnitude of `body` at local midnight of each night of the week. */
+  magnitudes(body: Body): WeekMagnitudes {
+    let m = this.#magnitudes.get(body.id);
+    if (!m) {
+      const estimates = this.nights.map((_, i) => body.illumination(Astronomy.MakeTime(this.midnight(i))).magnitude);
+      const values = estimates.map((e) => e.value);
+      m = {
+        values,
+        brightest: Math.min(...estimates.map((e) => e.brightest ?? e.value)),
+        faintest: Math.max(...estimates.map((e) => e.faintest ?? e.value)),
+      };
+      this.#magnitudes.set(body.id, m);
+    }
+    return m;
+  }
+
+  /** Geocentric angle between `body` and the Sun at local midnight of night `index`, degrees. */
+  elongationDeg(index: number, body: Body): number {
+    const time = Astronomy.MakeTime(this.midnight(index));
+    const sun = builtInBody('sun').geoVector(time, { aberration: true });
+    return Astronomy.AngleBetween(body.geoVector(time, { aberration: true }), sun);
+  }
+}
+
+/**
+ * Week data keyed by site id and ISO week id. A site object that differs from the cached one
+ * (same id, new definition) replaces the entry, so a changed site file is never served stale.
+ */
+export class WeekCache {
+  readonly #weeks = new Map<string, WeekData>();
+  /** Number of lookups answered from the cache and computed afresh. */
+  hits = 0;
+  misses = 0;
+
+  get(site: Site, week: IsoWeek): WeekData {
+    const key = `${site.id}/${week.id}`;
+    const found = this.#weeks.get(key);
+    if (found && found.site === site) {
+      this.hits++;
+      return found;
+    }
+    this.misses++;
+    const data = new WeekData(site, week);
+    this.#weeks.set(key, data);
+    return data;
+  }
+
+  /** Forgets everything. */
+  clear(): void {
+    this.#weeks.clear();
+  }
+
+  get size(): number {
+    return this.#weeks.size;
+  }
+}
