@@ -4,7 +4,9 @@
  */
 import { readdirSync, readFileSync } from 'node:fs';
 import { basename, join } from 'node:path';
+import { BodyRegistry } from './body.ts';
 import { GloamingError, didYouMean } from './errors.ts';
+import { loadObjects } from './orbit/body.ts';
 import { defineSite, type Site } from './site.ts';
 import { loadYaml, validateYaml } from './yaml.ts';
 
@@ -51,4 +53,11 @@ export function findSite(sites: Map<string, Site>, id: string, place?: { field?:
     expected: sites.size ? `one of ${[...sites.keys()].join(', ')}` : 'a site defined in content/sites/',
     ...(hint ? { hint } : {}),
   });
+}
+
+/** The built-in bodies plus every object of `content/objects/` (or another folder). */
+export function loadBodies(objectsDir: string): BodyRegistry {
+  const registry = new BodyRegistry();
+  for (const body of loadObjects(objectsDir)) registry.add(body);
+  return registry;
 }

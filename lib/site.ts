@@ -5,15 +5,10 @@
 import * as Astronomy from 'astronomy-engine';
 import { GloamingError, type Place } from './errors.ts';
 import { assertTimeZone } from './time.ts';
+import type { SkyQuality } from './sky/quality.ts';
 
-/** How dark the site's sky is, in whichever form the user knows it. */
-export type SkyQuality =
-  /** Bortle dark-sky class, 1 (excellent dark site) – 9 (inner city). Bortle 2001. */
-  | { bortle: number }
-  /** Sky Quality Meter reading at the zenith, V mag/arcsec² (typically 16–22). */
-  | { sqm: number }
-  /** Naked-eye limiting magnitude at the zenith (typically 2–8). */
-  | { nelm: number };
+/** How dark the site's sky is: `{ bortle }` (class 1–9), `{ sqm }` (mag/arcsec²) or `{ nelm }`. */
+export type { SkyQuality };
 
 /** One point of a local horizon profile: the skyline's altitude at an azimuth. */
 export interface HorizonPoint {

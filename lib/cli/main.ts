@@ -6,7 +6,9 @@
 import { parseArgs, type ParseArgsConfig } from 'node:util';
 import { resolve } from 'node:path';
 import { BodyRegistry, BUILT_IN_IDS, type Body } from '../body.ts';
-import { findSite, loadSites } from '../content.ts';
+import { findSite, loadBodies, loadSites } from '../content.ts';
+import { loadObjectFile } from '../orbit/elements.ts';
+import { smallBody } from '../orbit/body.ts';
 import { compass, describeAltitude } from '../describe.ts';
 import { GloamingError } from '../errors.ts';
 import { computeNight } from '../night.ts';
@@ -38,6 +40,7 @@ const COMMON = {
   site: { type: 'string' },
   content: { type: 'string' },
   body: { type: 'string', multiple: true },
+  elements: { type: 'string' },
   json: { type: 'boolean' },
   help: { type: 'boolean', short: 'h' },
 } as const satisfies ParseArgsConfig['options'];
@@ -63,6 +66,7 @@ Usage: gloaming position (--lat <deg> --lon <deg> [--elevation <m>] | --site <id
   --site <id>         a site from content/sites/ instead of --lat/--lon
   --at <instant>      ISO 8601 instant with zone, e.g. 2026-12-04T18:30:00Z
   --body <id>         ${BUILT_IN_IDS.join(', ')}, or an object id from content/objects/
+  --elements <file>   an object file (comet or asteroid elements, YAML) from anywhere, in place of --body
   --content <dir>     content folder (default ./content)
   --json              print one JSON object`,
   night: `gloaming night — the night that begins on a local evening
@@ -74,6 +78,7 @@ Usage: gloaming night (--lat <deg> --lon <deg> [--elevation <m>] --tz <zone> | -
   --tz <zone>         IANA time zone, e.g. Europe/Berlin
   --date <date>       local date of the evening, YYYY-MM-DD
   --body <id>         repeatable; default: the Moon and all planets
+  --elements <file>   also observe the comet or asteroid defined in this object file
   --sky <quality>     bortle:<1–9>, sqm:<mag/arcsec²> or nelm:<magnitude>
   --json              print one JSON object
 
@@ -121,9 +126,15 @@ function requireFlag<T>(value: T | undefined, flag: string, expected: string): T
   return value;
 }
 
-function registry(contentDir: string): BodyRegistry {
-  void contentDir;
-  return new BodyRegistry();
+function registry(values: Record<string, unknown>): BodyRegistry {
+  const contentDir = resolve(String(values.content ?? 'content'));
+  const reg = loadBodies(resolve(contentDir, 'objects'));
+  if (typeof values.elements === 'string') {
+    const body = smallBody(loadObjectFile(values.elements));
+    // An object file loaded from anywhere replaces a content object of the same id.
+    return reg.ids().includes(body.id) ? new BodyRegistry().add(body) : reg.add(body);
+  }
+  return reg;
 }
 
 function siteFrom(values: Record<string, unknown>, needZone: boolean): Site {
@@ -145,9 +156,15 @@ function siteFrom(values: Record<string, unknown>, needZone: boolean): Site {
 }
 
 function bodiesFrom(values: Record<string, unknown>, fallback: string[]): Body[] {
-  const reg = registry(String(values.content ?? 'content'));
-  const ids = (values.body as string[] | undefined) ?? fallback;
-  return ids.map((id) => reg.get(id, { field: 'body' }));
+  const reg = registry(values);
+  const ids = (values.body as string[] | undefined) ?? [];
+  const bodies = ids.map((id) => reg.get(id, { field: 'body' }));
+  if (typeof values.elements === 'string') {
+    // `--elements` stands in for `--body`: the object it defines is observed.
+    const id = reg.ids()[reg.ids().length - 1]!;
+    bodies.push(reg.get(id));
+  }
+  return bodies.length ? bodies : fallback.map((id) => reg.get(id));
 }
 
 function timeText(e: EventTime, zone: string): string {
@@ -159,8 +176,9 @@ function runPosition(args: string[], out: (s: string) => void): void {
   if (values.help) return out(HELP.position!);
   const site = siteFrom(values, false);
   const at = parseInstant(requireFlag(values.at, '--at', 'an ISO 8601 instant, e.g. 2026-12-04T18:30:00Z'));
-  const ids = requireFlag(values.body, '--body', `a body id: ${BUILT_IN_IDS.join(', ')}`);
-  if (ids.length !== 1) throw new UsageError(`--body: give exactly one body for 'position' (got ${ids.length})`);
+  const count = (values.body?.length ?? 0) + (values.elements ? 1 : 0);
+  if (count === 0) throw new UsageError(`--body is required; expected a body id (${BUILT_IN_IDS.join(', ')}, or an object id) or --elements <file.yaml>`);
+  if (count !== 1) throw new UsageError(`--body: give exactly one body for 'position' (got ${count})`);
   const [body] = bodiesFrom(values, []);
   const o = observe(site, body!, at);
   if (values.json) return out(JSON.stringify(positionJson(o), null, 2));

@@ -75,6 +75,7 @@ export function smallBody(object: SmallBodyObject): SmallBody {
     name: object.name,
     kind: object.kind,
     radiusKm: 0,
+    ...(object.comaArcmin !== undefined ? { comaDiameterArcmin: object.comaArcmin } : {}),
     object,
     orbit,
     helioVector(time) {
