@@ -21,6 +21,7 @@ import { addDays, formatInstant, zonedTime } from '../time.ts';
 import type { AttributeSpec, AttributeValue, ClockTime } from './attributes.ts';
 import { el, exact, formatClock, formatDay, formatDayRange, formatNumber, type Clock, type TimePrecision } from './format.ts';
 import type { WeekData } from './week.ts';
+import { REASON_TEXT, type Visibility } from '../visibility.ts';
 
 /** A target within this angle of the Sun (geocentric, at local midnight of the night) triggers the eye-safety caution. */
 export const NEAR_SUN_DEG = 15;
@@ -64,7 +65,6 @@ const TIME_PRECISION: AttributeSpec = { type: { kind: 'time-precision' }, defaul
 const BODY: AttributeSpec = { type: { kind: 'body' }, required: true, doc: 'the body or object' };
 const TWILIGHT: AttributeSpec = { type: { kind: 'choice', values: ['civil', 'nautical', 'astronomical'] }, default: 'astronomical', doc: 'which twilight' };
 const DIGITS = (fallback: number, doc = 'decimals shown'): AttributeSpec => ({ type: { kind: 'integer', min: 0, max: 2 }, default: String(fallback), doc });
-const RESERVED_BEST = { best: 'the best-viewing-time model (issue #4)' };
 
 const TIME_ATTRS = { night: NIGHT, clock: CLOCK, precision: TIME_PRECISION };
 
@@ -149,8 +149,12 @@ function twilightPhrases(kind: TwilightKind): Record<MissingReason, string> {
 }
 
 /** The instant of a moment attribute on the placeholder's night: a rise/transit/set event or a clock time. */
-function momentOf(call: PlaceholderCall, body: Body): { event: EventTime; at: string } {
+function momentOf(call: PlaceholderCall, body: Body): { event: EventTime; at: string; visibility?: Visibility } {
   const moment = call.attrs.get('at') as string | ClockTime;
+  if (moment === 'best') {
+    const v = call.week.bodyNight(call.night, body).visibility;
+    return { event: v.best ? { time: v.best.time } : { time: null, reason: 'always-below' }, at: 'best', visibility: v };
+  }
   if (typeof moment === 'string') {
     const bn = call.week.bodyNight(call.night, body);
     const event = moment === 'rise' ? bn.rise : moment === 'set' ? bn.set : bn.transit;
@@ -195,9 +199,16 @@ function bodyEvent(field: 'rise' | 'transit' | 'set') {
   };
 }
 
+/** The honest phrase for a body with no best moment this night. */
+function notVisible(call: PlaceholderCall, body: Body, v: Visibility, data: Properties = {}): ElementContent {
+  const reason = v.reason ?? 'too-faint';
+  return el('span', { ...classes(call, 'gl-none'), dataNight: nightDate(call), dataBody: body.id, dataVerdict: v.verdict, dataReason: reason, ...data }, `not visible this night: ${REASON_TEXT[reason]}`);
+}
+
 function direction(call: PlaceholderCall): ElementContent {
   const body = bodyOf(call);
-  const { event, at } = momentOf(call, body);
+  const { event, at, visibility } = momentOf(call, body);
+  if (visibility && !visibility.best) return notVisible(call, body, visibility, { dataAt: at });
   if (!event.time) return missingElement(call, event.reason, momentPhrases(at)[event.reason], { dataBody: body.id, dataAt: at });
   const o = call.week.observe(body, event.time);
   const style = call.attrs.get('style') as string;
@@ -213,7 +224,8 @@ function direction(call: PlaceholderCall): ElementContent {
 
 function altitude(call: PlaceholderCall): ElementContent {
   const body = bodyOf(call);
-  const { event, at } = momentOf(call, body);
+  const { event, at, visibility } = momentOf(call, body);
+  if (visibility && !visibility.best) return notVisible(call, body, visibility, { dataAt: at });
   if (!event.time) return missingElement(call, event.reason, momentPhrases(at)[event.reason], { dataBody: body.id, dataAt: at });
   const o = call.week.observe(body, event.time);
   const digits = digitsOf(call, 0);
@@ -241,7 +253,8 @@ function magnitude(call: PlaceholderCall): ElementContent {
   const b = formatNumber(last, digits);
   const lo = Math.min(...m.values);
   const hi = Math.max(...m.values);
-  const text = formatNumber(lo, digits) === formatNumber(hi, digits) ? a : `${a} to ${b}`;
+  // A range only when the week's change reaches one unit of the last digit shown (rounding alone must not make one).
+  const text = hi - lo < 10 ** -digits || a === b ? a : `${a} to ${b}`;
   return el(
     'data',
     { ...classes(call), value: exact(first, 2), dataBody: body.id, dataWeek: call.week.week.id, dataMagnitudeFirst: exact(first, 2), dataMagnitudeLast: exact(last, 2), dataMagnitudeMin: exact(lo, 2), dataMagnitudeMax: exact(hi, 2), ...band },
@@ -302,6 +315,72 @@ function moonAndTwilight(call: PlaceholderCall): ElementContent {
   ]);
 }
 
+const VERDICT_WORDS = { 'naked-eye': 'visible to the naked eye', binoculars: 'a target for binoculars', telescope: 'a target for a small telescope' } as const;
+
+function visibilityData(v: Visibility): Properties {
+  return {
+    dataVerdict: v.verdict,
+    ...(v.best ? { dataMargin: exact(v.best.margin, 2), dataAltitudeDeg: exact(v.best.altitudeDeg, 3), dataAzimuthDeg: exact(v.best.azimuthDeg, 3) } : {}),
+    ...(v.outsideViewingHours ? { dataOutsideViewingHours: 'true' } : {}),
+  };
+}
+
+function bestTime(call: PlaceholderCall): ElementContent {
+  const body = bodyOf(call);
+  const v = call.week.bodyNight(call.night, body).visibility;
+  if (!v.best) return notVisible(call, body, v);
+  return timeElement(call, v.best.time, { dataBody: body.id, ...visibilityData(v) });
+}
+
+function viewingWindow(call: PlaceholderCall): ElementContent {
+  const body = bodyOf(call);
+  const v = call.week.bodyNight(call.night, body).visibility;
+  if (!v.window) return notVisible(call, body, v);
+  const zone = call.site.timeZone;
+  const format = { clock: call.clock, precision: precisionOf(call) };
+  return el('span', { ...classes(call), dataNight: nightDate(call), dataBody: body.id, ...visibilityData(v) }, [
+    el('time', { dateTime: formatInstant(v.window.start, zone) }, formatClock(v.window.start, call.site, format)),
+    { type: 'text', value: '\u2013' },
+    el('time', { dateTime: formatInstant(v.window.end, zone) }, formatClock(v.window.end, call.site, format)),
+  ]);
+}
+
+function verdict(call: PlaceholderCall): ElementContent {
+  const body = bodyOf(call);
+  const v = call.week.bodyNight(call.night, body).visibility;
+  const words = v.verdict === 'not-visible' ? `not visible this night: ${REASON_TEXT[v.reason ?? 'too-faint']}` : VERDICT_WORDS[v.verdict];
+  return el('data', { ...classes(call), value: v.verdict, dataNight: nightDate(call), dataBody: body.id, ...(v.reason ? { dataReason: v.reason } : {}), ...visibilityData(v) }, words);
+}
+
+/** Every naked-eye or binocular target of the night, by best time. Bodies come from the week's registry. */
+function targets(call: PlaceholderCall): ElementContent {
+  const zone = call.site.timeZone;
+  const format = { clock: call.clock, precision: precisionOf(call) };
+  const rows = call.week.bodies
+    .ids()
+    .filter((id) => id !== 'sun')
+    .map((id) => call.week.bodyNight(call.night, call.week.bodies.get(id)))
+    .filter((bn) => bn.visibility.best && (bn.visibility.verdict === 'naked-eye' || bn.visibility.verdict === 'binoculars'))
+    .sort((a, b) => a.visibility.best!.time.getTime() - b.visibility.best!.time.getTime() || (a.body.id < b.body.id ? -1 : 1));
+  if (rows.length === 0) {
+    return el('p', { ...classes(call, 'gl-none'), dataNight: nightDate(call) }, 'No naked-eye or binocular targets this night.');
+  }
+  const items = rows.map((bn) => {
+    const v = bn.visibility;
+    const best = v.best!;
+    if (bn.body.kind !== 'sun' && call.week.elongationDeg(call.night, bn.body) < NEAR_SUN_DEG) call.nearSun(bn.body);
+    return el('li', { dataBody: bn.body.id, ...visibilityData(v) }, [
+      el('strong', {}, bn.body.name),
+      { type: 'text', value: ': best at ' },
+      el('time', { dateTime: formatInstant(best.time, zone) }, formatClock(best.time, call.site, format)),
+      { type: 'text', value: `, ${compass(best.azimuthDeg).word}, ${formatNumber(best.altitudeDeg, 0)}° (${handMeasure(best.altitudeDeg)}) up, magnitude ` },
+      el('data', { value: exact(best.magnitude, 2) }, formatNumber(best.magnitude, 1)),
+      { type: 'text', value: ` \u2014 ${VERDICT_WORDS[v.verdict as keyof typeof VERDICT_WORDS]}${v.outsideViewingHours ? ' (outside the viewing hours)' : ''}` },
+    ]);
+  });
+  return el('ul', { ...classes(call), dataNight: nightDate(call) }, items);
+}
+
 // ---------------------------------------------------------------------------------------------
 // The table
 
@@ -321,11 +400,11 @@ const DEFINITIONS: PlaceholderSpec[] = [
     summary: 'compass direction of a body at a moment',
     attributes: {
       body: BODY,
-      at: { type: { kind: 'moment', values: ['rise', 'transit', 'set'], reserved: RESERVED_BEST }, required: true, doc: 'the moment (a clock time before 12:00 is the next morning)' },
+      at: { type: { kind: 'moment', values: ['best', 'rise', 'transit', 'set'] }, required: true, doc: 'the moment (a clock time before 12:00 is the next morning)' },
       style: { type: { kind: 'choice', values: ['word', 'short', 'degrees'] }, default: 'word', doc: 'west-southwest, WSW or 247°' },
       night: NIGHT,
     },
-    example: ':direction{body=venus at=set}',
+    example: ':direction{body=jupiter at=best}',
     render: direction,
   },
   {
@@ -334,7 +413,7 @@ const DEFINITIONS: PlaceholderSpec[] = [
     summary: 'height above the horizon in degrees and fists (apparent, with refraction)',
     attributes: {
       body: BODY,
-      at: { type: { kind: 'moment', values: ['transit'], reserved: RESERVED_BEST }, required: true, doc: 'the moment (a clock time before 12:00 is the next morning)' },
+      at: { type: { kind: 'moment', values: ['best', 'transit'] }, required: true, doc: 'the moment (a clock time before 12:00 is the next morning)' },
       precision: DIGITS(0),
       night: NIGHT,
     },
@@ -345,11 +424,11 @@ const DEFINITIONS: PlaceholderSpec[] = [
   { name: 'moon-phase', form: 'inline', summary: "the Moon's phase at local midnight", attributes: { night: NIGHT }, example: ':moon-phase{night=sun}', render: moonPhase },
   { name: 'moon-lit', form: 'inline', summary: "the lit fraction of the Moon's disc at local midnight, in per cent", attributes: { night: NIGHT, precision: DIGITS(0) }, example: ':moon-lit', render: moonLit },
   { name: 'moon-and-twilight', form: 'block', summary: 'a table of the week: sunset, twilight, moonrise, moonset and phase for each night', attributes: { kind: TWILIGHT, clock: CLOCK, precision: TIME_PRECISION }, example: '::moon-and-twilight', render: moonAndTwilight },
-  { name: 'best-time', form: 'inline', summary: 'best viewing time of a body', attributes: { body: BODY, night: NIGHT }, example: ':best-time{body=jupiter}', needs: 'the best-viewing-time model (issue #4)' },
-  { name: 'window', form: 'inline', summary: 'viewing window of a body', attributes: { body: BODY, night: NIGHT }, example: ':window{body=jupiter}', needs: 'the best-viewing-time model (issue #4)' },
-  { name: 'verdict', form: 'inline', summary: 'naked eye, binoculars, telescope or not visible, with the reason', attributes: { body: BODY, night: NIGHT }, example: ':verdict{body=comet-lumen}', needs: 'the visibility model (issue #4)' },
+  { name: 'best-time', form: 'inline', summary: 'best viewing time: largest visibility margin within the viewing hours (lib/visibility.ts)', attributes: { body: BODY, ...TIME_ATTRS }, example: ':best-time{body=jupiter}', render: bestTime },
+  { name: 'window', form: 'inline', summary: 'viewing window: the span around the best time where the body stays visible', attributes: { body: BODY, ...TIME_ATTRS }, example: ':window{body=jupiter}', render: viewingWindow },
+  { name: 'verdict', form: 'inline', summary: 'naked eye, binoculars, telescope or not visible, with the reason', attributes: { body: BODY, night: NIGHT }, example: ':verdict{body=saturn}', render: verdict },
   { name: 'guide', form: 'inline', summary: 'where to look from a nearby star pattern', attributes: { body: BODY, night: NIGHT }, example: ':guide{body=mars}', needs: 'the guide patterns (issue #5)' },
-  { name: 'targets', form: 'block', summary: 'every naked-eye or binocular target of the week, by best time', attributes: {}, example: '::targets', needs: 'the visibility model (issue #4)' },
+  { name: 'targets', form: 'block', summary: 'every naked-eye or binocular target of the night, by best time, with direction, altitude and magnitude', attributes: { ...TIME_ATTRS }, example: '::targets{night=fri}', render: targets },
   { name: 'chart', form: 'block', summary: 'a finder chart for a body', attributes: { body: BODY, night: NIGHT }, example: '::chart{body=jupiter}', needs: 'finder charts (issue #7)' },
   { name: 'events', form: 'block', summary: "the week's events for the site", attributes: {}, example: '::events', needs: 'the events search (issue #8)' },
 ];

@@ -249,7 +249,7 @@ export function remarkPlaceholders(options: RemarkPlaceholdersOptions) {
     const nearSun = new Map<string, Body>();
     let week: WeekData | undefined;
     for (const c of checked) {
-      week ??= (scope.cache ?? new WeekCache()).get(scope.site, scope.week);
+      week ??= (scope.cache ?? new WeekCache()).get(scope.site, scope.week, scope.bodies);
       const call: PlaceholderCall = {
         name: c.spec.name,
         site: scope.site,

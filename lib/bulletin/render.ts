@@ -93,7 +93,7 @@ export function renderBulletinSync(template: BulletinTemplate, context: RenderCo
   const html = String(file);
   assertPublishable(html, template.file);
   const shown = file.data.placeholders?.nearSun ?? [];
-  const week = cache.get(context.site, context.week);
+  const week = cache.get(context.site, context.week, context.bodies);
   return {
     html,
     title: template.frontMatter.title,

@@ -6,8 +6,7 @@
  * page of the same site and week through a `WeekCache`.
  */
 import * as Astronomy from 'astronomy-engine';
-import type { Body } from '../body.ts';
-import { builtInBody } from '../body.ts';
+import { BodyRegistry, builtInBody, type Body } from '../body.ts';
 import { riseTransitSet } from '../events.ts';
 import { computeNight, localMidnight, type BodyNight, type NightReport } from '../night.ts';
 import { observe, type Observation } from '../observe.ts';
@@ -28,15 +27,18 @@ export interface WeekMagnitudes {
 export class WeekData {
   readonly site: Site;
   readonly week: IsoWeek;
+  /** The bodies placeholders may name (built-in ones plus loaded objects). */
+  readonly bodies: BodyRegistry;
   /** The seven nights, Monday evening first (`week.days[i]` is `nights[i].night.date`). */
   readonly nights: readonly NightReport[];
   readonly #bodyNights = new Map<string, BodyNight>();
   readonly #observations = new Map<string, Observation>();
   readonly #magnitudes = new Map<string, WeekMagnitudes>();
 
-  constructor(site: Site, week: IsoWeek) {
+  constructor(site: Site, week: IsoWeek, bodies: BodyRegistry = new BodyRegistry()) {
     this.site = site;
     this.week = week;
+    this.bodies = bodies;
     this.nights = week.days.map((date) => computeNight(site, date, []));
   }
 
@@ -108,8 +110,8 @@ export class WeekData {
 }
 
 /**
- * Week data keyed by site id and ISO week id. A site object that differs from the cached one
- * (same id, new definition) replaces the entry, so a changed site file is never served stale.
+ * Week data keyed by site id and ISO week id. A site object or body registry that differs from
+ * the cached one (same id, new definition) replaces the entry, so a changed file is never served stale.
  */
 export class WeekCache {
   readonly #weeks = new Map<string, WeekData>();
@@ -117,15 +119,15 @@ export class WeekCache {
   hits = 0;
   misses = 0;
 
-  get(site: Site, week: IsoWeek): WeekData {
+  get(site: Site, week: IsoWeek, bodies?: BodyRegistry): WeekData {
     const key = `${site.id}/${week.id}`;
     const found = this.#weeks.get(key);
-    if (found && found.site === site) {
+    if (found && found.site === site && (bodies === undefined || found.bodies === bodies)) {
       this.hits++;
       return found;
     }
     this.misses++;
-    const data = new WeekData(site, week);
+    const data = new WeekData(site, week, bodies);
     this.#weeks.set(key, data);
     return data;
   }
