@@ -13,12 +13,25 @@ import { localMidnight, nightOf, type Night } from './time.ts';
 export { localMidnight };
 import { NightFrame } from './track.ts';
 import { NightVisibility, type Visibility } from './visibility.ts';
+import { observe } from './observe.ts';
+import { guidePattern, type GuideResult } from './stars/guide.ts';
 
 /** One body's night: rise, transit and set, and (computed on first use) its visibility. */
 export interface BodyNight extends RiseTransitSet {
   body: Body;
   /** Best time, window and verdict (see `lib/visibility.ts`), computed once on first read. */
   readonly visibility: Visibility;
+  /**
+   * The guide pattern and nearest bright star at the best time (or at transit when there is no
+   * best time), computed once on first read; null when neither moment exists or no pattern is up.
+   */
+  readonly guide: GuideResult | null;
+}
+
+/** The guide pattern for `body` at `time` as seen from `site` (see `lib/stars/guide.ts`). */
+export function guideAt(site: Site, body: Body, time: Date): GuideResult | null {
+  const o = observe(site, body, time);
+  return guidePattern({ observer: site, time: o.time, target: { raHours: o.raHours, decDeg: o.decDeg } });
 }
 
 export interface NightReport {
@@ -52,14 +65,24 @@ export function computeNight(site: Site, date: string, bodies: readonly Body[]):
     moon: { ...riseTransitSet(frame, frame.track(moonBody)), phase: moonPhase(localMidnight(night)) },
     bodies: bodies.map((body) => {
       let visibility: Visibility | undefined;
-      return {
+      let guide: GuideResult | null | undefined;
+      const events = riseTransitSet(frame, frame.track(body));
+      const entry: BodyNight = {
         body,
-        ...riseTransitSet(frame, frame.track(body)),
+        ...events,
         get visibility(): Visibility {
           visibility ??= report.sky.visibility(body);
           return visibility;
         },
+        get guide(): GuideResult | null {
+          if (guide === undefined) {
+            const at = body.kind === 'sun' ? null : (entry.visibility.best?.time ?? events.transit.time);
+            guide = at ? guideAt(site, body, at) : null;
+          }
+          return guide;
+        },
       };
+      return entry;
     }),
     get sky(): NightVisibility {
       sky ??= new NightVisibility(report);

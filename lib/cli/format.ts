@@ -11,6 +11,7 @@ import { PHASE_LABEL } from '../moon.ts';
 import { formatInstant } from '../time.ts';
 import { REASON_TEXT, type Visibility } from '../visibility.ts';
 import type { WeekReport } from '../week.ts';
+import type { GuideResult } from '../stars/guide.ts';
 
 /** Rounds to `digits` decimals, keeping JSON short and deterministic. */
 export function round(value: number, digits: number): number {
@@ -108,6 +109,7 @@ export function nightJson(report: NightReport): Record<string, unknown> {
         ...(b.transit.time ? { transitAltitude: round(b.transit.altitudeDeg ?? NaN, 2) } : {}),
         ...(reasons(events) ? { reasons: reasons(events) } : {}),
         ...visibilityJson(b.visibility, zone),
+        pattern: guideJson(b.guide),
       };
     }),
   };
@@ -157,5 +159,19 @@ export function weekJson(report: WeekReport): Record<string, unknown> {
       moonInterference: b.moonInterference,
       nights: b.nights.map((n) => ({ date: n.date, ...visibilityJson(n.visibility, zone) })),
     })),
+  };
+}
+
+/** The `pattern` field of a body's night entry (issue #5 shape), or null. */
+export function guideJson(g: GuideResult | null): Record<string, unknown> | null {
+  if (!g) return null;
+  return {
+    id: g.pattern.id,
+    name: g.pattern.name,
+    ...(g.part ? { part: g.part } : {}),
+    phrase: g.phrase,
+    separation: round(g.separationDeg, 2),
+    offsetDirection: g.offsetDirection,
+    nearestStar: g.nearestStar ? { name: g.nearestStar.name, separation: round(g.nearestStar.separationDeg, 2), phrase: g.nearestStar.phrase } : null,
   };
 }

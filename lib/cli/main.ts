@@ -217,7 +217,8 @@ function runNight(args: string[], out: (s: string) => void): void {
       const seen = v.best
         ? `best ${formatInstant(v.best.time, zone).slice(11, 16)}${v.outsideViewingHours ? ' (outside viewing hours)' : ''}, ${compass(v.best.azimuthDeg).abbreviation} ${Math.round(v.best.altitudeDeg)}° up, ${v.verdict}`
         : `not visible: ${REASON_TEXT[v.reason!]}`;
-      return `${b.body.name}: rises ${timeText(b.rise, zone)}, transits ${timeText(b.transit, zone)}, sets ${timeText(b.set, zone)}; ${seen}`;
+      const guide = b.guide ? `; ${b.guide.phrase}` : '';
+      return `${b.body.name}: rises ${timeText(b.rise, zone)}, transits ${timeText(b.transit, zone)}, sets ${timeText(b.set, zone)}; ${seen}${guide}`;
     }),
   ];
   out(lines.join('\n'));
