@@ -3,7 +3,7 @@ import js from '@eslint/js';
 import tseslint from 'typescript-eslint';
 
 export default tseslint.config(
-  { ignores: ['node_modules/**', 'dist/**', '.astro/**', 'site/**', '.cache/**', 'coverage/**'] },
+  { ignores: ['.scratch/**', '.tmp*', 'node_modules/**', 'dist/**', '.astro/**', 'site/**', '.cache/**', 'coverage/**'] },
   js.configs.recommended,
   ...tseslint.configs.recommended,
   {
