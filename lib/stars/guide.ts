@@ -22,7 +22,7 @@ import {
   type AstroTime,
   type RotationMatrix,
 } from 'astronomy-engine';
-import { FINGER_DEG, FIST_DEG, handMeasure } from '../describe.ts';
+import { FIST_DEG, handMeasure } from '../describe.ts';
 import { GloamingError } from '../errors.ts';
 import { starByHip, stars, type Star } from './catalogue.ts';
 import { partPhrase, patternById, patterns, type StarPattern } from './patterns.ts';
@@ -485,11 +485,8 @@ export function describeMotion(input: { patternId: string; places: readonly Time
   }
   const awayAngle = angleDeg(centre, start) < 0.5 ? 0 : Math.acos(Math.max(-1, Math.min(1, dot(heading, tangent(centre))))) * DEG;
   const away = toward === null && awayAngle > 150;
-  const days = (last.time.ut - first.time.ut);
+  const days = last.time.ut - first.time.ut;
   const span = days >= 6 && days <= 8 ? 'during the week' : `over ${Math.round(days)} days`;
   const how = toward !== null ? `toward ${toward}` : away ? `away from ${pattern.sentenceName}` : `past ${pattern.sentenceName}`;
   return { motionDeg, toward, away, phrase: `moves ${distanceWords(motionDeg)} ${how} ${span}` };
 }
-
-/** Degrees per finger and per fist used in the phrases (common practice), re-exported for callers. */
-export const HAND_DEG = { finger: FINGER_DEG, fist: FIST_DEG } as const;
