@@ -1,0 +1,176 @@
+/**
+ * Every placeholder renders for a grid of sites and weeks, and its value equals what the library
+ * computes for that site and night (lib/night.ts, lib/observe.ts, lib/visibility.ts called
+ * directly). A few values are cross-checked against astronomy-engine's own searches
+ * (SearchRiseSet, SearchAltitude) as an outside reference.
+ */
+import * as Astronomy from 'astronomy-engine';
+import { describe, expect, it } from 'vitest';
+import { BodyRegistry, builtInBody } from '../lib/body.ts';
+import { loadSites } from '../lib/content.ts';
+import { compass } from '../lib/describe.ts';
+import { computeNight } from '../lib/night.ts';
+import { observe } from '../lib/observe.ts';
+import type { Site } from '../lib/site.ts';
+import { formatInstant, isoWeekOf, localMidnight, nightOf, type IsoWeek } from '../lib/time.ts';
+import { PLACEHOLDERS, WeekCache, parseBulletin, renderBulletinSync } from '../lib/bulletin/index.ts';
+import { MINUTE_MS, expectWithin } from './helpers/tolerance.ts';
+
+const sites = loadSites('content/sites');
+const bodies = new BodyRegistry();
+const cache = new WeekCache();
+// Winter, summer, and ISO week 2026-W53 (28 Dec 2026 – 3 Jan 2027: week 53 and a year boundary).
+const WEEKS = ['2026-06-24', '2026-12-02', '2026-12-31'].map(isoWeekOf);
+const SITE_IDS = [...sites.keys()];
+
+function render(site: Site, week: IsoWeek, markdown: string): string {
+  const template = parseBulletin(`---\ntitle: T\nsites: all\nschedule: { every: week }\n---\n${markdown}\n`, 'grid.md');
+  return renderBulletinSync(template, { site, week, bodies }, cache).html;
+}
+
+/** The attributes and text of the first element with class `gl-<name>`. */
+function element(html: string, name: string): { tag: string; attrs: Record<string, string>; text: string } {
+  const m = new RegExp(`<(\\w+) class="(gl gl-${name}(?: [^"]*)?)"([^>]*)>([\\s\\S]*?)</\\1>`).exec(html);
+  expect(m, `no gl-${name} element in ${html}`).not.toBeNull();
+  const attrs: Record<string, string> = { class: m![2]! };
+  for (const a of m![3]!.matchAll(/([\w-]+)="([^"]*)"/g)) attrs[a[1]!] = a[2]!;
+  return { tag: m![1]!, attrs, text: m![4]!.replace(/<[^>]+>/g, '') };
+}
+
+function clock(instant: Date, site: Site): string {
+  const rounded = new Date(Math.round(instant.getTime() / 60_000) * 60_000);
+  return new Intl.DateTimeFormat(site.locale, { timeZone: site.timeZone, hour: site.locale === 'en-US' || site.locale === 'en-AU' ? 'numeric' : '2-digit', minute: '2-digit', hourCycle: new Intl.DateTimeFormat(site.locale, { hour: 'numeric' }).resolvedOptions().hourCycle === 'h23' ? 'h23' : 'h12' }).format(rounded);
+}
+
+describe('every placeholder covered', () => {
+  it('each placeholder of the table is exercised by this file or is reserved', () => {
+    const covered = ['week', 'date', 'sunset', 'sunrise', 'dark', 'dawn', 'rise', 'transit', 'set', 'direction', 'altitude', 'magnitude', 'moon-phase', 'moon-lit', 'moon-and-twilight', 'best-time', 'window', 'verdict', 'targets'];
+    for (const spec of PLACEHOLDERS.values()) if (!spec.needs) expect(covered, spec.name).toContain(spec.name);
+  });
+});
+
+describe.each(SITE_IDS)('site %s', (siteId) => {
+  const site = sites.get(siteId)!;
+  describe.each(WEEKS.map((w) => [w.id, w] as const))('week %s', (_id, week) => {
+    const fri = week.days[4]!;
+    const night = computeNight(site, fri, [builtInBody('jupiter'), builtInBody('saturn')]);
+
+    it('sun and twilight times equal computeNight', () => {
+      const cases: [string, { time: Date | null }][] = [
+        [':sunset{night=fri}', night.sun.set],
+        [':sunrise{night=fri}', night.sun.rise],
+        [':dark{night=fri}', night.sun.astronomicalDusk],
+        [':dark{night=fri kind=civil}', night.sun.civilDusk],
+        [':dawn{night=fri kind=nautical}', night.sun.nauticalDawn],
+      ];
+      for (const [md, event] of cases) {
+        const name = md.slice(1).split('{')[0]!;
+        const e = element(render(site, week, md), name);
+        if (event.time) {
+          expect(e.tag).toBe('time');
+          expect(e.attrs.datetime).toBe(formatInstant(event.time, site.timeZone));
+          expect(e.text).toBe(clock(event.time, site));
+        } else {
+          expect(e.attrs.class).toContain('gl-none');
+          expect(e.text.length).toBeGreaterThan(10);
+        }
+      }
+    });
+
+    it('rise, transit and set equal computeNight, or say honestly that they do not happen', () => {
+      const j = night.bodies[0]!;
+      for (const field of ['rise', 'transit', 'set'] as const) {
+        const e = element(render(site, week, `:${field}{body=jupiter night=5}`), field);
+        const event = j[field];
+        if (event.time) expect(e.attrs.datetime).toBe(formatInstant(event.time, site.timeZone));
+        else expect(e.attrs['data-reason']).toBe(event.reason);
+      }
+    });
+
+    it('direction and altitude at transit equal observe() at the transit instant', () => {
+      const t = night.bodies[1]!.transit.time!;
+      const o = observe(site, builtInBody('saturn'), t);
+      const dir = element(render(site, week, ':direction{body=saturn at=transit night=fri}'), 'direction');
+      expect(Number(dir.attrs['data-azimuth-deg'])).toBeCloseTo(o.azimuthDeg, 3);
+      expect(dir.text.replace(' (below the horizon then)', '')).toBe(compass(o.azimuthDeg).word);
+      const alt = element(render(site, week, ':altitude{body=saturn at=transit night=fri precision=1}'), 'altitude');
+      expect(Number(alt.attrs['data-altitude-deg'])).toBeCloseTo(o.altitudeDeg, 3);
+      expect(alt.text).toContain(`${o.altitudeDeg.toFixed(1).replace('-', '\u2212')}°`);
+    });
+
+    it('altitude at a clock time equals observe() at that wall-clock instant', () => {
+      const e = element(render(site, week, ':altitude{body=jupiter at=22:00 night=fri}'), 'altitude');
+      const instant = new Date(e.attrs['data-time']!);
+      expect(e.attrs['data-time']!.slice(0, 16)).toBe(`${fri}T22:00`);
+      expectWithin(Number(e.attrs['data-altitude-deg']), observe(site, builtInBody('jupiter'), instant).altitudeDeg, 0.001, 'altitude');
+    });
+
+    it('best time, window and verdict equal the visibility model', () => {
+      const v = night.bodies[0]!.visibility;
+      const best = element(render(site, week, ':best-time{body=jupiter night=fri}'), 'best-time');
+      const verdict = element(render(site, week, ':verdict{body=jupiter night=fri}'), 'verdict');
+      expect(verdict.attrs.value).toBe(v.verdict);
+      const win = element(render(site, week, ':window{body=jupiter night=fri}'), 'window');
+      if (v.best) {
+        expect(best.attrs.datetime).toBe(formatInstant(v.best.time, site.timeZone));
+        expect(win.text).toBe(`${clock(v.window!.start, site)}\u2013${clock(v.window!.end, site)}`);
+      } else {
+        expect(best.text).toMatch(/^not visible this night: /);
+      }
+    });
+
+    it('magnitude over the week spans the values at each local midnight (astronomy-engine Illumination)', () => {
+      const e = element(render(site, week, ':magnitude{body=saturn precision=2}'), 'magnitude');
+      // Outside reference: astronomy-engine's Illumination().mag at each night's local midnight.
+      const mags = week.days.map((d) => Astronomy.Illumination(Astronomy.Body.Saturn, Astronomy.MakeTime(localMidnight(nightOf(d, site.timeZone)))).mag);
+      expectWithin(Number(e.attrs['data-magnitude-min']), Math.min(...mags), 0.006, 'min magnitude');
+      expectWithin(Number(e.attrs['data-magnitude-max']), Math.max(...mags), 0.006, 'max magnitude');
+      expectWithin(Number(e.attrs['data-magnitude-first']), mags[0]!, 0.006, 'Monday magnitude');
+      const one = element(render(site, week, ':magnitude{body=saturn night=3}'), 'magnitude');
+      expectWithin(Number(one.attrs.value), mags[2]!, 0.006, 'Wednesday magnitude');
+    });
+
+    it('moon phase and lit fraction equal computeNight', () => {
+      const p = night.moon.phase;
+      expect(element(render(site, week, ':moon-phase{night=fri}'), 'moon-phase').attrs.value).toBe(p.name);
+      const lit = element(render(site, week, ':moon-lit{night=fri precision=1}'), 'moon-lit');
+      expect(lit.text).toBe(`${(p.illuminatedFraction * 100).toFixed(1)}%`);
+    });
+
+    it('the week table has one row per night with that night\u2019s sunset', () => {
+      const html = render(site, week, '::moon-and-twilight');
+      const rows = [...html.matchAll(/<tr data-night="([\d-]+)">/g)].map((m) => m[1]);
+      expect(rows).toEqual(week.days);
+      const sunsetFri = computeNight(site, fri, []).sun.set;
+      if (sunsetFri.time) expect(html).toContain(`datetime="${formatInstant(sunsetFri.time, site.timeZone)}"`);
+    });
+
+    it('date, week and targets render', () => {
+      expect(element(render(site, week, ':week'), 'week').attrs.datetime).toBe(week.id);
+      expect(element(render(site, week, ':date{night=7}'), 'date').attrs.datetime).toBe(week.days[6]);
+      const html = render(site, week, '::targets{night=fri}');
+      expect(html).toMatch(/class="gl gl-targets/);
+    });
+  });
+});
+
+describe('outside reference: astronomy-engine searches', () => {
+  // astronomy-engine 2.1 SearchRiseSet / SearchAltitude (independent of lib/search.ts), within a minute.
+  const cases = SITE_IDS.flatMap((id) => ['2026-03-11', '2026-12-02'].map((d) => [id, d] as const));
+  it.each(cases)('%s, week of %s: sunset, jupiter rise and astronomical dark', (siteId, date) => {
+    const site = sites.get(siteId)!;
+    const week = isoWeekOf(date);
+    const monday = week.days[0]!;
+    const noon = Astronomy.MakeTime(computeNight(site, monday, []).night.start);
+    const sunset = Astronomy.SearchRiseSet(Astronomy.Body.Sun, site.observer, -1, noon, 1);
+    const e = element(render(site, week, ':sunset'), 'sunset');
+    if (sunset && !e.attrs.class!.includes('gl-none')) expectWithin(new Date(e.attrs.datetime!).getTime(), sunset.date.getTime(), MINUTE_MS, 'sunset');
+    const rise = Astronomy.SearchRiseSet(Astronomy.Body.Jupiter, site.observer, +1, noon, 1);
+    const r = element(render(site, week, ':rise{body=jupiter}'), 'rise');
+    if (rise) expectWithin(new Date(r.attrs.datetime!).getTime(), rise.date.getTime(), MINUTE_MS, 'jupiter rise');
+    const dark = Astronomy.SearchAltitude(Astronomy.Body.Sun, site.observer, -1, noon, 1, -18);
+    const d = element(render(site, week, ':dark'), 'dark');
+    if (dark) expectWithin(new Date(d.attrs.datetime!).getTime(), dark.date.getTime(), MINUTE_MS, 'astronomical dusk');
+    else expect(d.attrs.class).toContain('gl-none');
+  });
+});
