@@ -44,7 +44,7 @@ function clock(instant: Date, site: Site): string {
 
 describe('every placeholder covered', () => {
   it('each placeholder of the table is exercised by this file or is reserved', () => {
-    const covered = ['week', 'date', 'sunset', 'sunrise', 'dark', 'dawn', 'rise', 'transit', 'set', 'direction', 'altitude', 'magnitude', 'moon-phase', 'moon-lit', 'moon-and-twilight', 'best-time', 'window', 'verdict', 'targets'];
+    const covered = ['week', 'date', 'sunset', 'sunrise', 'dark', 'dawn', 'rise', 'transit', 'set', 'direction', 'altitude', 'magnitude', 'moon-phase', 'moon-lit', 'moon-and-twilight', 'best-time', 'window', 'verdict', 'targets', 'guide'];
     for (const spec of PLACEHOLDERS.values()) if (!spec.needs) expect(covered, spec.name).toContain(spec.name);
   });
 });
@@ -143,6 +143,17 @@ describe.each(SITE_IDS)('site %s', (siteId) => {
       expect(rows).toEqual(week.days);
       const sunsetFri = computeNight(site, fri, []).sun.set;
       if (sunsetFri.time) expect(html).toContain(`datetime="${formatInstant(sunsetFri.time, site.timeZone)}"`);
+    });
+
+    it('guide phrase equals the guide pattern of lib/night.ts', () => {
+      const g = night.bodies[0]!.guide;
+      const e = element(render(site, week, ':guide{body=jupiter night=fri}'), 'guide');
+      if (g) {
+        expect(e.text).toBe(g.phrase);
+        expect(e.attrs['data-pattern']).toBe(g.pattern.id);
+      } else {
+        expect(e.attrs.class).toContain('gl-none');
+      }
     });
 
     it('date, week and targets render', () => {

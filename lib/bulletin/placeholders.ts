@@ -352,6 +352,19 @@ function verdict(call: PlaceholderCall): ElementContent {
   return el('data', { ...classes(call), value: v.verdict, dataNight: nightDate(call), dataBody: body.id, ...(v.reason ? { dataReason: v.reason } : {}), ...visibilityData(v) }, words);
 }
 
+function guide(call: PlaceholderCall): ElementContent {
+  const body = bodyOf(call);
+  const g = call.week.bodyNight(call.night, body).guide;
+  if (!g) {
+    return el('span', { ...classes(call, 'gl-none'), dataNight: nightDate(call), dataBody: body.id }, 'no bright star pattern stands near it this night');
+  }
+  return el(
+    'span',
+    { ...classes(call), dataNight: nightDate(call), dataBody: body.id, dataPattern: g.pattern.id, dataSeparationDeg: exact(g.separationDeg, 2), dataOffset: g.offsetDirection, ...(g.nearestStar ? { dataNearestStar: g.nearestStar.name } : {}) },
+    g.phrase,
+  );
+}
+
 /** Every naked-eye or binocular target of the night, by best time. Bodies come from the week's registry. */
 function targets(call: PlaceholderCall): ElementContent {
   const zone = call.site.timeZone;
@@ -375,7 +388,7 @@ function targets(call: PlaceholderCall): ElementContent {
       el('time', { dateTime: formatInstant(best.time, zone) }, formatClock(best.time, call.site, format)),
       { type: 'text', value: `, ${compass(best.azimuthDeg).word}, ${formatNumber(best.altitudeDeg, 0)}° (${handMeasure(best.altitudeDeg)}) up, magnitude ` },
       el('data', { value: exact(best.magnitude, 2) }, formatNumber(best.magnitude, 1)),
-      { type: 'text', value: ` \u2014 ${VERDICT_WORDS[v.verdict as keyof typeof VERDICT_WORDS]}${v.outsideViewingHours ? ' (outside the viewing hours)' : ''}` },
+      { type: 'text', value: `${bn.guide ? `, ${bn.guide.phrase}` : ''} \u2014 ${VERDICT_WORDS[v.verdict as keyof typeof VERDICT_WORDS]}${v.outsideViewingHours ? ' (outside the viewing hours)' : ''}` },
     ]);
   });
   return el('ul', { ...classes(call), dataNight: nightDate(call) }, items);
@@ -427,8 +440,8 @@ const DEFINITIONS: PlaceholderSpec[] = [
   { name: 'best-time', form: 'inline', summary: 'best viewing time: largest visibility margin within the viewing hours (lib/visibility.ts)', attributes: { body: BODY, ...TIME_ATTRS }, example: ':best-time{body=jupiter}', render: bestTime },
   { name: 'window', form: 'inline', summary: 'viewing window: the span around the best time where the body stays visible', attributes: { body: BODY, ...TIME_ATTRS }, example: ':window{body=jupiter}', render: viewingWindow },
   { name: 'verdict', form: 'inline', summary: 'naked eye, binoculars, telescope or not visible, with the reason', attributes: { body: BODY, night: NIGHT }, example: ':verdict{body=saturn}', render: verdict },
-  { name: 'guide', form: 'inline', summary: 'where to look from a nearby star pattern', attributes: { body: BODY, night: NIGHT }, example: ':guide{body=mars}', needs: 'the guide patterns (issue #5)' },
-  { name: 'targets', form: 'block', summary: 'every naked-eye or binocular target of the night, by best time, with direction, altitude and magnitude', attributes: { ...TIME_ATTRS }, example: '::targets{night=fri}', render: targets },
+  { name: 'guide', form: 'inline', summary: 'where to look from a nearby bright star pattern, at the best time (or transit)', attributes: { body: BODY, night: NIGHT }, example: ':guide{body=jupiter}', render: guide },
+  { name: 'targets', form: 'block', summary: 'every naked-eye or binocular target of the night, by best time, with direction, altitude, magnitude and nearby pattern', attributes: { ...TIME_ATTRS }, example: '::targets{night=fri}', render: targets },
   { name: 'chart', form: 'block', summary: 'a finder chart for a body', attributes: { body: BODY, night: NIGHT }, example: '::chart{body=jupiter}', needs: 'finder charts (issue #7)' },
   { name: 'events', form: 'block', summary: "the week's events for the site", attributes: {}, example: '::events', needs: 'the events search (issue #8)' },
 ];

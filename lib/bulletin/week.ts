@@ -8,11 +8,20 @@
 import * as Astronomy from 'astronomy-engine';
 import { BodyRegistry, builtInBody, type Body } from '../body.ts';
 import { riseTransitSet } from '../events.ts';
-import { computeNight, localMidnight, type BodyNight, type NightReport } from '../night.ts';
+import type { RiseTransitSet } from '../events.ts';
+import { computeNight, guideAt, localMidnight, type NightReport } from '../night.ts';
+import type { GuideResult } from '../stars/guide.ts';
 import { observe, type Observation } from '../observe.ts';
 import type { Site } from '../site.ts';
 import type { IsoWeek } from '../time.ts';
 import type { Visibility } from '../visibility.ts';
+
+/** One body's night as placeholders read it (the fields of lib/night.ts's `BodyNight` they use). */
+export interface WeekBodyNight extends RiseTransitSet {
+  body: Body;
+  readonly visibility: Visibility;
+  readonly guide: GuideResult | null;
+}
 
 /** One body over the week: its expected magnitude at local midnight of each night. */
 export interface WeekMagnitudes {
@@ -31,7 +40,7 @@ export class WeekData {
   readonly bodies: BodyRegistry;
   /** The seven nights, Monday evening first (`week.days[i]` is `nights[i].night.date`). */
   readonly nights: readonly NightReport[];
-  readonly #bodyNights = new Map<string, BodyNight>();
+  readonly #bodyNights = new Map<string, WeekBodyNight>();
   readonly #observations = new Map<string, Observation>();
   readonly #magnitudes = new Map<string, WeekMagnitudes>();
 
@@ -47,20 +56,33 @@ export class WeekData {
     return this.week.days.indexOf(date);
   }
 
-  /** Rise, transit and set of `body` on night `index` (0 = Monday), computed on the night's shared frame. */
-  bodyNight(index: number, body: Body): BodyNight {
+  /**
+   * Rise, transit and set of `body` on night `index` (0 = Monday), computed on the night's shared
+   * frame, with its visibility and guide pattern computed on first read — the same construction
+   * as `computeNight` in lib/night.ts, so values are identical to the command line's.
+   */
+  bodyNight(index: number, body: Body): WeekBodyNight {
     const key = `${index}:${body.id}`;
     let b = this.#bodyNights.get(key);
     if (!b) {
       const report = this.nights[index]!;
+      const site = this.site;
+      const events = riseTransitSet(report.frame, report.frame.track(body));
       let visibility: Visibility | undefined;
-      const made: BodyNight = {
+      let guide: GuideResult | null | undefined;
+      const made: WeekBodyNight = {
         body,
-        ...riseTransitSet(report.frame, report.frame.track(body)),
-        // Same lazy form as `computeNight`: the visibility model runs only when a placeholder reads it.
+        ...events,
         get visibility(): Visibility {
           visibility ??= report.sky.visibility(body);
           return visibility;
+        },
+        get guide(): GuideResult | null {
+          if (guide === undefined) {
+            const at = body.kind === 'sun' ? null : (made.visibility.best?.time ?? events.transit.time);
+            guide = at ? guideAt(site, body, at) : null;
+          }
+          return guide;
         },
       };
       this.#bodyNights.set(key, made);
