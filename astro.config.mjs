@@ -1,0 +1,42 @@
+// Astro configuration for the gloaming site. Build it through `npm run build`
+// (scripts/build.ts), which sets the build date and the site subset, builds into a temporary
+// folder, checks every page and then swaps the result into place.
+//
+// Environment (all optional except when noted):
+//   GLOAMING_SITE_URL   public origin of the published site (default https://sky.example.org)
+//   GLOAMING_TODAY      the build date, YYYY-MM-DD (scripts/build.ts always sets it)
+//   GLOAMING_SITES      comma-separated site ids to build (a CI shard); default: all
+//   GLOAMING_CACHE_DIR  where Astro keeps its content-layer store between builds
+import { defineConfig } from 'astro/config';
+import sitemap from '@astrojs/sitemap';
+
+const siteUrl = process.env.GLOAMING_SITE_URL || 'https://sky.example.org';
+const shard = (process.env.GLOAMING_SITES || '')
+  .split(',')
+  .map((s) => s.trim())
+  .filter(Boolean)
+  .sort();
+
+export default defineConfig({
+  site: siteUrl,
+  srcDir: './site',
+  publicDir: './site/public',
+  output: 'static',
+  trailingSlash: 'always',
+  ...(process.env.GLOAMING_CACHE_DIR ? { cacheDir: process.env.GLOAMING_CACHE_DIR } : {}),
+  build: {
+    format: 'directory',
+    // Every page carries its own small stylesheet: one request, nothing to go stale.
+    inlineStylesheets: 'always',
+  },
+  compressHTML: true,
+  devToolbar: { enabled: false },
+  integrations: [
+    sitemap({
+      // A shard writes its own sitemap files; `scripts/build.ts --merge` joins them.
+      ...(shard.length ? { filenameBase: `sitemap-${shard.join('+')}` } : {}),
+      // Card images and feeds are not pages.
+      filter: (page) => !page.endsWith('.png') && !page.endsWith('.xml'),
+    }),
+  ],
+});

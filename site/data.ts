@@ -1,0 +1,43 @@
+/** Reading the content collections, and the site's URL scheme, in one place. */
+import { getCollection } from 'astro:content';
+import type { PageEntry, SiteEntry } from './gloaming/loaders.ts';
+
+export type { PageEntry, SiteEntry };
+
+/** Every site, by name. */
+export async function allSites(): Promise<SiteEntry[]> {
+  const entries = await getCollection('sites');
+  return entries.map((e) => e.data as unknown as SiteEntry).sort((a, b) => a.name.localeCompare(b.name, 'en'));
+}
+
+/** Sites this build publishes pages for. */
+export async function builtSites(): Promise<SiteEntry[]> {
+  return (await allSites()).filter((s) => s.built);
+}
+
+/** Every bulletin page, oldest week first, then by slug. */
+export async function allPages(): Promise<PageEntry[]> {
+  const entries = await getCollection('pages');
+  return entries
+    .map((e) => e.data as unknown as PageEntry)
+    .sort((a, b) => (a.weekStart === b.weekStart ? (a.slug < b.slug ? -1 : 1) : a.weekStart < b.weekStart ? -1 : 1));
+}
+
+/** The pages of one site, oldest first. */
+export async function pagesOf(siteId: string): Promise<PageEntry[]> {
+  return (await allPages()).filter((p) => p.siteId === siteId);
+}
+
+/** The standing weekly bulletin of a week, else the first one-off of that week. */
+export function mainPageOf(pages: PageEntry[], weekId: string): PageEntry | undefined {
+  const week = pages.filter((p) => p.weekId === weekId);
+  return week.find((p) => !p.oneOff) ?? week[0];
+}
+
+export const paths = {
+  site: (id: string): string => `/${id}/`,
+  archive: (id: string): string => `/${id}/archive/`,
+  feed: (id: string): string => `/${id}/rss.xml`,
+  page: (p: Pick<PageEntry, 'path'>): string => `/${p.path}/`,
+  card: (p: Pick<PageEntry, 'path'>): string => `/${p.path}/card.png`,
+};

@@ -1,0 +1,93 @@
+/**
+ * Social card per bulletin: 1200×630 PNG. Text is laid out by satori (SVG with the text as
+ * paths, using the Atkinson Hyperlegible woff files), then rasterised by @resvg/resvg-js. The
+ * picture is the site's own skyline (its horizon profile, azimuth 0–360° across the width) under
+ * the words. Flat colours only, so the PNG stays well under 80 KB.
+ */
+import { readFileSync } from 'node:fs';
+import { createRequire } from 'node:module';
+import { Resvg } from '@resvg/resvg-js';
+import satori from 'satori';
+
+export const CARD_WIDTH = 1200;
+export const CARD_HEIGHT = 630;
+
+export interface CardInput {
+  centre: string;
+  title: string;
+  siteName: string;
+  weekLabel: string;
+  /** The site's skyline, sorted by azimuth (degrees). Empty for a flat horizon. */
+  horizon: { azimuthDeg: number; altitudeDeg: number }[];
+  /** Whether to show a caution badge. */
+  caution: boolean;
+}
+
+let fonts: { name: string; data: Buffer; weight: 400 | 700; style: 'normal' }[] | undefined;
+
+function loadFonts(): NonNullable<typeof fonts> {
+  if (!fonts) {
+    const require = createRequire(import.meta.url);
+    const file = (w: number): Buffer => readFileSync(require.resolve(`@fontsource/atkinson-hyperlegible/files/atkinson-hyperlegible-latin-${w}-normal.woff`));
+    fonts = [
+      { name: 'Atkinson Hyperlegible', data: file(400), weight: 400, style: 'normal' },
+      { name: 'Atkinson Hyperlegible', data: file(700), weight: 700, style: 'normal' },
+    ];
+  }
+  return fonts;
+}
+
+/** Skyline silhouette as an SVG data URI: altitude scaled 6 px per degree above a 70 px ground band. */
+export function skylineSvg(horizon: CardInput['horizon'], width = CARD_WIDTH, height = 200): string {
+  const base = height - 70;
+  const y = (alt: number): number => Math.max(0, base - Math.max(0, alt) * 6);
+  const points: [number, number][] = [];
+  if (horizon.length === 0) points.push([0, base], [width, base]);
+  else {
+    const sorted = [...horizon].sort((a, b) => a.azimuthDeg - b.azimuthDeg);
+    const first = sorted[0]!;
+    const last = sorted[sorted.length - 1]!;
+    // Wrap through north so the left and right edges meet.
+    const span = 360 - last.azimuthDeg + first.azimuthDeg;
+    const northAlt = span > 0 ? last.altitudeDeg + ((first.altitudeDeg - last.altitudeDeg) * (360 - last.azimuthDeg)) / span : first.altitudeDeg;
+    points.push([0, y(northAlt)]);
+    for (const p of sorted) points.push([(p.azimuthDeg / 360) * width, y(p.altitudeDeg)]);
+    points.push([width, y(northAlt)]);
+  }
+  const d = `M0 ${height}` + points.map(([px, py]) => `L${px.toFixed(1)} ${py.toFixed(1)}`).join('') + `L${width} ${height}Z`;
+  const svg = `<svg xmlns="http://www.w3.org/2000/svg" width="${width}" height="${height}" viewBox="0 0 ${width} ${height}"><path d="${d}" fill="#1d2640"/><path d="M0 ${base}H${width}" stroke="#f3b962" stroke-width="2" stroke-dasharray="4 10"/></svg>`;
+  return `data:image/svg+xml;base64,${Buffer.from(svg).toString('base64')}`;
+}
+
+type Node = { type: string; props: Record<string, unknown> };
+const h = (type: string, style: Record<string, unknown>, children?: unknown, extra: Record<string, unknown> = {}): Node => ({
+  type,
+  props: { style, ...extra, ...(children === undefined ? {} : { children }) },
+});
+
+/** The card as SVG text (satori). */
+export async function cardSvg(input: CardInput): Promise<string> {
+  const tree = h(
+    'div',
+    { width: CARD_WIDTH, height: CARD_HEIGHT, display: 'flex', flexDirection: 'column', background: '#0c1019', color: '#ece6d8', fontFamily: 'Atkinson Hyperlegible', position: 'relative' },
+    [
+      h('div', { display: 'flex', flexDirection: 'column', padding: '56px 72px 0', gap: 18 }, [
+        h('div', { display: 'flex', fontSize: 30, color: '#b9b3a6' }, input.centre),
+        h('div', { display: 'flex', fontSize: input.title.length > 40 ? 62 : 76, fontWeight: 700, lineHeight: 1.1, maxWidth: 1056 }, input.title),
+        h('div', { display: 'flex', fontSize: 38, color: '#f3b962', fontWeight: 700 }, `${input.siteName} · ${input.weekLabel}`),
+        ...(input.caution
+          ? [h('div', { display: 'flex', fontSize: 28, color: '#ffe0b8', border: '3px solid #ef8a3a', borderRadius: 14, padding: '6px 16px', alignSelf: 'flex-start', background: '#35190b' }, 'Eye-safety notice inside')]
+          : []),
+      ]),
+      h('img', { position: 'absolute', left: 0, bottom: 0, width: CARD_WIDTH, height: 200 }, undefined, { src: skylineSvg(input.horizon), width: CARD_WIDTH, height: 200 }),
+    ],
+  );
+  return satori(tree as never, { width: CARD_WIDTH, height: CARD_HEIGHT, fonts: loadFonts() });
+}
+
+/** The card as PNG bytes. */
+export async function renderCard(input: CardInput): Promise<Uint8Array> {
+  const svg = await cardSvg(input);
+  const png = new Resvg(svg, { fitTo: { mode: 'width', value: CARD_WIDTH }, font: { loadSystemFonts: false } }).render().asPng();
+  return new Uint8Array(png);
+}

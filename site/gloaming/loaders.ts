@@ -1,0 +1,155 @@
+/**
+ * Content-layer loaders: the thin Astro edge of the build. `sitesLoader` stores each site with
+ * its next nights; `pagesLoader` renders every bulletin page of the build date through
+ * `lib/bulletin`. Each entry's digest covers everything its values depend on (see `digest.ts`),
+ * and an entry whose digest is unchanged is not computed again.
+ */
+import { fileURLToPath } from 'node:url';
+import type { Loader } from 'astro/loaders';
+import { renderBulletin, WeekCache } from '../../lib/bulletin/index.ts';
+import type { PageSpec } from '../../lib/bulletin/types.ts';
+import { isoWeekOf } from '../../lib/time.ts';
+import { entryDigest } from './digest.ts';
+import { nextNights, type NightRow } from './nights.ts';
+import { optionsFromEnv } from './options.ts';
+import { loadProject, type Project, type SiteSource } from './project.ts';
+import { skyLabel, weekLabel } from './words.ts';
+
+/** How many nights the per-site home page shows, starting with the build date's evening. */
+export const NIGHTS_SHOWN = 5;
+
+export interface SiteEntry {
+  id: string;
+  name: string;
+  description: string;
+  latitudeDeg: number;
+  longitudeDeg: number;
+  elevationM: number;
+  timeZone: string;
+  locale: string;
+  sky: string;
+  viewingHours: string | null;
+  /** The skyline, degrees, sorted by azimuth. */
+  horizon: { azimuthDeg: number; altitudeDeg: number }[];
+  /** Whether this build publishes the site's pages (false for sites of other CI shards). */
+  built: boolean;
+  /** ISO week id of the build date, e.g. 2026-W49. */
+  currentWeek: string;
+  nights: NightRow[];
+}
+
+export interface PageEntry {
+  /** URL path below the root without slashes at the ends: site/week/slug. */
+  path: string;
+  siteId: string;
+  siteName: string;
+  locale: string;
+  weekId: string;
+  /** "30 Nov – 6 Dec 2026". */
+  weekLabel: string;
+  /** Monday of the week, YYYY-MM-DD. */
+  weekStart: string;
+  slug: string;
+  /** A one-off bulletin (dated) rather than a standing weekly one. */
+  oneOff: boolean;
+  title: string;
+  description: string;
+  html: string;
+  cautions: string[];
+}
+
+/** The digest of one bulletin page: code, site file, template file, object files, build date and path. */
+export function pageDigest(project: Project, spec: PageSpec): string {
+  return entryDigest({
+    code: project.codeDigest,
+    site: project.sites.get(spec.site.id)!.textDigest,
+    template: project.templateDigests.get(spec.template.file) ?? '',
+    objects: project.objectsDigest,
+    today: project.today,
+    path: spec.path,
+  });
+}
+
+/** The digest of one site entry: code, site file, build date and whether this shard builds it. */
+export function siteDigest(project: Project, source: SiteSource, built: boolean): string {
+  return entryDigest({ code: project.codeDigest, site: source.textDigest, today: project.today, built: String(built) });
+}
+
+function rootOf(config: { root: URL }): string {
+  return fileURLToPath(config.root);
+}
+
+export function sitesLoader(): Loader {
+  return {
+    name: 'gloaming-sites',
+    async load({ store, config, logger }) {
+      const project = loadProject(rootOf(config), optionsFromEnv());
+      const builtIds = new Set(project.selected.map((s) => s.site.id));
+      const currentWeek = isoWeekOf(project.today).id;
+      let computed = 0;
+      for (const [id, source] of project.sites) {
+        const built = builtIds.has(id);
+        const digest = siteDigest(project, source, built);
+        if (store.get(id)?.digest === digest) continue;
+        const s = source.site;
+        const data: SiteEntry = {
+          id,
+          name: s.name,
+          description: source.description,
+          latitudeDeg: s.latitudeDeg,
+          longitudeDeg: s.longitudeDeg,
+          elevationM: s.elevationM,
+          timeZone: s.timeZone,
+          locale: s.locale,
+          sky: skyLabel(s.sky),
+          viewingHours: s.viewingHours?.label ?? null,
+          horizon: s.horizon.map((p) => ({ azimuthDeg: p.azimuthDeg, altitudeDeg: p.altitudeDeg })),
+          built,
+          currentWeek,
+          nights: built ? nextNights(s, project.today, NIGHTS_SHOWN) : [],
+        };
+        store.set({ id, data: data as unknown as Record<string, unknown>, digest });
+        computed++;
+      }
+      for (const id of store.keys()) if (!project.sites.has(id)) store.delete(id);
+      logger.info(`sites: ${computed} computed, ${project.sites.size - computed} unchanged`);
+    },
+  };
+}
+
+export function pagesLoader(): Loader {
+  return {
+    name: 'gloaming-pages',
+    async load({ store, config, logger }) {
+      const project = loadProject(rootOf(config), optionsFromEnv());
+      const cache = new WeekCache();
+      const keep = new Set<string>();
+      let computed = 0;
+      for (const spec of project.pages) {
+        keep.add(spec.path);
+        const digest = pageDigest(project, spec);
+        if (store.get(spec.path)?.digest === digest) continue;
+        const rendered = await renderBulletin(spec.template, { site: spec.site, week: spec.week, bodies: project.bodies }, cache);
+        const data: PageEntry = {
+          path: spec.path,
+          siteId: spec.site.id,
+          siteName: spec.site.name,
+          locale: spec.site.locale,
+          weekId: spec.week.id,
+          weekLabel: weekLabel(spec.week, spec.site.locale),
+          weekStart: spec.week.days[0]!,
+          slug: spec.template.slug,
+          oneOff: spec.template.frontMatter.date !== undefined,
+          title: rendered.title,
+          description: rendered.description,
+          html: rendered.html,
+          cautions: rendered.cautions,
+        };
+        store.set({ id: spec.path, data: data as unknown as Record<string, unknown>, digest });
+        computed++;
+      }
+      for (const id of store.keys()) if (!keep.has(id)) store.delete(id);
+      logger.info(`bulletin pages: ${computed} computed, ${project.pages.length - computed} unchanged`);
+    },
+  };
+}

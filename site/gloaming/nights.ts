@@ -1,0 +1,117 @@
+/**
+ * The "next few nights" panel: for each evening, sunset, the start of darkness and the Moon, as
+ * plain serialisable rows (the content layer stores them). Values come from `computeNight`; this
+ * module only chooses which events to show and words them for a reader outside.
+ */
+import { computeNight, type NightReport } from '../../lib/night.ts';
+import type { EventTime } from '../../lib/events.ts';
+import type { Site } from '../../lib/site.ts';
+import { PHASE_LABEL } from '../../lib/moon.ts';
+import { addDays, formatInstant, zonedTime } from '../../lib/time.ts';
+
+/** One shown time: machine-readable instant (ISO 8601 with offset) and the local clock text. */
+export interface ShownTime {
+  /** ISO 8601 with the site's offset, or null when the event does not happen that night. */
+  datetime: string | null;
+  /** Local clock time in the site's locale ("17:42", "5:42 pm"), or a short reason. */
+  text: string;
+}
+
+export interface NightRow {
+  /** Local date of the evening, YYYY-MM-DD. */
+  date: string;
+  /** "Fri 4 Dec" in the site's locale. */
+  label: string;
+  sunset: ShownTime;
+  /** End of nautical twilight (Sun 12° down): most stars are out. */
+  nauticalDusk: ShownTime;
+  /** End of astronomical twilight (Sun 18° down): full darkness. */
+  darkness: ShownTime;
+  moonrise: ShownTime;
+  moonset: ShownTime;
+  /** The Moon seen from dusk on: "sets" 21:40, "rises" 04:16, or no time and "up all night" / "down all night". */
+  moon: { verb: string; time: ShownTime | null };
+  /** "Waxing crescent". */
+  moonPhase: string;
+  /** Lit fraction of the Moon's disc at local midnight, whole per cent. */
+  moonLitPercent: number;
+}
+
+/** Local clock formatter of a site (hour and minute, its locale's 12/24-hour habit). */
+export function clockFormat(site: Pick<Site, 'locale' | 'timeZone'>): Intl.DateTimeFormat {
+  return new Intl.DateTimeFormat(site.locale, { timeZone: site.timeZone, hour: 'numeric', minute: '2-digit' });
+}
+
+/** "Fri 4 Dec" for a local date, in the site's locale (the date is a calendar date; no zone shift). */
+export function dayLabel(date: string, locale: string): string {
+  const [y, m, d] = date.split('-').map(Number) as [number, number, number];
+  return new Intl.DateTimeFormat(locale, { timeZone: 'UTC', weekday: 'short', day: 'numeric', month: 'short' }).format(
+    new Date(Date.UTC(y, m - 1, d, 12)),
+  );
+}
+
+function shown(event: EventTime, site: Site, fmt: Intl.DateTimeFormat, missing: Record<string, string>): ShownTime {
+  if (event.time) {
+    // Almanac practice: clock times are rounded to the minute, not truncated.
+    const minute = new Date(Math.round(event.time.getTime() / 60_000) * 60_000);
+    return { datetime: formatInstant(event.time, site.timeZone), text: fmt.format(minute) };
+  }
+  return { datetime: null, text: missing[event.reason] ?? 'not tonight' };
+}
+
+const SUNSET_MISSING = { 'always-below': 'Sun stays down', 'always-above': 'Sun stays up', 'outside-night': 'no sunset' };
+const DUSK_MISSING = { 'stays-above': 'never fully dark', 'stays-below': 'dark all day', 'outside-night': 'not tonight' };
+const MOON_MISSING = { 'always-above': 'up all night', 'always-below': 'down all night', 'outside-night': 'not tonight' };
+
+/**
+ * Whether the Moon is above the horizon at `at`, from the night's first moonrise and moonset
+ * (noon to noon): the latest of them before `at` decides; with none before, the next one does
+ * (a set next means it is up now); with neither, the missing-event reasons do.
+ */
+export function moonUpAt(report: NightReport, at: Date): boolean {
+  const { rise, set } = report.moon;
+  const t = at.getTime();
+  const r = rise.time?.getTime();
+  const s = set.time?.getTime();
+  const before = [r !== undefined && r <= t ? { up: true, at: r } : null, s !== undefined && s <= t ? { up: false, at: s } : null].filter((x) => x !== null);
+  if (before.length) return before.sort((a, b) => b.at - a.at)[0]!.up;
+  const after = [r !== undefined ? { up: false, at: r } : null, s !== undefined ? { up: true, at: s } : null].filter((x) => x !== null);
+  if (after.length) return after.sort((a, b) => a.at - b.at)[0]!.up;
+  return rise.reason === 'always-above' || set.reason === 'always-above';
+}
+
+/** The moment the evening starts for the Moon summary: sunset, else civil dusk, else 18:00 local. */
+function duskOf(report: NightReport): Date {
+  return report.sun.set.time ?? report.sun.civilDusk.time ?? zonedTime(report.night.date, 18, 0, report.site.timeZone);
+}
+
+function moonSummary(report: NightReport, fmt: Intl.DateTimeFormat): NightRow['moon'] {
+  const dusk = duskOf(report);
+  const up = moonUpAt(report, dusk);
+  const next = up ? report.moon.set : report.moon.rise;
+  if (next.time && next.time > dusk) return { verb: up ? 'sets' : 'rises', time: shown(next, report.site, fmt, {}) };
+  return { verb: up ? 'up all night' : 'down all night', time: null };
+}
+
+/** One row from a computed night. */
+export function nightRow(report: NightReport): NightRow {
+  const site = report.site;
+  const fmt = clockFormat(site);
+  return {
+    date: report.night.date,
+    label: dayLabel(report.night.date, site.locale),
+    sunset: shown(report.sun.set, site, fmt, SUNSET_MISSING),
+    nauticalDusk: shown(report.sun.nauticalDusk, site, fmt, DUSK_MISSING),
+    darkness: shown(report.sun.astronomicalDusk, site, fmt, DUSK_MISSING),
+    moonrise: shown(report.moon.rise, site, fmt, MOON_MISSING),
+    moonset: shown(report.moon.set, site, fmt, MOON_MISSING),
+    moon: moonSummary(report, fmt),
+    moonPhase: PHASE_LABEL[report.moon.phase.name],
+    moonLitPercent: Math.round(report.moon.phase.illuminatedFraction * 100),
+  };
+}
+
+/** The `count` nights starting on the evening of `today` (local date) at `site`. */
+export function nextNights(site: Site, today: string, count: number): NightRow[] {
+  return Array.from({ length: count }, (_, i) => nightRow(computeNight(site, addDays(today, i), [])));
+}

@@ -1,0 +1,110 @@
+/**
+ * Everything a build reads, loaded and validated up front: sites, bulletin templates, objects,
+ * and the list of pages for the build date. Every input problem is a positioned `GloamingError`
+ * (file:line:column and field). Paths in messages are relative to the working directory.
+ */
+import { readFileSync } from 'node:fs';
+import { join, relative, resolve } from 'node:path';
+import { parse as parseYaml } from 'yaml';
+import { BodyRegistry } from '../../lib/body.ts';
+import { pagesFor, parseBulletin } from '../../lib/bulletin/index.ts';
+import type { BulletinTemplate, PageSpec } from '../../lib/bulletin/types.ts';
+import { findSite, parseSite, yamlFiles } from '../../lib/content.ts';
+import { GloamingError } from '../../lib/errors.ts';
+import { loadObjects } from '../../lib/orbit/body.ts';
+import type { Site } from '../../lib/site.ts';
+import { codeDigest, filesUnder, hashFiles, sha256 } from './digest.ts';
+import type { SiteBuildOptions } from './options.ts';
+
+/** Where content lives inside the content folder. */
+export const CONTENT_DIRS = { sites: 'sites', bulletins: 'bulletins', objects: 'objects' } as const;
+
+export interface SiteSource {
+  site: Site;
+  /** Path as shown in messages. */
+  file: string;
+  /** SHA-256 of the file's text. */
+  textDigest: string;
+  /** The optional `description` field (not part of the computation model). */
+  description: string;
+}
+
+export interface Project {
+  root: string;
+  today: string;
+  /** Every site, by id (the home page lists all of them, whatever the shard). */
+  sites: Map<string, SiteSource>;
+  /** The sites this build publishes pages for, in id order. */
+  selected: SiteSource[];
+  templates: BulletinTemplate[];
+  /** SHA-256 of each template's text, by template file. */
+  templateDigests: Map<string, string>;
+  bodies: BodyRegistry;
+  /** Hash of every object file. */
+  objectsDigest: string;
+  /** Hash of the computing code (see `codeDigest`). */
+  codeDigest: string;
+  /** Pages of the selected sites. */
+  pages: PageSpec[];
+}
+
+/** A path for messages: relative to the working directory when that is shorter. */
+function shown(root: string, rel: string): string {
+  const abs = resolve(root, rel);
+  const fromCwd = relative(process.cwd(), abs);
+  return fromCwd.length < abs.length ? fromCwd : abs;
+}
+
+function markdownFiles(dir: string): string[] {
+  return filesUnder(dir, dir).filter((f) => f.endsWith('.md') && !f.includes('/'));
+}
+
+/** Loads and validates the project at `root` for the given options. */
+export function loadProject(root: string, options: SiteBuildOptions): Project {
+  const content = resolve(root, options.content);
+  const sites = new Map<string, SiteSource>();
+  for (const file of yamlFiles(shown(content, CONTENT_DIRS.sites))) {
+    const text = readFileSync(file, 'utf8');
+    const site = parseSite(text, file);
+    if (sites.has(site.id)) {
+      throw new GloamingError('invalid-value', `site id '${site.id}' is used twice`, {
+        place: { file, field: 'id' },
+        expected: `an id not used by ${sites.get(site.id)!.file}`,
+      });
+    }
+    const raw = parseYaml(text) as { description?: unknown } | null;
+    const description = typeof raw?.description === 'string' ? raw.description.trim() : '';
+    sites.set(site.id, { site, file, textDigest: sha256(text), description });
+  }
+  const siteMap = new Map([...sites].map(([id, s]) => [id, s.site]));
+  const selected = (options.only ?? [...sites.keys()].sort()).map((id) => sites.get(findSite(siteMap, id, { field: 'sites' }).id)!);
+
+  const templateDir = shown(content, CONTENT_DIRS.bulletins);
+  const templates: BulletinTemplate[] = [];
+  const templateDigests = new Map<string, string>();
+  for (const name of markdownFiles(join(content, CONTENT_DIRS.bulletins))) {
+    const file = join(templateDir, name);
+    const text = readFileSync(file, 'utf8');
+    templates.push(parseBulletin(text, file));
+    templateDigests.set(file, sha256(text));
+  }
+
+  const bodies = new BodyRegistry();
+  for (const body of loadObjects(shown(content, CONTENT_DIRS.objects))) bodies.add(body);
+  const objectFiles = filesUnder(join(content, CONTENT_DIRS.objects), content);
+
+  const wanted = new Set(selected.map((s) => s.site.id));
+  const pages = pagesFor(templates, { sites: siteMap, today: options.today }).filter((p) => wanted.has(p.site.id));
+  return {
+    root,
+    today: options.today,
+    sites,
+    selected,
+    templates,
+    templateDigests,
+    bodies,
+    objectsDigest: hashFiles(content, objectFiles),
+    codeDigest: codeDigest(root),
+    pages,
+  };
+}

@@ -1,0 +1,26 @@
+/** The social card of one bulletin page (1200×630 PNG), referenced by the page's og:image. */
+import type { APIRoute, GetStaticPaths } from 'astro';
+import { CENTRE } from '../../../../gloaming/centre.ts';
+import { renderCard } from '../../../../gloaming/card.ts';
+import { allPages, allSites, type PageEntry, type SiteEntry } from '../../../../data.ts';
+
+export const getStaticPaths = (async () => {
+  const sites = new Map((await allSites()).map((s) => [s.id, s]));
+  return (await allPages()).map((page) => ({
+    params: { site: page.siteId, week: page.weekId, slug: page.slug },
+    props: { page, site: sites.get(page.siteId)! },
+  }));
+}) satisfies GetStaticPaths;
+
+export const GET: APIRoute = async ({ props }) => {
+  const { page, site } = props as { page: PageEntry; site: SiteEntry };
+  const png = await renderCard({
+    centre: CENTRE.name,
+    title: page.title,
+    siteName: site.name,
+    weekLabel: page.weekLabel,
+    horizon: site.horizon,
+    caution: page.cautions.length > 0,
+  });
+  return new Response(png, { headers: { 'Content-Type': 'image/png' } });
+};
