@@ -1,0 +1,83 @@
+/**
+ * Docs that run: the README's examples and field tables are checked against the code, so they
+ * cannot drift. (The placeholder table is checked in the bulletin tests.)
+ */
+import { readFileSync } from 'node:fs';
+import { describe, expect, it } from 'vitest';
+import { main } from '../lib/cli/main.ts';
+import { parseSite } from '../lib/content.ts';
+
+const readme = readFileSync(new URL('../README.md', import.meta.url), 'utf8');
+
+function section(title: string): string {
+  const start = readme.indexOf(title);
+  expect(start, `README has a section '${title}'`).toBeGreaterThanOrEqual(0);
+  const next = readme.indexOf('\n#', start + title.length);
+  return readme.slice(start, next < 0 ? undefined : next);
+}
+
+/** Field names in the first column of a Markdown table (backticked, possibly several per cell). */
+function tableFields(text: string): string[] {
+  const fields: string[] = [];
+  for (const line of text.split('\n')) {
+    const cell = /^\|\s*([^|]+)\|/.exec(line)?.[1];
+    if (!cell) continue;
+    for (const m of cell.matchAll(/`(?:[a-z]+\[\]\.)?([A-Za-z0-9]+)`/g)) fields.push(m[1]!);
+  }
+  return fields;
+}
+
+function run(argv: string[]): { code: number; out: string; err: string } {
+  let out = '';
+  let err = '';
+  const code = main(argv, (s) => (out += s + '\n'), (s) => (err += s + '\n'));
+  return { code, out, err };
+}
+
+describe('README', () => {
+  it('opens with one paragraph stating the job, then the two set-up commands', () => {
+    const lines = readme.split('\n');
+    expect(lines[0]).toBe('# gloaming');
+    expect(lines[2]).toMatch(/^gloaming turns one Markdown bulletin/);
+    const setUp = section('## Set up');
+    const commands = [...setUp.matchAll(/```sh\n([^\n]+)\n```/g)].map((m) => m[1]);
+    expect(commands).toEqual(['npm install && npm run build', 'npm install && npm test']);
+  });
+
+  it('the position table lists exactly the fields `gloaming position --json` prints', () => {
+    const documented = tableFields(section('### `gloaming position`'));
+    const r = run(['position', '--lat', '52', '--lon', '5', '--at', '2026-12-04T20:00:00Z', '--body', 'jupiter', '--json']);
+    expect(r.code).toBe(0);
+    const printed = Object.keys(JSON.parse(r.out) as object);
+    for (const field of documented.filter((f) => f !== 'magnitudeRange')) expect(printed, `documented field ${field}`).toContain(field);
+    for (const field of printed) expect(documented, `printed field ${field} is documented`).toContain(field);
+  });
+
+  it('the night table documents the fields `gloaming night --json` prints', () => {
+    const documented = tableFields(section('### `gloaming night`'));
+    const r = run(['night', '--lat', '52', '--lon', '5', '--tz', 'Europe/Amsterdam', '--date', '2026-12-04', '--body', 'jupiter', '--json']);
+    expect(r.code).toBe(0);
+    const night = JSON.parse(r.out) as { sun: object; moon: object; bodies: object[] };
+    const printed = [...Object.keys(night), ...Object.keys(night.sun), ...Object.keys(night.bodies[0]!)];
+    for (const field of printed.filter((f) => !['reasons', 'name', 'instrument'].includes(f))) {
+      expect(new RegExp(`[\`.]${field}\``).test(readme), `night field ${field} is documented`).toBe(true);
+    }
+    expect(documented).toContain('best');
+  });
+
+  it('the site example is a valid site file', () => {
+    const example = /A site \(`content\/sites\/<id>\.yaml`\):\n\n```yaml\n([\s\S]*?)```/.exec(readme)?.[1];
+    expect(example).toBeDefined();
+    const site = parseSite(example!, 'harbour-roof.yaml');
+    expect(site.sky).toEqual({ bortle: 7 });
+    expect(site.horizon).toHaveLength(2);
+    expect(site.viewingHours?.label).toBe('19:00–23:00');
+  });
+
+  it('the error example is what the command prints', () => {
+    const example = /\$ npx gloaming position ([^\n]+)\n([^\n]+)\n/.exec(readme)!;
+    const r = run(['position', ...example[1]!.split(' ')]);
+    expect(r.code).toBe(2);
+    expect(r.err.trim()).toBe(example[2]);
+  });
+});
