@@ -93,9 +93,14 @@ function collect(node: Nodes, directives: Directive[], texts: Text[]): void {
       texts.push(literal);
       continue;
     }
+    const next = children[i + 1];
+    if (DIRECTIVE_TYPES.has(child.type) && next?.type === 'text' && /^[{[]/.test(next.value)) malformed.add(child as Directive);
     collect(child, directives, texts);
   }
 }
+
+/** Directives followed directly by a `{` or `[` the parser could not read (unclosed brace, stray quote). */
+const malformed = new WeakSet<Directive>();
 
 function written(node: Directive): string {
   const colons = node.type === 'textDirective' ? ':' : node.type === 'leafDirective' ? '::' : ':::';
@@ -105,6 +110,12 @@ function written(node: Directive): string {
 /** Checks one directive against the table and reads its attributes; errors carry no place yet. */
 function check(node: Directive, read: ReadContext, defaults: { night: number; clock: Clock }): Checked {
   const spec = PLACEHOLDERS.get(node.name);
+  if (malformed.has(node)) {
+    throw new GloamingError('invalid-placeholder', `the attributes of '${written(node)}' cannot be read`, {
+      expected: `name=value pairs separated by spaces inside { }, e.g. ${spec?.example ?? ':rise{body=jupiter night=fri}'}`,
+      hint: 'check for a missing } or an unbalanced quote',
+    });
+  }
   if (!spec) {
     const hint = didYouMean(node.name, PLACEHOLDERS.keys());
     throw new GloamingError('unknown-placeholder', `unknown placeholder '${written(node)}'`, {
