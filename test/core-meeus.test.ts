@@ -6,6 +6,7 @@ import * as Astronomy from 'astronomy-engine';
 import { describe, expect, it } from 'vitest';
 import { builtInBody } from '../lib/body.ts';
 import { riseTransitSet } from '../lib/events.ts';
+import { moonPhase } from '../lib/moon.ts';
 import { horizontal, observe, vectorToRaDec } from '../lib/observe.ts';
 import { defineSite } from '../lib/site.ts';
 import { nightOf } from '../lib/time.ts';
@@ -150,5 +151,19 @@ describe('Meeus Example 41.d: Saturn, 1992 December 16 at 0h TD', () => {
     expectWithin(aa1984, 0.74, 0.005, 'AA 1984 formula on the book geometry');
     console.log(`Meeus 41.d Saturn: library ${o.magnitude.value.toFixed(2)}, AA 1984 ${aa1984.toFixed(2)}, book (Müller) +0.9`);
     expectWithin(o.magnitude.value, aa1984, 0.15, 'Saturn magnitude');
+  });
+});
+
+describe('Meeus Example 49.a: the New Moon of 1977 February 18 at 3h37m42s TD (JDE 2443192.65118; from memory)', () => {
+  // ΔT in 1977 ≈ 48 s (Meeus ch. 10 table, from memory): the New Moon fell at about 3h36m54s UT.
+  const newMoonUtMs = Date.parse('1977-02-18T03:37:42Z') - 48_000;
+
+  it('one hour later the phase is "new-moon" and the age is 1 h within 2 minutes', () => {
+    const p = moonPhase(new Date(newMoonUtMs + 3_600_000));
+    expect(p.name).toBe('new-moon');
+    const ageErrorMin = (p.ageDays * 1440) - 60;
+    console.log(`Meeus 49.a: Moon age one hour after New Moon off by ${ageErrorMin.toFixed(2)} min`);
+    expect(Math.abs(ageErrorMin)).toBeLessThanOrEqual(2);
+    expect(p.illuminatedFraction).toBeLessThan(0.01);
   });
 });
