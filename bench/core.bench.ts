@@ -1,7 +1,7 @@
 /**
  * Benchmarks of the computation core (issue #2): one site-night for the Moon and all planets
  * (positions at hourly nodes, rise/transit/set, the Sun's twilights, Moon phase) and a year of
- * consecutive nights for one site.
+ * consecutive nights for one site; and (issue #4) the best time, window and verdict of one body-night.
  */
 import { builtInBody, PLANET_IDS } from '../lib/body.ts';
 import { defineSite } from '../lib/site.ts';
@@ -27,6 +27,11 @@ export async function run(): Promise<BenchRow[]> {
       { targetMs: 1500, timeMs: 3000 },
     ),
   );
+  // Issue #4: best time, window and verdict for one body-night, tracks already built for the night.
+  const night = computeNight(defineSite({ id: 'bench-city', latitude: 51.48, longitude: 0, timeZone: 'Europe/London', sky: { bortle: 7 } }), '2026-12-10', bodies);
+  for (const b of bodies) night.sky.visibility(b);
+  let k = 0;
+  rows.push(await measure('visibility: best time + window + verdict, one body-night', () => night.sky.visibility(bodies[k++ % bodies.length]!), { targetMs: 2 }));
   return rows;
 }
 
