@@ -8,6 +8,7 @@
 //   GLOAMING_SITES      comma-separated site ids to build (a CI shard); default: all
 //   GLOAMING_CACHE_DIR  where Astro keeps its content-layer store between builds
 import { defineConfig } from 'astro/config';
+import { createHash } from 'node:crypto';
 import sitemap from '@astrojs/sitemap';
 
 const siteUrl = process.env.GLOAMING_SITE_URL || 'https://sky.example.org';
@@ -34,7 +35,8 @@ export default defineConfig({
   integrations: [
     sitemap({
       // A shard writes its own sitemap files; `scripts/build.ts --merge` joins them.
-      ...(shard.length ? { filenameBase: `sitemap-${shard.join('+')}` } : {}),
+      // The name is short and stable for a given set of sites, however many sites a shard holds.
+      ...(shard.length ? { filenameBase: `sitemap-shard-${createHash('sha256').update(shard.join(',')).digest('hex').slice(0, 10)}` } : {}),
       // Card images and feeds are not pages.
       filter: (page) => !page.endsWith('.png') && !page.endsWith('.xml'),
     }),

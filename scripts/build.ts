@@ -1,0 +1,269 @@
+/**
+ * Builds the site: `node scripts/build.ts [--today YYYY-MM-DD] [--sites a,b] [--out dist]`.
+ *
+ * 1. Reads the build date (`--today`, else `GLOAMING_TODAY`, else today's date in UTC — the only
+ *    place in gloaming that reads the clock) and the site subset (`--sites`, else `GLOAMING_SITES`).
+ * 2. Loads and validates every input up front, so a bad file stops the build with
+ *    `file:line:column` before Astro starts.
+ * 3. Builds with Astro into a temporary folder beside the output folder.
+ * 4. Checks every HTML and XML file (`assertPublishable`: no NaN, `undefined`, `Invalid Date` or
+ *    empty placeholder).
+ * 5. Swaps the temporary folder into place by renaming, so a failed build leaves the previous
+ *    output untouched.
+ *
+ * `--merge a b c --out dist` joins the outputs of CI shards (each built with `--sites`) into one
+ * folder and writes one sitemap index for all of them.
+ *
+ * Errors are printed as `error: file:line:column: message` without a stack trace; the exit code
+ * is 1 for input and output problems, 2 for anything unexpected.
+ */
+import { cp, mkdir, readdir, readFile, rename, rm, stat, writeFile } from 'node:fs/promises';
+import { basename, dirname, join, relative, resolve, sep } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { parseArgs } from 'node:util';
+import { assertPublishable } from '../lib/bulletin/index.ts';
+import { GloamingError } from '../lib/errors.ts';
+import { parseLocalDate } from '../lib/time.ts';
+import { parseSiteList } from '../site/gloaming/options.ts';
+import { loadProject } from '../site/gloaming/project.ts';
+
+const ROOT = resolve(dirname(fileURLToPath(import.meta.url)), '..');
+
+export interface BuildOptions {
+  /** Build date, YYYY-MM-DD. */
+  today: string;
+  /** Site ids to build, or null for all. */
+  sites: string[] | null;
+  /** Output folder (replaced only when the whole build succeeds). */
+  out: string;
+  /** Content folder (default `content`). */
+  content: string;
+  /** Astro's log level; default 'warn'. */
+  logLevel: 'debug' | 'info' | 'warn' | 'error' | 'silent';
+}
+
+export interface BuildResult {
+  out: string;
+  /** Number of files written. */
+  files: number;
+  /** Wall time of the Astro build, milliseconds. */
+  astroMs: number;
+  totalMs: number;
+}
+
+/** Today's date in UTC, YYYY-MM-DD. The one reading of the clock in gloaming. */
+function utcToday(): string {
+  return new Date().toISOString().slice(0, 10);
+}
+
+/** Reads command-line arguments and the environment into build options. */
+export function readOptions(argv: string[], env: Record<string, string | undefined>): BuildOptions & { merge: string[] | null } {
+  let values: Record<string, string | boolean | undefined>;
+  let positionals: string[];
+  try {
+    ({ values, positionals } = parseArgs({
+      args: argv,
+      options: {
+        today: { type: 'string' },
+        sites: { type: 'string' },
+        out: { type: 'string' },
+        content: { type: 'string' },
+        merge: { type: 'boolean' },
+        verbose: { type: 'boolean' },
+      },
+      allowPositionals: true,
+      strict: true,
+    }));
+  } catch (error) {
+    throw new GloamingError('invalid-argument', (error as Error).message, {
+      expected: '--today YYYY-MM-DD, --sites a,b, --out <folder>, --content <folder>, --verbose, or --merge <folders…>',
+    });
+  }
+  if (positionals.length && !values.merge) {
+    throw new GloamingError('invalid-argument', `unexpected argument '${positionals[0]}'`, { expected: 'options only (folders only with --merge)' });
+  }
+  const today = (values.today as string | undefined) ?? env.GLOAMING_TODAY ?? utcToday();
+  parseLocalDate(today, values.today ? '--today' : 'GLOAMING_TODAY');
+  return {
+    today,
+    sites: parseSiteList((values.sites as string | undefined) ?? env.GLOAMING_SITES),
+    out: resolve((values.out as string | undefined) ?? 'dist'),
+    content: (values.content as string | undefined) ?? env.GLOAMING_CONTENT ?? 'content',
+    logLevel: values.verbose ? 'info' : 'warn',
+    merge: values.merge ? positionals.map((p) => resolve(p)) : null,
+  };
+}
+
+/** Every file below `dir`, as absolute paths, sorted. */
+async function walk(dir: string): Promise<string[]> {
+  const out: string[] = [];
+  for (const entry of await readdir(dir, { withFileTypes: true })) {
+    const full = join(dir, entry.name);
+    if (entry.isDirectory()) out.push(...(await walk(full)));
+    else out.push(full);
+  }
+  return out.sort();
+}
+
+/** The final check: every HTML and XML file must be publishable. Paths in errors are relative to `dir`. */
+export async function checkOutput(dir: string): Promise<number> {
+  const files = await walk(dir);
+  for (const file of files) {
+    if (!/\.(html|xml)$/.test(file)) continue;
+    assertPublishable(await readFile(file, 'utf8'), relative(dir, file).split(sep).join('/'));
+  }
+  return files.length;
+}
+
+async function exists(path: string): Promise<boolean> {
+  try {
+    await stat(path);
+    return true;
+  } catch {
+    return false;
+  }
+}
+
+/** Replaces `out` with `fresh` by renaming (same folder, same filesystem); the old output is removed last. */
+async function swapInto(fresh: string, out: string): Promise<void> {
+  const old = join(dirname(out), `.tmp-old-${basename(out)}-${process.pid}`);
+  const had = await exists(out);
+  if (had) await rename(out, old);
+  try {
+    await rename(fresh, out);
+  } catch (error) {
+    if (had) await rename(old, out);
+    throw error;
+  }
+  if (had) await rm(old, { recursive: true, force: true });
+}
+
+/** A GloamingError thrown inside Astro's module runner is another class instance: recognise it by shape. */
+function findGloamingError(error: unknown): { message: string } | null {
+  const seen = new Set<unknown>();
+  let e: unknown = error;
+  while (e && typeof e === 'object' && !seen.has(e)) {
+    seen.add(e);
+    const o = e as { name?: unknown; code?: unknown; message?: unknown; cause?: unknown };
+    if (e instanceof GloamingError || (o.name === 'GloamingError' && typeof o.code === 'string' && typeof o.message === 'string')) {
+      return { message: o.message as string };
+    }
+    e = o.cause;
+  }
+  return null;
+}
+
+/** Builds the site with Astro into a temporary folder, checks it and swaps it into place. */
+export async function buildSite(options: BuildOptions): Promise<BuildResult> {
+  const t0 = performance.now();
+  // Validate every input before starting Astro: a bad file is reported with its place, fast.
+  loadProject(ROOT, { today: options.today, only: options.sites, content: options.content });
+
+  process.env.GLOAMING_TODAY = options.today;
+  if (options.sites) process.env.GLOAMING_SITES = options.sites.join(',');
+  else delete process.env.GLOAMING_SITES;
+  process.env.GLOAMING_CONTENT = options.content;
+  process.env.ASTRO_TELEMETRY_DISABLED = '1';
+
+  await mkdir(dirname(options.out), { recursive: true });
+  const tmp = join(dirname(options.out), `.tmp-${basename(options.out)}-${process.pid}`);
+  await rm(tmp, { recursive: true, force: true });
+  try {
+    const { build } = await import('astro');
+    const t1 = performance.now();
+    await build({ root: ROOT, outDir: tmp, logLevel: options.logLevel, mode: 'production' });
+    const astroMs = performance.now() - t1;
+    const files = await checkOutput(tmp);
+    await swapInto(tmp, options.out);
+    return { out: options.out, files, astroMs, totalMs: performance.now() - t0 };
+  } catch (error) {
+    await rm(tmp, { recursive: true, force: true });
+    const inner = findGloamingError(error);
+    if (inner && !(error instanceof GloamingError)) {
+      const e = new GloamingError('invalid-value', inner.message);
+      Object.defineProperty(e, 'message', { value: inner.message });
+      throw e;
+    }
+    throw error;
+  }
+}
+
+/** Joins shard outputs into `out`; each shard's sitemap files are listed in one sitemap index. */
+export async function mergeShards(shards: string[], out: string): Promise<{ files: number }> {
+  if (shards.length === 0) throw new GloamingError('invalid-argument', 'nothing to merge', { expected: '--merge <shard folder> <shard folder> … --out <folder>' });
+  const tmp = join(dirname(out), `.tmp-${basename(out)}-${process.pid}`);
+  await rm(tmp, { recursive: true, force: true });
+  await mkdir(tmp, { recursive: true });
+  try {
+    const sitemaps: string[] = [];
+    let siteUrl: string | null = null;
+    for (const shard of shards) {
+      if (!(await exists(shard))) throw new GloamingError('invalid-argument', `no shard output at '${shard}'`, { expected: 'a folder written by a `--sites` build' });
+      for (const file of await walk(shard)) {
+        const rel = relative(shard, file).split(sep).join('/');
+        if (/^sitemap-.*index\.xml$/.test(rel) || rel === 'sitemap-index.xml') {
+          const xml = await readFile(file, 'utf8');
+          for (const m of xml.matchAll(/<loc>([^<]+)<\/loc>/g)) {
+            const loc = m[1]!;
+            siteUrl ??= new URL('/', loc).href;
+            sitemaps.push(new URL(loc).pathname.replace(/^\//, ''));
+          }
+          continue;
+        }
+        // Shared files (home page, assets) are identical across shards built on the same date.
+        await cp(file, join(tmp, rel), { force: true });
+      }
+    }
+    const unique = [...new Set(sitemaps)].sort();
+    const base = siteUrl ?? '/';
+    const index =
+      '<?xml version="1.0" encoding="UTF-8"?><sitemapindex xmlns="http://www.sitemaps.org/schemas/sitemap/0.9">' +
+      unique.map((p) => `<sitemap><loc>${new URL(p, base).href}</loc></sitemap>`).join('') +
+      '</sitemapindex>';
+    await writeFile(join(tmp, 'sitemap-index.xml'), index);
+    const files = await checkOutput(tmp);
+    await swapInto(tmp, out);
+    return { files };
+  } catch (error) {
+    await rm(tmp, { recursive: true, force: true });
+    throw error;
+  }
+}
+
+/** Prints an error the way compilers do: no stack for input problems. */
+function report(error: unknown): number {
+  if (error instanceof GloamingError) {
+    console.error(`error: ${error.message}`);
+    return 1;
+  }
+  const inner = findGloamingError(error);
+  if (inner) {
+    console.error(`error: ${inner.message}`);
+    return 1;
+  }
+  console.error('error: the build failed unexpectedly; the previous output is unchanged.');
+  console.error(error instanceof Error ? (error.stack ?? error.message) : String(error));
+  return 2;
+}
+
+async function main(): Promise<number> {
+  try {
+    const options = readOptions(process.argv.slice(2), process.env);
+    if (options.merge) {
+      const { files } = await mergeShards(options.merge, options.out);
+      console.log(`merged ${options.merge.length} shard(s): ${files} files in ${relative(process.cwd(), options.out) || '.'}`);
+      return 0;
+    }
+    const result = await buildSite(options);
+    const where = relative(process.cwd(), result.out) || '.';
+    const which = options.sites ? options.sites.join(', ') : 'all sites';
+    console.log(`built ${which} for ${options.today}: ${result.files} files in ${where} (${(result.totalMs / 1000).toFixed(1)} s)`);
+    return 0;
+  } catch (error) {
+    return report(error);
+  }
+}
+
+if (process.argv[1] && resolve(process.argv[1]) === fileURLToPath(import.meta.url)) {
+  process.exitCode = await main();
+}
