@@ -30,7 +30,8 @@ function cell(text: string): string {
 function outputOf(example: string, cache: WeekCache): string {
   const template = { file: 'example.md', slug: 'example', frontMatter: { title: 'Example', sites: 'all' as const, schedule: { every: 'week' as const, past: 0, future: 0 } }, body: example, bodyLine: 1 };
   const { html } = renderBulletinSync(template, { site: EXAMPLE_SITE, week: EXAMPLE_WEEK, bodies: new BodyRegistry() }, cache);
-  if (html.includes('<table')) return 'a table (one row per night)';
+  if (html.includes('<table')) return 'a table, one row per night';
+  if (html.includes('<ul')) return 'a list, one line per target';
   return html.replace(/<[^>]+>/g, '').replace(/\s+/g, ' ').trim();
 }
 
@@ -38,7 +39,7 @@ function outputOf(example: string, cache: WeekCache): string {
 export function placeholderTable(): string {
   const cache = new WeekCache();
   const lines = [
-    '<!-- Generated from lib/bulletin/placeholders.ts by placeholderTable(); test/bulletin-docs.test.ts keeps it in step. -->',
+    '<!-- Generated from lib/bulletin/placeholders.ts by placeholderTable(); test/bulletin-fixtures.test.ts keeps it in step (UPDATE_FIXTURES=1 rewrites it). -->',
     '',
     `Example outputs are for an invented example site at 52° N, 5° E (Europe/Amsterdam, en-GB) in the week ${EXAMPLE_WEEK.id}, Monday night unless the example says otherwise.`,
     '',

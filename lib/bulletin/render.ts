@@ -59,7 +59,7 @@ function cautionsFor(template: BulletinTemplate, week: WeekData, listed: Body[],
     if (body.kind === 'sun' || week.nights.some((_, i) => week.elongationDeg(i, body) < NEAR_SUN_DEG)) near.set(body.id, body);
   }
   for (const body of shown) near.set(body.id, body);
-  const names = [...near.values()].filter((b) => b.kind !== 'sun').map((b) => b.name);
+  const names = [...near.values()].filter((b) => b.kind !== 'sun').map((b) => (b.kind === 'moon' ? 'the Moon' : b.name));
   const cautions: string[] = [];
   if (near.size > 0) cautions.push(nearSunCaution(names));
   if (template.frontMatter.eclipse) cautions.push(ECLIPSE_CAUTION);

@@ -10,7 +10,7 @@ export function nearSunCaution(names: readonly string[]): string {
   const list = names.length <= 1 ? (names[0] ?? 'A target') : `${names.slice(0, -1).join(', ')} and ${names[names.length - 1]}`;
   const verb = names.length > 1 ? 'are' : 'is';
   return (
-    `${list} ${verb} close to the Sun in the sky this week. Never point binoculars or a telescope at or near the Sun: ` +
+    `${list.charAt(0).toUpperCase()}${list.slice(1)} ${verb} close to the Sun in the sky this week. Never point binoculars or a telescope at or near the Sun: ` +
     'search only after the Sun has fully set, stop well before it rises, and follow the advice of your local observatory or astronomy society.'
   );
 }
