@@ -129,13 +129,14 @@ export function addDays(date: string, days: number): string {
 export function zonedTime(date: string, hour: number, minute: number, zone: string): Date {
   const { year, month, day } = parseLocalDate(date);
   const wall = Date.UTC(year, month - 1, day, hour, minute);
-  // Two fixed-point steps converge for every real zone rule (offsets change at most once a day).
-  let guess = wall - offsetMinutes(new Date(wall), zone) * 60_000;
-  guess = wall - offsetMinutes(new Date(guess), zone) * 60_000;
-  const before = wall - offsetMinutes(new Date(guess - 3 * 3600_000), zone) * 60_000;
-  // Autumn fold: the earlier reading also maps back to the wall time.
-  if (before < guess && offsetMinutes(new Date(before), zone) * 60_000 + before === wall) return new Date(before);
-  return new Date(guess);
+  // Zone offsets change at most once within a day either side: the offsets a day before and a day
+  // after are the only candidates. A candidate is valid when the instant it gives shows that offset.
+  const before = offsetMinutes(new Date(wall - 86_400_000), zone) * 60_000;
+  const after = offsetMinutes(new Date(wall + 86_400_000), zone) * 60_000;
+  const valid = [wall - before, wall - after].filter((t) => offsetMinutes(new Date(t), zone) * 60_000 === wall - t);
+  // Fold: both readings exist, take the earlier. Gap: none exists, the clock jumps forward by the
+  // change, which the offset before the change gives (02:30 EST does not exist → 07:30Z = 03:30 EDT).
+  return new Date(valid.length ? Math.min(...valid) : wall - before);
 }
 
 /** The local date in `zone` of `instant`. */

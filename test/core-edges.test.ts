@@ -228,15 +228,12 @@ describe('zonedTime in the spring gap and the autumn fold (IANA rules, from memo
       expect(zonedTime(date, h, m, zone).toISOString()).toBe(utc);
     });
   }
-  // BUG (reported to the lead): in zones west of Greenwich the spring gap resolves to the instant
-  // one hour EARLY — America/New_York 2026-03-08 02:30 gives 06:30Z (01:30 EST) instead of the
-  // documented 03:30 EDT = 07:30Z. lib/time.ts zonedTime: the second fixed-point step takes the
-  // offset after the change (−240) and the fold test never fires, so `guess` = wall + 4 h; in a gap
-  // the answer is wall − (offset before the change) = wall + 5 h. East of Greenwich (Berlin,
-  // Sydney) the same steps happen to land right. `it.fails` keeps the suite green while the bug
-  // stands; turn it into `it` once zonedTime is fixed.
-  it.fails('America/New_York 2026-03-08 2:30 → 2026-03-08T07:30:00.000Z (gap: 03:30 EDT; Denver and Los Angeles fail the same way)', () => {
+  // Zones west of Greenwich: the spring gap resolves to the instant the clock jumps to (03:30 EDT),
+  // from the offset before the change (regression: an earlier fixed-point version gave 01:30 EST).
+  it('America/New_York 2026-03-08 2:30 → 2026-03-08T07:30:00.000Z (gap: 03:30 EDT; also Denver and Los Angeles)', () => {
     expect(zonedTime('2026-03-08', 2, 30, 'America/New_York').toISOString()).toBe('2026-03-08T07:30:00.000Z');
+    expect(zonedTime('2026-03-08', 2, 30, 'America/Denver').toISOString()).toBe('2026-03-08T09:30:00.000Z');
+    expect(zonedTime('2026-03-08', 2, 30, 'America/Los_Angeles').toISOString()).toBe('2026-03-08T10:30:00.000Z');
   });
   it('offsets of fractional and far-east zones (Kathmandu +5:45, Chatham +12:45 standard, Kiritimati +14)', () => {
     expect(offsetMinutes(new Date('2026-07-01T00:00:00Z'), 'Asia/Kathmandu')).toBe(345);
