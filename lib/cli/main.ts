@@ -9,6 +9,7 @@ import { BodyRegistry, BUILT_IN_IDS, type Body } from '../body.ts';
 import { findSite, loadBodies, loadSites } from '../content.ts';
 import { loadObjectFile } from '../orbit/elements.ts';
 import { smallBody } from '../orbit/body.ts';
+import { isSmallBody, tailInSky } from '../orbit/tail.ts';
 import { compass, describeAltitude } from '../describe.ts';
 import { GloamingError } from '../errors.ts';
 import { computeNight } from '../night.ts';
@@ -181,11 +182,15 @@ function runPosition(args: string[], out: (s: string) => void): void {
   if (count !== 1) throw new UsageError(`--body: give exactly one body for 'position' (got ${count})`);
   const [body] = bodiesFrom(values, []);
   const o = observe(site, body!, at);
-  if (values.json) return out(JSON.stringify(positionJson(o), null, 2));
+  const tail = body!.kind === 'comet' && isSmallBody(body!) ? tailInSky(site, body!, at) : null;
+  if (values.json) {
+    return out(JSON.stringify({ ...positionJson(o), ...(tail ? { tail: { positionAngle: round(tail.positionAngleDeg, 2), skyAngle: round(tail.skyAngleDeg, 1), direction: tail.direction, words: tail.words } } : {}) }, null, 2));
+  }
   const dir = compass(o.azimuthDeg);
   out(
     `${o.body.name} at ${o.time.date.toISOString()}: ${describeAltitude(o.altitudeDeg).words} in the ${dir.word} (azimuth ${round(o.azimuthDeg, 1)}°), ` +
-      `magnitude ${round(o.magnitude.value, 1)}, in ${o.constellation}; ${round(o.elongationDeg, 1)}° from the Sun.`,
+      `magnitude ${round(o.magnitude.value, 1)}, in ${o.constellation}; ${round(o.elongationDeg, 1)}° from the Sun.` +
+      (tail ? ` The tail ${tail.words}.` : ''),
   );
 }
 
