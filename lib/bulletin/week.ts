@@ -43,6 +43,7 @@ export class WeekData {
   readonly #bodyNights = new Map<string, WeekBodyNight>();
   readonly #observations = new Map<string, Observation>();
   readonly #magnitudes = new Map<string, WeekMagnitudes>();
+  readonly #elongations = new Map<string, number>();
 
   constructor(site: Site, week: IsoWeek, bodies: BodyRegistry = new BodyRegistry()) {
     this.site = site;
@@ -125,9 +126,15 @@ export class WeekData {
 
   /** Geocentric angle between `body` and the Sun at local midnight of night `index`, degrees. */
   elongationDeg(index: number, body: Body): number {
-    const time = Astronomy.MakeTime(this.midnight(index));
-    const sun = builtInBody('sun').geoVector(time, { aberration: true });
-    return Astronomy.AngleBetween(body.geoVector(time, { aberration: true }), sun);
+    const key = `${index}:${body.id}`;
+    let e = this.#elongations.get(key);
+    if (e === undefined) {
+      const time = Astronomy.MakeTime(this.midnight(index));
+      const sun = builtInBody('sun').geoVector(time, { aberration: true });
+      e = Astronomy.AngleBetween(body.geoVector(time, { aberration: true }), sun);
+      this.#elongations.set(key, e);
+    }
+    return e;
   }
 }
 
