@@ -99,15 +99,40 @@ function engineBody(id: keyof typeof PLANETS): EngineBody {
         };
       }
       const info = Astronomy.Illumination(spec.body, time);
+      const mag = spec.body === Astronomy.Body.Saturn ? saturnMagnitude(time, info.helio_dist, info.geo_dist, info.phase_angle) : info.mag;
       return {
         heliocentricDistanceAu: info.helio_dist,
         geocentricDistanceAu: info.geo_dist,
         phaseAngleDeg: info.phase_angle,
         illuminatedFraction: info.phase_fraction,
-        magnitude: { value: info.mag },
+        magnitude: { value: mag },
       };
     },
   };
+}
+
+/**
+ * Saturn's visual magnitude with its rings, Mallama & Hilton (2018), "Computing apparent planetary
+ * magnitudes for The Astronomical Almanac", Astronomy and Computing 25:10, for phase angles
+ * α ≤ 6.5° (all that the Earth sees):
+ *   V = 5 log10(r Δ) − 8.914 − 1.825 sin β + 0.026 α − 0.378 sin β · e^(−2.25 α),
+ * β = √(B · B′), the geometric mean of the Saturnicentric latitudes of the Earth (B) and the Sun (B′)
+ * on the ring plane, 0 when they differ in sign (the lit face is turned away). Coefficients as
+ * transcribed in the project's methods digest from a third-party implementation; the ring plane is
+ * Saturn's equator, its pole from astronomy-engine's `RotationAxis` (IAU WGCCRE).
+ * astronomy-engine's own Saturn formula is 0.03–0.19 mag brighter.
+ */
+function saturnMagnitude(time: Astronomy.AstroTime, r: number, delta: number, phaseAngleDeg: number): number {
+  const pole = Astronomy.RotationAxis(Astronomy.Body.Saturn, time).north;
+  const saturn = Astronomy.HelioVector(Astronomy.Body.Saturn, time);
+  const earth = Astronomy.HelioVector(Astronomy.Body.Earth, time);
+  const latitude = (x: number, y: number, z: number): number => Math.asin((x * pole.x + y * pole.y + z * pole.z) / Math.hypot(x, y, z)) * (180 / Math.PI);
+  const bEarth = latitude(earth.x - saturn.x, earth.y - saturn.y, earth.z - saturn.z);
+  const bSun = latitude(-saturn.x, -saturn.y, -saturn.z);
+  const beta = bEarth * bSun > 0 ? Math.sqrt(bEarth * bSun) : 0;
+  const sinBeta = Math.sin(beta * (Math.PI / 180));
+  const a = phaseAngleDeg;
+  return 5 * Math.log10(r * delta) - 8.914 - 1.825 * sinBeta + 0.026 * a - 0.378 * sinBeta * Math.exp(-2.25 * a);
 }
 
 const BUILT_IN = new Map<string, EngineBody>(BUILT_IN_IDS.map((id) => [id, engineBody(id)]));

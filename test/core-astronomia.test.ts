@@ -268,12 +268,11 @@ describe('planet magnitudes (targets: within 0.15 mag)', () => {
     expect(errors.venus!.length).toBeGreaterThan(40);
   });
 
-  // KNOWN DISCREPANCY (reported to the lead): the library's Saturn magnitude (astronomy-engine's
-  // Illumination, a Schlyter-style ring formula, constant −9.0) is 0.03–0.19 mag brighter than the
-  // Mallama & Hilton 2018 formula (rms 0.13) and 0.10–0.16 brighter than the 1984 Almanac's, so the
-  // 0.15 target is missed on some dates (e.g. 1999-05-10: −0.19). `it.fails` keeps the suite green
-  // while the discrepancy stands; turn it back into `it` once lib/body.ts uses Mallama & Hilton for Saturn.
-  it.fails('Saturn agrees with the Mallama & Hilton (2018) globe-and-ring formula of the Astronomical Almanac', () => {
+  // The library computes Saturn with Mallama & Hilton (2018) on astronomy-engine's geometry (ring
+  // pole from the IAU rotation model); this check evaluates the same published equation on
+  // astronomia's independent geometry (Meeus ch. 45 ring latitudes). Before, with astronomy-engine's
+  // own formula, the library was 0.03–0.19 mag brighter.
+  it('Saturn agrees with the Mallama & Hilton (2018) globe-and-ring formula of the Astronomical Almanac', () => {
     // V = 5 log10(r Δ) − 8.914 − 1.825 sin β + 0.026 α − 0.378 sin β · exp(−2.25 α), β = √(B·B′)
     // (0 when B and B′ differ in sign), valid for α ≤ 6.5°, β ≤ 27°. Mallama & Hilton 2018,
     // Astronomy and Computing 25:10; coefficients as transcribed in /work/shared/methods digest §6
