@@ -44,6 +44,11 @@ export interface NightReport {
     phase: MoonPhase;
   };
   bodies: BodyNight[];
+  /**
+   * Any body's night on this report's shared frame, computed once and kept: `bodies` holds the
+   * requested ones, and later readers (placeholders, charts) may ask for others.
+   */
+  body(body: Body): BodyNight;
   /** The margin model of this night (sky quality, extinction, Moon phase fixed for the night). */
   readonly sky: NightVisibility;
 }
@@ -56,6 +61,7 @@ export function computeNight(site: Site, date: string, bodies: readonly Body[]):
   const night = nightOf(date, site.timeZone);
   const frame = new NightFrame(site, night);
   const moonBody = builtInBody('moon');
+  const entries = new Map<string, BodyNight>();
   let sky: NightVisibility | undefined;
   const report: NightReport = {
     site,
@@ -63,31 +69,43 @@ export function computeNight(site: Site, date: string, bodies: readonly Body[]):
     frame,
     sun: sunEvents(frame),
     moon: { ...riseTransitSet(frame, frame.track(moonBody)), phase: moonPhase(localMidnight(night)) },
-    bodies: bodies.map((body) => {
-      let visibility: Visibility | undefined;
-      let guide: GuideResult | null | undefined;
-      const events = riseTransitSet(frame, frame.track(body));
-      const entry: BodyNight = {
-        body,
-        ...events,
-        get visibility(): Visibility {
-          visibility ??= report.sky.visibility(body);
-          return visibility;
-        },
-        get guide(): GuideResult | null {
-          if (guide === undefined) {
-            const at = body.kind === 'sun' ? null : (entry.visibility.best?.time ?? events.transit.time);
-            guide = at ? guideAt(site, body, at) : null;
-          }
-          return guide;
-        },
-      };
+    bodies: [],
+    body(body: Body): BodyNight {
+      let entry = entries.get(body.id);
+      if (!entry) {
+        entry = bodyNight(report, body);
+        entries.set(body.id, entry);
+      }
       return entry;
-    }),
+    },
     get sky(): NightVisibility {
       sky ??= new NightVisibility(report);
       return sky;
     },
   };
+  report.bodies = bodies.map((b) => report.body(b));
   return report;
+}
+
+/** One body's night on a report's frame: events now, visibility and guide pattern on first read. */
+function bodyNight(report: NightReport, body: Body): BodyNight {
+  const events = riseTransitSet(report.frame, report.frame.track(body));
+  let visibility: Visibility | undefined;
+  let guide: GuideResult | null | undefined;
+  const entry: BodyNight = {
+    body,
+    ...events,
+    get visibility(): Visibility {
+      visibility ??= report.sky.visibility(body);
+      return visibility;
+    },
+    get guide(): GuideResult | null {
+      if (guide === undefined) {
+        const at = body.kind === 'sun' ? null : (entry.visibility.best?.time ?? events.transit.time);
+        guide = at ? guideAt(report.site, body, at) : null;
+      }
+      return guide;
+    },
+  };
+  return entry;
 }
