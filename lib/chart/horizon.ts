@@ -1,0 +1,455 @@
+/**
+ * The horizon-view finder chart: what a reader sees facing a target at one moment (usually its
+ * best time), with the skyline, compass points, an altitude scale in degrees and fists, stars to
+ * a limit that suits the site's sky, the guide pattern, the Moon and planets in the field, a
+ * comet's tail direction and, optionally, the target's place on other nights of the week.
+ *
+ * Geometry: the sky is projected stereographically (lib/chart/projection.ts) about the point of
+ * the horizon under the target (so the horizon is a straight line, as the reader sees it), drawn
+ * 38 units above the bottom of the scene; for a target too high to fit, the centre is raised.
+ * The field is `fieldWidthDeg` wide (default 90°; the height follows from the 390 × 262 scene:
+ * about 51° above and 9° below the horizon) and is widened in 10° steps (to at most
+ * `maxFieldWidthDeg`, default 140°) until the guide pattern's stars above the skyline fit.
+ * Altitude circles bend upward toward the sides (at 45° to the side the 10° circle is drawn 17%
+ * higher than in the middle); they are labelled at both edges.
+ *
+ * Positions: bodies from `observe` (topocentric, apparent, refracted); stars from `SkyAt`
+ * (lib/chart/place.ts, refracted); both in the same horizontal frame.
+ *
+ * Week track: each other night's dot is the target's place at the moment when the stars stand
+ * exactly as drawn, i.e. a whole number of sidereal days (23 h 56 min 4.09 s, IERS value of the
+ * mean sidereal day) from the chart's moment, so the dots show its motion against the stars.
+ */
+import type { Body } from '../body.ts';
+import { BUILT_IN_IDS, builtInBody } from '../body.ts';
+import { compass, FIST_DEG } from '../describe.ts';
+import { GloamingError } from '../errors.ts';
+import { observe, type Observation } from '../observe.ts';
+import { tailPointGeoVector, type SmallBody } from '../orbit/body.ts';
+import { skylineAltitudeDeg, type Site } from '../site.ts';
+import { guidePattern, type GuideResult } from '../stars/guide.ts';
+import { patternById, patterns, type StarPattern } from '../stars/patterns.ts';
+import { starByHip } from '../stars/catalogue.ts';
+import { SkyAt } from './place.ts';
+import { angleFromRadius, stereographic, stereographicRadius, type AltAz, type Stereographic } from './projection.ts';
+import { CHART_WIDTH, COLOURS, FONT, chartMagnitudeLimit, starRadius } from './style.ts';
+import { LabelPlacer, SVG_CLOSE, n, pathOf, svgOpen, text } from './svg.ts';
+import { chartLabel, formatChartDate, formatChartTime, formatMagnitude } from './words.ts';
+
+/** Mean sidereal day in solar days (86 164.0905 s; IERS Conventions). */
+export const SIDEREAL_DAY_DAYS = 86_164.0905 / 86_400;
+
+/** Height of the sky-and-ground area, user units. */
+const SCENE_HEIGHT = 262;
+/** Height of the legend strip under the scene, user units. */
+const LEGEND_HEIGHT = 38;
+/** Height from the horizon at the centre column to the bottom of the scene, user units. */
+const GROUND_HEIGHT = 38;
+
+export interface HorizonChartOptions {
+  /** Width of the field across the centre, degrees (default 90, at least 30). */
+  fieldWidthDeg?: number;
+  /** Largest width the field may be widened to so the guide pattern fits, degrees (default 140). */
+  maxFieldWidthDeg?: number;
+  /** Faintest star drawn, V magnitude (default: `chartMagnitudeLimit(site.sky)`). */
+  magnitudeLimit?: number;
+  /**
+   * Other nights to show the target on: whole sidereal days from the chart's moment (e.g.
+   * `[-3, -2, -1, 1, 2, 3]`), each drawn as a dated dot. Default: none.
+   */
+  trackDays?: readonly number[];
+  /** Bodies drawn when in the field (default: the Moon and the planets). */
+  otherBodies?: readonly Body[];
+}
+
+/** A body, star or track point drawn on a chart, with where it was drawn. */
+export interface ChartMark {
+  kind: 'target' | 'moon' | 'planet' | 'star' | 'track';
+  /** Body id, `hip:<n>` for stars, or `track:<offset>`. */
+  id: string;
+  label: string;
+  altitudeDeg: number;
+  azimuthDeg: number;
+  /** Chart position, user units (x right, y down). */
+  x: number;
+  y: number;
+  /** Whether the label found a place on the chart. */
+  labelled: boolean;
+}
+
+/** How sky directions map to chart units and back. */
+export interface ChartLayout {
+  /** Chart position (user units, y down) of a direction, or null when it cannot be projected. */
+  toChart(altitudeDeg: number, azimuthDeg: number): { x: number; y: number } | null;
+  /** The direction drawn at a chart position. */
+  fromChart(x: number, y: number): AltAz;
+  projection: Stereographic;
+  /** User units per sphere radius of the stereographic plane. */
+  scale: number;
+}
+
+export interface HorizonChart {
+  kind: 'horizon';
+  svg: string;
+  width: number;
+  height: number;
+  site: Site;
+  body: Body;
+  time: Date;
+  /** The target at the chart's moment. */
+  target: Observation;
+  /** The direction faced (the target's azimuth). */
+  facing: { azimuthDeg: number; word: string; abbreviation: string };
+  fieldWidthDeg: number;
+  fieldHeightDeg: number;
+  magnitudeLimit: number;
+  guide: GuideResult | null;
+  /** Bodies drawn (target first), labelled stars and track points. */
+  marks: ChartMark[];
+  /** Every star drawn: Hipparcos number and chart position. */
+  stars: { hip: number; x: number; y: number }[];
+  /** Direction of the comet's tail on the chart (unit vector, y down), or null. */
+  tail: { dx: number; dy: number } | null;
+  layout: ChartLayout;
+}
+
+function makeLayout(centre: AltAz, scale: number, cx: number, cy: number): ChartLayout {
+  const projection = stereographic(centre);
+  return {
+    projection,
+    scale,
+    toChart(altitudeDeg, azimuthDeg) {
+      const p = projection.project(altitudeDeg, azimuthDeg);
+      return p ? { x: cx + scale * p.x, y: cy - scale * p.y } : null;
+    },
+    fromChart(x, y) {
+      return projection.unproject((x - cx) / scale, (cy - y) / scale);
+    },
+  };
+}
+
+function isComet(body: Body): body is SmallBody {
+  return body.kind === 'comet' && 'sighting' in body;
+}
+
+function checkOptions(options: HorizonChartOptions): void {
+  const check = (value: number | undefined, field: string, min: number, max: number): void => {
+    if (value !== undefined && !(Number.isFinite(value) && value >= min && value <= max)) {
+      throw new GloamingError('invalid-value', `${field} is out of range`, { place: { field }, actual: value, expected: `a number from ${min} to ${max}` });
+    }
+  };
+  check(options.fieldWidthDeg, 'fieldWidthDeg', 30, 160);
+  check(options.maxFieldWidthDeg, 'maxFieldWidthDeg', 30, 160);
+  check(options.magnitudeLimit, 'magnitudeLimit', -2, 6.5);
+  for (const d of options.trackDays ?? []) check(d, 'trackDays', -14, 14);
+}
+
+/** Draws the horizon-view finder chart of `body` from `site` at `time` (see the module note). */
+export function horizonChart(input: { site: Site; body: Body; time: Date; options?: HorizonChartOptions }): HorizonChart {
+  const { site, body, time } = input;
+  const options = input.options ?? {};
+  checkOptions(options);
+  if (body.kind === 'sun') {
+    throw new GloamingError('invalid-value', 'a finder chart cannot point at the Sun', { place: { field: 'body' }, actual: body.id, expected: 'a body other than the Sun' });
+  }
+  const W = CHART_WIDTH;
+  const H = SCENE_HEIGHT + LEGEND_HEIGHT;
+  const target = observe(site, body, time);
+  const sky = new SkyAt(site, time);
+  const guide = guidePattern({ observer: site, time: target.time, target: { raHours: target.raHours, decDeg: target.decDeg } });
+  const guidePat: StarPattern | null = guide ? patternById(guide.pattern.id) : null;
+  const magnitudeLimit = options.magnitudeLimit ?? chartMagnitudeLimit(site.sky);
+  const azimuth0 = target.azimuthDeg;
+
+  // Field: widen until the guide pattern fits (or the maximum is reached).
+  const maxWidth = Math.max(options.maxFieldWidthDeg ?? 140, options.fieldWidthDeg ?? 90);
+  // Only the pattern's stars above the skyline need to fit (the rest are hidden anyway).
+  const patternPlaces = guidePat ? guidePat.stars.map((hip) => sky.star(starByHip(hip)!)).filter((p) => p.altitudeDeg > skylineAltitudeDeg(site, p.azimuthDeg)) : [];
+  let fieldWidthDeg = options.fieldWidthDeg ?? 90;
+  let layout: ChartLayout;
+  for (;;) {
+    const scale = W / 2 / stereographicRadius(fieldWidthDeg / 2);
+    const topDeg = angleFromRadius((SCENE_HEIGHT - GROUND_HEIGHT) / scale);
+    // Centred on the horizon, so the horizon is a straight line; raised when the target would be within 8° of the top edge.
+    const centreAlt = Math.max(0, target.altitudeDeg - (topDeg - 8));
+    layout = makeLayout({ altitudeDeg: centreAlt, azimuthDeg: azimuth0 }, scale, W / 2, SCENE_HEIGHT - GROUND_HEIGHT);
+    const fits = patternPlaces.every((p) => {
+      const q = layout.toChart(p.altitudeDeg, p.azimuthDeg);
+      return q !== null && q.x > 10 && q.x < W - 10 && q.y > 10 && q.y < SCENE_HEIGHT - 10;
+    });
+    if (fits || fieldWidthDeg + 10 > maxWidth) break;
+    fieldWidthDeg += 10;
+  }
+  const scale = layout.scale;
+  const fieldHeightDeg = angleFromRadius((SCENE_HEIGHT - GROUND_HEIGHT) / scale) + angleFromRadius(GROUND_HEIGHT / scale);
+  const inScene = (p: { x: number; y: number } | null, margin = 0): p is { x: number; y: number } =>
+    p !== null && p.x >= -margin && p.x <= W + margin && p.y >= -margin && p.y <= SCENE_HEIGHT + margin;
+  const aboveSkyline = (p: AltAz): boolean => p.altitudeDeg >= skylineAltitudeDeg(site, p.azimuthDeg) - 0.2;
+  const placer = new LabelPlacer(W, SCENE_HEIGHT);
+  // The heading line at the top left.
+  placer.reserve(0, 0, 250, 22);
+  const parts: string[] = [];
+  const marks: ChartMark[] = [];
+
+  // Sky.
+  parts.push(`<rect width="${W}" height="${H}" fill="${COLOURS.sky}" stroke="none"/>`);
+
+  // Altitude circles every fist (10°), labelled in degrees (left) and fists (right).
+  const grid: string[] = [];
+  const gridLabels: string[] = [];
+  for (let alt = FIST_DEG; alt < 90; alt += FIST_DEG) {
+    const pts: ({ x: number; y: number } | null)[] = [];
+    for (let d = -100; d <= 100; d += 2) {
+      const q = layout.toChart(alt, azimuth0 + d);
+      pts.push(inScene(q, 60) ? q : null);
+    }
+    const d = pathOf(pts);
+    if (!d) continue;
+    grid.push(d);
+    const visible = pts.filter((q): q is { x: number; y: number } => q !== null && q.x >= 0 && q.x <= W && q.y > 14 && q.y < SCENE_HEIGHT - GROUND_HEIGHT + 4);
+    if (visible.length === 0) continue;
+    const left = visible.reduce((a, b) => (b.x < a.x ? b : a));
+    const right = visible.reduce((a, b) => (b.x > a.x ? b : a));
+    if (left.x < 40 && left.y > 16) {
+      gridLabels.push(text(3, left.y - 3, `${alt}°`, { size: FONT.small, fill: COLOURS.dimText }));
+      placer.reserve(0, left.y - 15, 30, left.y);
+    }
+    if (right.x > W - 40 && right.y > 16) {
+      const f = alt / FIST_DEG;
+      const words = `${f} fist${f === 1 ? '' : 's'}`;
+      gridLabels.push(text(W - 3, right.y - 3, words, { size: FONT.small, fill: COLOURS.dimText, anchor: 'end' }));
+      placer.reserve(W - 50, right.y - 15, W, right.y);
+    }
+  }
+  if (grid.length) parts.push(`<path d="${grid.join('')}" fill="none" stroke="${COLOURS.grid}" stroke-width="0.8" stroke-dasharray="3 4" opacity="0.7"/>`);
+
+  // Pattern lines: other patterns faint, the guide pattern bold.
+  const linePath = (pattern: StarPattern): string => {
+    let d = '';
+    for (const [a, b] of pattern.lines) {
+      const pa = sky.star(starByHip(a)!);
+      const pb = sky.star(starByHip(b)!);
+      if (pa.altitudeDeg < -2 || pb.altitudeDeg < -2) continue;
+      const qa = layout.toChart(pa.altitudeDeg, pa.azimuthDeg);
+      const qb = layout.toChart(pb.altitudeDeg, pb.azimuthDeg);
+      if (!inScene(qa, 150) || !inScene(qb, 150)) continue;
+      if (!inScene(qa) && !inScene(qb)) continue;
+      d += `M${n(qa.x)} ${n(qa.y)}L${n(qb.x)} ${n(qb.y)}`;
+    }
+    return d;
+  };
+  let others = '';
+  for (const pattern of patterns()) if (pattern.id !== guidePat?.id) others += linePath(pattern);
+  if (others) parts.push(`<path d="${others}" fill="none" stroke="${COLOURS.otherPattern}" stroke-width="1"/>`);
+  const guideLines = guidePat ? linePath(guidePat) : '';
+  if (guideLines) parts.push(`<path d="${guideLines}" fill="none" stroke="${COLOURS.guide}" stroke-width="1.6" opacity="0.9"/>`);
+
+  // Stars: to the limit, plus every star of the guide pattern.
+  const drawn: HorizonChart['stars'] = [];
+  const guideHips = new Set(guidePat?.stars ?? []);
+  const placedStars = sky.stars(Math.max(magnitudeLimit, guidePat ? Math.max(...guidePat.stars.map((h) => starByHip(h)!.vMag)) : -5), (p) => aboveSkyline(p));
+  let starMarkup = '';
+  for (const s of placedStars) {
+    if (s.star.vMag > magnitudeLimit && !guideHips.has(s.star.hip)) continue;
+    const q = layout.toChart(s.altitudeDeg, s.azimuthDeg);
+    if (!inScene(q, 4)) continue;
+    const r = starRadius(s.star.vMag);
+    starMarkup += `<circle cx="${n(q.x)}" cy="${n(q.y)}" r="${n(r)}"/>`;
+    drawn.push({ hip: s.star.hip, x: Math.round(q.x * 10) / 10, y: Math.round(q.y * 10) / 10 });
+  }
+  parts.push(`<g fill="${COLOURS.star}" stroke="none">${starMarkup}</g>`);
+
+  // Ground: the skyline profile, filled down to the bottom of the scene.
+  const skylinePts: { x: number; y: number; az: number }[] = [];
+  const halfSpan = Math.min(179, fieldWidthDeg / 2 + 40);
+  for (let d = -halfSpan; d <= halfSpan; d += 1) {
+    const az = azimuth0 + d;
+    const q = layout.toChart(skylineAltitudeDeg(site, az), az);
+    if (q) skylinePts.push({ ...q, az });
+  }
+  const groundVisible = skylinePts.some((p) => p.y < SCENE_HEIGHT && p.x > 0 && p.x < W);
+  if (groundVisible && skylinePts.length > 1) {
+    const first = skylinePts[0]!;
+    const last = skylinePts[skylinePts.length - 1]!;
+    const clampY = (y: number): number => Math.min(y, SCENE_HEIGHT + 400);
+    const edge = pathOf(skylinePts.map((p) => ({ x: p.x, y: clampY(p.y) })));
+    parts.push(`<path d="${edge}L${n(last.x)} ${SCENE_HEIGHT + 400}L${n(first.x)} ${SCENE_HEIGHT + 400}Z" fill="${COLOURS.ground}" stroke="${COLOURS.groundEdge}" stroke-width="1.5"/>`);
+    placer.reserve(0, Math.min(...skylinePts.filter((p) => p.x >= 0 && p.x <= W).map((p) => p.y)) + 2, W, SCENE_HEIGHT);
+  }
+
+  // Compass points along the skyline.
+  const facing = compass(azimuth0);
+  for (let i = 0; i < 16; i++) {
+    const az = i * 22.5;
+    const delta = ((az - azimuth0 + 540) % 360) - 180;
+    if (Math.abs(delta) > halfSpan) continue;
+    const sky0 = skylineAltitudeDeg(site, az);
+    const q = layout.toChart(sky0, az);
+    if (!q || q.x < 8 || q.x > W - 8 || q.y > SCENE_HEIGHT - 4) continue;
+    const label = compass(az).abbreviation;
+    const main = i % 2 === 0;
+    parts.push(`<path d="M${n(q.x)} ${n(q.y)}v${main ? 7 : 4}" stroke="${COLOURS.compass}" stroke-width="1.5"/>`);
+    const ly = Math.min(q.y + 22, SCENE_HEIGHT - 4);
+    const half = (label.length * FONT.compass * 0.7) / 2 + 2;
+    placer.reserve(q.x - half, ly - FONT.compass, q.x + half, ly + 3);
+    parts.push(text(q.x, ly, label, { size: main ? FONT.compass : FONT.small, fill: COLOURS.compass, anchor: 'middle', halo: COLOURS.ground, ...(label === facing.abbreviation ? { weight: 'bold' as const } : {}) }));
+  }
+
+  // Bodies: the Moon and planets in the field, then the target (drawn last, on top).
+  const bodyMarkup: string[] = [];
+  const labelQueue: { x: number; y: number; text: string; size: number; gap: number; fill: string; mark: ChartMark; force: boolean; weight?: 'bold' }[] = [];
+  const otherBodies = options.otherBodies ?? BUILT_IN_IDS.filter((id) => id !== 'sun').map((id) => builtInBody(id));
+  for (const other of otherBodies) {
+    if (other.id === body.id || other.kind === 'sun') continue;
+    const o = observe(site, other, time);
+    const q = layout.toChart(o.altitudeDeg, o.azimuthDeg);
+    if (!inScene(q) || !aboveSkyline(o)) continue;
+    const isMoon = other.kind === 'moon';
+    const mark: ChartMark = { kind: isMoon ? 'moon' : 'planet', id: other.id, label: other.name, altitudeDeg: o.altitudeDeg, azimuthDeg: o.azimuthDeg, x: q.x, y: q.y, labelled: false };
+    if (isMoon) {
+      const r = Math.max(6, o.semidiameterDeg * scale * (Math.PI / 180) * 2);
+      bodyMarkup.push(`<circle cx="${n(q.x)}" cy="${n(q.y)}" r="${n(r)}" fill="${COLOURS.moon}" stroke="${COLOURS.sky}" stroke-width="1"/>`);
+      labelQueue.push({ x: q.x, y: q.y, text: 'Moon', size: FONT.label, gap: r, fill: COLOURS.moon, mark, force: true });
+    } else {
+      // Planets: a small filled square, so they differ from stars by shape as well as colour.
+      bodyMarkup.push(`<rect x="${n(q.x - 3.2)}" y="${n(q.y - 3.2)}" width="6.4" height="6.4" fill="${COLOURS.planet}" stroke="${COLOURS.sky}" stroke-width="1" transform="rotate(45 ${n(q.x)} ${n(q.y)})"/>`);
+      labelQueue.push({ x: q.x, y: q.y, text: other.name, size: FONT.label, gap: 5, fill: COLOURS.planet, mark, force: true });
+    }
+    marks.push(mark);
+    const rr = isMoon ? Math.max(6, o.semidiameterDeg * scale * (Math.PI / 180) * 2) + 1 : 5;
+    placer.reserve(q.x - rr, q.y - rr, q.x + rr, q.y + rr);
+  }
+
+  // Week track: the target at the same sidereal moment on other nights.
+  const trackMarkup: string[] = [];
+  for (const days of [...(options.trackDays ?? [])].filter((d) => d !== 0).sort((a, b) => a - b)) {
+    const when = new Date(time.getTime() + days * SIDEREAL_DAY_DAYS * 86_400_000);
+    const o = observe(site, body, when);
+    const q = layout.toChart(o.altitudeDeg, o.azimuthDeg);
+    if (!inScene(q)) continue;
+    const label = formatChartDate(when, site);
+    const mark: ChartMark = { kind: 'track', id: `track:${days}`, label, altitudeDeg: o.altitudeDeg, azimuthDeg: o.azimuthDeg, x: q.x, y: q.y, labelled: false };
+    // The first night's dot is hollow, so the direction of motion reads without dates.
+    trackMarkup.push(trackMarkup.length === 0 ? `<circle cx="${n(q.x)}" cy="${n(q.y)}" r="2.4" fill="${COLOURS.sky}" stroke="${COLOURS.track}" stroke-width="1.4"/>` : `<circle cx="${n(q.x)}" cy="${n(q.y)}" r="2.6"/>`);
+    labelQueue.push({ x: q.x, y: q.y, text: label, size: FONT.small, gap: 3, fill: COLOURS.track, mark, force: false });
+    marks.push(mark);
+  }
+  parts.push(...bodyMarkup);
+
+  // Target: a ring with a dot; a comet gets a short indicative tail (anti-solar direction).
+  const tq = layout.toChart(target.altitudeDeg, target.azimuthDeg) ?? { x: W / 2, y: SCENE_HEIGHT / 2 };
+  let tail: HorizonChart['tail'] = null;
+  if (isComet(body)) {
+    const t = target.time;
+    const head = body.geoVector(t, { aberration: true });
+    const tip = tailPointGeoVector(body, t, { lengthAu: 0.05 });
+    const a = sky.fromEqj(head.x, head.y, head.z);
+    const b = sky.fromEqj(tip.x, tip.y, tip.z);
+    const qa = layout.toChart(a.altitudeDeg, a.azimuthDeg);
+    const qb = layout.toChart(b.altitudeDeg, b.azimuthDeg);
+    if (qa && qb) {
+      const len = Math.hypot(qb.x - qa.x, qb.y - qa.y);
+      if (len > 1e-9) {
+        tail = { dx: (qb.x - qa.x) / len, dy: (qb.y - qa.y) / len };
+        const L = 34;
+        const px = -tail.dy, py = tail.dx;
+        const ex = tq.x + tail.dx * L, ey = tq.y + tail.dy * L;
+        parts.push(
+          `<path d="M${n(tq.x + px * 2.2)} ${n(tq.y + py * 2.2)}L${n(ex + px * 6)} ${n(ey + py * 6)}L${n(ex - px * 6)} ${n(ey - py * 6)}L${n(tq.x - px * 2.2)} ${n(tq.y - py * 2.2)}Z" fill="${COLOURS.tail}" stroke="none" opacity="0.75"/>`,
+        );
+        placer.reserve(Math.min(tq.x, ex) - 6, Math.min(tq.y, ey) - 6, Math.max(tq.x, ex) + 6, Math.max(tq.y, ey) + 6);
+      }
+    }
+  }
+  // The track shows only when it spreads beyond the target's ring.
+  const trackMarks = marks.filter((m) => m.kind === 'track');
+  const trackShown = trackMarks.some((m) => Math.hypot(m.x - tq.x, m.y - tq.y) > 10);
+  if (trackShown) parts.push(`<g fill="${COLOURS.track}" stroke="${COLOURS.sky}" stroke-width="0.8">${trackMarkup.join('')}</g>`);
+  parts.push(`<circle cx="${n(tq.x)}" cy="${n(tq.y)}" r="8" fill="none" stroke="${COLOURS.target}" stroke-width="2.2"/>`);
+  parts.push(`<circle cx="${n(tq.x)}" cy="${n(tq.y)}" r="2.6" fill="${COLOURS.target}" stroke="none"/>`);
+  placer.reserve(tq.x - 9, tq.y - 9, tq.x + 9, tq.y + 9);
+  const targetMark: ChartMark = { kind: 'target', id: body.id, label: `${chartLabel(body)} · mag ${formatMagnitude(target.magnitude.value)}`, altitudeDeg: target.altitudeDeg, azimuthDeg: target.azimuthDeg, x: tq.x, y: tq.y, labelled: false };
+  marks.unshift(targetMark);
+  labelQueue.unshift({ x: tq.x, y: tq.y, text: targetMark.label, size: FONT.target, gap: 9, fill: COLOURS.target, mark: targetMark, force: true, weight: 'bold' });
+
+  // Labels, most important first: target, Moon and planets, guide pattern, star names, track dates.
+  const labelMarkup: string[] = [];
+  const placeLabel = (l: (typeof labelQueue)[number]): void => {
+    // A long forced label (the target's) may break at ' · ' into two lines when one line finds no free spot.
+    const split = l.text.split(' · ');
+    const twoLines = l.force && split.length === 2;
+    let lines = [l.text];
+    let spot = placer.place(l.x, l.y, [l.text], l.size, l.gap, { force: l.force && !twoLines, bold: l.weight === 'bold' });
+    if (!spot && twoLines) {
+      lines = split;
+      spot = placer.place(l.x, l.y, lines, l.size, l.gap, { force: true, bold: l.weight === 'bold' });
+    }
+    if (!spot) return;
+    l.mark.labelled = true;
+    labelMarkup.push(text(spot.x, spot.y, lines, { size: l.size, fill: l.fill, anchor: spot.anchor, ...(l.weight ? { weight: l.weight } : {}) }));
+  };
+  // Track dates: the first and last night only (dots a few units apart cannot all carry a date).
+  const trackQueue = labelQueue.filter((l) => l.mark.kind === 'track');
+  const trackLabels = trackShown ? [trackQueue[0], trackQueue[trackQueue.length - 1]].filter((l, i, a): l is NonNullable<typeof l> => l !== undefined && a.indexOf(l) === i) : [];
+  for (const l of labelQueue) if (l.mark.kind !== 'track') placeLabel(l);
+  if (guidePat) {
+    const pts = guidePat.stars
+      .map((hip) => sky.star(starByHip(hip)!))
+      .map((p) => layout.toChart(p.altitudeDeg, p.azimuthDeg))
+      .filter((q): q is { x: number; y: number } => inScene(q));
+    if (pts.length) {
+      const top = pts.reduce((a, b) => (b.y < a.y ? b : a));
+      const cxp = pts.reduce((s, p) => s + p.x, 0) / pts.length;
+      const spot = placer.place(cxp, top.y - 8, [guidePat.name], FONT.label, 0, { bold: true }) ?? placer.place(cxp, pts.reduce((s, p) => s + p.y, 0) / pts.length, [guidePat.name], FONT.label, 6, { bold: true });
+      if (spot) labelMarkup.push(text(spot.x, spot.y, guidePat.name, { size: FONT.label, fill: COLOURS.guide, anchor: spot.anchor, weight: 'bold' }));
+    }
+  }
+  // Named stars: the guide pattern's bright stars, the nearest named star, and any star of V ≤ 1 in view.
+  const named = placedStars.filter((s) => s.star.name && ((guideHips.has(s.star.hip) && s.star.vMag <= 3.5) || s.star.hip === guide?.nearestStar?.hip || s.star.vMag <= 1));
+  for (const s of named) {
+    const q = layout.toChart(s.altitudeDeg, s.azimuthDeg);
+    if (!inScene(q)) continue;
+    const mark: ChartMark = { kind: 'star', id: `hip:${s.star.hip}`, label: s.star.name, altitudeDeg: s.altitudeDeg, azimuthDeg: s.azimuthDeg, x: q.x, y: q.y, labelled: false };
+    marks.push(mark);
+    placeLabel({ x: q.x, y: q.y, text: s.star.name, size: FONT.label, gap: starRadius(s.star.vMag) + 1, fill: COLOURS.text, mark, force: false });
+  }
+  for (const l of trackLabels) placeLabel(l);
+  parts.push(...gridLabels, ...labelMarkup);
+
+  // Heading (top left) and legend strip.
+  const clock = formatChartTime(time, site);
+  parts.push(text(6, 17, `${clock} · facing ${facing.abbreviation} (${Math.round(azimuth0)}°)`, { size: FONT.label, fill: COLOURS.text, weight: 'bold' }));
+  parts.push(`<rect y="${SCENE_HEIGHT}" width="${W}" height="${LEGEND_HEIGHT}" fill="${COLOURS.skyEdge}" stroke="none"/>`);
+  const legend1 = `Stars to mag ${magnitudeLimit.toFixed(1)} · 1 fist at arm's length ≈ 10°`;
+  const firstTrack = trackMarks[0];
+  const lastTrack = trackMarks[trackMarks.length - 1];
+  const legend2 = trackShown && firstTrack && lastTrack
+    ? `Track ○ ${firstTrack.label} → ● ${lastTrack.label}, at the same sidereal time`
+    : trackMarkup.length
+      ? `${chartLabel(body)} hardly moves against the stars this week`
+      : site.name;
+  parts.push(text(6, SCENE_HEIGHT + 15, legend1, { size: FONT.small, fill: COLOURS.dimText, halo: COLOURS.skyEdge }));
+  parts.push(text(6, SCENE_HEIGHT + 31, legend2, { size: FONT.small, fill: trackShown ? COLOURS.track : COLOURS.dimText, halo: COLOURS.skyEdge }));
+
+  const title = `Finder chart: ${chartLabel(body)} from ${site.name} at ${clock}`;
+  const svg = svgOpen(W, H, title) + parts.join('') + SVG_CLOSE;
+  return {
+    kind: 'horizon',
+    svg,
+    width: W,
+    height: H,
+    site,
+    body,
+    time,
+    target,
+    facing: { azimuthDeg: azimuth0, word: facing.word, abbreviation: facing.abbreviation },
+    fieldWidthDeg,
+    fieldHeightDeg,
+    magnitudeLimit,
+    guide,
+    marks,
+    stars: drawn,
+    tail,
+    layout,
+  };
+}
