@@ -82,13 +82,13 @@ export function readOptions(argv: string[], env: Record<string, string | undefin
   if (positionals.length && !values.merge) {
     throw new GloamingError('invalid-argument', `unexpected argument '${positionals[0]}'`, { expected: 'options only (folders only with --merge)' });
   }
-  const today = (values.today as string | undefined) ?? env.GLOAMING_TODAY ?? utcToday();
+  const today = (values.today as string | undefined) || env.GLOAMING_TODAY || utcToday();
   parseLocalDate(today, values.today ? '--today' : 'GLOAMING_TODAY');
   return {
     today,
     sites: parseSiteList((values.sites as string | undefined) ?? env.GLOAMING_SITES),
     out: resolve((values.out as string | undefined) ?? 'dist'),
-    content: (values.content as string | undefined) ?? env.GLOAMING_CONTENT ?? 'content',
+    content: (values.content as string | undefined) || env.GLOAMING_CONTENT || 'content',
     logLevel: values.verbose ? 'info' : 'warn',
     merge: values.merge ? positionals.map((p) => resolve(p)) : null,
   };

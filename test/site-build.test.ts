@@ -1,0 +1,196 @@
+/**
+ * Site build smoke tests: the demo builds with a frozen date into a fresh folder, every kind of
+ * page exists, two builds are byte-identical, output budgets hold, and a failing build reports a
+ * positioned error and leaves the previous output exactly as it was.
+ *
+ * Builds run `scripts/build.ts` in a child process (as `npm run build` does), with output and
+ * Astro's cache in folders under the project (Astro keeps its prerender chunks beside the output
+ * only when the output is inside the working directory).
+ */
+import { spawnSync } from 'node:child_process';
+import { createHash } from 'node:crypto';
+import { cpSync, existsSync, mkdtempSync, readdirSync, readFileSync, rmSync, statSync, writeFileSync } from 'node:fs';
+import { join, relative, resolve } from 'node:path';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+
+const ROOT = resolve(import.meta.dirname, '..');
+const TODAY = '2026-12-04'; // a Friday in ISO week 2026-W49
+const SITES = ['harbour-roof', 'northern-outpost', 'southern-station'];
+
+let work: string;
+
+function build(args: string[], env: Record<string, string> = {}): { status: number | null; stdout: string; stderr: string } {
+  const r = spawnSync(process.execPath, ['scripts/build.ts', ...args], {
+    cwd: ROOT,
+    encoding: 'utf8',
+    env: { ...process.env, GLOAMING_CACHE_DIR: join(work, 'cache'), GLOAMING_TODAY: '', GLOAMING_SITES: '', ...env },
+    timeout: 120_000,
+  });
+  return { status: r.status, stdout: r.stdout, stderr: r.stderr };
+}
+
+function files(dir: string): string[] {
+  const out: string[] = [];
+  const walk = (d: string): void => {
+    for (const name of readdirSync(d)) {
+      const full = join(d, name);
+      if (statSync(full).isDirectory()) walk(full);
+      else out.push(relative(dir, full));
+    }
+  };
+  walk(dir);
+  return out.sort();
+}
+
+function treeDigest(dir: string): Map<string, string> {
+  return new Map(files(dir).map((f) => [f, createHash('sha256').update(readFileSync(join(dir, f))).digest('hex')]));
+}
+
+beforeAll(() => {
+  work = mkdtempSync(join(ROOT, '.tmp-test-site-'));
+  const r = build(['--today', TODAY, '--out', join(work, 'a')]);
+  expect(r.stderr).toBe('');
+  expect(r.status).toBe(0);
+}, 180_000);
+
+afterAll(() => {
+  if (work) rmSync(work, { recursive: true, force: true });
+});
+
+describe('site build', () => {
+  it('writes every kind of page for every site', () => {
+    const out = join(work, 'a');
+    const expected = ['index.html', 'sitemap-index.xml'];
+    for (const site of SITES) {
+      expected.push(`${site}/index.html`, `${site}/archive/index.html`, `${site}/rss.xml`);
+      // The standing weekly template of the demo: this week, 8 weeks back, 4 ahead.
+      for (const week of ['2026-W41', '2026-W49', '2026-W53']) expected.push(`${site}/${week}/weekly/index.html`, `${site}/${week}/weekly/card.png`);
+    }
+    for (const f of expected) expect(existsSync(join(out, f)), f).toBe(true);
+    // ISO 2026 has 53 weeks (it starts on a Thursday): the 4th week ahead is 2026-W53, not 2027-W01.
+    expect(existsSync(join(out, 'harbour-roof/2026-W54'))).toBe(false);
+    expect(existsSync(join(out, 'harbour-roof/2027-W01'))).toBe(false);
+  });
+
+  it('home page says the centre is invented and lists all sites', () => {
+    const html = readFileSync(join(work, 'a/index.html'), 'utf8');
+    expect(html).toMatch(/invented for (this|the) demo/i);
+    for (const site of SITES) expect(html).toContain(`href="/${site}/"`);
+  });
+
+  it('pages ship no client JavaScript and stay within the 40 KB HTML+CSS budget', () => {
+    const out = join(work, 'a');
+    for (const f of files(out).filter((f) => f.endsWith('.html'))) {
+      const html = readFileSync(join(out, f), 'utf8');
+      expect(html, f).not.toMatch(/<script\b/i);
+      expect(html, f).not.toMatch(/<link[^>]+rel="stylesheet"/); // CSS is inline: the page is the whole cost
+      expect(Buffer.byteLength(html), f).toBeLessThan(40 * 1024);
+    }
+  });
+
+  it('bulletin pages carry og:image, lang, one h1, and the week in the title', () => {
+    const html = readFileSync(join(work, 'a/southern-station/2026-W49/weekly/index.html'), 'utf8');
+    expect(html).toMatch(/<html lang="en">/);
+    expect(html).toContain('<meta property="og:image" content="https://sky.example.org/southern-station/2026-W49/weekly/card.png">');
+    expect(html.match(/<h1\b/g)).toHaveLength(1);
+    expect(html).toMatch(/<title>[^<]*30 Nov\s–\s6 Dec 2026<\/title>/); // Intl's range style puts thin spaces round the dash
+  });
+
+  it('social cards are 1200×630 PNGs under 80 KB', () => {
+    const out = join(work, 'a');
+    const cards = files(out).filter((f) => f.endsWith('card.png'));
+    expect(cards.length).toBeGreaterThan(30);
+    for (const f of cards) {
+      const png = readFileSync(join(out, f));
+      // PNG signature, then the IHDR chunk: width and height as big-endian 32-bit integers (PNG spec, ISO/IEC 15948 §11.2.2).
+      expect(png.subarray(0, 8).toString('hex'), f).toBe('89504e470d0a1a0a');
+      expect(png.readUInt32BE(16), f).toBe(1200);
+      expect(png.readUInt32BE(20), f).toBe(630);
+      expect(png.length, f).toBeLessThan(80 * 1024);
+    }
+  });
+
+  it('RSS feeds list the weeks up to this one, newest first, with stable dates', () => {
+    const xml = readFileSync(join(work, 'a/harbour-roof/rss.xml'), 'utf8');
+    const links = [...xml.matchAll(/<link>([^<]+)<\/link>/g)].map((m) => m[1]!);
+    expect(links[1]).toBe('https://sky.example.org/harbour-roof/2026-W49/weekly/');
+    expect(xml).not.toContain('2026-W50'); // future weeks are published as pages, not announced
+    expect(xml).toContain('<pubDate>Mon, 30 Nov 2026 00:00:00 GMT</pubDate>');
+  });
+
+  it('two builds with the same date are byte-identical', () => {
+    const r = build(['--today', TODAY, '--out', join(work, 'b')]);
+    expect(r.status).toBe(0);
+    expect(treeDigest(join(work, 'b'))).toEqual(treeDigest(join(work, 'a')));
+  }, 120_000);
+
+  it('a shard builds only its sites, and merged shards equal the full build apart from sitemap names', () => {
+    expect(build(['--today', TODAY, '--sites', 'harbour-roof', '--out', join(work, 's1')]).status).toBe(0);
+    expect(build(['--today', TODAY, '--sites', 'southern-station,northern-outpost', '--out', join(work, 's2')]).status).toBe(0);
+    expect(existsSync(join(work, 's1/southern-station'))).toBe(false);
+    const m = build(['--merge', join(work, 's1'), join(work, 's2'), '--out', join(work, 'm')]);
+    expect(m.status).toBe(0);
+    const full = treeDigest(join(work, 'a'));
+    const merged = treeDigest(join(work, 'm'));
+    const pages = (t: Map<string, string>): [string, string][] => [...t].filter(([f]) => !f.startsWith('sitemap'));
+    expect(pages(merged).map(([f]) => f)).toEqual(pages(full).map(([f]) => f));
+    expect(pages(merged)).toEqual(pages(full));
+    const index = readFileSync(join(work, 'm/sitemap-index.xml'), 'utf8');
+    expect(index.match(/<sitemap>/g)).toHaveLength(2);
+    const listed = [...index.matchAll(/<loc>https:\/\/sky\.example\.org\/([^<]+)<\/loc>/g)].map((x) => x[1]!);
+    for (const f of listed) expect(existsSync(join(work, 'm', f)), f).toBe(true);
+  }, 180_000);
+
+  it('a failed build prints file:line:column without a stack and leaves the previous output intact', () => {
+    const before = treeDigest(join(work, 'a'));
+    const bad = join(work, 'bad-content');
+    cpSync(join(ROOT, 'content'), bad, { recursive: true });
+    const file = join(bad, 'sites/harbour-roof.yaml');
+    writeFileSync(file, readFileSync(file, 'utf8').replace('bortle: 7', 'bortle: 12'));
+    const r = build(['--today', TODAY, '--out', join(work, 'a'), '--content', bad]);
+    expect(r.status).toBe(1);
+    expect(r.stderr).toMatch(/^error: \S*sites\/harbour-roof\.yaml:\d+:\d+ field 'sky\.bortle': .*out of range/);
+    expect(r.stderr).not.toMatch(/\n\s+at /); // no stack trace
+    expect(treeDigest(join(work, 'a'))).toEqual(before);
+    expect(readdirSync(work).filter((n) => n.startsWith('.tmp-'))).toEqual([]);
+  }, 60_000);
+
+  it('a placeholder error inside a bulletin (found while Astro runs) is positioned too, and nothing is replaced', () => {
+    const before = treeDigest(join(work, 'a'));
+    const bad = join(work, 'bad-template');
+    cpSync(join(ROOT, 'content'), bad, { recursive: true });
+    const file = join(bad, 'bulletins/weekly.md');
+    const text = readFileSync(file, 'utf8');
+    writeFileSync(file, `${text}\nLook for :best-time{body=jupyter} tonight.\n`);
+    const line = text.split('\n').length + 1;
+    const r = build(['--today', TODAY, '--out', join(work, 'a'), '--content', bad]);
+    expect(r.status).toBe(1);
+    expect(r.stderr).toContain(`bulletins/weekly.md:${line}:`);
+    expect(r.stderr).toContain("did you mean 'jupiter'?");
+    expect(r.stderr).not.toMatch(/\n\s+at /);
+    expect(treeDigest(join(work, 'a'))).toEqual(before);
+  }, 120_000);
+
+  it('a build date across the year boundary rolls the weeks into the next ISO year', () => {
+    // 2027-01-01 is a Friday in ISO week 2026-W53 (ISO 8601: the week belongs to the year of its Thursday, 2026-12-31).
+    const r = build(['--today', '2027-01-01', '--sites', 'northern-outpost', '--out', join(work, 'y')]);
+    expect(r.status).toBe(0);
+    const weeks = readdirSync(join(work, 'y/northern-outpost')).filter((n) => /^\d{4}-W\d{2}$/.test(n));
+    expect(weeks[0]).toBe('2026-W45');
+    expect(weeks).toContain('2026-W53');
+    expect(weeks.at(-1)).toBe('2027-W04');
+    expect(weeks).toHaveLength(13);
+    const home = readFileSync(join(work, 'y/northern-outpost/index.html'), 'utf8');
+    expect(home).toContain('href="/northern-outpost/2026-W53/weekly/"');
+  }, 60_000);
+
+  it('rejects a bad --today and an unknown --sites id with a suggestion', () => {
+    const a = build(['--today', '2026-02-30', '--out', join(work, 'x')]);
+    expect(a.status).toBe(1);
+    expect(a.stderr).toMatch(/^error: .*cannot read the date '2026-02-30'/);
+    const b = build(['--today', TODAY, '--sites', 'harbor-roof', '--out', join(work, 'x')]);
+    expect(b.status).toBe(1);
+    expect(b.stderr).toMatch(/unknown site 'harbor-roof'.*did you mean 'harbour-roof'\?/);
+    expect(existsSync(join(work, 'x'))).toBe(false);
+  }, 60_000);
+});
