@@ -1,0 +1,243 @@
+/**
+ * The whole-sky chart: the sky of one site at one moment as a disc, zenith at the centre, the
+ * horizon at the rim, north at the top and east at the left (as seen lying on one's back with the
+ * head to the south, or holding the chart overhead). It shows the skyline profile, bright stars,
+ * every pattern above the horizon (the target's guide pattern emphasised), the Moon, the planets
+ * and the target.
+ *
+ * Projection: stereographic centred on the zenith (lib/chart/projection.ts), oriented as if
+ * facing south with the head tilted back, so north comes out at the top and east at the left;
+ * the horizon lies at ρ = 2 (Snyder 1987, eq. 21-1). Conformal: patterns keep their shape even
+ * low in the sky.
+ *
+ * The moment: any instant; `eveningMoment` gives the usual choice, the end of nautical twilight.
+ */
+import type { Body } from '../body.ts';
+import { BUILT_IN_IDS, builtInBody } from '../body.ts';
+import { GloamingError } from '../errors.ts';
+import type { NightReport } from '../night.ts';
+import { observe, type Observation } from '../observe.ts';
+import { skylineAltitudeDeg, type Site } from '../site.ts';
+import { starByHip } from '../stars/catalogue.ts';
+import { guidePattern, type GuideResult } from '../stars/guide.ts';
+import { patternById, patterns, type StarPattern } from '../stars/patterns.ts';
+import { zonedTime } from '../time.ts';
+import type { ChartLayout, ChartMark } from './horizon.ts';
+import { SkyAt } from './place.ts';
+import { stereographic } from './projection.ts';
+import { CHART_WIDTH, COLOURS, FONT, chartMagnitudeLimit, starRadius } from './style.ts';
+import { LabelPlacer, SVG_CLOSE, n, pathOf, svgOpen, text } from './svg.ts';
+import { chartLabel, formatChartTime, formatMagnitude } from './words.ts';
+
+/** Radius of the horizon circle, user units. */
+const RADIUS = 170;
+const DISC_HEIGHT = CHART_WIDTH;
+const LEGEND_HEIGHT = 36;
+/** Brightest-star cap on a whole-sky chart: it covers 2π sr on a phone screen, so stars stop at V 4.5. */
+const SKY_FAINTEST = 4.5;
+
+export interface SkyChartOptions {
+  /** Faintest star drawn, V magnitude (default: `chartMagnitudeLimit(site.sky)`, at most 4.5). */
+  magnitudeLimit?: number;
+  /** Bodies drawn when above the horizon (default: the Moon and the planets). */
+  otherBodies?: readonly Body[];
+}
+
+export interface SkyChart {
+  kind: 'sky';
+  svg: string;
+  width: number;
+  height: number;
+  site: Site;
+  /** The highlighted target, if any. */
+  body: Body | null;
+  time: Date;
+  target: Observation | null;
+  guide: GuideResult | null;
+  magnitudeLimit: number;
+  /** Bodies above the horizon (target first) and labelled stars. */
+  marks: ChartMark[];
+  stars: { hip: number; x: number; y: number }[];
+  layout: ChartLayout;
+}
+
+/**
+ * The evening moment for a whole-sky chart of a night: the end of nautical twilight (Sun 12°
+ * below the horizon), or, when the Sun does not go that low, the end of civil twilight, or
+ * sunset, or else 21:00 local time.
+ */
+export function eveningMoment(report: NightReport): Date {
+  return report.sun.nauticalDusk.time ?? report.sun.civilDusk.time ?? report.sun.set.time ?? zonedTime(report.night.date, 21, 0, report.night.timeZone);
+}
+
+/** Draws the whole-sky chart of `site` at `time`, with `body` (optional) highlighted. */
+export function skyChart(input: { site: Site; time: Date; body?: Body; options?: SkyChartOptions }): SkyChart {
+  const { site, time } = input;
+  const body = input.body ?? null;
+  const options = input.options ?? {};
+  if (options.magnitudeLimit !== undefined && !(Number.isFinite(options.magnitudeLimit) && options.magnitudeLimit >= -2 && options.magnitudeLimit <= 6.5)) {
+    throw new GloamingError('invalid-value', 'magnitudeLimit is out of range', { place: { field: 'magnitudeLimit' }, actual: options.magnitudeLimit, expected: 'a number from -2 to 6.5' });
+  }
+  if (body?.kind === 'sun') {
+    throw new GloamingError('invalid-value', 'a chart cannot point at the Sun', { place: { field: 'body' }, actual: body.id, expected: 'a body other than the Sun' });
+  }
+  const W = CHART_WIDTH;
+  const H = DISC_HEIGHT + LEGEND_HEIGHT;
+  const cx = W / 2;
+  const cy = DISC_HEIGHT / 2;
+  const scale = RADIUS / 2;
+  // Centre at the zenith, "facing" south: north comes out at the top, east at the left.
+  const projection = stereographic({ altitudeDeg: 90, azimuthDeg: 180 });
+  const layout: ChartLayout = {
+    projection,
+    scale,
+    toChart(altitudeDeg, azimuthDeg) {
+      const p = projection.project(altitudeDeg, azimuthDeg);
+      return p ? { x: cx + scale * p.x, y: cy - scale * p.y } : null;
+    },
+    fromChart(x, y) {
+      return projection.unproject((x - cx) / scale, (cy - y) / scale);
+    },
+  };
+  const sky = new SkyAt(site, time);
+  const magnitudeLimit = options.magnitudeLimit ?? Math.min(SKY_FAINTEST, chartMagnitudeLimit(site.sky));
+  const target = body ? observe(site, body, time) : null;
+  const guide = target ? guidePattern({ observer: site, time: target.time, target: { raHours: target.raHours, decDeg: target.decDeg } }) : null;
+  const guidePat: StarPattern | null = guide ? patternById(guide.pattern.id) : null;
+  const placer = new LabelPlacer(W, DISC_HEIGHT);
+  const parts: string[] = [];
+  const marks: ChartMark[] = [];
+  const up = (alt: number): boolean => alt > 0;
+  const visible = (p: { altitudeDeg: number; azimuthDeg: number }): boolean => p.altitudeDeg > Math.max(0, skylineAltitudeDeg(site, p.azimuthDeg));
+
+  parts.push(`<rect width="${W}" height="${H}" fill="${COLOURS.skyEdge}" stroke="none"/>`);
+  parts.push(`<circle cx="${cx}" cy="${cy}" r="${RADIUS}" fill="${COLOURS.sky}" stroke="none"/>`);
+  // Altitude circles at 30° and 60°.
+  for (const alt of [30, 60]) {
+    const r = scale * 2 * Math.tan(((90 - alt) * Math.PI) / 360);
+    parts.push(`<circle cx="${cx}" cy="${cy}" r="${n(r)}" fill="none" stroke="${COLOURS.grid}" stroke-width="0.8" stroke-dasharray="3 4" opacity="0.7"/>`);
+  }
+
+  // Pattern lines: every pattern with both ends above the horizon; the guide pattern emphasised.
+  const linePath = (pattern: StarPattern): string => {
+    let d = '';
+    for (const [a, b] of pattern.lines) {
+      const pa = sky.star(starByHip(a)!);
+      const pb = sky.star(starByHip(b)!);
+      if (!up(pa.altitudeDeg) || !up(pb.altitudeDeg)) continue;
+      const qa = layout.toChart(pa.altitudeDeg, pa.azimuthDeg)!;
+      const qb = layout.toChart(pb.altitudeDeg, pb.azimuthDeg)!;
+      d += `M${n(qa.x)} ${n(qa.y)}L${n(qb.x)} ${n(qb.y)}`;
+    }
+    return d;
+  };
+  let others = '';
+  for (const pattern of patterns()) if (pattern.id !== guidePat?.id) others += linePath(pattern);
+  if (others) parts.push(`<path d="${others}" fill="none" stroke="${COLOURS.otherPattern}" stroke-width="1"/>`);
+  const guideLines = guidePat ? linePath(guidePat) : '';
+  if (guideLines) parts.push(`<path d="${guideLines}" fill="none" stroke="${COLOURS.guide}" stroke-width="1.6"/>`);
+
+  // Stars.
+  const placed = sky.stars(magnitudeLimit, visible);
+  const drawn: SkyChart['stars'] = [];
+  let starMarkup = '';
+  for (const s of placed) {
+    const q = layout.toChart(s.altitudeDeg, s.azimuthDeg)!;
+    starMarkup += `<circle cx="${n(q.x)}" cy="${n(q.y)}" r="${n(starRadius(s.star.vMag) * 0.85)}"/>`;
+    drawn.push({ hip: s.star.hip, x: Math.round(q.x * 10) / 10, y: Math.round(q.y * 10) / 10 });
+  }
+  parts.push(`<g fill="${COLOURS.star}" stroke="none">${starMarkup}</g>`);
+
+  // Skyline: the band between the horizon circle and the profile.
+  const profile: { x: number; y: number }[] = [];
+  for (let az = 0; az <= 360; az += 2) profile.push(layout.toChart(Math.max(0, skylineAltitudeDeg(site, az)), az)!);
+  const rim: { x: number; y: number }[] = [];
+  for (let az = 360; az >= 0; az -= 2) rim.push(layout.toChart(0, az)!);
+  parts.push(`<path d="${pathOf(profile)}${pathOf(rim).replace(/^M/, 'L')}Z" fill="${COLOURS.ground}" stroke="${COLOURS.groundEdge}" stroke-width="1" fill-rule="evenodd"/>`);
+  parts.push(`<circle cx="${cx}" cy="${cy}" r="${RADIUS}" fill="none" stroke="${COLOURS.groundEdge}" stroke-width="1.5"/>`);
+
+  // Compass letters outside the rim.
+  for (const [az, label] of [[0, 'N'], [90, 'E'], [180, 'S'], [270, 'W']] as const) {
+    const q = layout.toChart(0, az)!;
+    const dx = (q.x - cx) / RADIUS;
+    const dy = (q.y - cy) / RADIUS;
+    parts.push(text(cx + dx * (RADIUS + 11), cy + dy * (RADIUS + 11) + 5, label, { size: FONT.compass, fill: COLOURS.compass, anchor: 'middle', weight: 'bold', halo: COLOURS.skyEdge }));
+  }
+
+  // Bodies.
+  const labels: { x: number; y: number; text: string; fill: string; gap: number; mark: ChartMark; bold?: boolean }[] = [];
+  for (const other of options.otherBodies ?? BUILT_IN_IDS.filter((id) => id !== 'sun').map((id) => builtInBody(id))) {
+    if (other.id === body?.id || other.kind === 'sun') continue;
+    const o = observe(site, other, time);
+    if (!visible(o)) continue;
+    const q = layout.toChart(o.altitudeDeg, o.azimuthDeg)!;
+    const isMoon = other.kind === 'moon';
+    const mark: ChartMark = { kind: isMoon ? 'moon' : 'planet', id: other.id, label: other.name, altitudeDeg: o.altitudeDeg, azimuthDeg: o.azimuthDeg, x: q.x, y: q.y, labelled: false };
+    marks.push(mark);
+    if (isMoon) parts.push(`<circle cx="${n(q.x)}" cy="${n(q.y)}" r="6" fill="${COLOURS.moon}" stroke="${COLOURS.sky}" stroke-width="1"/>`);
+    else parts.push(`<rect x="${n(q.x - 3.2)}" y="${n(q.y - 3.2)}" width="6.4" height="6.4" fill="${COLOURS.planet}" stroke="${COLOURS.sky}" stroke-width="1" transform="rotate(45 ${n(q.x)} ${n(q.y)})"/>`);
+    placer.reserve(q.x - 7, q.y - 7, q.x + 7, q.y + 7);
+    labels.push({ x: q.x, y: q.y, text: other.name, fill: isMoon ? COLOURS.moon : COLOURS.planet, gap: isMoon ? 7 : 5, mark });
+  }
+  if (target && body) {
+    const q = layout.toChart(target.altitudeDeg, target.azimuthDeg);
+    if (q && visible(target)) {
+      const mark: ChartMark = { kind: 'target', id: body.id, label: `${chartLabel(body)} · mag ${formatMagnitude(target.magnitude.value)}`, altitudeDeg: target.altitudeDeg, azimuthDeg: target.azimuthDeg, x: q.x, y: q.y, labelled: false };
+      marks.unshift(mark);
+      parts.push(`<circle cx="${n(q.x)}" cy="${n(q.y)}" r="7" fill="none" stroke="${COLOURS.target}" stroke-width="2.2"/><circle cx="${n(q.x)}" cy="${n(q.y)}" r="2.4" fill="${COLOURS.target}" stroke="none"/>`);
+      placer.reserve(q.x - 8, q.y - 8, q.x + 8, q.y + 8);
+      labels.unshift({ x: q.x, y: q.y, text: chartLabel(body), fill: COLOURS.target, gap: 8, mark, bold: true });
+    }
+  }
+  const labelMarkup: string[] = [];
+  for (const l of labels) {
+    const spot = placer.place(l.x, l.y, [l.text], l.bold ? FONT.target : FONT.label, l.gap, { force: true, bold: l.bold ?? false });
+    if (!spot) continue;
+    l.mark.labelled = true;
+    labelMarkup.push(text(spot.x, spot.y, l.text, { size: l.bold ? FONT.target : FONT.label, fill: l.fill, anchor: spot.anchor, ...(l.bold ? { weight: 'bold' as const } : {}) }));
+  }
+  if (guidePat) {
+    const pts = guidePat.stars.map((hip) => sky.star(starByHip(hip)!)).filter((p) => up(p.altitudeDeg)).map((p) => layout.toChart(p.altitudeDeg, p.azimuthDeg)!);
+    if (pts.length) {
+      const x = pts.reduce((s, p) => s + p.x, 0) / pts.length;
+      const y = pts.reduce((s, p) => s + p.y, 0) / pts.length;
+      const spot = placer.place(x, y, [guidePat.name], FONT.label, 4, { bold: true });
+      if (spot) labelMarkup.push(text(spot.x, spot.y, guidePat.name, { size: FONT.label, fill: COLOURS.guide, anchor: spot.anchor, weight: 'bold' }));
+    }
+  }
+  // The brightest named stars (V ≤ 1.5), brightest first, where they fit.
+  for (const s of placed) {
+    if (!s.star.name || s.star.vMag > 1.5) continue;
+    const q = layout.toChart(s.altitudeDeg, s.azimuthDeg)!;
+    const mark: ChartMark = { kind: 'star', id: `hip:${s.star.hip}`, label: s.star.name, altitudeDeg: s.altitudeDeg, azimuthDeg: s.azimuthDeg, x: q.x, y: q.y, labelled: false };
+    marks.push(mark);
+    const spot = placer.place(q.x, q.y, [s.star.name], FONT.small, starRadius(s.star.vMag) + 1);
+    if (!spot) continue;
+    mark.labelled = true;
+    labelMarkup.push(text(spot.x, spot.y, s.star.name, { size: FONT.small, fill: COLOURS.dimText, anchor: spot.anchor }));
+  }
+  parts.push(...labelMarkup);
+
+  const clock = formatChartTime(time, site);
+  parts.push(text(6, 17, clock, { size: FONT.label, fill: COLOURS.text, weight: 'bold', halo: COLOURS.skyEdge }));
+  parts.push(text(6, DISC_HEIGHT + 14, `Whole sky: zenith at the centre, N up, E left`, { size: FONT.small, fill: COLOURS.dimText, halo: COLOURS.skyEdge }));
+  const hidden = target && body && !visible(target) ? ` · ${chartLabel(body)} not up` : '';
+  parts.push(text(6, DISC_HEIGHT + 30, `Stars to mag ${magnitudeLimit.toFixed(1)} · circles at 30° and 60° up${hidden}`, { size: FONT.small, fill: COLOURS.dimText, halo: COLOURS.skyEdge }));
+
+  const title = `Whole-sky chart from ${site.name} at ${clock}`;
+  return {
+    kind: 'sky',
+    svg: svgOpen(W, H, title) + parts.join('') + SVG_CLOSE,
+    width: W,
+    height: H,
+    site,
+    body,
+    time,
+    target,
+    guide,
+    magnitudeLimit,
+    marks,
+    stars: drawn,
+    layout,
+  };
+}
