@@ -1,0 +1,193 @@
+/**
+ * `gloaming events`: the events of a date range for one site (lib/almanac), as text, JSON or an
+ * iCalendar feed. Wrong input raises `GloamingError` (the command line maps it to exit code 2);
+ * the lead wires `runEvents` into lib/cli/main.ts.
+ */
+import { parseArgs } from 'node:util';
+import { resolve } from 'node:path';
+import { BodyRegistry } from '../body.ts';
+import { findSite, loadBodies, loadSites } from '../content.ts';
+import { GloamingError } from '../errors.ts';
+import { defineSite, parseSkyArgument, type Site } from '../site.ts';
+import { addDays, formatInstant, parseInstant, parseLocalDate, zonedTime } from '../time.ts';
+import { EVENT_TYPES, eventsToICalendar, findEvents, type AlmanacEvent, type AlmanacEventType } from '../almanac/index.ts';
+import { round } from './format.ts';
+
+export const EVENTS_HELP = `gloaming events — the sky's events for a site: Moon phases, close approaches, oppositions,
+elongations, meteor showers, eclipses, equinoxes and solstices, comet events
+
+Usage: gloaming events (--site <id> | --lat <deg> --lon <deg> [--elevation <m>] --tz <zone>)
+                       --from <YYYY-MM-DD> [--to <YYYY-MM-DD>] [--order time|interest]
+                       [--type <id> ...] [--sky bortle:<n>|sqm:<x>|nelm:<x>] [--json | --ics [--now <instant>]]
+
+  --site <id>         a site from content/sites/
+  --lat, --lon        latitude (degrees north) and longitude (degrees east), with --tz
+  --elevation <m>     height above sea level, metres (default 0)
+  --tz <zone>         IANA time zone, e.g. Europe/London
+  --sky <quality>     the site's dark sky for meteor counts (coordinate form; default bortle:5)
+  --from <date>       first local date, YYYY-MM-DD (from local midnight)
+  --to <date>         last local date, inclusive (default: six days after --from, one week)
+  --order <how>       time (default) or interest (most interesting first)
+  --type <id>         repeatable; only these event types:
+                      ${EVENT_TYPES.join(', ')}
+  --content <dir>     content folder (default ./content); comets and asteroids come from its objects/
+  --json              print { events: [{ type, time, bodies, separation?, visible, description, … }] }
+  --ics               print an iCalendar (RFC 5545) feed instead
+  --now <instant>     build instant for the feed's DTSTAMP (default: now)
+
+Times are ISO 8601 with the site's UTC offset. Events that cannot be seen from the site are
+listed with visible: false and the reason; solar eclipses always carry the eye-safety caution.`;
+
+const OPTIONS = {
+  site: { type: 'string' },
+  lat: { type: 'string' },
+  lon: { type: 'string' },
+  elevation: { type: 'string' },
+  tz: { type: 'string' },
+  sky: { type: 'string' },
+  from: { type: 'string' },
+  to: { type: 'string' },
+  order: { type: 'string' },
+  type: { type: 'string', multiple: true },
+  content: { type: 'string' },
+  json: { type: 'boolean' },
+  ics: { type: 'boolean' },
+  now: { type: 'string' },
+  prodid: { type: 'string' },
+  help: { type: 'boolean', short: 'h' },
+} as const;
+
+function argumentError(flag: string, reason: string, actual: unknown, expected: string): GloamingError {
+  return new GloamingError('invalid-argument', reason, { place: { field: flag }, actual, expected });
+}
+
+function numberFlag(text: string | undefined, flag: string, expected: string): number | undefined {
+  if (text === undefined) return undefined;
+  const n = Number(text);
+  if (text.trim() === '' || !Number.isFinite(n)) throw argumentError(flag, `${flag} is not a number`, text, expected);
+  return n;
+}
+
+function siteOf(values: Record<string, unknown>): Site {
+  const contentDir = resolve(String(values.content ?? 'content'));
+  if (typeof values.site === 'string') return findSite(loadSites(resolve(contentDir, 'sites')), values.site, { field: 'site' });
+  const latitude = numberFlag(values.lat as string | undefined, '--lat', 'degrees north, −90 to 90');
+  const longitude = numberFlag(values.lon as string | undefined, '--lon', 'degrees east, −180 to 180');
+  if (latitude === undefined || longitude === undefined) {
+    throw new GloamingError('invalid-argument', 'give --site <id>, or --lat and --lon with --tz', { place: { field: latitude === undefined ? '--lat' : '--lon' }, expected: 'a site id or coordinates' });
+  }
+  if (typeof values.tz !== 'string') throw new GloamingError('invalid-argument', '--tz is required with --lat/--lon', { place: { field: '--tz' }, expected: "an IANA time zone such as 'Europe/London'" });
+  const elevation = numberFlag(values.elevation as string | undefined, '--elevation', 'metres above sea level');
+  return defineSite({
+    latitude,
+    longitude,
+    ...(elevation !== undefined ? { elevation } : {}),
+    timeZone: values.tz,
+    ...(typeof values.sky === 'string' ? { sky: parseSkyArgument(values.sky) } : {}),
+  });
+}
+
+/** One event as the command's JSON (a public shape: keep these names). */
+export function eventJson(e: AlmanacEvent, zone: string): Record<string, unknown> {
+  return {
+    type: e.type,
+    time: formatInstant(e.time, zone),
+    ...(e.end ? { end: formatInstant(e.end, zone) } : {}),
+    bodies: e.bodies,
+    ...(e.separationDeg !== undefined ? { separation: round(e.separationDeg, 3) } : {}),
+    visible: e.visible,
+    description: e.description,
+    title: e.title,
+    visibility: {
+      note: e.visibility.note,
+      moment: e.visibility.moment,
+      time: e.visibility.time ? formatInstant(e.visibility.time, zone) : null,
+      ...(e.visibility.altitudeDeg !== null ? { altitude: round(e.visibility.altitudeDeg, 1) } : {}),
+      ...(e.visibility.azimuthDeg !== null ? { azimuth: round(e.visibility.azimuthDeg, 1) } : {}),
+      reason: e.visibility.reason,
+    },
+    score: e.score,
+    ...(e.caution ? { caution: e.caution } : {}),
+    ...(e.eclipse
+      ? { eclipse: { kind: e.eclipse.kind, obscuration: round(e.eclipse.obscuration, 3), contacts: e.eclipse.contacts.map((c) => ({ name: c.name, time: formatInstant(c.time, zone), altitude: round(c.altitudeDeg, 1) })) } }
+      : {}),
+    ...(e.shower
+      ? {
+          shower: {
+            code: e.shower.code,
+            zhr: e.shower.zhr,
+            expectedHourlyRate: e.shower.best ? round(e.shower.best.hourlyRate, 1) : 0,
+            bestTime: e.shower.best ? formatInstant(e.shower.best.time, zone) : null,
+            radiantAltitude: e.shower.best ? round(e.shower.best.radiantAltitudeDeg, 1) : null,
+            limitingMagnitude: e.shower.best ? round(e.shower.best.limitingMagnitude, 2) : null,
+            moonIlluminatedFraction: round(e.shower.moonIlluminatedFraction, 2),
+            moonInterferes: e.shower.moonInterferes,
+          },
+        }
+      : {}),
+  };
+}
+
+/** `--lon -0.1` → `--lon=-0.1`, so a negative number is read as a value, not an option. */
+function joinNegativeNumbers(args: string[]): string[] {
+  const out: string[] = [];
+  for (let i = 0; i < args.length; i++) {
+    const a = args[i]!;
+    const next = args[i + 1];
+    if (/^--[a-z]/.test(a) && !a.includes('=') && next !== undefined && /^-\d/.test(next)) {
+      out.push(`${a}=${next}`);
+      i++;
+    } else out.push(a);
+  }
+  return out;
+}
+
+/** Runs `gloaming events` with `args` (without the command name), writing to `out`. */
+export function runEvents(args: string[], out: (s: string) => void): void {
+  const { values } = parseArgs({ args: joinNegativeNumbers(args), options: OPTIONS, strict: true });
+  if (values.help) return out(EVENTS_HELP);
+  const site = siteOf(values);
+  if (values.from === undefined) throw new GloamingError('invalid-argument', '--from is required', { place: { field: '--from' }, expected: 'the first local date, YYYY-MM-DD' });
+  parseLocalDate(values.from, '--from');
+  const lastDate = values.to ?? addDays(values.from, 6);
+  parseLocalDate(lastDate, '--to');
+  const from = zonedTime(values.from, 0, 0, site.timeZone);
+  const to = zonedTime(addDays(lastDate, 1), 0, 0, site.timeZone);
+  if (to <= from) throw argumentError('--to', '--to is before --from', lastDate, `a date on or after ${values.from}`);
+  const order = values.order ?? 'time';
+  if (order !== 'time' && order !== 'interest') throw argumentError('--order', 'unknown order', order, 'time or interest');
+  const types = values.type?.map((t) => {
+    if (!(EVENT_TYPES as readonly string[]).includes(t)) throw argumentError('--type', 'unknown event type', t, `one of ${EVENT_TYPES.join(', ')}`);
+    return t as AlmanacEventType;
+  });
+  if (values.json && values.ics) throw argumentError('--ics', '--json and --ics exclude each other', '--json --ics', 'one output format');
+  const contentDir = resolve(String(values.content ?? 'content'));
+  const bodies: BodyRegistry = loadBodies(resolve(contentDir, 'objects'));
+  const events = findEvents({ site, from, to, bodies, options: { order, ...(types ? { types } : {}) } });
+  const zone = site.timeZone;
+  if (values.ics) {
+    const now = values.now !== undefined ? parseInstant(values.now, '--now') : new Date();
+    return out(eventsToICalendar(events, { site, prodId: values.prodid ?? '-//gloaming//sky events//EN', now }).replace(/\r\n$/, ''));
+  }
+  if (values.json) {
+    return out(
+      JSON.stringify(
+        {
+          site: { ...(site.id !== 'site' ? { id: site.id } : {}), latitude: site.latitudeDeg, longitude: site.longitudeDeg, elevation: site.elevationM, timeZone: zone },
+          from: formatInstant(from, zone),
+          to: formatInstant(to, zone),
+          events: events.map((e) => eventJson(e, zone)),
+        },
+        null,
+        2,
+      ),
+    );
+  }
+  const lines = [`Events ${values.from} – ${lastDate} at ${site.name} (${zone})`];
+  for (const e of events) {
+    lines.push(`${formatInstant(e.time, zone).slice(0, 16).replace('T', ' ')}  ${e.visible ? 'visible    ' : 'not visible'}  ${e.description}`);
+    if (e.caution) lines.push(`                              ${e.caution}`);
+  }
+  if (events.length === 0) lines.push('No events in this range.');
+  out(lines.join('\n'));
+}
