@@ -28,8 +28,9 @@ export function fists(angleDeg: number): number {
 }
 
 /**
- * An angle as a hand measure in words: "about 2 fists", "about a fist and a half",
- * "about 3 fingers", "less than a finger".
+ * An angle as a hand measure in words: "less than a finger", "about a finger", "about 3 fingers",
+ * "almost a fist" (7°–9.5°), "about a fist", "about a fist and a half", "about 2 fists",
+ * "about 2 and a half fists".
  */
 export function handMeasure(angleDeg: number): string {
   const a = Math.abs(angleDeg);
@@ -38,6 +39,7 @@ export function handMeasure(angleDeg: number): string {
     const n = Math.round(a / FINGER_DEG);
     return n === 1 ? 'about a finger' : `about ${n} fingers`;
   }
+  if (a < 0.95 * FIST_DEG) return 'almost a fist';
   const f = fists(a);
   if (f === 1) return 'about a fist';
   if (f === 1.5) return 'about a fist and a half';

@@ -22,7 +22,7 @@ import {
   type AstroTime,
   type RotationMatrix,
 } from 'astronomy-engine';
-import { FIST_DEG, handMeasure } from '../describe.ts';
+import { handMeasure } from '../describe.ts';
 import { GloamingError } from '../errors.ts';
 import { starByHip, stars, type Star } from './catalogue.ts';
 import { partPhrase, patternById, patterns, type StarPattern } from './patterns.ts';
@@ -178,14 +178,12 @@ export function offsetInSky(input: { fromAltitudeDeg: number; fromAzimuthDeg: nu
 /**
  * An angle in words for the phrases: "about 8° (almost a fist)", "about 2° (about a finger)",
  * "about 0.4° (less than a finger)". Degrees are rounded to whole degrees from 1° up. The hand
- * measure is `handMeasure` from lib/describe.ts (common practice: fist ≈ 10°, finger ≈ 2°),
- * except that 7°–9.5° reads "almost a fist".
+ * measure is `handMeasure` from lib/describe.ts (common practice: fist ≈ 10°, finger ≈ 2°).
  */
 export function distanceWords(angleDeg: number): string {
   const a = Math.abs(angleDeg);
   const degrees = a < 1 ? a.toFixed(1) : String(Math.round(a));
-  const hand = a >= 7 && a < 0.95 * FIST_DEG ? 'almost a fist' : handMeasure(a);
-  return `about ${degrees}° (${hand})`;
+  return `about ${degrees}° (${handMeasure(a)})`;
 }
 
 function directionWords(direction: OffsetDirection, what: string): string {
