@@ -1,0 +1,178 @@
+/**
+ * End to end: the built demo opened in headless Chromium as a phone (390×844 CSS px), the way a
+ * reader meets it outside. Checks layout (nothing scrolls sideways), text size, tap targets,
+ * images and fonts, the red night light (no JavaScript), and text contrast in both modes
+ * (WCAG 2.1 relative luminance and contrast ratio, success criterion 1.4.3: ≥ 4.5:1).
+ * Screenshots go to .scratch/ for a person to look at.
+ */
+import { spawnSync } from 'node:child_process';
+import { existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { createServer, type Server } from 'node:http';
+import { extname, join, resolve } from 'node:path';
+import { chromium, type Browser, type Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+
+const ROOT = resolve(import.meta.dirname, '..');
+const CHROMIUM = '/usr/bin/chromium';
+const TODAY = '2026-12-04';
+const SHOTS = join(ROOT, '.scratch');
+
+const PAGES = [
+  '/',
+  '/harbour-roof/',
+  '/harbour-roof/2026-W49/weekly/',
+  '/southern-station/',
+  '/southern-station/2026-W49/weekly/',
+  '/northern-outpost/',
+  '/northern-outpost/archive/',
+];
+
+const TYPES: Record<string, string> = { '.html': 'text/html; charset=utf-8', '.png': 'image/png', '.woff2': 'font/woff2', '.xml': 'application/xml', '.css': 'text/css' };
+
+let work: string;
+let server: Server;
+let origin: string;
+let browser: Browser;
+
+function serve(dir: string): Promise<Server> {
+  const s = createServer((req, res) => {
+    let path = decodeURIComponent(new URL(req.url ?? '/', 'http://x').pathname);
+    if (path.endsWith('/')) path += 'index.html';
+    const file = join(dir, path);
+    if (!file.startsWith(dir) || !existsSync(file)) {
+      res.writeHead(404).end('not found');
+      return;
+    }
+    res.writeHead(200, { 'content-type': TYPES[extname(file)] ?? 'application/octet-stream' }).end(readFileSync(file));
+  });
+  return new Promise((done) => s.listen(0, '127.0.0.1', () => done(s)));
+}
+
+/** WCAG 2.1 relative luminance of an sRGB colour `rgb(r, g, b)`. */
+function luminance(css: string): number {
+  const [r, g, b] = css.match(/[\d.]+/g)!.slice(0, 3).map((v) => {
+    const c = Number(v) / 255;
+    return c <= 0.04045 ? c / 12.92 : ((c + 0.055) / 1.055) ** 2.4;
+  }) as [number, number, number];
+  return 0.2126 * r + 0.7152 * g + 0.0722 * b;
+}
+
+function contrast(a: string, b: string): number {
+  const [hi, lo] = [luminance(a), luminance(b)].sort((x, y) => y - x) as [number, number];
+  return (hi + 0.05) / (lo + 0.05);
+}
+
+async function open(path: string): Promise<Page> {
+  const page = await browser.newPage({ viewport: { width: 390, height: 844 }, deviceScaleFactor: 2 });
+  const response = await page.goto(origin + path, { waitUntil: 'load' });
+  expect(response?.status(), path).toBe(200);
+  await page.evaluate(() => document.fonts.ready);
+  return page;
+}
+
+const available = existsSync(CHROMIUM);
+
+beforeAll(async () => {
+  if (!available) return;
+  work = mkdtempSync(join(ROOT, '.tmp-test-e2e-'));
+  const r = spawnSync(process.execPath, ['scripts/build.ts', '--today', TODAY, '--out', join(work, 'dist')], {
+    cwd: ROOT,
+    encoding: 'utf8',
+    env: { ...process.env, GLOAMING_CACHE_DIR: join(work, 'cache'), GLOAMING_TODAY: '', GLOAMING_SITES: '', GLOAMING_CONTENT: '' },
+  });
+  expect(r.status, r.stderr).toBe(0);
+  server = await serve(join(work, 'dist'));
+  const address = server.address() as { port: number };
+  origin = `http://127.0.0.1:${address.port}`;
+  browser = await chromium.launch({ executablePath: CHROMIUM, args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-background-networking'] });
+  mkdirSync(SHOTS, { recursive: true });
+}, 180_000);
+
+afterAll(async () => {
+  await browser?.close();
+  server?.close();
+  if (work) rmSync(work, { recursive: true, force: true });
+});
+
+describe.skipIf(!available)('built pages on a phone (390×844)', () => {
+  for (const path of PAGES) {
+    it(`${path}: no sideways scrolling, text ≥ 16 px, tap targets ≥ 44 px, images and fonts load`, async () => {
+      const page = await open(path);
+      const m = await page.evaluate(() => {
+        const vw = document.documentElement.clientWidth;
+        const small: string[] = [];
+        const wide: string[] = [];
+        const inScroller = (el: Element): boolean => {
+          for (let p = el.parentElement; p; p = p.parentElement) if (getComputedStyle(p).overflowX === 'auto') return true;
+          return false;
+        };
+        for (const el of document.body.querySelectorAll('*')) {
+          const style = getComputedStyle(el);
+          if (style.display === 'none' || style.visibility === 'hidden' || el.closest('.sr-only')) continue;
+          const ownText = [...el.childNodes].some((n) => n.nodeType === Node.TEXT_NODE && n.textContent!.trim() !== '');
+          if (ownText && parseFloat(style.fontSize) < 16) small.push(`${el.tagName}.${el.className} ${style.fontSize}`);
+          const r = el.getBoundingClientRect();
+          if (r.width > 0 && (r.right > vw + 0.5 || r.left < -0.5) && !inScroller(el) && !el.classList.contains('skip')) wide.push(`${el.tagName}.${el.className} ${r.left}–${r.right}`);
+        }
+        const targets = [...document.querySelectorAll('.bar a, .bar label, .pager a')].map((el) => {
+          const r = el.getBoundingClientRect();
+          return { text: el.textContent!.trim(), width: r.width, height: r.height };
+        });
+        const images = [...document.images].map((img) => ({ src: img.src, ok: img.complete && img.naturalWidth > 0 }));
+        return {
+          scrollWidth: document.documentElement.scrollWidth,
+          vw,
+          small,
+          wide,
+          targets,
+          images,
+          fontsLoaded: [...document.fonts].filter((f) => f.status === 'loaded').map((f) => f.weight),
+          og: document.querySelector('meta[property="og:image"]')?.getAttribute('content') ?? null,
+          lang: document.documentElement.lang,
+          h1: document.querySelectorAll('h1').length,
+        };
+      });
+      expect(m.scrollWidth, 'page width').toBeLessThanOrEqual(m.vw);
+      expect(m.wide, 'elements sticking out sideways').toEqual([]);
+      expect(m.small, 'text smaller than 16 px').toEqual([]);
+      for (const t of m.targets) expect(Math.min(t.width, t.height), `tap target '${t.text}'`).toBeGreaterThanOrEqual(44);
+      for (const img of m.images) expect(img.ok, img.src).toBe(true);
+      expect(m.fontsLoaded.sort()).toEqual(['400', '700']);
+      expect(m.lang).toMatch(/^en/);
+      expect(m.h1).toBe(1);
+      if (m.og) {
+        // The social card the page announces exists and is a PNG.
+        const res = await page.request.get(origin + new URL(m.og).pathname);
+        expect(res.status()).toBe(200);
+        expect(res.headers()['content-type']).toBe('image/png');
+      }
+      await page.screenshot({ path: join(SHOTS, `e2e${path.replace(/\//g, '_')}.png`) });
+      await page.close();
+    });
+  }
+
+  it('the red night light needs no JavaScript, turns the whole page red, and keeps contrast ≥ 4.5:1', async () => {
+    const browserNoJs = await browser.newContext({ viewport: { width: 390, height: 844 }, javaScriptEnabled: false });
+    const page = await browserNoJs.newPage();
+    await page.goto(origin + '/harbour-roof/2026-W49/weekly/');
+    const colours = (): Promise<{ bg: string; fg: string; muted: string; accent: string }> =>
+      page.evaluate(() => ({
+        bg: getComputedStyle(document.body).backgroundColor,
+        fg: getComputedStyle(document.body).color,
+        muted: getComputedStyle(document.querySelector('.meta')!).color,
+        accent: getComputedStyle(document.querySelector('.kicker')!).color,
+      }));
+    const dark = await colours();
+    for (const c of [dark.fg, dark.muted, dark.accent]) expect(contrast(c, dark.bg)).toBeGreaterThanOrEqual(4.5);
+    await page.click('label[for=red-light]');
+    const red = await colours();
+    expect(red.bg).toBe('rgb(0, 0, 0)');
+    for (const c of [red.fg, red.muted, red.accent]) {
+      const [r, g, b] = c.match(/\d+/g)!.map(Number) as [number, number, number];
+      expect(r, c).toBeGreaterThan(2 * Math.max(g, b)); // red dominates: little light at the wavelengths dark adaptation needs
+      expect(contrast(c, red.bg), c).toBeGreaterThanOrEqual(4.5);
+    }
+    await page.screenshot({ path: join(SHOTS, 'e2e-red-light.png') });
+    await browserNoJs.close();
+  });
+});
