@@ -2,26 +2,15 @@
  * The shared week data every placeholder reads: for one site and one ISO week, the seven nights
  * (Monday to Sunday evenings) with the Sun's and the Moon's events, and each requested body's
  * rise, transit and set. Each site-night is computed once (`computeNight`), each body once per
- * night on that night's shared frame, and the result is shared by every placeholder and every
- * page of the same site and week through a `WeekCache`.
+ * night on that night's shared frame (`NightReport.body`), and the result is shared by every
+ * placeholder and every page of the same site and week through a `WeekCache`.
  */
 import * as Astronomy from 'astronomy-engine';
 import { BodyRegistry, builtInBody, type Body } from '../body.ts';
-import { riseTransitSet } from '../events.ts';
-import type { RiseTransitSet } from '../events.ts';
-import { computeNight, guideAt, localMidnight, type NightReport } from '../night.ts';
-import type { GuideResult } from '../stars/guide.ts';
+import { computeNight, localMidnight, type BodyNight, type NightReport } from '../night.ts';
 import { observe, type Observation } from '../observe.ts';
 import type { Site } from '../site.ts';
 import type { IsoWeek } from '../time.ts';
-import type { Visibility } from '../visibility.ts';
-
-/** One body's night as placeholders read it (the fields of lib/night.ts's `BodyNight` they use). */
-export interface WeekBodyNight extends RiseTransitSet {
-  body: Body;
-  readonly visibility: Visibility;
-  readonly guide: GuideResult | null;
-}
 
 /** One body over the week: its expected magnitude at local midnight of each night. */
 export interface WeekMagnitudes {
@@ -40,7 +29,6 @@ export class WeekData {
   readonly bodies: BodyRegistry;
   /** The seven nights, Monday evening first (`week.days[i]` is `nights[i].night.date`). */
   readonly nights: readonly NightReport[];
-  readonly #bodyNights = new Map<string, WeekBodyNight>();
   readonly #observations = new Map<string, Observation>();
   readonly #magnitudes = new Map<string, WeekMagnitudes>();
   readonly #elongations = new Map<string, number>();
@@ -57,39 +45,9 @@ export class WeekData {
     return this.week.days.indexOf(date);
   }
 
-  /**
-   * Rise, transit and set of `body` on night `index` (0 = Monday), computed on the night's shared
-   * frame, with its visibility and guide pattern computed on first read — the same construction
-   * as `computeNight` in lib/night.ts, so values are identical to the command line's.
-   */
-  bodyNight(index: number, body: Body): WeekBodyNight {
-    const key = `${index}:${body.id}`;
-    let b = this.#bodyNights.get(key);
-    if (!b) {
-      const report = this.nights[index]!;
-      const site = this.site;
-      const events = riseTransitSet(report.frame, report.frame.track(body));
-      let visibility: Visibility | undefined;
-      let guide: GuideResult | null | undefined;
-      const made: WeekBodyNight = {
-        body,
-        ...events,
-        get visibility(): Visibility {
-          visibility ??= report.sky.visibility(body);
-          return visibility;
-        },
-        get guide(): GuideResult | null {
-          if (guide === undefined) {
-            const at = body.kind === 'sun' ? null : (made.visibility.best?.time ?? events.transit.time);
-            guide = at ? guideAt(site, body, at) : null;
-          }
-          return guide;
-        },
-      };
-      this.#bodyNights.set(key, made);
-      b = made;
-    }
-    return b;
+  /** `body`'s night `index` (0 = Monday): the report's own entry, computed once (see `NightReport.body`). */
+  bodyNight(index: number, body: Body): BodyNight {
+    return this.nights[index]!.body(body);
   }
 
   /** Exact position of `body` at `instant` from the site (`observe`), memoised per instant. */
