@@ -1,0 +1,188 @@
+/**
+ * Behaviour of the almanac: local times right across daylight-saving changes (against the
+ * legal rules, typed from legislation — see test/reference/almanac/README.md), events that cannot
+ * be seen labelled rather than dropped, the meteor count formula against its published form
+ * (Koschack & Rendtel 1990) and common practice, the Moon's interference, and the command.
+ */
+import { describe, expect, it } from 'vitest';
+import { GloamingError } from '../lib/errors.ts';
+import { defineSite } from '../lib/site.ts';
+import { findEvents, hourlyRate, METEOR_SHOWERS, type AlmanacEvent } from '../lib/almanac/index.ts';
+import { eventJson, EVENTS_HELP, runEvents } from '../lib/cli/events.ts';
+import { observe } from '../lib/observe.ts';
+import { builtInBody } from '../lib/body.ts';
+import { expectWithin } from './helpers/tolerance.ts';
+
+const london = defineSite({ id: 'london', name: 'London', latitude: 51.5, longitude: -0.12, timeZone: 'Europe/London', sky: { bortle: 6 } });
+const sydney = defineSite({ id: 'sydney-field', name: 'Field station', latitude: -34.35, longitude: 150.05, elevation: 640, timeZone: 'Australia/Sydney', sky: { bortle: 3 } });
+
+/** Last Sunday of a month, as a UTC date at `hourUtc`. */
+function lastSunday(year: number, month: number, hourUtc: number): number {
+  const last = new Date(Date.UTC(year, month, 0));
+  return Date.UTC(year, month - 1, last.getUTCDate() - last.getUTCDay(), hourUtc);
+}
+/** First Sunday of a month in local (NSW) terms; the change happens the Saturday before at 16:00 UTC. */
+function firstSundayChangeUtc(year: number, month: number): number {
+  const first = new Date(Date.UTC(year, month - 1, 1));
+  const sunday = 1 + ((7 - first.getUTCDay()) % 7);
+  return Date.UTC(year, month - 1, sunday - 1, 16);
+}
+/** UK: UTC+1 from 01:00 UTC last Sunday of March to 01:00 UTC last Sunday of October (Summer Time Order 2002). */
+function ukOffsetMinutes(t: Date): number {
+  const y = t.getUTCFullYear();
+  return t.getTime() >= lastSunday(y, 3, 1) && t.getTime() < lastSunday(y, 10, 1) ? 60 : 0;
+}
+/** NSW: UTC+11 from the first Sunday of October to the first Sunday of April (Standard Time Act 1987 as amended 2007). */
+function nswOffsetMinutes(t: Date): number {
+  const y = t.getUTCFullYear();
+  return t.getTime() >= firstSundayChangeUtc(y, 4) && t.getTime() < firstSundayChangeUtc(y, 10) ? 600 : 660;
+}
+
+function offsetOf(iso: string): number {
+  const m = /([+-])(\d{2}):(\d{2})$/.exec(iso)!;
+  return (m[1] === '-' ? -1 : 1) * (Number(m[2]) * 60 + Number(m[3]));
+}
+
+describe('local times across daylight-saving changes', () => {
+  for (const [site, rule, label] of [
+    [london, ukOffsetMinutes, 'London (UK rule)'],
+    [sydney, nswOffsetMinutes, 'NSW field station (NSW rule)'],
+  ] as const) {
+    it(`every event of 2026 carries the legal offset in ${label}, and its ISO text is the same instant`, () => {
+      const events = findEvents({ site, from: new Date('2026-01-01T00:00:00Z'), to: new Date('2027-01-01T00:00:00Z') });
+      expect(events.length).toBeGreaterThan(150);
+      const offsets = new Set<number>();
+      for (const e of events) {
+        const json = eventJson(e, site.timeZone) as { time: string };
+        expect(offsetOf(json.time), `${e.type} ${e.time.toISOString()} → ${json.time}`).toBe(rule(e.time));
+        expectWithin(Date.parse(json.time), e.time.getTime(), 500, `${e.type} instant`);
+        offsets.add(offsetOf(json.time));
+      }
+      expect(offsets.size).toBe(2); // both sides of a change were exercised
+    });
+  }
+
+  it('the clock time written in a phase description is the local time of the phase (UK rule)', () => {
+    const events = findEvents({ site: london, from: new Date('2026-03-01T00:00:00Z'), to: new Date('2026-11-30T00:00:00Z'), options: { types: ['new-moon', 'full-moon'] } });
+    for (const e of events) {
+      const local = new Date(e.time.getTime() + ukOffsetMinutes(e.time) * 60_000);
+      const hhmm = `${String(local.getUTCHours()).padStart(2, '0')}:${String(local.getUTCMinutes()).padStart(2, '0')}`;
+      expect(e.description, e.time.toISOString()).toContain(`at ${hhmm}`);
+    }
+  });
+});
+
+describe('events that cannot be seen are labelled, not dropped', () => {
+  const events = findEvents({ site: london, from: new Date('2026-01-01T00:00:00Z'), to: new Date('2026-07-01T00:00:00Z') });
+
+  it('conjunctions with the Sun are listed as not visible, too close to the Sun', () => {
+    const conj = events.filter((e) => e.type === 'conjunction');
+    expect(conj.length).toBeGreaterThan(3);
+    for (const e of conj) {
+      expect(e.visible).toBe(false);
+      expect(e.visibility.reason).toBe('too-close-to-sun');
+    }
+  });
+
+  it('the total lunar eclipse of 2026 March 3 (daytime in London) is listed as not visible, below the horizon', () => {
+    const e = events.find((x) => x.type === 'lunar-eclipse' && x.time.toISOString().startsWith('2026-03-03'))!;
+    expect(e.visible).toBe(false);
+    expect(e.visibility.reason).toBe('below-horizon');
+    expect(e.visibility.note).toMatch(/Not visible from London/);
+  });
+
+  it('a visible close approach has both bodies above the skyline in a dark sky at the moment named', () => {
+    const visible = events.filter((e) => e.type === 'close-approach' && e.visible && e.bodies[0] === 'moon' && !e.bodies[1]!.startsWith('star:'));
+    expect(visible.length).toBeGreaterThan(3);
+    for (const e of visible) {
+      const t = e.visibility.time!;
+      expect(observe(london, builtInBody('moon'), t).altitudeDeg).toBeGreaterThanOrEqual(london.minAltitudeDeg - 0.01);
+      expect(observe(london, builtInBody(e.bodies[1] as 'jupiter'), t).altitudeDeg).toBeGreaterThanOrEqual(london.minAltitudeDeg - 0.01);
+      expect(observe(london, builtInBody('sun'), t).altitudeDeg).toBeLessThanOrEqual(-6 + 0.01);
+      expect(e.description).toMatch(/look [a-z-]+ at \d{2}:\d{2}/);
+    }
+  });
+
+  it('the interest order puts the most interesting first', () => {
+    const ranked = findEvents({ site: london, from: new Date('2026-08-01T00:00:00Z'), to: new Date('2026-09-01T00:00:00Z'), options: { order: 'interest' } });
+    expect(ranked[0]!.type).toBe('solar-eclipse');
+    for (let i = 1; i < ranked.length; i++) expect(ranked[i]!.score).toBeLessThanOrEqual(ranked[i - 1]!.score);
+  });
+
+  it('an empty or reversed range is a GloamingError', () => {
+    expect(() => findEvents({ site: london, from: new Date('2026-02-01'), to: new Date('2026-01-01') })).toThrow(GloamingError);
+  });
+});
+
+describe('meteor showers', () => {
+  it('HR = ZHR·sin(h)/r^(6.5−LM) (Koschack & Rendtel 1990): radiant at the zenith under LM 6.5 gives the ZHR; at 30° half; each magnitude of LM lost divides by r (common practice)', () => {
+    expectWithin(hourlyRate({ zhr: 100, radiantAltitudeDeg: 90, limitingMagnitude: 6.5, populationIndex: 2.2 }), 100, 1e-9, 'zenith');
+    expectWithin(hourlyRate({ zhr: 100, radiantAltitudeDeg: 30, limitingMagnitude: 6.5, populationIndex: 2.2 }), 50, 1e-9, '30°');
+    expectWithin(hourlyRate({ zhr: 100, radiantAltitudeDeg: 90, limitingMagnitude: 5.5, populationIndex: 2.2 }), 100 / 2.2, 1e-9, 'LM 5.5');
+    expect(hourlyRate({ zhr: 100, radiantAltitudeDeg: -5, limitingMagnitude: 6.5, populationIndex: 2.2 })).toBe(0);
+  });
+
+  it('the table has the issue’s showers, each with a source', () => {
+    for (const code of ['QUA', 'LYR', 'ETA', 'SDA', 'PER', 'ORI', 'LEO', 'GEM', 'URS']) {
+      const s = METEOR_SHOWERS.find((x) => x.code === code);
+      expect(s, code).toBeDefined();
+      expect(s!.source).toMatch(/IMO/);
+    }
+  });
+
+  it('the Moon, from a dark site: the 2026 Perseids (new Moon on Aug 12) are not spoilt; the 2025 Perseids (Moon 85% lit) are', () => {
+    const darkSite = defineSite({ id: 'dark', latitude: 51.5, longitude: -0.12, timeZone: 'Europe/London', sky: { bortle: 3 } });
+    const per = (site: typeof london, year: number): AlmanacEvent =>
+      findEvents({ site, from: new Date(`${year}-08-10T00:00:00Z`), to: new Date(`${year}-08-16T00:00:00Z`), options: { types: ['meteor-shower-peak'] } }).find((e) => e.shower?.code === 'PER')!;
+    const dark = per(darkSite, 2026);
+    const bright = per(darkSite, 2025);
+    expect(dark.shower!.moonInterferes).toBe(false);
+    expect(dark.description).toMatch(/little moonlight/);
+    expect(bright.shower!.moonInterferes).toBe(true);
+    expect(bright.shower!.moonIlluminatedFraction).toBeGreaterThan(0.7);
+    expect(bright.description).toMatch(/Moon cuts that/);
+    // A darker sky shows more meteors than a town sky (common practice): Bortle 3 against Bortle 6.
+    expect(dark.shower!.best!.hourlyRate).toBeGreaterThan(per(london, 2026).shower!.best!.hourlyRate * 1.5);
+  });
+
+  it('the Quadrantids from 50° S (radiant at +49° never rises) are listed as not visible', () => {
+    const south = defineSite({ id: 'far-south', latitude: -50, longitude: -70, timeZone: 'America/Punta_Arenas' });
+    const [q] = findEvents({ site: south, from: new Date('2026-01-01T00:00:00Z'), to: new Date('2026-01-08T00:00:00Z'), options: { types: ['meteor-shower-peak'] } });
+    expect(q!.shower!.code).toBe('QUA');
+    expect(q!.visible).toBe(false);
+    expect(q!.visibility.reason).toBe('radiant-below-horizon');
+  });
+});
+
+describe('gloaming events (runEvents)', () => {
+  const run = (args: string[]): string => {
+    let text = '';
+    runEvents(args, (s) => (text += s));
+    return text;
+  };
+
+  it('--json prints { events: [{ type, time, bodies, separation?, visible, description }] } with local offsets', () => {
+    const out = JSON.parse(run(['--lat', '51.5', '--lon', '-0.12', '--tz', 'Europe/London', '--from', '2023-03-01', '--to', '2023-03-02', '--json', '--type', 'close-approach'])) as { events: Record<string, unknown>[] };
+    const vj = out.events.find((e) => (e.bodies as string[]).join() === 'venus,jupiter')!;
+    expect(vj).toBeDefined();
+    expect(vj.time).toMatch(/^2023-03-0[12]T\d{2}:\d{2}:\d{2}\+00:00$/);
+    expectWithin(vj.separation as number, 0.5, 0.05, 'separation');
+    expect(typeof vj.visible).toBe('boolean');
+    expect(typeof vj.description).toBe('string');
+  });
+
+  it('wrong input raises GloamingError naming the flag', () => {
+    expect(() => run(['--site', 'nowhere-at-all', '--from', '2026-01-01', '--content', 'content'])).toThrow(GloamingError);
+    expect(() => run(['--lat', '51', '--lon', '0', '--tz', 'Europe/London', '--from', '2026-02-30'])).toThrow(/--from|cannot read the date/);
+    expect(() => run(['--lat', '51', '--lon', '0', '--tz', 'Europe/London', '--from', '2026-01-01', '--type', 'eclipse'])).toThrow(GloamingError);
+    expect(() => run(['--lat', '51', '--lon', '0', '--tz', 'Europe/London', '--from', '2026-01-10', '--to', '2026-01-01'])).toThrow(GloamingError);
+    expect(() => run(['--lat', '51', '--lon', '0', '--from', '2026-01-01'])).toThrow(GloamingError);
+  });
+
+  it('--help prints the help text; --ics prints a calendar', () => {
+    expect(run(['--help'])).toBe(EVENTS_HELP);
+    const ics = run(['--lat', '51.5', '--lon', '-0.12', '--tz', 'Europe/London', '--from', '2026-08-12', '--to', '2026-08-12', '--ics', '--now', '2026-08-01T00:00:00Z']);
+    expect(ics.startsWith('BEGIN:VCALENDAR\r\n')).toBe(true);
+    expect(ics).toContain('DTSTAMP:20260801T000000Z');
+  });
+});
