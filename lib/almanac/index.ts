@@ -11,6 +11,7 @@
 import { BUILT_IN_IDS, type Body, type BodyRegistry } from '../body.ts';
 import { GloamingError } from '../errors.ts';
 import type { Site } from '../site.ts';
+import { addDays, isoWeekOf, zonedTime } from '../time.ts';
 import { approachEvents } from './approaches.ts';
 import { AlmanacContext } from './context.ts';
 import { lunarEclipseEvents, solarEclipseEvents } from './eclipses.ts';
@@ -102,4 +103,31 @@ export function findEvents(input: FindEventsInput): AlmanacEvent[] {
   kept.sort((a, b) => a.time.getTime() - b.time.getTime() || typeOrder(a.type) - typeOrder(b.type) || a.bodies.join().localeCompare(b.bodies.join()));
   if (options.order === 'interest') kept.sort((a, b) => b.score - a.score || a.time.getTime() - b.time.getTime());
   return kept;
+}
+
+/**
+ * The events of the ISO week (Monday–Sunday, local dates) containing `date` (`YYYY-MM-DD`): from
+ * local midnight of the Monday to local midnight of the next Monday, in the site's zone. For the
+ * bulletin's `::events` block (order by time, or `options.order: 'interest'`).
+ */
+export function eventsOfWeek(input: { site: Site; date: string; bodies?: BodyRegistry; options?: FindEventsOptions }): AlmanacEvent[] {
+  const week = isoWeekOf(input.date);
+  const zone = input.site.timeZone;
+  return findEvents({
+    site: input.site,
+    from: zonedTime(week.days[0]!, 0, 0, zone),
+    to: zonedTime(addDays(week.days[0]!, 7), 0, 0, zone),
+    ...(input.bodies ? { bodies: input.bodies } : {}),
+    ...(input.options ? { options: input.options } : {}),
+  });
+}
+
+/**
+ * The one event an inline placeholder refers to: the first (in time) of `type` that involves every
+ * body in `bodies` (ids, e.g. `['moon', 'jupiter']`), or null when there is none — a typed "nothing
+ * this week", never an exception.
+ */
+export function pickEvent(events: readonly AlmanacEvent[], query: { type?: AlmanacEventType; bodies?: readonly string[] }): AlmanacEvent | null {
+  const byTime = [...events].sort((a, b) => a.time.getTime() - b.time.getTime());
+  return byTime.find((e) => (!query.type || e.type === query.type) && (query.bodies ?? []).every((b) => e.bodies.includes(b))) ?? null;
 }
