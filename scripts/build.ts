@@ -157,13 +157,16 @@ function findGloamingError(error: unknown): { message: string } | null {
 export async function buildSite(options: BuildOptions): Promise<BuildResult> {
   const t0 = performance.now();
   // Validate every input before starting Astro: a bad file is reported with its place, fast.
-  loadProject(ROOT, { today: options.today, only: options.sites, content: options.content });
+  const project = loadProject(ROOT, { today: options.today, only: options.sites, content: options.content });
 
   process.env.GLOAMING_TODAY = options.today;
   if (options.sites) process.env.GLOAMING_SITES = options.sites.join(',');
   else delete process.env.GLOAMING_SITES;
   process.env.GLOAMING_CONTENT = options.content;
   process.env.ASTRO_TELEMETRY_DISABLED = '1';
+  // Social cards are cached by content hash beside Astro's own cache.
+  process.env.GLOAMING_CODE_DIGEST = project.codeDigest;
+  process.env.GLOAMING_CARD_CACHE = resolve(process.env.GLOAMING_CACHE_DIR ?? join(ROOT, 'node_modules/.astro'), 'gloaming');
 
   await mkdir(dirname(options.out), { recursive: true });
   const tmp = join(dirname(options.out), `.tmp-${basename(options.out)}-${process.pid}`);

@@ -66,8 +66,58 @@ async function open(path: string): Promise<Page> {
   const page = await browser.newPage({ viewport: { width: 390, height: 844 }, deviceScaleFactor: 2 });
   const response = await page.goto(origin + path, { waitUntil: 'load' });
   expect(response?.status(), path).toBe(200);
-  await page.evaluate(() => document.fonts.ready);
+  await page.evaluate('document.fonts.ready.then(() => true)');
   return page;
+}
+
+/** Runs in the page (plain JavaScript: the project's TypeScript has no DOM types). */
+const MEASURE = `(() => {
+  const vw = document.documentElement.clientWidth;
+  const small = [];
+  const wide = [];
+  const inScroller = (el) => {
+    for (let p = el.parentElement; p; p = p.parentElement) if (getComputedStyle(p).overflowX === 'auto') return true;
+    return false;
+  };
+  for (const el of document.body.querySelectorAll('*')) {
+    const style = getComputedStyle(el);
+    if (style.display === 'none' || style.visibility === 'hidden' || el.closest('.sr-only')) continue;
+    const ownText = [...el.childNodes].some((n) => n.nodeType === Node.TEXT_NODE && n.textContent.trim() !== '');
+    if (ownText && parseFloat(style.fontSize) < 16) small.push(el.tagName + '.' + el.className + ' ' + style.fontSize);
+    const r = el.getBoundingClientRect();
+    if (r.width > 0 && (r.right > vw + 0.5 || r.left < -0.5) && !inScroller(el) && !el.classList.contains('skip')) {
+      wide.push(el.tagName + '.' + el.className + ' ' + r.left + '–' + r.right);
+    }
+  }
+  const targets = [...document.querySelectorAll('.bar a, .bar label, .pager a')].map((el) => {
+    const r = el.getBoundingClientRect();
+    return { text: el.textContent.trim(), width: r.width, height: r.height };
+  });
+  return {
+    scrollWidth: document.documentElement.scrollWidth,
+    vw,
+    small,
+    wide,
+    targets,
+    images: [...document.images].map((img) => ({ src: img.src, ok: img.complete && img.naturalWidth > 0 })),
+    fontsLoaded: [...document.fonts].filter((f) => f.status === 'loaded').map((f) => f.weight),
+    og: document.querySelector('meta[property="og:image"]')?.getAttribute('content') ?? null,
+    lang: document.documentElement.lang,
+    h1: document.querySelectorAll('h1').length,
+  };
+})()`;
+
+interface Measures {
+  scrollWidth: number;
+  vw: number;
+  small: string[];
+  wide: string[];
+  targets: { text: string; width: number; height: number }[];
+  images: { src: string; ok: boolean }[];
+  fontsLoaded: string[];
+  og: string | null;
+  lang: string;
+  h1: number;
 }
 
 const available = existsSync(CHROMIUM);
@@ -98,40 +148,7 @@ describe.skipIf(!available)('built pages on a phone (390×844)', () => {
   for (const path of PAGES) {
     it(`${path}: no sideways scrolling, text ≥ 16 px, tap targets ≥ 44 px, images and fonts load`, async () => {
       const page = await open(path);
-      const m = await page.evaluate(() => {
-        const vw = document.documentElement.clientWidth;
-        const small: string[] = [];
-        const wide: string[] = [];
-        const inScroller = (el: Element): boolean => {
-          for (let p = el.parentElement; p; p = p.parentElement) if (getComputedStyle(p).overflowX === 'auto') return true;
-          return false;
-        };
-        for (const el of document.body.querySelectorAll('*')) {
-          const style = getComputedStyle(el);
-          if (style.display === 'none' || style.visibility === 'hidden' || el.closest('.sr-only')) continue;
-          const ownText = [...el.childNodes].some((n) => n.nodeType === Node.TEXT_NODE && n.textContent!.trim() !== '');
-          if (ownText && parseFloat(style.fontSize) < 16) small.push(`${el.tagName}.${el.className} ${style.fontSize}`);
-          const r = el.getBoundingClientRect();
-          if (r.width > 0 && (r.right > vw + 0.5 || r.left < -0.5) && !inScroller(el) && !el.classList.contains('skip')) wide.push(`${el.tagName}.${el.className} ${r.left}–${r.right}`);
-        }
-        const targets = [...document.querySelectorAll('.bar a, .bar label, .pager a')].map((el) => {
-          const r = el.getBoundingClientRect();
-          return { text: el.textContent!.trim(), width: r.width, height: r.height };
-        });
-        const images = [...document.images].map((img) => ({ src: img.src, ok: img.complete && img.naturalWidth > 0 }));
-        return {
-          scrollWidth: document.documentElement.scrollWidth,
-          vw,
-          small,
-          wide,
-          targets,
-          images,
-          fontsLoaded: [...document.fonts].filter((f) => f.status === 'loaded').map((f) => f.weight),
-          og: document.querySelector('meta[property="og:image"]')?.getAttribute('content') ?? null,
-          lang: document.documentElement.lang,
-          h1: document.querySelectorAll('h1').length,
-        };
-      });
+      const m = (await page.evaluate(MEASURE)) as Measures;
       expect(m.scrollWidth, 'page width').toBeLessThanOrEqual(m.vw);
       expect(m.wide, 'elements sticking out sideways').toEqual([]);
       expect(m.small, 'text smaller than 16 px').toEqual([]);
@@ -155,13 +172,13 @@ describe.skipIf(!available)('built pages on a phone (390×844)', () => {
     const browserNoJs = await browser.newContext({ viewport: { width: 390, height: 844 }, javaScriptEnabled: false });
     const page = await browserNoJs.newPage();
     await page.goto(origin + '/harbour-roof/2026-W49/weekly/');
-    const colours = (): Promise<{ bg: string; fg: string; muted: string; accent: string }> =>
-      page.evaluate(() => ({
+    const colours = async (): Promise<{ bg: string; fg: string; muted: string; accent: string }> =>
+      (await page.evaluate(`({
         bg: getComputedStyle(document.body).backgroundColor,
         fg: getComputedStyle(document.body).color,
-        muted: getComputedStyle(document.querySelector('.meta')!).color,
-        accent: getComputedStyle(document.querySelector('.kicker')!).color,
-      }));
+        muted: getComputedStyle(document.querySelector('.meta')).color,
+        accent: getComputedStyle(document.querySelector('.kicker')).color,
+      })`)) as { bg: string; fg: string; muted: string; accent: string };
     const dark = await colours();
     for (const c of [dark.fg, dark.muted, dark.accent]) expect(contrast(c, dark.bg)).toBeGreaterThanOrEqual(4.5);
     await page.click('label[for=red-light]');

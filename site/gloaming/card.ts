@@ -4,10 +4,12 @@
  * picture is the site's own skyline (its horizon profile, azimuth 0–360° across the width) under
  * the words. Flat colours only, so the PNG stays well under 80 KB.
  */
-import { readFileSync } from 'node:fs';
+import { mkdirSync, readFileSync, renameSync, writeFileSync } from 'node:fs';
+import { join } from 'node:path';
 import { createRequire } from 'node:module';
 import { Resvg } from '@resvg/resvg-js';
 import satori from 'satori';
+import { entryDigest } from './digest.ts';
 
 export const CARD_WIDTH = 1200;
 export const CARD_HEIGHT = 630;
@@ -90,4 +92,26 @@ export async function renderCard(input: CardInput): Promise<Uint8Array> {
   const svg = await cardSvg(input);
   const png = new Resvg(svg, { fitTo: { mode: 'width', value: CARD_WIDTH }, font: { loadSystemFonts: false } }).render().asPng();
   return new Uint8Array(png);
+}
+
+/**
+ * `renderCard` with a content-hash cache: the PNG is kept in `<cacheDir>/cards/<sha256>.png`,
+ * keyed by the card's inputs and `codeDigest` (the hash of the computing and rendering code and
+ * the lockfile, which pins satori, resvg and the font). Without a cache folder or code digest it
+ * simply renders.
+ */
+export async function renderCardCached(input: CardInput, options: { cacheDir?: string; codeDigest?: string }): Promise<Uint8Array> {
+  if (!options.cacheDir || !options.codeDigest) return renderCard(input);
+  const key = entryDigest({ code: options.codeDigest, input: JSON.stringify(input) });
+  const file = join(options.cacheDir, 'cards', `${key}.png`);
+  try {
+    return new Uint8Array(readFileSync(file));
+  } catch {
+    const png = await renderCard(input);
+    mkdirSync(join(options.cacheDir, 'cards'), { recursive: true });
+    const tmp = `${file}.${process.pid}.tmp`;
+    writeFileSync(tmp, png);
+    renameSync(tmp, file); // atomic: a concurrent build never reads half a file
+    return png;
+  }
 }

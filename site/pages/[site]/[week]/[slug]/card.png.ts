@@ -1,7 +1,7 @@
 /** The social card of one bulletin page (1200×630 PNG), referenced by the page's og:image. */
 import type { APIRoute, GetStaticPaths } from 'astro';
 import { CENTRE } from '../../../../gloaming/centre.ts';
-import { renderCard } from '../../../../gloaming/card.ts';
+import { renderCardCached } from '../../../../gloaming/card.ts';
 import { allPages, allSites, type PageEntry, type SiteEntry } from '../../../../data.ts';
 
 export const getStaticPaths = (async () => {
@@ -14,13 +14,13 @@ export const getStaticPaths = (async () => {
 
 export const GET: APIRoute = async ({ props }) => {
   const { page, site } = props as { page: PageEntry; site: SiteEntry };
-  const png = await renderCard({
+  const png = await renderCardCached({
     centre: CENTRE.name,
     title: page.title,
     siteName: site.name,
     weekLabel: page.weekLabel,
     horizon: site.horizon,
     caution: page.cautions.length > 0,
-  });
+  }, { cacheDir: process.env.GLOAMING_CARD_CACHE, codeDigest: process.env.GLOAMING_CODE_DIGEST });
   return new Response(png, { headers: { 'Content-Type': 'image/png' } });
 };

@@ -1,0 +1,50 @@
+/** Social cards: size budget, dimensions, and the content-hash cache. */
+import { mkdtempSync, readdirSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { Resvg } from '@resvg/resvg-js';
+import { afterAll, describe, expect, it } from 'vitest';
+import { CARD_HEIGHT, CARD_WIDTH, renderCard, renderCardCached, type CardInput } from '../site/gloaming/card.ts';
+
+const input: CardInput = {
+  centre: 'Quayside Lantern Science Centre',
+  title: 'A very long bulletin title about a comet low in the west-southwest after sunset',
+  siteName: 'Northern Fjord Outpost',
+  weekLabel: '28 Dec 2026 – 3 Jan 2027',
+  horizon: [
+    { azimuthDeg: 0, altitudeDeg: 3 },
+    { azimuthDeg: 120, altitudeDeg: 12 },
+    { azimuthDeg: 280, altitudeDeg: 4 },
+  ],
+  caution: true,
+};
+const dir = mkdtempSync(join(tmpdir(), 'gloaming-card-'));
+afterAll(() => rmSync(dir, { recursive: true, force: true }));
+
+describe('social card', () => {
+  it('is a 1200×630 PNG under 80 KB that decodes', async () => {
+    const png = await renderCard(input);
+    expect(png.length).toBeLessThan(80 * 1024);
+    // Decoded by resvg's own PNG reader via an <image>: independent of how we wrote it.
+    const probe = new Resvg(
+      `<svg xmlns="http://www.w3.org/2000/svg" width="${CARD_WIDTH}" height="${CARD_HEIGHT}"><image href="data:image/png;base64,${Buffer.from(png).toString('base64')}" width="${CARD_WIDTH}" height="${CARD_HEIGHT}"/></svg>`,
+    ).render();
+    // Top-left pixel: the card's background colour #0c1019, fully opaque.
+    expect([...probe.pixels.subarray(0, 4)]).toEqual([0x0c, 0x10, 0x19, 255]);
+    expect(Buffer.from(png).readUInt32BE(16)).toBe(CARD_WIDTH);
+    expect(Buffer.from(png).readUInt32BE(20)).toBe(CARD_HEIGHT);
+  });
+
+  it('is served from the cache on a hit and recomputed when an input or the code changes', async () => {
+    const first = await renderCardCached(input, { cacheDir: dir, codeDigest: 'code-1' });
+    const files = readdirSync(join(dir, 'cards'));
+    expect(files).toHaveLength(1);
+    // Replace the cached bytes: a hit must return them without rendering.
+    writeFileSync(join(dir, 'cards', files[0]!), Buffer.from('cached'));
+    expect(Buffer.from(await renderCardCached(input, { cacheDir: dir, codeDigest: 'code-1' })).toString()).toBe('cached');
+    const changedCode = await renderCardCached(input, { cacheDir: dir, codeDigest: 'code-2' });
+    expect(Buffer.from(changedCode)).toEqual(Buffer.from(first));
+    await renderCardCached({ ...input, weekLabel: '4 – 10 Jan 2027' }, { cacheDir: dir, codeDigest: 'code-1' });
+    expect(readdirSync(join(dir, 'cards'))).toHaveLength(3);
+  });
+});
