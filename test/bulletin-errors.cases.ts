@@ -38,7 +38,7 @@ export const CASE_INPUTS: ErrorInput[] = [
   { name: 'inline placeholder written as a block', stage: 'render', text: body('::sunset') },
   { name: 'placeholder written as a container', stage: 'render', text: body(':::targets\nx\n:::') },
   { name: 'placeholder with a label', stage: 'render', text: body('At :sunset[today].') },
-  { name: 'reserved chart', stage: 'render', text: body('::chart{body=jupiter}') },
+  { name: 'chart view unknown', stage: 'render', text: body('::chart{body=jupiter view=side}') },
   { name: 'reserved events', stage: 'render', text: body('Intro.\n\n::events') },
   { name: 'unclosed attribute braces', stage: 'render', text: body('Rises :rise{body=jupiter and more') },
   { name: 'unbalanced quote', stage: 'render', text: body('Rises :rise{body="jupiter} ok') },

@@ -37,7 +37,7 @@ const EXPECTED: Record<string, [string, string]> = {
   "inline placeholder written as a block": ["invalid-placeholder", "content/bulletins/bad.md:6:1: '::sunset' is an inline placeholder — write :sunset inside a sentence"],
   "placeholder written as a container": ["invalid-placeholder", "content/bulletins/bad.md:6:1: ':::targets' is written as a container, which no placeholder is — write ::targets on a line of its own"],
   "placeholder with a label": ["invalid-placeholder", "content/bulletins/bad.md:6:4: ':sunset' takes no [label] — attributes go in braces, e.g. :sunset{night=sat}"],
-  "reserved chart": ["invalid-placeholder", "content/bulletins/bad.md:6:1: '::chart' is not available yet: it needs finder charts (issue #7) — remove it for now; the build will accept it once that data exists"],
+  "chart view unknown": ["invalid-placeholder", "content/bulletins/bad.md:6:1 field 'view': 'side' is not a value of 'view' (got 'side'); expected horizon | sky"],
   "reserved events": ["invalid-placeholder", "content/bulletins/bad.md:8:1: '::events' is not available yet: it needs the events search (issue #8) — remove it for now; the build will accept it once that data exists"],
   "unclosed attribute braces": ["invalid-placeholder", "content/bulletins/bad.md:6:7: the attributes of ':rise' cannot be read; expected name=value pairs separated by spaces inside { }, e.g. :rise{body=jupiter} — check for a missing } or an unbalanced quote"],
   "unbalanced quote": ["invalid-placeholder", "content/bulletins/bad.md:6:7: the attributes of ':rise' cannot be read; expected name=value pairs separated by spaces inside { }, e.g. :rise{body=jupiter} — check for a missing } or an unbalanced quote"],

@@ -44,7 +44,7 @@ function clock(instant: Date, site: Site): string {
 
 describe('every placeholder covered', () => {
   it('each placeholder of the table is exercised by this file or is reserved', () => {
-    const covered = ['week', 'date', 'sunset', 'sunrise', 'dark', 'dawn', 'rise', 'transit', 'set', 'direction', 'altitude', 'magnitude', 'moon-phase', 'moon-lit', 'moon-and-twilight', 'best-time', 'window', 'verdict', 'targets', 'guide'];
+    const covered = ['week', 'date', 'sunset', 'sunrise', 'dark', 'dawn', 'rise', 'transit', 'set', 'direction', 'altitude', 'magnitude', 'moon-phase', 'moon-lit', 'moon-and-twilight', 'best-time', 'window', 'verdict', 'targets', 'guide', 'chart'];
     for (const spec of PLACEHOLDERS.values()) if (!spec.needs) expect(covered, spec.name).toContain(spec.name);
   });
 });
@@ -154,6 +154,24 @@ describe.each(SITE_IDS)('site %s', (siteId) => {
         expect(e.attrs['data-pattern']).toBe(g.pattern.id);
       } else {
         expect(e.attrs.class).toContain('gl-none');
+      }
+    });
+
+    it('chart: the view at the best time of lib/night.ts, or an honest sentence with the reason', () => {
+      const v = night.bodies[0]!.visibility;
+      const html = render(site, week, '::chart{body=jupiter night=fri}');
+      if (v.best) {
+        const e = element(html, 'chart');
+        expect(e.tag).toBe('figure');
+        const alt = /alt="([^"]*)"/.exec(html)![1]!;
+        // The alt text names the compass direction and the altitude of the best moment (lib/describe.ts words).
+        expect(alt).toContain(compass(v.best.azimuthDeg).word.replace(/^./, (c) => c.toUpperCase()).toLowerCase().split(' ')[0]!);
+        expect(alt).toContain(`Jupiter ${Math.round(v.best.altitudeDeg)}° up`);
+        expect(html).toMatch(/<img src="\/charts\/[0-9a-f]+\.svg" width="\d+" height="\d+" loading="lazy" decoding="async"/);
+      } else {
+        const e = element(html, 'chart');
+        expect(e.attrs.class).toContain('gl-none');
+        expect(e.attrs['data-reason']).toBe(v.reason);
       }
     });
 

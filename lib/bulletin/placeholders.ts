@@ -21,6 +21,9 @@ import { addDays, formatInstant, zonedTime } from '../time.ts';
 import type { AttributeSpec, AttributeValue, ClockTime } from './attributes.ts';
 import { el, exact, formatClock, formatDay, formatDayRange, formatNumber, type Clock, type TimePrecision } from './format.ts';
 import type { WeekData } from './week.ts';
+import type { ChartOutput } from './types.ts';
+import { ChartCache } from '../chart/cache.ts';
+import { placeholderChart } from '../chart/index.ts';
 import { REASON_TEXT, type Visibility } from '../visibility.ts';
 
 /** A target within this angle of the Sun (geocentric, at local midnight of the night) triggers the eye-safety caution. */
@@ -40,6 +43,8 @@ export interface PlaceholderCall {
   given: ReadonlySet<string>;
   /** Records that `body` is a near-Sun target (adds the eye-safety caution to the page). */
   nearSun(body: Body): void;
+  /** Where finder charts go; absent: the default chart output (see `defaultCharts`). */
+  charts?: ChartOutput;
 }
 
 export interface PlaceholderSpec {
@@ -54,6 +59,14 @@ export interface PlaceholderSpec {
   /** Reserved: what the placeholder needs before it can render (e.g. `the best-viewing-time model (#4)`). */
   needs?: string;
   render?: (call: PlaceholderCall) => ElementContent;
+}
+
+let sharedCharts: ChartOutput | undefined;
+
+/** The chart output used when a render gives none: a cache in `.cache/charts`, linked as `/charts/<file>`. */
+export function defaultCharts(): ChartOutput {
+  sharedCharts ??= { cache: new ChartCache({ dir: '.cache/charts' }), url: (file) => `/charts/${file}` };
+  return sharedCharts;
 }
 
 // ---------------------------------------------------------------------------------------------
@@ -442,9 +455,42 @@ const DEFINITIONS: PlaceholderSpec[] = [
   { name: 'verdict', form: 'inline', summary: 'naked eye, binoculars, telescope or not visible, with the reason', attributes: { body: BODY, night: NIGHT }, example: ':verdict{body=saturn}', render: verdict },
   { name: 'guide', form: 'inline', summary: 'where to look from a nearby bright star pattern, at the best time (or transit)', attributes: { body: BODY, night: NIGHT }, example: ':guide{body=jupiter}', render: guide },
   { name: 'targets', form: 'block', summary: 'every naked-eye or binocular target of the night, by best time, with direction, altitude, magnitude and nearby pattern', attributes: { ...TIME_ATTRS }, example: '::targets{night=fri}', render: targets },
-  { name: 'chart', form: 'block', summary: 'a finder chart for a body', attributes: { body: BODY, night: NIGHT }, example: '::chart{body=jupiter}', needs: 'finder charts (issue #7)' },
+  {
+    name: 'chart',
+    form: 'block',
+    summary: 'a finder chart: the view facing the body at its best time with its track over the week, or the whole sky at the end of nautical twilight',
+    attributes: { body: BODY, night: NIGHT, view: { type: { kind: 'choice', values: ['horizon', 'sky'] }, default: 'horizon', doc: 'facing the body, or the whole sky' } },
+    example: '::chart{body=jupiter}',
+    render: chart,
+  },
   { name: 'events', form: 'block', summary: "the week's events for the site", attributes: {}, example: '::events', needs: 'the events search (issue #8)' },
 ];
+
+/** `::chart`: a figure with the finder chart image and a caption, or an honest sentence. */
+function chart(call: PlaceholderCall): ElementContent {
+  const body = bodyOf(call);
+  const output = call.charts ?? defaultCharts();
+  const visibility = call.week.bodyNight(call.night, body).visibility;
+  const r = placeholderChart({
+    site: call.site,
+    body,
+    report: call.week.nights[call.night]!,
+    visibility,
+    nightIndex: call.night,
+    view: call.attrs.get('view') as 'horizon' | 'sky',
+    cache: output.cache,
+    url: output.url,
+  });
+  if (r.kind === 'not-visible') {
+    return el('p', { ...classes(call, 'gl-none'), dataReason: visibility.reason ?? 'not-visible' }, `No finder chart for ${body.name} this night: ${r.reason}.`);
+  }
+  const c = r.chart;
+  const caption = c.alt.split(/(?<=\.)\s/)[0] ?? c.alt;
+  return el('figure', { ...classes(call), dataChart: c.key, dataBody: body.id, dataNight: nightDate(call) }, [
+    el('img', { src: output.url(c.files.svg), width: c.width, height: c.height, loading: 'lazy', decoding: 'async', alt: c.alt }),
+    el('figcaption', {}, caption),
+  ]);
+}
 
 /** Every placeholder by name. */
 export const PLACEHOLDERS: ReadonlyMap<string, PlaceholderSpec> = new Map(DEFINITIONS.map((d) => [d.name, d]));

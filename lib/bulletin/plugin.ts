@@ -26,6 +26,7 @@ import { readAttribute, type AttributeValue, type ReadContext } from './attribut
 import { defaultClock, type Clock } from './format.ts';
 import { PLACEHOLDERS, type PlaceholderCall, type PlaceholderSpec } from './placeholders.ts';
 import { WeekCache, type WeekData } from './week.ts';
+import type { ChartOutput } from './types.ts';
 
 /** What the placeholders of one document are about. */
 export interface PlaceholderScope {
@@ -40,6 +41,8 @@ export interface PlaceholderScope {
   file?: string;
   /** Added to directive line numbers, e.g. the number of front matter lines (`bodyLine − 1`). */
   lineOffset?: number;
+  /** Finder charts for `::chart` (see `ChartOutput`). */
+  charts?: ChartOutput;
 }
 
 export interface RemarkPlaceholdersOptions {
@@ -270,6 +273,7 @@ export function remarkPlaceholders(options: RemarkPlaceholdersOptions) {
         attrs: c.attrs,
         given: c.given,
         nearSun: (body) => nearSun.set(body.id, body),
+        ...(scope.charts ? { charts: scope.charts } : {}),
       };
       replaceWith(c.node, c.spec.render!(call));
     }

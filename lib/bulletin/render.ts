@@ -87,6 +87,7 @@ export function renderBulletinSync(template: BulletinTemplate, context: RenderCo
     cache,
     file: template.file,
     lineOffset: template.bodyLine - 1,
+    ...(context.charts ? { charts: context.charts } : {}),
     ...(date !== undefined && isoWeekOf(date).id === context.week.id ? { defaultNight: date } : {}),
   };
   const file = processor.processSync({ value: template.body, path: template.file, data: { gloamingScope: scope } });

@@ -4,6 +4,7 @@
  * the site decides which pages exist and lays them out. Neither side imports Astro here.
  */
 import type { BodyRegistry } from '../body.ts';
+import type { ChartCache } from '../chart/cache.ts';
 import type { Site } from '../site.ts';
 import type { IsoWeek } from '../time.ts';
 
@@ -61,9 +62,19 @@ export interface RenderedBulletin {
   cautions: string[];
 }
 
+/** Where finder charts are kept and how pages link to them. */
+export interface ChartOutput {
+  /** The build's chart cache (content-hashed files in its folder). */
+  cache: ChartCache;
+  /** Public URL of a chart file, e.g. `(f) => '/charts/' + f`. The build copies the files pages link to. */
+  url: (file: string) => string;
+}
+
 /** Everything rendering needs besides the template. */
 export interface RenderContext {
   site: Site;
   week: IsoWeek;
   bodies: BodyRegistry;
+  /** Finder charts (`::chart`); default: a cache in `.cache/charts`, linked as `/charts/<file>`. */
+  charts?: ChartOutput;
 }
