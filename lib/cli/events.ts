@@ -1,14 +1,13 @@
 /**
  * `gloaming events`: the events of a date range for one site (lib/almanac), as text, JSON or an
- * iCalendar feed. Wrong input raises `GloamingError` (the command line maps it to exit code 2);
- * the lead wires `runEvents` into lib/cli/main.ts.
+ * iCalendar feed. Wrong input raises `GloamingError` (the command line maps it to exit code 2).
  */
 import { parseArgs } from 'node:util';
 import { resolve } from 'node:path';
 import { BodyRegistry } from '../body.ts';
-import { findSite, loadBodies, loadSites } from '../content.ts';
+import { loadBodies } from '../content.ts';
 import { GloamingError } from '../errors.ts';
-import { defineSite, parseSkyArgument, type Site } from '../site.ts';
+import { argumentError, joinNegativeNumbers, siteFromFlags } from './args.ts';
 import { addDays, formatInstant, parseInstant, parseLocalDate, zonedTime } from '../time.ts';
 import { EVENT_TYPES, eventsToICalendar, findEvents, type AlmanacEvent, type AlmanacEventType } from '../almanac/index.ts';
 import { round } from './format.ts';
@@ -57,36 +56,6 @@ const OPTIONS = {
   help: { type: 'boolean', short: 'h' },
 } as const;
 
-function argumentError(flag: string, reason: string, actual: unknown, expected: string): GloamingError {
-  return new GloamingError('invalid-argument', reason, { place: { field: flag }, actual, expected });
-}
-
-function numberFlag(text: string | undefined, flag: string, expected: string): number | undefined {
-  if (text === undefined) return undefined;
-  const n = Number(text);
-  if (text.trim() === '' || !Number.isFinite(n)) throw argumentError(flag, `${flag} is not a number`, text, expected);
-  return n;
-}
-
-function siteOf(values: Record<string, unknown>): Site {
-  const contentDir = resolve(String(values.content ?? 'content'));
-  if (typeof values.site === 'string') return findSite(loadSites(resolve(contentDir, 'sites')), values.site, { field: 'site' });
-  const latitude = numberFlag(values.lat as string | undefined, '--lat', 'degrees north, −90 to 90');
-  const longitude = numberFlag(values.lon as string | undefined, '--lon', 'degrees east, −180 to 180');
-  if (latitude === undefined || longitude === undefined) {
-    throw new GloamingError('invalid-argument', 'give --site <id>, or --lat and --lon with --tz', { place: { field: latitude === undefined ? '--lat' : '--lon' }, expected: 'a site id or coordinates' });
-  }
-  if (typeof values.tz !== 'string') throw new GloamingError('invalid-argument', '--tz is required with --lat/--lon', { place: { field: '--tz' }, expected: "an IANA time zone such as 'Europe/London'" });
-  const elevation = numberFlag(values.elevation as string | undefined, '--elevation', 'metres above sea level');
-  return defineSite({
-    latitude,
-    longitude,
-    ...(elevation !== undefined ? { elevation } : {}),
-    timeZone: values.tz,
-    ...(typeof values.sky === 'string' ? { sky: parseSkyArgument(values.sky) } : {}),
-  });
-}
-
 /** One event as the command's JSON (a public shape: keep these names). */
 export function eventJson(e: AlmanacEvent, zone: string): Record<string, unknown> {
   return {
@@ -128,39 +97,25 @@ export function eventJson(e: AlmanacEvent, zone: string): Record<string, unknown
   };
 }
 
-/** `--lon -0.1` → `--lon=-0.1`, so a negative number is read as a value, not an option. */
-function joinNegativeNumbers(args: string[]): string[] {
-  const out: string[] = [];
-  for (let i = 0; i < args.length; i++) {
-    const a = args[i]!;
-    const next = args[i + 1];
-    if (/^--[a-z]/.test(a) && !a.includes('=') && next !== undefined && /^-\d/.test(next)) {
-      out.push(`${a}=${next}`);
-      i++;
-    } else out.push(a);
-  }
-  return out;
-}
-
 /** Runs `gloaming events` with `args` (without the command name), writing to `out`. */
 export function runEvents(args: string[], out: (s: string) => void): void {
   const { values } = parseArgs({ args: joinNegativeNumbers(args), options: OPTIONS, strict: true });
   if (values.help) return out(EVENTS_HELP);
-  const site = siteOf(values);
+  const site = siteFromFlags(values, { needZone: true });
   if (values.from === undefined) throw new GloamingError('invalid-argument', '--from is required', { place: { field: '--from' }, expected: 'the first local date, YYYY-MM-DD' });
   parseLocalDate(values.from, '--from');
   const lastDate = values.to ?? addDays(values.from, 6);
   parseLocalDate(lastDate, '--to');
   const from = zonedTime(values.from, 0, 0, site.timeZone);
   const to = zonedTime(addDays(lastDate, 1), 0, 0, site.timeZone);
-  if (to <= from) throw argumentError('--to', '--to is before --from', lastDate, `a date on or after ${values.from}`);
+  if (to <= from) throw argumentError('--to', 'is before --from', `a date on or after ${values.from}`, lastDate);
   const order = values.order ?? 'time';
-  if (order !== 'time' && order !== 'interest') throw argumentError('--order', 'unknown order', order, 'time or interest');
+  if (order !== 'time' && order !== 'interest') throw argumentError('--order', 'unknown order', 'time or interest', order);
   const types = values.type?.map((t) => {
-    if (!(EVENT_TYPES as readonly string[]).includes(t)) throw argumentError('--type', 'unknown event type', t, `one of ${EVENT_TYPES.join(', ')}`);
+    if (!(EVENT_TYPES as readonly string[]).includes(t)) throw argumentError('--type', 'unknown event type', `one of ${EVENT_TYPES.join(', ')}`, t);
     return t as AlmanacEventType;
   });
-  if (values.json && values.ics) throw argumentError('--ics', '--json and --ics exclude each other', '--json --ics', 'one output format');
+  if (values.json && values.ics) throw argumentError('--ics', '--json and --ics exclude each other', 'one output format');
   const contentDir = resolve(String(values.content ?? 'content'));
   const bodies: BodyRegistry = loadBodies(resolve(contentDir, 'objects'));
   const events = findEvents({ site, from, to, bodies, options: { order, ...(types ? { types } : {}) } });

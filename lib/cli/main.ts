@@ -1,12 +1,12 @@
 /**
- * `gloaming` command line: `position`, `night` (and later commands). Prints JSON with `--json`,
+ * `gloaming` command line: `position`, `night`, `week` and `events`. Prints JSON with `--json`,
  * a short summary otherwise. Wrong input exits with code 2 and one line naming the argument,
  * the bad value and what is expected.
  */
 import { parseArgs, type ParseArgsConfig } from 'node:util';
 import { resolve } from 'node:path';
 import { BodyRegistry, BUILT_IN_IDS, type Body } from '../body.ts';
-import { findSite, loadBodies, loadSites } from '../content.ts';
+import { loadBodies } from '../content.ts';
 import { loadObjectFile } from '../orbit/elements.ts';
 import { smallBody } from '../orbit/body.ts';
 import { isSmallBody, tailInSky } from '../orbit/tail.ts';
@@ -14,9 +14,10 @@ import { compass, describeAltitude } from '../describe.ts';
 import { GloamingError } from '../errors.ts';
 import { computeNight } from '../night.ts';
 import { observe } from '../observe.ts';
-import { defineSite, parseSkyArgument, type Site } from '../site.ts';
 import { formatInstant, parseInstant, parseLocalDate } from '../time.ts';
 import { nightJson, positionJson, round, weekJson } from './format.ts';
+import { argumentError, joinNegativeNumbers, requireFlag, siteFromFlags } from './args.ts';
+import { EVENTS_HELP, runEvents } from './events.ts';
 import { computeWeek } from '../week.ts';
 import { REASON_TEXT } from '../visibility.ts';
 import { MISSING_REASON_TEXT, type EventTime } from '../events.ts';
@@ -47,6 +48,7 @@ const COMMON = {
 } as const satisfies ParseArgsConfig['options'];
 
 const HELP: Record<string, string> = {
+  events: EVENTS_HELP,
   main: `gloaming — computed night-sky bulletins
 
 Usage: gloaming <command> [options]
@@ -55,6 +57,7 @@ Commands:
   position   where a body is at one instant (topocentric and J2000 coordinates, altitude, magnitude)
   night      the night that begins on a local evening: twilight, the Moon, rise/transit/set, best time and verdict
   week       the seven nights of the ISO week containing a date: best night and the week's changes per body
+  events     the sky's events for a site and date range (Moon phases, close approaches, showers, eclipses …); --ics for a calendar
 
 Run 'gloaming <command> --help' for the options of a command.`,
   position: `gloaming position — where a body is at one instant
@@ -95,38 +98,6 @@ Options as for 'night'. Per body: the best night, magnitude on the first and las
 week's changes in words, the nights with Moon interference, and each night's best time and verdict.`,
 };
 
-/**
- * Joins a value-taking flag with a following negative number (`--lat -33.9` → `--lat=-33.9`),
- * which `parseArgs` would otherwise read as an option.
- */
-function joinNegativeNumbers(args: string[]): string[] {
-  const out: string[] = [];
-  for (let i = 0; i < args.length; i++) {
-    const a = args[i]!;
-    const next = args[i + 1];
-    if (/^--[a-z]/.test(a) && !a.includes('=') && next !== undefined && /^-\d/.test(next)) {
-      out.push(`${a}=${next}`);
-      i++;
-    } else out.push(a);
-  }
-  return out;
-}
-
-/** A command-line problem: exit code 2, one line. */
-class UsageError extends Error {}
-
-function toNumber(text: string | undefined, flag: string, expected: string): number | undefined {
-  if (text === undefined) return undefined;
-  const n = Number(text);
-  if (text.trim() === '' || !Number.isFinite(n)) throw new UsageError(`${flag}: '${text}' is not a number; expected ${expected}`);
-  return n;
-}
-
-function requireFlag<T>(value: T | undefined, flag: string, expected: string): T {
-  if (value === undefined) throw new UsageError(`${flag} is required; expected ${expected}`);
-  return value;
-}
-
 function registry(values: Record<string, unknown>): BodyRegistry {
   const contentDir = resolve(String(values.content ?? 'content'));
   const reg = loadBodies(resolve(contentDir, 'objects'));
@@ -136,24 +107,6 @@ function registry(values: Record<string, unknown>): BodyRegistry {
     return reg.ids().includes(body.id) ? new BodyRegistry().add(body) : reg.add(body);
   }
   return reg;
-}
-
-function siteFrom(values: Record<string, unknown>, needZone: boolean): Site {
-  const contentDir = resolve(String(values.content ?? 'content'));
-  if (typeof values.site === 'string') {
-    return findSite(loadSites(resolve(contentDir, 'sites')), values.site, { field: 'site' });
-  }
-  const latitude = requireFlag(toNumber(values.lat as string | undefined, '--lat', 'degrees north, −90 to 90'), '--lat', 'degrees north, −90 to 90 (or --site <id>)');
-  const longitude = requireFlag(toNumber(values.lon as string | undefined, '--lon', 'degrees east, −180 to 180'), '--lon', 'degrees east, −180 to 180');
-  const elevation = toNumber(values.elevation as string | undefined, '--elevation', 'metres above sea level');
-  const tz = needZone ? requireFlag(values.tz as string | undefined, '--tz', "an IANA time zone such as 'Europe/Berlin'") : 'UTC';
-  return defineSite({
-    latitude,
-    longitude,
-    ...(elevation !== undefined ? { elevation } : {}),
-    timeZone: tz,
-    ...(typeof values.sky === 'string' ? { sky: parseSkyArgument(values.sky) } : {}),
-  });
 }
 
 function bodiesFrom(values: Record<string, unknown>, fallback: string[]): Body[] {
@@ -175,11 +128,11 @@ function timeText(e: EventTime, zone: string): string {
 function runPosition(args: string[], out: (s: string) => void): void {
   const { values } = parseArgs({ args, options: { ...COMMON, at: { type: 'string' } }, strict: true });
   if (values.help) return out(HELP.position!);
-  const site = siteFrom(values, false);
+  const site = siteFromFlags(values, { needZone: false });
   const at = parseInstant(requireFlag(values.at, '--at', 'an ISO 8601 instant, e.g. 2026-12-04T18:30:00Z'));
   const count = (values.body?.length ?? 0) + (values.elements ? 1 : 0);
-  if (count === 0) throw new UsageError(`--body is required; expected a body id (${BUILT_IN_IDS.join(', ')}, or an object id) or --elements <file.yaml>`);
-  if (count !== 1) throw new UsageError(`--body: give exactly one body for 'position' (got ${count})`);
+  if (count === 0) throw argumentError('--body', 'is required', `a body id (${BUILT_IN_IDS.join(', ')}, or an object id) or --elements <file.yaml>`);
+  if (count !== 1) throw argumentError('--body', "'position' takes exactly one body", 'one --body or one --elements', count);
   const [body] = bodiesFrom(values, []);
   const o = observe(site, body!, at);
   const tail = body!.kind === 'comet' && isSmallBody(body!) ? tailInSky(site, body!, at) : null;
@@ -201,7 +154,7 @@ function runNight(args: string[], out: (s: string) => void): void {
     strict: true,
   });
   if (values.help) return out(HELP.night!);
-  const site = siteFrom(values, true);
+  const site = siteFromFlags(values, { needZone: true });
   const date = requireFlag(values.date, '--date', 'the local date of the evening, YYYY-MM-DD');
   parseLocalDate(date);
   const bodies = bodiesFrom(values, ['moon', 'mercury', 'venus', 'mars', 'jupiter', 'saturn', 'uranus', 'neptune']).filter(
@@ -236,7 +189,7 @@ function runWeek(args: string[], out: (s: string) => void): void {
     strict: true,
   });
   if (values.help) return out(HELP.week!);
-  const site = siteFrom(values, true);
+  const site = siteFromFlags(values, { needZone: true });
   const date = requireFlag(values.date, '--date', 'a local date inside the week, YYYY-MM-DD');
   parseLocalDate(date);
   const bodies = bodiesFrom(values, ['moon', 'mercury', 'venus', 'mars', 'jupiter', 'saturn', 'uranus', 'neptune']);
@@ -256,6 +209,7 @@ const COMMANDS: Record<string, (args: string[], out: (s: string) => void) => voi
   position: runPosition,
   night: runNight,
   week: runWeek,
+  events: runEvents,
 };
 
 /** Runs the command line; returns the exit code (0 ok, 2 bad input, 1 unexpected failure). */
@@ -274,13 +228,9 @@ export function main(argv: string[], out: (s: string) => void = console.log, err
     run(joinNegativeNumbers(rest), out);
     return 0;
   } catch (error) {
-    if (error instanceof UsageError) {
-      err(`gloaming ${command}: ${error.message}`);
-      return 2;
-    }
     if (error instanceof GloamingError) {
       const field = error.place?.field;
-      const flag = field && !error.place?.file ? (FLAG_OF_FIELD[field.split('.')[0]!] ?? field) : undefined;
+      const flag = field && !error.place?.file ? (field.startsWith('--') ? field : (FLAG_OF_FIELD[field.split('.')[0]!] ?? field)) : undefined;
       err(`gloaming ${command}: ${flag ? `${flag}: ${error.detail}` : error.message}`);
       return 2;
     }

@@ -1,0 +1,67 @@
+/**
+ * Shared command-line argument handling: negative numbers after flags, numeric flags, required
+ * flags, and the site given as `--site <id>` or as coordinates. Problems are `GloamingError`s
+ * whose field is the flag (e.g. `--lat`), so the command prints "--lat: …" and exits with code 2.
+ */
+import { resolve } from 'node:path';
+import { findSite, loadSites } from '../content.ts';
+import { GloamingError } from '../errors.ts';
+import { defineSite, parseSkyArgument, type Site } from '../site.ts';
+
+/**
+ * Joins a value-taking flag with a following negative number (`--lat -33.9` → `--lat=-33.9`),
+ * which `parseArgs` would otherwise read as an option.
+ */
+export function joinNegativeNumbers(args: string[]): string[] {
+  const out: string[] = [];
+  for (let i = 0; i < args.length; i++) {
+    const a = args[i]!;
+    const next = args[i + 1];
+    if (/^--[a-z]/.test(a) && !a.includes('=') && next !== undefined && /^-\d/.test(next)) {
+      out.push(`${a}=${next}`);
+      i++;
+    } else out.push(a);
+  }
+  return out;
+}
+
+/** An argument problem naming its flag. */
+export function argumentError(flag: string, reason: string, expected: string, actual?: unknown): GloamingError {
+  return new GloamingError('invalid-argument', reason, { place: { field: flag }, expected, ...(actual !== undefined ? { actual } : {}) });
+}
+
+/** A numeric flag's value, or undefined when absent. */
+export function numberFlag(text: string | undefined, flag: string, expected: string): number | undefined {
+  if (text === undefined) return undefined;
+  const n = Number(text);
+  if (text.trim() === '' || !Number.isFinite(n)) throw argumentError(flag, 'not a number', expected, text);
+  return n;
+}
+
+/** A flag that must be given. */
+export function requireFlag<T>(value: T | undefined, flag: string, expected: string): T {
+  if (value === undefined) throw argumentError(flag, 'is required', expected);
+  return value;
+}
+
+/**
+ * The site of a command: `--site <id>` from `content/sites/` (or `--content <dir>`), or
+ * `--lat --lon [--elevation] [--tz] [--sky]`. Without `needZone` the zone defaults to UTC.
+ */
+export function siteFromFlags(values: Record<string, unknown>, options: { needZone: boolean }): Site {
+  const contentDir = resolve(String(values.content ?? 'content'));
+  if (typeof values.site === 'string') {
+    return findSite(loadSites(resolve(contentDir, 'sites')), values.site, { field: '--site' });
+  }
+  const latitude = requireFlag(numberFlag(values.lat as string | undefined, '--lat', 'degrees north, −90 to 90'), '--lat', 'degrees north, −90 to 90 (or --site <id>)');
+  const longitude = requireFlag(numberFlag(values.lon as string | undefined, '--lon', 'degrees east, −180 to 180'), '--lon', 'degrees east, −180 to 180');
+  const elevation = numberFlag(values.elevation as string | undefined, '--elevation', 'metres above sea level');
+  const tz = options.needZone ? requireFlag(values.tz as string | undefined, '--tz', "an IANA time zone such as 'Europe/Berlin'") : 'UTC';
+  return defineSite({
+    latitude,
+    longitude,
+    ...(elevation !== undefined ? { elevation } : {}),
+    timeZone: tz,
+    ...(typeof values.sky === 'string' ? { sky: parseSkyArgument(values.sky) } : {}),
+  });
+}
