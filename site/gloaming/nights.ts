@@ -39,7 +39,15 @@ export interface NightRow {
 
 /** Local clock formatter of a site (hour and minute, its locale's 12/24-hour habit). */
 export function clockFormat(site: Pick<Site, 'locale' | 'timeZone'>): Intl.DateTimeFormat {
-  return new Intl.DateTimeFormat(site.locale, { timeZone: site.timeZone, hour: 'numeric', minute: '2-digit' });
+  // 24-hour locales get a two-digit hour (04:16), as the bulletin placeholders print it.
+  const cycle = new Intl.DateTimeFormat(site.locale, { hour: 'numeric' }).resolvedOptions().hourCycle;
+  const h24 = cycle === 'h23' || cycle === 'h24';
+  return new Intl.DateTimeFormat(site.locale, {
+    timeZone: site.timeZone,
+    hour: h24 ? '2-digit' : 'numeric',
+    minute: '2-digit',
+    hourCycle: h24 ? 'h23' : 'h12',
+  });
 }
 
 /** "Fri 4 Dec" for a local date, in the site's locale (the date is a calendar date; no zone shift). */
