@@ -39,7 +39,7 @@ export const CASE_INPUTS: ErrorInput[] = [
   { name: 'placeholder written as a container', stage: 'render', text: body(':::targets\nx\n:::') },
   { name: 'placeholder with a label', stage: 'render', text: body('At :sunset[today].') },
   { name: 'chart view unknown', stage: 'render', text: body('::chart{body=jupiter view=side}') },
-  { name: 'reserved events', stage: 'render', text: body('Intro.\n\n::events') },
+  { name: 'event type unknown', stage: 'render', text: body('Intro.\n\nOn :event{type=full-mon}.') },
   { name: 'unclosed attribute braces', stage: 'render', text: body('Rises :rise{body=jupiter and more') },
   { name: 'unbalanced quote', stage: 'render', text: body('Rises :rise{body="jupiter} ok') },
   { name: 'block placeholder inside a paragraph', stage: 'render', text: body('See the table ::moon-and-twilight below.') },

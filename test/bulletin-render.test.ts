@@ -6,6 +6,7 @@
  */
 import * as Astronomy from 'astronomy-engine';
 import { describe, expect, it } from 'vitest';
+import { eventsOfWeek } from '../lib/almanac/index.ts';
 import { BodyRegistry, builtInBody } from '../lib/body.ts';
 import { loadSites } from '../lib/content.ts';
 import { compass } from '../lib/describe.ts';
@@ -44,7 +45,7 @@ function clock(instant: Date, site: Site): string {
 
 describe('every placeholder covered', () => {
   it('each placeholder of the table is exercised by this file or is reserved', () => {
-    const covered = ['week', 'date', 'sunset', 'sunrise', 'dark', 'dawn', 'rise', 'transit', 'set', 'direction', 'altitude', 'magnitude', 'moon-phase', 'moon-lit', 'moon-and-twilight', 'best-time', 'window', 'verdict', 'targets', 'guide', 'chart'];
+    const covered = ['week', 'date', 'sunset', 'sunrise', 'dark', 'dawn', 'rise', 'transit', 'set', 'direction', 'altitude', 'magnitude', 'moon-phase', 'moon-lit', 'moon-and-twilight', 'best-time', 'window', 'verdict', 'targets', 'guide', 'chart', 'events', 'event'];
     for (const spec of PLACEHOLDERS.values()) if (!spec.needs) expect(covered, spec.name).toContain(spec.name);
   });
 });
@@ -175,6 +176,20 @@ describe.each(SITE_IDS)('site %s', (siteId) => {
       }
     });
 
+    it('events: the week of lib/almanac (eventsOfWeek), one item per event with its local time; :event picks by type', () => {
+      const events = eventsOfWeek({ site, date: week.days[0]!, bodies });
+      const html = render(site, week, '::events');
+      const times = [...html.matchAll(/<li data-type="([a-z-]+)"[^>]*><time datetime="([^"]+)"/g)].map((m) => [m[1], m[2]]);
+      expect(times).toEqual(events.map((e) => [e.type, formatInstant(e.time, site.timeZone)]));
+      const phase = events.find((e) => ['new-moon', 'first-quarter', 'full-moon', 'last-quarter'].includes(e.type));
+      if (phase) {
+        const e = element(render(site, week, `:event{type=${phase.type}}`), 'event');
+        expect(e.attrs.datetime).toBe(formatInstant(phase.time, site.timeZone));
+      }
+      const none = element(render(site, week, ':event{type=solar-eclipse}'), 'event');
+      if (!events.some((e) => e.type === 'solar-eclipse')) expect(none.attrs.class).toContain('gl-none');
+    });
+
     it('date, week and targets render', () => {
       expect(element(render(site, week, ':week'), 'week').attrs.datetime).toBe(week.id);
       expect(element(render(site, week, ':date{night=7}'), 'date').attrs.datetime).toBe(week.days[6]);
@@ -202,5 +217,22 @@ describe('outside reference: astronomy-engine searches', () => {
     const d = element(render(site, week, ':dark'), 'dark');
     if (dark) expectWithin(new Date(d.attrs.datetime!).getTime(), dark.date.getTime(), MINUTE_MS, 'astronomical dusk');
     else expect(d.attrs.class).toContain('gl-none');
+  });
+});
+
+describe('eye safety', () => {
+  it('a week with a solar eclipse visible from the site carries the eclipse caution without being marked as an eclipse bulletin', () => {
+    // The solar eclipse of 2026 August 12 (total in Spain, partial over the British Isles; date from
+    // memory, found here by astronomy-engine's local solar eclipse search through lib/almanac).
+    const site = sites.get('harbour-roof')!;
+    const template = parseBulletin('---\ntitle: T\nsites: all\nschedule: { every: week }\n---\nHello.\n', 'plain.md');
+    const week = isoWeekOf('2026-08-12');
+    const events = eventsOfWeek({ site, date: week.days[0]!, bodies });
+    const eclipse = events.find((e) => e.type === 'solar-eclipse');
+    expect(eclipse?.visible).toBe(true);
+    const r = renderBulletinSync(template, { site, week, bodies }, cache);
+    expect(r.cautions.join(' ')).toContain('ISO 12312-2');
+    const quiet = renderBulletinSync(template, { site, week: isoWeekOf('2026-09-16'), bodies }, cache);
+    expect(quiet.cautions.join(' ')).not.toContain('ISO 12312-2');
   });
 });

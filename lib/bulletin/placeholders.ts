@@ -17,13 +17,14 @@ import { compass, handMeasure, fists } from '../describe.ts';
 import type { EventTime, MissingReason } from '../events.ts';
 import { PHASE_LABEL } from '../moon.ts';
 import type { Site } from '../site.ts';
-import { addDays, formatInstant, zonedTime } from '../time.ts';
+import { addDays, formatInstant, localDateOf, zonedTime } from '../time.ts';
 import type { AttributeSpec, AttributeValue, ClockTime } from './attributes.ts';
 import { el, exact, formatClock, formatDay, formatDayRange, formatNumber, type Clock, type TimePrecision } from './format.ts';
 import type { WeekData } from './week.ts';
 import type { ChartOutput } from './types.ts';
 import { ChartCache } from '../chart/cache.ts';
 import { placeholderChart } from '../chart/index.ts';
+import { EVENT_TYPES, pickEvent, type AlmanacEvent, type AlmanacEventType } from '../almanac/index.ts';
 import { REASON_TEXT, type Visibility } from '../visibility.ts';
 
 /** A target within this angle of the Sun (geocentric, at local midnight of the night) triggers the eye-safety caution. */
@@ -463,8 +464,72 @@ const DEFINITIONS: PlaceholderSpec[] = [
     example: '::chart{body=jupiter}',
     render: chart,
   },
-  { name: 'events', form: 'block', summary: "the week's events for the site", attributes: {}, example: '::events', needs: 'the events search (issue #8)' },
+  {
+    name: 'events',
+    form: 'block',
+    summary: "the week's events for the site (Moon phases, close approaches, oppositions, showers, eclipses …) with a sentence and a visibility note each",
+    attributes: { order: { type: { kind: 'choice', values: ['time', 'interest'] }, default: 'time', doc: 'in time order, or most interesting first' }, clock: CLOCK },
+    example: '::events{order=interest}',
+    render: weekEvents,
+  },
+  {
+    name: 'event',
+    form: 'inline',
+    summary: "one event of the week, found by type (and body): its time, date, separation or sentence; says so when there is none",
+    attributes: {
+      type: { type: { kind: 'choice', values: EVENT_TYPES }, required: true, doc: 'the event type' },
+      body: { ...BODY, required: false, doc: 'a body the event must involve' },
+      show: { type: { kind: 'choice', values: ['time', 'date', 'separation', 'sentence'] }, default: 'time', doc: 'what to show' },
+      clock: CLOCK,
+    },
+    example: ':event{type=full-moon show=date}',
+    render: oneEvent,
+  },
 ];
+
+/** One almanac event as a list item: time, sentence, visibility note and any caution. */
+function eventItem(call: PlaceholderCall, e: AlmanacEvent): ElementContent {
+  const zone = call.site.timeZone;
+  const children: ElementContent[] = [
+    el('time', { dateTime: formatInstant(e.time, zone) }, `${formatDay(localDateOf(e.time, zone), call.site, { weekday: 'short' })} ${formatClock(e.time, call.site, { clock: call.clock, precision: 'minute' })}`),
+    { type: 'text', value: ' ' },
+    el('span', { className: ['gl-event-text'] }, e.description),
+  ];
+  if (e.visibility.note && !e.description.includes(e.visibility.note)) children.push({ type: 'text', value: ' ' }, el('span', { className: ['gl-event-note'] }, e.visibility.note));
+  if (e.caution) children.push({ type: 'text', value: ' ' }, el('strong', { className: ['gl-caution'] }, e.caution));
+  return el('li', { dataType: e.type, dataVisible: String(e.visible), dataBodies: e.bodies.join(' ') }, children);
+}
+
+/** `::events`: the week's events for the site. */
+function weekEvents(call: PlaceholderCall): ElementContent {
+  const order = call.attrs.get('order') as 'time' | 'interest';
+  const events = [...call.week.events()];
+  if (order === 'interest') events.sort((a, b) => b.score - a.score || a.time.getTime() - b.time.getTime());
+  if (events.length === 0) return el('p', { ...classes(call, 'gl-none') }, 'No special events this week.');
+  return el('ul', { ...classes(call), dataOrder: order }, events.map((e) => eventItem(call, e)));
+}
+
+/** `:event`: one event of the week picked by type (and body). */
+function oneEvent(call: PlaceholderCall): ElementContent {
+  const type = call.attrs.get('type') as AlmanacEventType;
+  const body = call.attrs.get('body') as Body | undefined;
+  const e = pickEvent(call.week.events(), { type, ...(body ? { bodies: [body.id] } : {}) });
+  if (!e) return el('span', { ...classes(call, 'gl-none'), dataType: type }, `no ${type.replace(/-/g, ' ')} this week`);
+  const zone = call.site.timeZone;
+  const data = { ...classes(call), dataType: e.type, dataVisible: String(e.visible) };
+  switch (call.attrs.get('show')) {
+    case 'date':
+      return el('time', { ...data, dateTime: localDateOf(e.time, zone) }, formatDay(localDateOf(e.time, zone), call.site, { weekday: 'long' }));
+    case 'separation':
+      return e.separationDeg === undefined
+        ? el('span', { ...classes(call, 'gl-none'), dataType: e.type }, 'no separation for this event')
+        : el('data', { ...data, value: exact(e.separationDeg, 4) }, `${formatNumber(e.separationDeg, e.separationDeg < 1 ? 1 : 0)}°`);
+    case 'sentence':
+      return el('span', data, e.description);
+    default:
+      return el('time', { ...data, dateTime: formatInstant(e.time, zone) }, formatClock(e.time, call.site, { clock: call.clock, precision: 'minute' }));
+  }
+}
 
 /** `::chart`: a figure with the finder chart image and a caption, or an honest sentence. */
 function chart(call: PlaceholderCall): ElementContent {

@@ -62,7 +62,8 @@ function cautionsFor(template: BulletinTemplate, week: WeekData, listed: Body[],
   const names = [...near.values()].filter((b) => b.kind !== 'sun').map((b) => (b.kind === 'moon' ? 'the Moon' : b.name));
   const cautions: string[] = [];
   if (near.size > 0) cautions.push(nearSunCaution(names));
-  if (template.frontMatter.eclipse) cautions.push(ECLIPSE_CAUTION);
+  // Every page of a week with a solar eclipse visible from the site carries the eclipse caution.
+  if (template.frontMatter.eclipse || week.events().some((e) => e.type === 'solar-eclipse' && e.visible)) cautions.push(ECLIPSE_CAUTION);
   return cautions;
 }
 

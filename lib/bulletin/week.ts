@@ -8,6 +8,7 @@
 import * as Astronomy from 'astronomy-engine';
 import { BodyRegistry, builtInBody, type Body } from '../body.ts';
 import { computeNight, localMidnight, type BodyNight, type NightReport } from '../night.ts';
+import { eventsOfWeek, type AlmanacEvent } from '../almanac/index.ts';
 import { observe, type Observation } from '../observe.ts';
 import type { Site } from '../site.ts';
 import type { IsoWeek } from '../time.ts';
@@ -32,6 +33,7 @@ export class WeekData {
   readonly #observations = new Map<string, Observation>();
   readonly #magnitudes = new Map<string, WeekMagnitudes>();
   readonly #elongations = new Map<string, number>();
+  #events: AlmanacEvent[] | undefined;
 
   constructor(site: Site, week: IsoWeek, bodies: BodyRegistry = new BodyRegistry()) {
     this.site = site;
@@ -48,6 +50,12 @@ export class WeekData {
   /** `body`'s night `index` (0 = Monday): the report's own entry, computed once (see `NightReport.body`). */
   bodyNight(index: number, body: Body): BodyNight {
     return this.nights[index]!.body(body);
+  }
+
+  /** The week's events for the site (lib/almanac, Monday 00:00 to the next Monday 00:00 local), in time order, computed once. */
+  events(): AlmanacEvent[] {
+    this.#events ??= eventsOfWeek({ site: this.site, date: this.week.days[0]!, bodies: this.bodies });
+    return this.#events;
   }
 
   /** Exact position of `body` at `instant` from the site (`observe`), memoised per instant. */
