@@ -81,3 +81,12 @@ describe('README', () => {
     expect(r.err.trim()).toBe(example[2]);
   });
 });
+
+describe('README placeholder table', () => {
+  it('equals the table generated from the placeholder registry', async () => {
+    const { placeholderTable } = await import('../lib/bulletin/docs.ts');
+    const block = /<!-- placeholders:start -->\n([\s\S]*?)<!-- placeholders:end -->/.exec(readme)?.[1];
+    expect(block, 'README has the placeholder table between its markers').toBeDefined();
+    expect(block).toBe(placeholderTable().split('\n').slice(2).join('\n'));
+  });
+});
