@@ -214,3 +214,51 @@ export function isoWeekOf(date: string): IsoWeek {
     days: Array.from({ length: 7 }, (_, i) => addDays(monday, i)),
   };
 }
+
+/** A 12- or 24-hour clock. */
+export type Clock = 12 | 24;
+/** How finely a clock time is shown. */
+export type TimePrecision = 'minute' | 'second';
+
+const clockFormatters = new Map<string, Intl.DateTimeFormat>();
+
+function clockFormatter(key: string, make: () => Intl.DateTimeFormat): Intl.DateTimeFormat {
+  let f = clockFormatters.get(key);
+  if (!f) {
+    f = make();
+    clockFormatters.set(key, f);
+  }
+  return f;
+}
+
+/** The clock a locale uses by default: 12 for `en-US`, 24 for `en-GB`, `de-DE`, … */
+export function defaultClock(locale: string): Clock {
+  const cycle = clockFormatter(`cycle|${locale}`, () => new Intl.DateTimeFormat(locale, { hour: 'numeric' })).resolvedOptions().hourCycle;
+  return cycle === 'h11' || cycle === 'h12' ? 12 : 24;
+}
+
+/** `instant` rounded to the nearest minute or second (almanac practice: times are rounded, not truncated). */
+export function roundInstant(instant: Date, precision: TimePrecision): Date {
+  const step = precision === 'second' ? 1000 : 60_000;
+  return new Date(Math.round(instant.getTime() / step) * step);
+}
+
+/**
+ * Wall-clock time of `instant` in a site's zone and locale, rounded: `16:29` and `04:16` on a
+ * 24-hour clock (two-digit hours), `4:29 pm` on a 12-hour one, `16:29:35` to the second. The clock
+ * defaults to the locale's. The one clock formatter for pages, charts and alt text.
+ */
+export function formatClock(instant: Date, site: { locale: string; timeZone: string }, options: { clock?: Clock; precision?: TimePrecision } = {}): string {
+  const clock = options.clock ?? defaultClock(site.locale);
+  const precision = options.precision ?? 'minute';
+  const f = clockFormatter(`clock|${site.locale}|${site.timeZone}|${clock}|${precision}`, () =>
+    new Intl.DateTimeFormat(site.locale, {
+      timeZone: site.timeZone,
+      hour: clock === 24 ? '2-digit' : 'numeric',
+      minute: '2-digit',
+      ...(precision === 'second' ? { second: '2-digit' } : {}),
+      hourCycle: clock === 24 ? 'h23' : 'h12',
+    }),
+  );
+  return f.format(roundInstant(instant, precision));
+}

@@ -24,7 +24,7 @@ import { parseArgs } from 'node:util';
 import { assertPublishable } from '../lib/bulletin/index.ts';
 import { GloamingError } from '../lib/errors.ts';
 import { parseLocalDate } from '../lib/time.ts';
-import { parseSiteList } from '../site/gloaming/options.ts';
+import { chartCacheDir, parseSiteList } from '../site/gloaming/options.ts';
 import { loadProject } from '../site/gloaming/project.ts';
 
 const ROOT = resolve(dirname(fileURLToPath(import.meta.url)), '..');
@@ -105,6 +105,34 @@ async function walk(dir: string): Promise<string[]> {
   return out.sort();
 }
 
+const CHART_LINK = /\/charts\/([0-9a-f]+(?:@2x)?\.(?:svg|png))/g;
+
+/**
+ * Copies the finder charts the pages link to (`/charts/<hash>.svg`) from the chart cache into the
+ * output, so only charts in use are published. A linked chart missing from the cache is an error
+ * (a page must never show a broken image).
+ */
+export async function copyLinkedCharts(dir: string, chartDir: string): Promise<number> {
+  const wanted = new Map<string, string>();
+  for (const file of await walk(dir)) {
+    if (!file.endsWith('.html')) continue;
+    for (const m of (await readFile(file, 'utf8')).matchAll(CHART_LINK)) wanted.set(m[1]!, relative(dir, file));
+  }
+  if (wanted.size === 0) return 0;
+  await mkdir(join(dir, 'charts'), { recursive: true });
+  for (const [name, page] of [...wanted].sort()) {
+    const from = join(chartDir, name);
+    if (!(await exists(from))) {
+      throw new GloamingError('unsafe-output', `the page links the chart ${name}, which is not in the chart cache`, {
+        place: { file: page },
+        hint: `delete node_modules/.astro (Astro's and the charts' caches) and build again`,
+      });
+    }
+    await cp(from, join(dir, 'charts', name));
+  }
+  return wanted.size;
+}
+
 /** The final check: every HTML and XML file must be publishable. Paths in errors are relative to `dir`. */
 export async function checkOutput(dir: string): Promise<number> {
   const files = await walk(dir);
@@ -166,6 +194,7 @@ export async function buildSite(options: BuildOptions): Promise<BuildResult> {
   process.env.ASTRO_TELEMETRY_DISABLED = '1';
   // Social cards are cached by content hash beside Astro's own cache.
   process.env.GLOAMING_CODE_DIGEST = project.codeDigest;
+  process.env.GLOAMING_CHART_CACHE = chartCacheDir(process.env, ROOT);
   process.env.GLOAMING_CARD_CACHE = resolve(process.env.GLOAMING_CACHE_DIR ?? join(ROOT, 'node_modules/.astro'), 'gloaming');
 
   await mkdir(dirname(options.out), { recursive: true });
@@ -176,6 +205,7 @@ export async function buildSite(options: BuildOptions): Promise<BuildResult> {
     const t1 = performance.now();
     await build({ root: ROOT, outDir: tmp, logLevel: options.logLevel, mode: 'production' });
     const astroMs = performance.now() - t1;
+    await copyLinkedCharts(tmp, process.env.GLOAMING_CHART_CACHE);
     const files = await checkOutput(tmp);
     await swapInto(tmp, options.out);
     return { out: options.out, files, astroMs, totalMs: performance.now() - t0 };

@@ -27,7 +27,7 @@ const PAGES = [
   '/northern-outpost/archive/',
 ];
 
-const TYPES: Record<string, string> = { '.html': 'text/html; charset=utf-8', '.png': 'image/png', '.woff2': 'font/woff2', '.xml': 'application/xml', '.css': 'text/css' };
+const TYPES: Record<string, string> = { '.html': 'text/html; charset=utf-8', '.png': 'image/png', '.woff2': 'font/woff2', '.xml': 'application/xml', '.css': 'text/css', '.svg': 'image/svg+xml' };
 
 let work: string;
 let server: Server;
@@ -67,6 +67,8 @@ async function open(path: string): Promise<Page> {
   const response = await page.goto(origin + path, { waitUntil: 'load' });
   expect(response?.status(), path).toBe(200);
   await page.evaluate('document.fonts.ready.then(() => true)');
+  // Finder charts load lazily: scroll each image into view, as a reader would, and wait for it.
+  await page.evaluate(`Promise.all([...document.images].map((img) => { img.scrollIntoView(); return img.decode().catch(() => null); })).then(() => window.scrollTo(0, 0))`);
   return page;
 }
 

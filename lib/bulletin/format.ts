@@ -5,9 +5,10 @@
  */
 import type { Element, ElementContent, Properties } from 'hast';
 import type { Site } from '../site.ts';
+import { defaultClock, formatClock, roundInstant, type Clock, type TimePrecision } from '../time.ts';
 
-export type Clock = 12 | 24;
-export type TimePrecision = 'minute' | 'second';
+export type { Clock, TimePrecision };
+export { defaultClock, formatClock, roundInstant };
 
 const formatters = new Map<string, Intl.DateTimeFormat>();
 
@@ -18,33 +19,6 @@ function cached(key: string, make: () => Intl.DateTimeFormat): Intl.DateTimeForm
     formatters.set(key, f);
   }
   return f;
-}
-
-/** The clock a locale uses by default: 12 for `en-US`, 24 for `en-GB`, `de-DE`, … */
-export function defaultClock(locale: string): Clock {
-  const cycle = cached(`cycle|${locale}`, () => new Intl.DateTimeFormat(locale, { hour: 'numeric' })).resolvedOptions().hourCycle;
-  return cycle === 'h11' || cycle === 'h12' ? 12 : 24;
-}
-
-/** `instant` rounded to the nearest minute or second (almanac practice: times are rounded, not truncated). */
-export function roundInstant(instant: Date, precision: TimePrecision): Date {
-  const step = precision === 'second' ? 1000 : 60_000;
-  return new Date(Math.round(instant.getTime() / step) * step);
-}
-
-/** Wall-clock time of `instant` at `site`, e.g. `16:29`, `4:29 pm`, `16:29:35`. */
-export function formatClock(instant: Date, site: Site, options: { clock: Clock; precision: TimePrecision }): string {
-  const key = `clock|${site.locale}|${site.timeZone}|${options.clock}|${options.precision}`;
-  const f = cached(key, () =>
-    new Intl.DateTimeFormat(site.locale, {
-      timeZone: site.timeZone,
-      hour: options.clock === 24 ? '2-digit' : 'numeric',
-      minute: '2-digit',
-      ...(options.precision === 'second' ? { second: '2-digit' } : {}),
-      hourCycle: options.clock === 24 ? 'h23' : 'h12',
-    }),
-  );
-  return f.format(roundInstant(instant, options.precision));
 }
 
 /** A local date (`YYYY-MM-DD`) in words in the site's locale, e.g. `Monday 7 December`. */

@@ -13,7 +13,7 @@
  * optional, rendered with `@resvg/resvg-js`.
  */
 import { createHash } from 'node:crypto';
-import { existsSync, mkdirSync, readdirSync, readFileSync, statSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdirSync, readdirSync, readFileSync, renameSync, statSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { Resvg } from '@resvg/resvg-js';
@@ -148,6 +148,17 @@ export function rasterizeChart(svg: string, options: { widthPx: number; fontFile
 }
 
 /** Charts drawn once per distinct input and kept in a folder. */
+/**
+ * Writes a cache file so that no reader ever sees it half written (builds may share a cache):
+ * write beside it, then rename, which replaces the file in one step. The meta file is written
+ * last, so a chart counts as cached only once all its files are complete.
+ */
+function writeAtomically(path: string, data: string | Uint8Array): void {
+  const tmp = `${path}.${process.pid}.tmp`;
+  writeFileSync(tmp, data);
+  renameSync(tmp, path);
+}
+
 export class ChartCache {
   readonly dir: string;
   readonly #options: ChartCacheOptions;
@@ -178,14 +189,14 @@ export class ChartCache {
       this.hits++;
     } else {
       const drawn = drawChart(request);
-      writeFileSync(join(this.dir, files.svg), drawn.svg);
+      writeAtomically(join(this.dir, files.svg), drawn.svg);
       if (raster) {
         const fonts = { ...(this.#options.fontFiles ? { fontFiles: this.#options.fontFiles } : {}), ...(this.#options.systemFonts !== undefined ? { systemFonts: this.#options.systemFonts } : {}) };
-        writeFileSync(join(this.dir, files.png!), rasterizeChart(drawn.svg, { widthPx: drawn.width, ...fonts }));
-        writeFileSync(join(this.dir, files.png2x!), rasterizeChart(drawn.svg, { widthPx: drawn.width * 2, ...fonts }));
+        writeAtomically(join(this.dir, files.png!), rasterizeChart(drawn.svg, { widthPx: drawn.width, ...fonts }));
+        writeAtomically(join(this.dir, files.png2x!), rasterizeChart(drawn.svg, { widthPx: drawn.width * 2, ...fonts }));
       }
       // The metadata is written last: its presence marks a complete entry.
-      writeFileSync(metaPath, JSON.stringify({ kind: request.kind, width: drawn.width, height: drawn.height, alt: drawn.alt }));
+      writeAtomically(metaPath, JSON.stringify({ kind: request.kind, width: drawn.width, height: drawn.height, alt: drawn.alt }));
       delivered = { key, kind: request.kind, files, ...drawn, hit: false };
       this.rendered++;
     }

@@ -5,8 +5,8 @@
  */
 import type { Body } from '../body.ts';
 import type { Site } from '../site.ts';
+import { formatClock } from '../time.ts';
 
-const timeFormats = new Map<string, Intl.DateTimeFormat>();
 const dateFormats = new Map<string, Intl.DateTimeFormat>();
 
 /** A body's name for a chart label, without a trailing parenthesis ("Comet Lumen (invented …)" → "Comet Lumen"). */
@@ -16,13 +16,7 @@ export function chartLabel(body: Body): string {
 
 /** Clock time of `instant` in the site's zone and locale ("21:40", "9:40 pm"). */
 export function formatChartTime(instant: Date, site: Pick<Site, 'locale' | 'timeZone'>): string {
-  const key = `${site.locale}|${site.timeZone}`;
-  let f = timeFormats.get(key);
-  if (!f) {
-    f = new Intl.DateTimeFormat(site.locale, { timeZone: site.timeZone, hour: 'numeric', minute: '2-digit' });
-    timeFormats.set(key, f);
-  }
-  return f.format(instant);
+  return formatClock(instant, site);
 }
 
 /** Short local date of `instant` ("12 Jan", "Jan 12"), in the site's zone and locale. */

@@ -7,6 +7,8 @@
 import { fileURLToPath } from 'node:url';
 import type { Loader } from 'astro/loaders';
 import { renderBulletin, WeekCache } from '../../lib/bulletin/index.ts';
+import { ChartCache } from '../../lib/chart/cache.ts';
+import { chartCacheDir } from './options.ts';
 import type { PageSpec } from '../../lib/bulletin/types.ts';
 import { isoWeekOf } from '../../lib/time.ts';
 import { entryDigest } from './digest.ts';
@@ -123,13 +125,15 @@ export function pagesLoader(): Loader {
     async load({ store, config, logger }) {
       const project = loadProject(rootOf(config), optionsFromEnv());
       const cache = new WeekCache();
+      // Finder charts: content-hashed files in the chart cache; the build copies those pages link to.
+      const charts = { cache: new ChartCache({ dir: chartCacheDir() }), url: (file: string) => `/charts/${file}` };
       const keep = new Set<string>();
       let computed = 0;
       for (const spec of project.pages) {
         keep.add(spec.path);
         const digest = pageDigest(project, spec);
         if (store.get(spec.path)?.digest === digest) continue;
-        const rendered = await renderBulletin(spec.template, { site: spec.site, week: spec.week, bodies: project.bodies }, cache);
+        const rendered = await renderBulletin(spec.template, { site: spec.site, week: spec.week, bodies: project.bodies, charts }, cache);
         const data: PageEntry = {
           path: spec.path,
           siteId: spec.site.id,

@@ -7,7 +7,7 @@ import { computeNight, type NightReport } from '../../lib/night.ts';
 import type { EventTime } from '../../lib/events.ts';
 import type { Site } from '../../lib/site.ts';
 import { PHASE_LABEL } from '../../lib/moon.ts';
-import { addDays, formatInstant, zonedTime } from '../../lib/time.ts';
+import { addDays, formatClock, formatInstant, zonedTime } from '../../lib/time.ts';
 
 /** One shown time: machine-readable instant (ISO 8601 with offset) and the local clock text. */
 export interface ShownTime {
@@ -37,19 +37,6 @@ export interface NightRow {
   moonLitPercent: number;
 }
 
-/** Local clock formatter of a site (hour and minute, its locale's 12/24-hour habit). */
-export function clockFormat(site: Pick<Site, 'locale' | 'timeZone'>): Intl.DateTimeFormat {
-  // 24-hour locales get a two-digit hour (04:16), as the bulletin placeholders print it.
-  const cycle = new Intl.DateTimeFormat(site.locale, { hour: 'numeric' }).resolvedOptions().hourCycle;
-  const h24 = cycle === 'h23' || cycle === 'h24';
-  return new Intl.DateTimeFormat(site.locale, {
-    timeZone: site.timeZone,
-    hour: h24 ? '2-digit' : 'numeric',
-    minute: '2-digit',
-    hourCycle: h24 ? 'h23' : 'h12',
-  });
-}
-
 /** "Fri 4 Dec" for a local date, in the site's locale (the date is a calendar date; no zone shift). */
 export function dayLabel(date: string, locale: string): string {
   const [y, m, d] = date.split('-').map(Number) as [number, number, number];
@@ -58,12 +45,8 @@ export function dayLabel(date: string, locale: string): string {
   );
 }
 
-function shown(event: EventTime, site: Site, fmt: Intl.DateTimeFormat, missing: Record<string, string>): ShownTime {
-  if (event.time) {
-    // Almanac practice: clock times are rounded to the minute, not truncated.
-    const minute = new Date(Math.round(event.time.getTime() / 60_000) * 60_000);
-    return { datetime: formatInstant(event.time, site.timeZone), text: fmt.format(minute) };
-  }
+function shown(event: EventTime, site: Site, missing: Record<string, string>): ShownTime {
+  if (event.time) return { datetime: formatInstant(event.time, site.timeZone), text: formatClock(event.time, site) };
   return { datetime: null, text: missing[event.reason] ?? 'not tonight' };
 }
 
@@ -93,27 +76,26 @@ function duskOf(report: NightReport): Date {
   return report.sun.set.time ?? report.sun.civilDusk.time ?? zonedTime(report.night.date, 18, 0, report.site.timeZone);
 }
 
-function moonSummary(report: NightReport, fmt: Intl.DateTimeFormat): NightRow['moon'] {
+function moonSummary(report: NightReport): NightRow['moon'] {
   const dusk = duskOf(report);
   const up = moonUpAt(report, dusk);
   const next = up ? report.moon.set : report.moon.rise;
-  if (next.time && next.time > dusk) return { verb: up ? 'sets' : 'rises', time: shown(next, report.site, fmt, {}) };
+  if (next.time && next.time > dusk) return { verb: up ? 'sets' : 'rises', time: shown(next, report.site, {}) };
   return { verb: up ? 'up all night' : 'down all night', time: null };
 }
 
 /** One row from a computed night. */
 export function nightRow(report: NightReport): NightRow {
   const site = report.site;
-  const fmt = clockFormat(site);
   return {
     date: report.night.date,
     label: dayLabel(report.night.date, site.locale),
-    sunset: shown(report.sun.set, site, fmt, SUNSET_MISSING),
-    nauticalDusk: shown(report.sun.nauticalDusk, site, fmt, DUSK_MISSING),
-    darkness: shown(report.sun.astronomicalDusk, site, fmt, DUSK_MISSING),
-    moonrise: shown(report.moon.rise, site, fmt, MOON_MISSING),
-    moonset: shown(report.moon.set, site, fmt, MOON_MISSING),
-    moon: moonSummary(report, fmt),
+    sunset: shown(report.sun.set, site, SUNSET_MISSING),
+    nauticalDusk: shown(report.sun.nauticalDusk, site, DUSK_MISSING),
+    darkness: shown(report.sun.astronomicalDusk, site, DUSK_MISSING),
+    moonrise: shown(report.moon.rise, site, MOON_MISSING),
+    moonset: shown(report.moon.set, site, MOON_MISSING),
+    moon: moonSummary(report),
     moonPhase: PHASE_LABEL[report.moon.phase.name],
     moonLitPercent: Math.round(report.moon.phase.illuminatedFraction * 100),
   };

@@ -34,3 +34,12 @@ export function optionsFromEnv(env: Record<string, string | undefined> = process
   parseLocalDate(today, 'GLOAMING_TODAY');
   return { today, only: parseSiteList(env.GLOAMING_SITES), content: env.GLOAMING_CONTENT || 'content' };
 }
+
+/**
+ * Folder of the finder-chart cache (content-hashed SVG files). It sits inside Astro's own cache
+ * folder (`node_modules/.astro`, or `GLOAMING_CACHE_DIR`), so clearing one clears both;
+ * `GLOAMING_CHART_CACHE` overrides it.
+ */
+export function chartCacheDir(env: Record<string, string | undefined> = process.env, root = process.cwd()): string {
+  return env.GLOAMING_CHART_CACHE || `${env.GLOAMING_CACHE_DIR || `${root}/node_modules/.astro`}/gloaming/charts`;
+}
