@@ -137,7 +137,7 @@ export async function copyLinkedCharts(dir: string, chartDir: string): Promise<n
 export async function checkOutput(dir: string): Promise<number> {
   const files = await walk(dir);
   for (const file of files) {
-    if (!/\.(html|xml)$/.test(file)) continue;
+    if (!/\.(html|xml|ics)$/.test(file)) continue;
     assertPublishable(await readFile(file, 'utf8'), relative(dir, file).split(sep).join('/'));
   }
   return files.length;

@@ -38,6 +38,7 @@ export const paths = {
   site: (id: string): string => `/${id}/`,
   archive: (id: string): string => `/${id}/archive/`,
   feed: (id: string): string => `/${id}/rss.xml`,
+  calendar: (id: string): string => `/${id}/events.ics`,
   page: (p: Pick<PageEntry, 'path'>): string => `/${p.path}/`,
   card: (p: Pick<PageEntry, 'path'>): string => `/${p.path}/card.png`,
 };

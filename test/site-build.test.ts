@@ -11,6 +11,7 @@ import { spawnSync } from 'node:child_process';
 import { createHash } from 'node:crypto';
 import { cpSync, existsSync, mkdtempSync, readdirSync, readFileSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import { join, relative, resolve } from 'node:path';
+import ICAL from 'ical.js';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 const ROOT = resolve(import.meta.dirname, '..');
@@ -116,6 +117,18 @@ describe('site build', () => {
     expect(links[1]).toBe('https://sky.example.org/harbour-roof/2026-W49/weekly/');
     expect(xml).not.toContain('2026-W50'); // future weeks are published as pages, not announced
     expect(xml).toContain('<pubDate>Mon, 30 Nov 2026 00:00:00 GMT</pubDate>');
+  });
+
+  it('each site publishes an iCalendar feed of its sky events that ical.js parses, linked from its home page', () => {
+    for (const site of ['harbour-roof', 'southern-station', 'northern-outpost']) {
+      const text = readFileSync(join(work, `a/${site}/events.ics`), 'utf8');
+      // RFC 5545 via the ical.js parser (an independent implementation from the npm registry).
+      const calendar = new ICAL.Component(ICAL.parse(text));
+      const events = calendar.getAllSubcomponents('vevent');
+      expect(events.length, site).toBeGreaterThan(10);
+      for (const e of events) expect(e.getFirstPropertyValue('dtstamp')?.toString(), site).toBe('2026-12-04T00:00:00Z');
+      expect(readFileSync(join(work, `a/${site}/index.html`), 'utf8')).toContain(`href="/${site}/events.ics"`);
+    }
   });
 
   it('two builds with the same date are byte-identical', () => {

@@ -8,6 +8,7 @@ import { fileURLToPath } from 'node:url';
 import type { Loader } from 'astro/loaders';
 import { renderBulletin, WeekCache } from '../../lib/bulletin/index.ts';
 import { ChartCache } from '../../lib/chart/cache.ts';
+import { siteCalendar } from './calendar.ts';
 import { chartCacheDir } from './options.ts';
 import type { PageSpec } from '../../lib/bulletin/types.ts';
 import { isoWeekOf } from '../../lib/time.ts';
@@ -38,6 +39,8 @@ export interface SiteEntry {
   /** ISO week id of the build date, e.g. 2026-W49. */
   currentWeek: string;
   nights: NightRow[];
+  /** The site's iCalendar feed of sky events (empty for sites of other CI shards). */
+  calendar: string;
 }
 
 export interface PageEntry {
@@ -74,7 +77,7 @@ export function pageDigest(project: Project, spec: PageSpec): string {
 
 /** The digest of one site entry: code, site file, build date and whether this shard builds it. */
 export function siteDigest(project: Project, source: SiteSource, built: boolean): string {
-  return entryDigest({ code: project.codeDigest, site: source.textDigest, today: project.today, built: String(built) });
+  return entryDigest({ code: project.codeDigest, site: source.textDigest, objects: project.objectsDigest, today: project.today, built: String(built) });
 }
 
 function rootOf(config: { root: URL }): string {
@@ -109,6 +112,7 @@ export function sitesLoader(): Loader {
           built,
           currentWeek,
           nights: built ? nextNights(s, project.today, NIGHTS_SHOWN) : [],
+          calendar: built ? siteCalendar(s, project.bodies, project.today) : '',
         };
         store.set({ id, data: data as unknown as Record<string, unknown>, digest });
         computed++;
