@@ -11,7 +11,9 @@
  *   becomes positive within the viewing hours; if none, the same search over the rest of the
  *   night (a morning object), flagged `outsideViewingHours`; otherwise `not-visible`.
  * - *best time*: the moment of largest margin for the verdict's instrument within the searched
- *   span; the *window* is the continuous span around it where that margin stays positive.
+ *   span; the *window* is the continuous span around it where that margin stays positive, between
+ *   sunset and sunrise (it may reach outside the viewing hours: a comet visible from dusk is not
+ *   "findable from 19:00").
  * - *reason* (when not visible) is found by asking what would change the answer: below the
  *   horizon; too close to the Sun (< 8° elongation); hidden by daylight or lost in twilight
  *   (visible without the Sun's light; daylight when the Sun is up at the moment it would be
@@ -189,6 +191,9 @@ export class NightVisibility {
     // The rest of the night: from the end of the viewing hours to sunrise (or the night's end).
     const sunrise = this.report.sun.rise.time;
     const rest = { ut0: hours.ut1, ut1: sunrise ? utDays(sunrise) : frame.ut1 };
+    // Windows may extend beyond the viewing hours, but not into daylight: sunset to sunrise.
+    const sunset = this.report.sun.set.time;
+    const dark = { ut0: sunset ? utDays(sunset) : frame.ut0, ut1: rest.ut1 };
     const spans: { span: { ut0: number; ut1: number }; outside: boolean }[] = [{ span: hours, outside: false }];
     if (!options.span && rest.ut1 - rest.ut0 > step) spans.push({ span: rest, outside: true });
     for (const { span, outside } of spans) {
@@ -197,7 +202,7 @@ export class NightVisibility {
         const f = this.marginFunction(body, instrument, magnitude);
         const best = findMaximum(f, span.ut0, span.ut1, { stepDays: step });
         if (!best || !(best.value > 0)) continue;
-        const window = this.#window(f, best.ut, span, step);
+        const window = this.#window(f, best.ut, { ut0: Math.min(span.ut0, dark.ut0), ut1: Math.max(span.ut1, dark.ut1) }, step);
         return { verdict: instrument.kind, instrument, best: this.#moment(body, instrument, magnitude, best.ut), window, outsideViewingHours: outside, reason: null };
       }
     }
