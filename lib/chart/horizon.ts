@@ -31,7 +31,9 @@ import { guidePattern, type GuideResult } from '../stars/guide.ts';
 import { patternById, patterns, type StarPattern } from '../stars/patterns.ts';
 import { starByHip } from '../stars/catalogue.ts';
 import { SkyAt } from './place.ts';
-import { angleFromRadius, stereographic, stereographicRadius, type AltAz, type Stereographic } from './projection.ts';
+import { angleFromRadius, makeLayout, stereographicRadius, type AltAz, type ChartLayout } from './projection.ts';
+
+export type { ChartLayout };
 import { CHART_WIDTH, COLOURS, FONT, chartMagnitudeLimit, starRadius } from './style.ts';
 import { LabelPlacer, SVG_CLOSE, n, pathOf, svgOpen, text } from './svg.ts';
 import { chartLabel, formatChartDate, formatChartTime, formatMagnitude } from './words.ts';
@@ -77,17 +79,6 @@ export interface ChartMark {
   labelled: boolean;
 }
 
-/** How sky directions map to chart units and back. */
-export interface ChartLayout {
-  /** Chart position (user units, y down) of a direction, or null when it cannot be projected. */
-  toChart(altitudeDeg: number, azimuthDeg: number): { x: number; y: number } | null;
-  /** The direction drawn at a chart position. */
-  fromChart(x: number, y: number): AltAz;
-  projection: Stereographic;
-  /** User units per sphere radius of the stereographic plane. */
-  scale: number;
-}
-
 export interface HorizonChart {
   kind: 'horizon';
   svg: string;
@@ -113,20 +104,6 @@ export interface HorizonChart {
   layout: ChartLayout;
 }
 
-function makeLayout(centre: AltAz, scale: number, cx: number, cy: number): ChartLayout {
-  const projection = stereographic(centre);
-  return {
-    projection,
-    scale,
-    toChart(altitudeDeg, azimuthDeg) {
-      const p = projection.project(altitudeDeg, azimuthDeg);
-      return p ? { x: cx + scale * p.x, y: cy - scale * p.y } : null;
-    },
-    fromChart(x, y) {
-      return projection.unproject((x - cx) / scale, (cy - y) / scale);
-    },
-  };
-}
 
 function isComet(body: Body): body is SmallBody {
   return body.kind === 'comet' && 'sighting' in body;

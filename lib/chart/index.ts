@@ -16,7 +16,7 @@ import { REASON_TEXT, type Visibility } from '../visibility.ts';
 import { ChartCache, chartImg, type ChartRequest, type DeliveredChart } from './cache.ts';
 import { eveningMoment } from './sky.ts';
 
-export { stereographic, stereographicRadius, angleFromRadius, type AltAz, type PlanePoint, type Stereographic } from './projection.ts';
+export { stereographic, stereographicRadius, angleFromRadius, makeLayout, type AltAz, type PlanePoint, type Stereographic } from './projection.ts';
 export { horizonChart, SIDEREAL_DAY_DAYS, type HorizonChart, type HorizonChartOptions, type ChartMark, type ChartLayout } from './horizon.ts';
 export { skyChart, eveningMoment, type SkyChart, type SkyChartOptions } from './sky.ts';
 export { horizonAltText, skyAltText } from './alt.ts';

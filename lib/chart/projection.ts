@@ -96,3 +96,33 @@ export function stereographic(centre: AltAz): Stereographic {
     },
   };
 }
+
+/** How sky directions map to chart units and back. */
+export interface ChartLayout {
+  /** Chart position (user units, y down) of a direction, or null when it cannot be projected. */
+  toChart(altitudeDeg: number, azimuthDeg: number): { x: number; y: number } | null;
+  /** The direction drawn at a chart position. */
+  fromChart(x: number, y: number): AltAz;
+  projection: Stereographic;
+  /** User units per sphere radius of the stereographic plane. */
+  scale: number;
+}
+
+/**
+ * A chart layout: the stereographic projection centred on `centre`, scaled by `scale` user units
+ * per sphere radius, with the centre drawn at (`cx`, `cy`) and y growing downwards.
+ */
+export function makeLayout(centre: AltAz, scale: number, cx: number, cy: number): ChartLayout {
+  const projection = stereographic(centre);
+  return {
+    projection,
+    scale,
+    toChart(altitudeDeg, azimuthDeg) {
+      const p = projection.project(altitudeDeg, azimuthDeg);
+      return p ? { x: cx + scale * p.x, y: cy - scale * p.y } : null;
+    },
+    fromChart(x, y) {
+      return projection.unproject((x - cx) / scale, (cy - y) / scale);
+    },
+  };
+}

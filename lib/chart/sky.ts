@@ -22,9 +22,9 @@ import { starByHip } from '../stars/catalogue.ts';
 import { guidePattern, type GuideResult } from '../stars/guide.ts';
 import { patternById, patterns, type StarPattern } from '../stars/patterns.ts';
 import { zonedTime } from '../time.ts';
-import type { ChartLayout, ChartMark } from './horizon.ts';
+import type { ChartMark } from './horizon.ts';
 import { SkyAt } from './place.ts';
-import { stereographic } from './projection.ts';
+import { makeLayout, type ChartLayout } from './projection.ts';
 import { CHART_WIDTH, COLOURS, FONT, chartMagnitudeLimit, starRadius } from './style.ts';
 import { LabelPlacer, SVG_CLOSE, n, pathOf, svgOpen, text } from './svg.ts';
 import { chartLabel, formatChartTime, formatMagnitude } from './words.ts';
@@ -87,18 +87,7 @@ export function skyChart(input: { site: Site; time: Date; body?: Body; options?:
   const cy = DISC_HEIGHT / 2;
   const scale = RADIUS / 2;
   // Centre at the zenith, "facing" south: north comes out at the top, east at the left.
-  const projection = stereographic({ altitudeDeg: 90, azimuthDeg: 180 });
-  const layout: ChartLayout = {
-    projection,
-    scale,
-    toChart(altitudeDeg, azimuthDeg) {
-      const p = projection.project(altitudeDeg, azimuthDeg);
-      return p ? { x: cx + scale * p.x, y: cy - scale * p.y } : null;
-    },
-    fromChart(x, y) {
-      return projection.unproject((x - cx) / scale, (cy - y) / scale);
-    },
-  };
+  const layout = makeLayout({ altitudeDeg: 90, azimuthDeg: 180 }, scale, cx, cy);
   const sky = new SkyAt(site, time);
   const magnitudeLimit = options.magnitudeLimit ?? Math.min(SKY_FAINTEST, chartMagnitudeLimit(site.sky));
   const target = body ? observe(site, body, time) : null;

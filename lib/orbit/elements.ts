@@ -35,21 +35,9 @@ import { GAUSSIAN_K, type ConicElements } from './kepler.ts';
 
 export type SmallBodyKind = 'comet' | 'asteroid';
 
-/** Elements given with q and T (any conic). */
-export interface PerihelionElements {
+/** Elements given with q and T (any conic): the conic's own elements (q, e, i, Ω, ω, T). */
+export interface PerihelionElements extends ConicElements {
   form: 'perihelion';
-  /** q, AU. */
-  perihelionDistanceAu: number;
-  /** e (≥ 0). */
-  eccentricity: number;
-  /** i, degrees, 0–180. */
-  inclinationDeg: number;
-  /** Ω, degrees. */
-  ascendingNodeDeg: number;
-  /** ω, degrees. */
-  argumentOfPerihelionDeg: number;
-  /** T, days since J2000.0 (2000-01-01 12:00 TT), TT. */
-  perihelionTimeTt: number;
 }
 
 /** Osculating elements with a, M and epoch (ellipses only). */
