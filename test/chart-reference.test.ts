@@ -1,6 +1,6 @@
 /**
- * Reference images: a few charts rendered to PNG with @resvg/resvg-js (DejaVu Sans, loaded from
- * the system font folder so text renders the same on every machine that has it) and compared with
+ * Reference images: a few charts rendered to PNG with @resvg/resvg-js (DejaVu Sans, loaded from the
+ * `dejavu-fonts-ttf` devDependency so text renders the same on every machine) and compared with
  * the committed images in test/reference/charts/ by a pixel-difference metric over RGBA.
  *
  * The committed images were looked at by eye before being committed (see the README there).
@@ -15,8 +15,8 @@ import { loadBodies, loadSites } from '../lib/content.ts';
 import { computeNight } from '../lib/night.ts';
 
 const DIR = 'test/reference/charts';
-const FONTS = ['/usr/share/fonts/truetype/dejavu/DejaVuSans.ttf', '/usr/share/fonts/truetype/dejavu/DejaVuSans-Bold.ttf'];
-const haveFonts = FONTS.every((f) => existsSync(f));
+const FONT_DIR = new URL('../node_modules/dejavu-fonts-ttf/ttf/', import.meta.url).pathname;
+const FONTS = [`${FONT_DIR}DejaVuSans.ttf`, `${FONT_DIR}DejaVuSans-Bold.ttf`];
 const update = process.env.UPDATE_CHART_REFERENCES === '1';
 
 /** RGBA pixels of an SVG rendered at its own width. */
@@ -68,7 +68,7 @@ function cases(): { name: string; svg: string }[] {
   ];
 }
 
-describe.skipIf(!haveFonts)('chart reference images (test/reference/charts/)', () => {
+describe('chart reference images (test/reference/charts/)', () => {
   for (const c of cases()) {
     it(`${c.name} matches its reference`, () => {
       const file = `${DIR}/${c.name}.png`;

@@ -55,6 +55,8 @@ export interface ChartProgress {
   rendered: number;
   /** Milliseconds since the cache object was made, from the injected clock. */
   elapsedMs: number;
+  /** Milliseconds spent drawing and writing charts (cache misses) and reading hits, from the injected clock. */
+  workMs: number;
   key: string;
 }
 
@@ -167,6 +169,8 @@ export class ChartCache {
   count = 0;
   hits = 0;
   rendered = 0;
+  /** Milliseconds spent in `get` (drawing, writing, reading). */
+  workMs = 0;
 
   constructor(options: ChartCacheOptions = {}) {
     this.#options = options;
@@ -182,6 +186,7 @@ export class ChartCache {
     const raster = this.#options.raster ?? false;
     const files = { svg: `${key}.svg`, ...(raster ? { png: `${key}.png`, png2x: `${key}@2x.png` } : {}) };
     const metaPath = join(this.dir, `${key}.json`);
+    const began = this.#clock();
     let delivered: DeliveredChart;
     if (existsSync(metaPath) && (!raster || existsSync(join(this.dir, files.png!)))) {
       const meta = JSON.parse(readFileSync(metaPath, 'utf8')) as { width: number; height: number; alt: string; kind: 'horizon' | 'sky' };
@@ -201,7 +206,8 @@ export class ChartCache {
       this.rendered++;
     }
     this.count++;
-    this.#options.onProgress?.({ count: this.count, hits: this.hits, rendered: this.rendered, elapsedMs: this.#clock() - this.#start, key });
+    this.workMs += this.#clock() - began;
+    this.#options.onProgress?.({ count: this.count, hits: this.hits, rendered: this.rendered, elapsedMs: this.#clock() - this.#start, workMs: this.workMs, key });
     return delivered;
   }
 }

@@ -7,7 +7,7 @@
 import { fileURLToPath } from 'node:url';
 import type { Loader } from 'astro/loaders';
 import { renderBulletin, WeekCache } from '../../lib/bulletin/index.ts';
-import { ChartCache } from '../../lib/chart/cache.ts';
+import { ChartCache, type ChartProgress } from '../../lib/chart/cache.ts';
 import { siteCalendar } from './calendar.ts';
 import { chartCacheDir } from './options.ts';
 import type { PageSpec } from '../../lib/bulletin/types.ts';
@@ -130,7 +130,13 @@ export function pagesLoader(): Loader {
       const project = loadProject(rootOf(config), optionsFromEnv());
       const cache = new WeekCache();
       // Finder charts: content-hashed files in the chart cache; the build copies those pages link to.
-      const charts = { cache: new ChartCache({ dir: chartCacheDir() }), url: (file: string) => `/charts/${file}` };
+      // Progress: a line every 25 charts, and a summary with the rate at the end.
+      let last: ChartProgress | undefined;
+      const onProgress = (p: ChartProgress): void => {
+        last = p;
+        if (p.count % 25 === 0) logger.info(`charts: ${p.count} (${p.rendered} drawn, ${p.hits} from the cache), ${(p.elapsedMs / 1000).toFixed(1)} s`);
+      };
+      const charts = { cache: new ChartCache({ dir: chartCacheDir(), onProgress }), url: (file: string) => `/charts/${file}` };
       const keep = new Set<string>();
       let computed = 0;
       for (const spec of project.pages) {
@@ -158,6 +164,7 @@ export function pagesLoader(): Loader {
       }
       for (const id of store.keys()) if (!keep.has(id)) store.delete(id);
       logger.info(`bulletin pages: ${computed} computed, ${project.pages.length - computed} unchanged`);
+      if (last) logger.info(`charts: ${last.count} (${last.rendered} drawn, ${last.hits} from the cache) in ${last.workMs.toFixed(0)} ms of chart work, ${Math.round(last.count / (last.workMs / 1000))} charts/s`);
     },
   };
 }
