@@ -1,0 +1,54 @@
+/**
+ * Week summaries (issue #4): the best night and the week's changes in words. Checks against
+ * outside facts: the Moon rises on average about 50 minutes later each day (the synodic month,
+ * 29.53 d, makes the Moon lag the Sun by 24 h × 24 h / 29.53 d ≈ 49 min a day; common practice
+ * quotes "about 50 minutes"), and the ISO week's nights run Monday to Sunday.
+ */
+import { describe, expect, it } from 'vitest';
+import { builtInBody } from '../lib/body.ts';
+import { main } from '../lib/cli/main.ts';
+import { defineSite } from '../lib/site.ts';
+import { computeWeek, weekdayName } from '../lib/week.ts';
+
+const site = defineSite({ id: 'mid', latitude: 45, longitude: 7.7, timeZone: 'Europe/Rome', sky: { bortle: 4 } });
+
+describe('week summaries', () => {
+  it('the nights are Monday to Sunday of the ISO week', () => {
+    const w = computeWeek(site, '2026-12-10', [builtInBody('moon')]);
+    expect(w.week.id).toBe('2026-W50');
+    expect(w.nights.map((n) => weekdayName(n.night.date))).toEqual(['Monday', 'Tuesday', 'Wednesday', 'Thursday', 'Friday', 'Saturday', 'Sunday']);
+  });
+
+  it.each(['2026-03-11', '2026-06-10', '2026-09-16', '2026-12-10'])('the Moon rises 30–75 minutes later each night in the week of %s (about 50 on average, common practice)', (date) => {
+    const w = computeWeek(site, date, [builtInBody('moon')]);
+    const sentence = w.bodies[0]!.changes.find((c) => /^(rises|sets) \d+ minutes later each night$/.test(c));
+    expect(sentence, w.bodies[0]!.changes.join('; ')).toBeDefined();
+    const minutes = Number(/(\d+) minutes/.exec(sentence!)![1]);
+    expect(minutes).toBeGreaterThanOrEqual(30);
+    expect(minutes).toBeLessThanOrEqual(75);
+  });
+
+  it('a planet that barely changes gets no sentence about brightness; the best night is one of the seven', () => {
+    const w = computeWeek(site, '2026-12-10', [builtInBody('saturn')]);
+    const saturn = w.bodies[0]!;
+    expect(saturn.changes.some((c) => c.startsWith('brightens') || c.startsWith('fades'))).toBe(false);
+    expect(w.week.days).toContain(saturn.bestNight);
+  });
+
+  it('the full Moon week reports Moon interference for a faint target and when it ends or begins', () => {
+    // Full Moon 2026-12-24 (astronomy-engine); Uranus (mag 5.6) sits 40–60° from the Moon that week.
+    const w = computeWeek(site, '2026-12-24', [builtInBody('uranus')]);
+    const uranus = w.bodies[0]!;
+    expect(uranus.moonInterference.length).toBeGreaterThan(0);
+  });
+
+  it('gloaming week --json prints the summary', () => {
+    let out = '';
+    const code = main(['week', '--lat', '45', '--lon', '7.7', '--tz', 'Europe/Rome', '--date', '2026-12-10', '--body', 'moon', '--json'], (s) => (out += s), () => {});
+    expect(code).toBe(0);
+    const json = JSON.parse(out) as { week: string; bodies: { body: string; changes: string[]; nights: unknown[] }[] };
+    expect(json.week).toBe('2026-W50');
+    expect(json.bodies[0]!.nights).toHaveLength(7);
+    expect(json.bodies[0]!.changes.length).toBeGreaterThan(0);
+  });
+});
