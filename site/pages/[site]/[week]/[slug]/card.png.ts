@@ -22,5 +22,5 @@ export const GET: APIRoute = async ({ props }) => {
     horizon: site.horizon,
     caution: page.cautions.length > 0,
   }, { cacheDir: process.env.GLOAMING_CARD_CACHE, codeDigest: process.env.GLOAMING_CODE_DIGEST });
-  return new Response(png, { headers: { 'Content-Type': 'image/png' } });
+  return new Response(Buffer.from(png), { headers: { 'Content-Type': 'image/png' } });
 };
