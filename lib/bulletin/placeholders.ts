@@ -343,7 +343,10 @@ function bestTime(call: PlaceholderCall): ElementContent {
   const body = bodyOf(call);
   const v = call.week.bodyNight(call.night, body).visibility;
   if (!v.best) return notVisible(call, body, v);
-  return timeElement(call, v.best.time, { dataBody: body.id, ...visibilityData(v) });
+  const time = timeElement(call, v.best.time, { dataBody: body.id, ...visibilityData(v) });
+  // A morning object: say so, so a reader does not plan on it during the evening viewing hours.
+  if (!v.outsideViewingHours) return time;
+  return el('span', { className: ['gl-after-hours'] }, [time, { type: 'text', value: ' (after the viewing hours)' }]);
 }
 
 function viewingWindow(call: PlaceholderCall): ElementContent {
