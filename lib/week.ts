@@ -50,9 +50,19 @@ function minutesOfDay(e: EventTime, night: NightReport): number | null {
   return e.time ? (e.time.getTime() - night.night.start.getTime()) / 60_000 : null;
 }
 
-/** Mean nightly drift of an event time, minutes per night (positive: later), from nights where it happens. */
+/**
+ * Mean nightly drift of an event time, minutes per night (positive: later), from nights where it
+ * happens: a least-squares slope. Clock times are unwrapped first (each within ±12 h of the one
+ * before), so a moonrise that moves across local noon from one night to the next is a drift of
+ * about 50 minutes, not a jump of a day.
+ */
 function drift(values: (number | null)[]): number | null {
-  const pts = values.map((v, i) => [i, v] as const).filter((p): p is readonly [number, number] => p[1] !== null);
+  const pts: [number, number][] = [];
+  for (const [i, v] of values.entries()) {
+    if (v === null) continue;
+    const prev = pts[pts.length - 1]?.[1];
+    pts.push([i, prev === undefined ? v : v + 1440 * Math.round((prev - v) / 1440)]);
+  }
   if (pts.length < 3) return null;
   const n = pts.length;
   const mx = pts.reduce((s, p) => s + p[0], 0) / n;
