@@ -65,7 +65,9 @@ describe('local times across daylight-saving changes', () => {
   it('the clock time written in a phase description is the local time of the phase (UK rule)', () => {
     const events = findEvents({ site: london, from: new Date('2026-03-01T00:00:00Z'), to: new Date('2026-11-30T00:00:00Z'), options: { types: ['new-moon', 'full-moon'] } });
     for (const e of events) {
-      const local = new Date(e.time.getTime() + ukOffsetMinutes(e.time) * 60_000);
+      // Rounded to the nearest minute, as almanacs and the pages print times.
+      const rounded = new Date(Math.round(e.time.getTime() / 60_000) * 60_000);
+      const local = new Date(rounded.getTime() + ukOffsetMinutes(rounded) * 60_000);
       const hhmm = `${String(local.getUTCHours()).padStart(2, '0')}:${String(local.getUTCMinutes()).padStart(2, '0')}`;
       expect(e.description, e.time.toISOString()).toContain(`at ${hhmm}`);
     }

@@ -6,7 +6,7 @@ import * as Astronomy from 'astronomy-engine';
 import type { Body } from '../body.ts';
 import type { Site } from '../site.ts';
 import type { Star } from '../stars/catalogue.ts';
-import { addDays, localDateOf, nightOf, zonedParts } from '../time.ts';
+import { addDays, formatClock, localDateOf, nightOf, roundInstant, zonedParts } from '../time.ts';
 import { NightFrame } from '../track.ts';
 
 const RAD = Math.PI / 180;
@@ -50,14 +50,13 @@ export class AlmanacContext {
   readonly site: Site;
   readonly darkSunAltitudeDeg: number;
   readonly #frames = new Map<string, NightFrame>();
-  readonly #clock: Intl.DateTimeFormat;
   readonly #day: Intl.DateTimeFormat;
 
-  constructor(site: Site, options: { darkSunAltitudeDeg?: number } = {}) {
+  constructor(site: Site, options: { darkSunAltitudeDeg?: number; frames?: Iterable<NightFrame> } = {}) {
     this.site = site;
     this.darkSunAltitudeDeg = options.darkSunAltitudeDeg ?? -6;
-    this.#clock = new Intl.DateTimeFormat(site.locale, { timeZone: site.timeZone, hour: '2-digit', minute: '2-digit' });
     this.#day = new Intl.DateTimeFormat(site.locale, { timeZone: site.timeZone, weekday: 'short', day: 'numeric', month: 'short' });
+    for (const frame of options.frames ?? []) if (frame.site === site) this.#frames.set(frame.night.date, frame);
   }
 
   /** The night frame (tracks, sidereal time) of the night whose evening is `date`, built once. */
@@ -75,14 +74,14 @@ export class AlmanacContext {
     return this.frame(nightDateOf(instant, this.site.timeZone));
   }
 
-  /** Local clock time in the site's locale and zone, e.g. "21:05" (en-GB) or "09:05 PM" (en-US). */
+  /** Local clock time in the site's locale and zone, rounded to the minute as pages show it: "21:05" (en-GB), "9:05 PM" (en-US). */
   clock(instant: Date): string {
-    return this.#clock.format(instant);
+    return formatClock(instant, this.site);
   }
 
-  /** Local day in the site's locale and zone, e.g. "Wed 1 Mar". */
+  /** Local day in the site's locale and zone of the minute `instant` rounds to, e.g. "Wed 1 Mar". */
   day(instant: Date): string {
-    return this.#day.format(instant);
+    return this.#day.format(roundInstant(instant, 'minute'));
   }
 
   /** "Wed 1 Mar at 21:05". */

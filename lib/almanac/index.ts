@@ -11,7 +11,8 @@
 import { BUILT_IN_IDS, type Body, type BodyRegistry } from '../body.ts';
 import { GloamingError } from '../errors.ts';
 import type { Site } from '../site.ts';
-import { addDays, isoWeekOf, zonedTime } from '../time.ts';
+import { isoWeekOf, nightOf } from '../time.ts';
+import type { NightFrame } from '../track.ts';
 import { approachEvents } from './approaches.ts';
 import { AlmanacContext } from './context.ts';
 import { lunarEclipseEvents, solarEclipseEvents } from './eclipses.ts';
@@ -43,6 +44,8 @@ export interface FindEventsInput {
   /** Bodies: the built-in ones plus comets and asteroids (default: built-in only). */
   bodies?: BodyRegistry;
   options?: FindEventsOptions;
+  /** Night frames already built for this site (e.g. a bulletin week's), reused instead of built again. */
+  frames?: Iterable<NightFrame>;
 }
 
 function smallBodiesOf(registry: BodyRegistry | undefined): Body[] {
@@ -72,7 +75,10 @@ export function findEvents(input: FindEventsInput): AlmanacEvent[] {
   }
   const wanted = new Set<AlmanacEventType>(options.types ?? EVENT_TYPES);
   const want = (...types: AlmanacEventType[]): boolean => types.some((t) => wanted.has(t));
-  const ctx = new AlmanacContext(site, options.darkSunAltitudeDeg !== undefined ? { darkSunAltitudeDeg: options.darkSunAltitudeDeg } : {});
+  const ctx = new AlmanacContext(site, {
+    ...(options.darkSunAltitudeDeg !== undefined ? { darkSunAltitudeDeg: options.darkSunAltitudeDeg } : {}),
+    ...(input.frames ? { frames: input.frames } : {}),
+  });
   const small = smallBodiesOf(input.bodies);
   const events: AlmanacEvent[] = [];
   if (want('new-moon', 'first-quarter', 'full-moon', 'last-quarter')) events.push(...moonPhaseEvents(ctx, from, to));
@@ -106,19 +112,21 @@ export function findEvents(input: FindEventsInput): AlmanacEvent[] {
 }
 
 /**
- * The events of the ISO week (Monday–Sunday, local dates) containing `date` (`YYYY-MM-DD`): from
- * local midnight of the Monday to local midnight of the next Monday, in the site's zone. For the
- * bulletin's `::events` block (order by time, or `options.order: 'interest'`).
+ * The events of the bulletin week containing `date` (`YYYY-MM-DD`): the seven nights of its ISO
+ * week, from local noon of the Monday to local noon of the next Monday in the site's zone, so an
+ * event at 03:00 on Sunday night belongs to this week and one early on Monday morning to the week
+ * before. For the bulletin's `::events` block (order by time, or `options.order: 'interest'`).
  */
-export function eventsOfWeek(input: { site: Site; date: string; bodies?: BodyRegistry; options?: FindEventsOptions }): AlmanacEvent[] {
+export function eventsOfWeek(input: { site: Site; date: string; bodies?: BodyRegistry; options?: FindEventsOptions; frames?: Iterable<NightFrame> }): AlmanacEvent[] {
   const week = isoWeekOf(input.date);
   const zone = input.site.timeZone;
   return findEvents({
     site: input.site,
-    from: zonedTime(week.days[0]!, 0, 0, zone),
-    to: zonedTime(addDays(week.days[0]!, 7), 0, 0, zone),
+    from: nightOf(week.days[0]!, zone).start,
+    to: nightOf(week.days[6]!, zone).end,
     ...(input.bodies ? { bodies: input.bodies } : {}),
     ...(input.options ? { options: input.options } : {}),
+    ...(input.frames ? { frames: input.frames } : {}),
   });
 }
 

@@ -52,9 +52,9 @@ export class WeekData {
     return this.nights[index]!.body(body);
   }
 
-  /** The week's events for the site (lib/almanac, Monday 00:00 to the next Monday 00:00 local), in time order, computed once. */
+  /** The week's events for the site (lib/almanac: the seven nights, Monday noon to the next Monday noon), in time order, computed once on the week's own night frames. */
   events(): AlmanacEvent[] {
-    this.#events ??= eventsOfWeek({ site: this.site, date: this.week.days[0]!, bodies: this.bodies });
+    this.#events ??= eventsOfWeek({ site: this.site, date: this.week.days[0]!, bodies: this.bodies, frames: this.nights.map((n) => n.frame) });
     return this.#events;
   }
 
