@@ -32,7 +32,7 @@ Usage: gloaming events (--site <id> | --lat <deg> --lon <deg> [--elevation <m>] 
   --content <dir>     content folder (default ./content); comets and asteroids come from its objects/
   --json              print { events: [{ type, time, bodies, separation?, visible, description, … }] }
   --ics               print an iCalendar (RFC 5545) feed instead
-  --now <instant>     build instant for the feed's DTSTAMP (default: now)
+  --now <instant>     build instant for the feed's DTSTAMP (default: 00:00 UTC of --from)
 
 Times are ISO 8601 with the site's UTC offset. Events that cannot be seen from the site are
 listed with visible: false and the reason; solar eclipses always carry the eye-safety caution.`;
@@ -121,7 +121,8 @@ export function runEvents(args: string[], out: (s: string) => void): void {
   const events = findEvents({ site, from, to, bodies, options: { order, ...(types ? { types } : {}) } });
   const zone = site.timeZone;
   if (values.ics) {
-    const now = values.now !== undefined ? parseInstant(values.now, '--now') : new Date();
+    // DTSTAMP: --now, or 00:00 UTC of --from, so the same command writes the same feed (lib never reads the clock).
+    const now = values.now !== undefined ? parseInstant(values.now, '--now') : new Date(`${values.from}T00:00:00Z`);
     return out(eventsToICalendar(events, { site, prodId: values.prodid ?? '-//gloaming//sky events//EN', now }).replace(/\r\n$/, ''));
   }
   if (values.json) {

@@ -5,7 +5,7 @@
  */
 import { parseArgs, type ParseArgsConfig } from 'node:util';
 import { resolve } from 'node:path';
-import { BodyRegistry, BUILT_IN_IDS, type Body } from '../body.ts';
+import { BodyRegistry, BUILT_IN_IDS, PLANET_IDS, type Body } from '../body.ts';
 import { loadBodies } from '../content.ts';
 import { loadObjectFile } from '../orbit/elements.ts';
 import { smallBody } from '../orbit/body.ts';
@@ -14,7 +14,7 @@ import { compass, describeAltitude } from '../describe.ts';
 import { GloamingError } from '../errors.ts';
 import { computeNight } from '../night.ts';
 import { observe } from '../observe.ts';
-import { formatInstant, parseInstant, parseLocalDate } from '../time.ts';
+import { formatClock, parseInstant, parseLocalDate } from '../time.ts';
 import { nightJson, positionJson, round, weekJson } from './format.ts';
 import { argumentError, joinNegativeNumbers, requireFlag, siteFromFlags } from './args.ts';
 import { EVENTS_HELP, runEvents } from './events.ts';
@@ -81,7 +81,7 @@ Usage: gloaming night (--lat <deg> --lon <deg> [--elevation <m>] --tz <zone> | -
   --lat, --lon, --elevation, --site, --content   as for 'position'
   --tz <zone>         IANA time zone, e.g. Europe/Berlin
   --date <date>       local date of the evening, YYYY-MM-DD
-  --body <id>         repeatable; default: the Moon and all planets
+  --body <id>         repeatable; default: all planets (the Moon has its own entry)
   --elements <file>   also observe the comet or asteroid defined in this object file
   --sky <quality>     bortle:<1–9>, sqm:<mag/arcsec²> or nelm:<magnitude>
   --json              print one JSON object
@@ -121,8 +121,13 @@ function bodiesFrom(values: Record<string, unknown>, fallback: string[]): Body[]
   return bodies.length ? bodies : fallback.map((id) => reg.get(id));
 }
 
+/** A 24-hour clock time in `zone`, rounded to the minute (as the pages print it). */
+function hhmm(instant: Date, zone: string): string {
+  return formatClock(instant, { locale: 'en-GB', timeZone: zone }, { clock: 24 });
+}
+
 function timeText(e: EventTime, zone: string): string {
-  return e.time ? formatInstant(e.time, zone).slice(11, 16) : `— (${MISSING_REASON_TEXT[e.reason]})`;
+  return e.time ? hhmm(e.time, zone) : `— (${MISSING_REASON_TEXT[e.reason]})`;
 }
 
 function runPosition(args: string[], out: (s: string) => void): void {
@@ -157,9 +162,7 @@ function runNight(args: string[], out: (s: string) => void): void {
   const site = siteFromFlags(values, { needZone: true });
   const date = requireFlag(values.date, '--date', 'the local date of the evening, YYYY-MM-DD');
   parseLocalDate(date);
-  const bodies = bodiesFrom(values, ['moon', 'mercury', 'venus', 'mars', 'jupiter', 'saturn', 'uranus', 'neptune']).filter(
-    (b) => b.kind !== 'moon' || values.body !== undefined,
-  );
+  const bodies = bodiesFrom(values, [...PLANET_IDS]);
   const report = computeNight(site, date, bodies);
   if (values.json) return out(JSON.stringify(nightJson(report), null, 2));
   const zone = site.timeZone;
@@ -173,7 +176,7 @@ function runNight(args: string[], out: (s: string) => void): void {
     ...report.bodies.map((b) => {
       const v = b.visibility;
       const seen = v.best
-        ? `best ${formatInstant(v.best.time, zone).slice(11, 16)}${v.outsideViewingHours ? ' (outside viewing hours)' : ''}, ${compass(v.best.azimuthDeg).abbreviation} ${Math.round(v.best.altitudeDeg)}° up, ${v.verdict}`
+        ? `best ${hhmm(v.best.time, zone)}${v.outsideViewingHours ? ' (outside viewing hours)' : ''}, ${compass(v.best.azimuthDeg).abbreviation} ${Math.round(v.best.altitudeDeg)}° up, ${v.verdict}`
         : `not visible: ${REASON_TEXT[v.reason!]}`;
       const guide = b.guide ? `; ${b.guide.phrase}` : '';
       return `${b.body.name}: rises ${timeText(b.rise, zone)}, transits ${timeText(b.transit, zone)}, sets ${timeText(b.set, zone)}; ${seen}${guide}`;
@@ -199,7 +202,7 @@ function runWeek(args: string[], out: (s: string) => void): void {
   const lines = [`Week ${report.week.id} (${report.week.days[0]} – ${report.week.days[6]}) at ${round(site.latitudeDeg, 4)}°, ${round(site.longitudeDeg, 4)}° (${zone})`];
   for (const b of report.bodies) {
     const best = b.nights.find((n) => n.date === b.bestNight)?.visibility;
-    const when = best?.best ? `best on ${b.bestNight} at ${formatInstant(best.best.time, zone).slice(11, 16)} (${best.verdict})` : `not visible this week: ${REASON_TEXT[b.nights[0]!.visibility.reason ?? 'too-faint']}`;
+    const when = best?.best ? `best on ${b.bestNight} at ${hhmm(best.best.time, zone)} (${best.verdict})` : `not visible this week: ${REASON_TEXT[b.nights[0]!.visibility.reason ?? 'too-faint']}`;
     lines.push(`${b.body.name}: ${when}${b.changes.length ? `; ${b.changes.join('; ')}` : ''}`);
   }
   out(lines.join('\n'));
