@@ -67,9 +67,9 @@ export interface ChartCacheOptions {
   raster?: boolean;
   /** Called after each chart. */
   onProgress?: (progress: ChartProgress) => void;
-  /** Monotonic milliseconds for progress reports (default `performance.now`); lib never reads the date. */
+  /** Monotonic milliseconds for progress reports (e.g. `() => performance.now()`); without one, times read 0 (lib reads no clock). */
   clock?: () => number;
-  /** Replaces the code fingerprint (for tests). */
+  /** Replaces the code fingerprint: a digest of the computing code the caller already has (the site's build passes its own). */
   codeVersion?: string;
   /** Font files for rasters (TTF/OTF); system fonts are used as well unless `systemFonts` is false. */
   fontFiles?: string[];
@@ -78,11 +78,17 @@ export interface ChartCacheOptions {
 
 let fingerprint: string | null = null;
 
-/** SHA-256 over every source file under lib/ (path and content, sorted by path), computed once per process. */
+/**
+ * SHA-256 over every source file under lib/ (path and content, sorted by path) and the project's
+ * package-lock.json (library versions such as astronomy-engine), computed once per process. A
+ * build that already has a code digest passes it as `codeVersion` instead (the site does).
+ */
 export function codeFingerprint(): string {
   if (fingerprint) return fingerprint;
   const root = fileURLToPath(new URL('..', import.meta.url));
   const hash = createHash('sha256');
+  const lock = join(root, '..', 'package-lock.json');
+  if (existsSync(lock)) hash.update(readFileSync(lock));
   const walk = (dir: string): string[] =>
     readdirSync(dir)
       .sort()
@@ -175,7 +181,7 @@ export class ChartCache {
   constructor(options: ChartCacheOptions = {}) {
     this.#options = options;
     this.dir = options.dir ?? '.cache/charts';
-    this.#clock = options.clock ?? (() => performance.now());
+    this.#clock = options.clock ?? (() => 0);
     this.#start = this.#clock();
     mkdirSync(this.dir, { recursive: true });
   }

@@ -136,7 +136,7 @@ export function pagesLoader(): Loader {
         last = p;
         if (p.count % 25 === 0) logger.info(`charts: ${p.count} (${p.rendered} drawn, ${p.hits} from the cache), ${(p.elapsedMs / 1000).toFixed(1)} s`);
       };
-      const charts = { cache: new ChartCache({ dir: chartCacheDir(), onProgress }), url: (file: string) => `/charts/${file}` };
+      const charts = { cache: new ChartCache({ dir: chartCacheDir(), onProgress, codeVersion: project.codeDigest, clock: () => performance.now() }), url: (file: string) => `/charts/${file}` };
       const keep = new Set<string>();
       let computed = 0;
       for (const spec of project.pages) {
