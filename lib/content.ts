@@ -2,13 +2,15 @@
  * Content loading: sites from `content/sites/*.yaml`. Each file is parsed with positions, so a
  * bad value is reported as `file:line:column field '…': what is wrong; what is expected`.
  */
-import { readdirSync, readFileSync } from 'node:fs';
-import { basename, join } from 'node:path';
+import { readFileSync } from 'node:fs';
+import { basename } from 'node:path';
 import { BodyRegistry } from './body.ts';
 import { GloamingError, didYouMean } from './errors.ts';
 import { loadObjects } from './orbit/body.ts';
 import { defineSite, type Site } from './site.ts';
-import { loadYaml, validateYaml } from './yaml.ts';
+import { loadYaml, validateYaml, yamlFiles } from './yaml.ts';
+
+export { yamlFiles };
 
 /** Parses one site file. The id defaults to the file name without `.yaml`. */
 export function parseSite(text: string, file: string): Site {
@@ -17,17 +19,6 @@ export function parseSite(text: string, file: string): Site {
     const withId = data && typeof data === 'object' && !Array.isArray(data) && !('id' in data) ? { id: basename(file).replace(/\.ya?ml$/, ''), ...data } : data;
     return defineSite(withId);
   });
-}
-
-/** Every `*.yaml` file of a folder, sorted by name (so builds are deterministic). */
-export function yamlFiles(dir: string): string[] {
-  let names: string[];
-  try {
-    names = readdirSync(dir);
-  } catch {
-    return [];
-  }
-  return names.filter((n) => /\.ya?ml$/.test(n)).sort().map((n) => join(dir, n));
 }
 
 /** Loads all sites of `content/sites/` (or another folder), checking that ids are unique. */

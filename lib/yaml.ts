@@ -3,6 +3,8 @@
  * a `locate` function that maps a field path (e.g. `elements.eccentricity`, `horizon.3`) to
  * the line and column where that value is written, so validation errors can name the place.
  */
+import { readdirSync } from 'node:fs';
+import { join } from 'node:path';
 import { isMap, isSeq, LineCounter, parseDocument, type Node } from 'yaml';
 import { GloamingError, type Place } from './errors.ts';
 
@@ -89,3 +91,24 @@ export function validateYaml<T>(source: YamlSource, validate: (data: unknown) =>
     throw error;
   }
 }
+
+/**
+ * Every `*.yaml` file of a folder, sorted by name (so builds are deterministic). A folder that
+ * cannot be read is an error naming it (a misspelt content folder must not build an empty site),
+ * except a missing one when `optional` (objects are optional).
+ */
+export function yamlFiles(dir: string, options: { optional?: boolean } = {}): string[] {
+  let names: string[];
+  try {
+    names = readdirSync(dir);
+  } catch (error) {
+    if (options.optional && (error as NodeJS.ErrnoException).code === 'ENOENT') return [];
+    throw new GloamingError('invalid-argument', `cannot read the folder ${dir}`, {
+      place: { file: dir },
+      expected: 'a folder of YAML files (check the content folder given with --content)',
+      cause: error,
+    });
+  }
+  return names.filter((n) => /\.ya?ml$/.test(n)).sort().map((n) => join(dir, n));
+}
+

@@ -3,8 +3,7 @@
  * `kepler.ts`), the Earth from `astronomy-engine`, and expected magnitudes (`magnitude.ts`).
  * Once wrapped, an object works everywhere a planet does (observe, events, visibility, CLI).
  */
-import { readdirSync } from 'node:fs';
-import { join } from 'node:path';
+import { yamlFiles } from '../yaml.ts';
 import * as Astronomy from 'astronomy-engine';
 import type { Body, Illumination } from '../body.ts';
 import { GloamingError } from '../errors.ts';
@@ -146,20 +145,12 @@ export function tailPointGeoVector(body: SmallBody, time: Astronomy.AstroTime, o
 }
 
 /**
- * Loads every `*.yaml` object file in `dir` (sorted by file name) as bodies. Ids must be unique
+ * Loads every `*.yaml` (or `.yml`) object file in `dir` (sorted by file name) as bodies. Ids must be unique
  * within the folder; a clash names the second file. A missing folder gives no bodies.
  */
 export function loadObjects(dir: string): SmallBody[] {
-  let names: string[];
-  try {
-    names = readdirSync(dir).filter((n) => n.endsWith('.yaml')).sort();
-  } catch (error) {
-    if ((error as NodeJS.ErrnoException).code === 'ENOENT') return [];
-    throw error;
-  }
   const seen = new Map<string, string>();
-  return names.map((n) => {
-    const file = join(dir, n);
+  return yamlFiles(dir, { optional: true }).map((file) => {
     const object = loadObjectFile(file);
     const earlier = seen.get(object.id);
     if (earlier) {
