@@ -35,6 +35,7 @@ export type EventTime = { time: Date; reason?: undefined } | { time: null; reaso
 
 export interface RiseTransitSet {
   rise: EventTime;
+  /** Upper culmination, with the apparent (refracted) altitude of the centre then, degrees. */
   transit: EventTime & { altitudeDeg?: number };
   set: EventTime;
 }
@@ -84,7 +85,7 @@ export function riseTransitSet(frame: NightFrame, track: Track): RiseTransitSet 
     rise: rise ? { time: dateFromUt(rise.ut) } : missing(f, frame, false),
     set: set ? { time: dateFromUt(set.ut) } : missing(f, frame, false),
     transit: transit
-      ? { time: dateFromUt(transit.ut), altitudeDeg: track.at(transit.ut).geometricAltitudeDeg }
+      ? { time: dateFromUt(transit.ut), altitudeDeg: track.apparentAltitudeDeg(transit.ut) }
       : { time: null, reason: 'outside-night' },
   };
 }

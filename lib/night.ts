@@ -3,7 +3,8 @@
  * bodies. This is the value the command line prints and the bulletin placeholders read; later
  * stages (visibility, guide patterns) add to each body's entry.
  */
-import type { Body } from './body.ts';
+import * as Astronomy from 'astronomy-engine';
+import type { Body, MagnitudeEstimate } from './body.ts';
 import { builtInBody } from './body.ts';
 import { riseTransitSet, sunEvents, type RiseTransitSet, type SunEvents } from './events.ts';
 import { moonPhase, type MoonPhase } from './moon.ts';
@@ -26,6 +27,14 @@ export interface BodyNight extends RiseTransitSet {
    * best time), computed once on first read; null when neither moment exists or no pattern is up.
    */
   readonly guide: GuideResult | null;
+}
+
+/**
+ * A body's expected magnitude for a night: at local midnight, the one moment every page, chart,
+ * verdict and week summary uses (a fast comet changes by a few hundredths over a night).
+ */
+export function nightMagnitude(night: Night, body: Body): MagnitudeEstimate {
+  return body.illumination(Astronomy.MakeTime(localMidnight(night))).magnitude;
 }
 
 /** The guide pattern for `body` at `time` as seen from `site` (see `lib/stars/guide.ts`). */

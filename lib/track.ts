@@ -163,6 +163,12 @@ export class Track {
     return this.frame.horizontalOf(x, y, z, ut);
   }
 
+  /** Apparent altitude of the centre at `ut` with standard refraction (10 °C, 1010 hPa), degrees. */
+  apparentAltitudeDeg(ut: number): number {
+    const geometric = this.at(ut).geometricAltitudeDeg;
+    return geometric + Astronomy.Refraction('normal', geometric);
+  }
+
   /** Apparent semidiameter at `ut`, degrees. */
   semidiameterDeg(ut: number): number {
     const [x, y, z] = this.vectorAt(ut);

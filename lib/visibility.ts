@@ -19,9 +19,8 @@
  *   (visible without the Sun's light; daylight when the Sun is up at the moment it would be
  *   best seen); washed out by moonlight (visible without the Moon); otherwise too faint.
  */
-import * as Astronomy from 'astronomy-engine';
 import type { Body } from './body.ts';
-import type { NightReport } from './night.ts';
+import { nightMagnitude, type NightReport } from './night.ts';
 import { skylineAltitudeDeg, type Site } from './site.ts';
 import { darkSkyFromQuality } from './sky/quality.ts';
 import { extinctionCoefficientGreen, extinctionMag } from './sky/extinction.ts';
@@ -147,7 +146,7 @@ export class NightVisibility {
   state(track: Track, ut: number, without?: 'twilight' | 'moon'): SkyState | null {
     const site: Site = this.report.site;
     const p = track.at(ut);
-    const altitudeDeg = p.geometricAltitudeDeg + Astronomy.Refraction('normal', p.geometricAltitudeDeg);
+    const altitudeDeg = track.apparentAltitudeDeg(ut);
     if (altitudeDeg < Math.max(site.minAltitudeDeg, skylineAltitudeDeg(site, p.azimuthDeg))) return null;
     const frame = this.report.frame;
     const v = track.vectorAt(ut);
@@ -187,7 +186,7 @@ export class NightVisibility {
     const instruments = options.instruments ?? [DEFAULT_INSTRUMENTS['naked-eye'], DEFAULT_INSTRUMENTS.binoculars, DEFAULT_INSTRUMENTS.telescope];
     const frame = this.report.frame;
     const hours = options.span ?? viewingSpan(this.report);
-    const magnitude = body.illumination(Astronomy.MakeTime(dateFromUt((hours.ut0 + hours.ut1) / 2))).magnitude.value;
+    const magnitude = nightMagnitude(this.report.night, body).value;
     // The rest of the night: from the end of the viewing hours to sunrise (or the night's end).
     const sunrise = this.report.sun.rise.time;
     const rest = { ut0: hours.ut1, ut1: sunrise ? utDays(sunrise) : frame.ut1 };
@@ -243,14 +242,12 @@ export class NightVisibility {
 
   #reason(body: Body, instruments: Instrument[], magnitude: number, span: { ut0: number; ut1: number }, step: number): NotVisibleReason {
     const track = this.report.frame.track(body);
-    let up = false;
-    for (let ut = span.ut0; ut <= span.ut1 && !up; ut += step) if (this.state(track, ut)) up = true;
-    if (!up) {
-      const elongation = separationDeg(track.vectorAt(span.ut0), this.report.frame.sun.vectorAt(span.ut0));
-      return elongation < TOO_CLOSE_TO_SUN_DEG ? 'too-close-to-sun' : 'below-horizon';
-    }
-    const elongation = separationDeg(track.vectorAt(span.ut0), this.report.frame.sun.vectorAt(span.ut0));
-    if (elongation < TOO_CLOSE_TO_SUN_DEG) return 'too-close-to-sun';
+    const sun = this.report.frame.sun;
+    // The smallest angle from the Sun over the searched span, and whether the body is ever up.
+    const closest = -findMaximum((ut) => -separationDeg(track.vectorAt(ut), sun.vectorAt(ut)), span.ut0, span.ut1, { stepDays: step })!.value;
+    if (closest < TOO_CLOSE_TO_SUN_DEG) return 'too-close-to-sun';
+    const up = findMaximum((ut) => this.state(track, ut)?.altitudeDeg ?? NaN, span.ut0, span.ut1, { stepDays: step });
+    if (!up) return 'below-horizon';
     const best = instruments[instruments.length - 1]!;
     const visibleWithout = (without: 'twilight' | 'moon'): { ut: number } | null => {
       const m = findMaximum(this.marginFunction(body, best, magnitude, without), span.ut0, span.ut1, { stepDays: step });

@@ -4,10 +4,9 @@
  * sentences a bulletin can print ("brightens from 4.2 to 3.6", "rises 25 minutes earlier each
  * night", "Moon interference ends on Thursday").
  */
-import * as Astronomy from 'astronomy-engine';
 import type { Body } from './body.ts';
 import type { EventTime } from './events.ts';
-import { computeNight, type NightReport } from './night.ts';
+import { computeNight, nightMagnitude, type NightReport } from './night.ts';
 import type { Site } from './site.ts';
 import { addDays, isoWeekOf, parseLocalDate, type IsoWeek } from './time.ts';
 import type { Visibility } from './visibility.ts';
@@ -82,7 +81,7 @@ function interfered(v: Visibility): boolean {
 function summarise(body: Body, nights: NightReport[]): BodyWeek {
   const entries = nights.map((n) => n.bodies.find((b) => b.body.id === body.id)!);
   const visibilities = entries.map((e) => e.visibility);
-  const magnitudes = nights.map((n) => body.illumination(Astronomy.MakeTime(midnightTime(n))).magnitude.value);
+  const magnitudes = nights.map((n) => nightMagnitude(n.night, body).value);
   let bestNight: string | null = null;
   let bestMargin = -Infinity;
   visibilities.forEach((v, i) => {
@@ -120,10 +119,6 @@ function summarise(body: Body, nights: NightReport[]): BodyWeek {
   };
 }
 
-/** The middle of a night (local midnight, give or take a DST change). */
-function midnightTime(n: NightReport): Date {
-  return new Date((n.night.start.getTime() + n.night.end.getTime()) / 2);
-}
 
 /**
  * The week containing `date` (ISO week, Monday–Sunday) at `site`, for `bodies`.

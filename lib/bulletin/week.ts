@@ -7,7 +7,7 @@
  */
 import * as Astronomy from 'astronomy-engine';
 import { BodyRegistry, builtInBody, type Body } from '../body.ts';
-import { computeNight, localMidnight, type BodyNight, type NightReport } from '../night.ts';
+import { computeNight, localMidnight, nightMagnitude, type BodyNight, type NightReport } from '../night.ts';
 import { eventsOfWeek, type AlmanacEvent } from '../almanac/index.ts';
 import { observe, type Observation } from '../observe.ts';
 import type { Site } from '../site.ts';
@@ -78,7 +78,7 @@ export class WeekData {
   magnitudes(body: Body): WeekMagnitudes {
     let m = this.#magnitudes.get(body.id);
     if (!m) {
-      const estimates = this.nights.map((_, i) => body.illumination(Astronomy.MakeTime(this.midnight(i))).magnitude);
+      const estimates = this.nights.map((n) => nightMagnitude(n.night, body));
       const values = estimates.map((e) => e.value);
       m = {
         values,

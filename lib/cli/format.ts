@@ -106,7 +106,7 @@ export function nightJson(report: NightReport): Record<string, unknown> {
         rise: eventJson(b.rise, zone),
         transit: eventJson(b.transit, zone),
         set: eventJson(b.set, zone),
-        ...(b.transit.time ? { transitAltitude: round(b.transit.altitudeDeg ?? NaN, 2) } : {}),
+        ...(b.transit.time && b.transit.altitudeDeg !== undefined ? { transitAltitude: round(b.transit.altitudeDeg, 2) } : {}),
         ...(reasons(events) ? { reasons: reasons(events) } : {}),
         ...visibilityJson(b.visibility, zone),
         pattern: guideJson(b.guide),
