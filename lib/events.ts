@@ -51,23 +51,15 @@ function first(crossings: Crossing[], direction: 1 | -1): Crossing | undefined {
   return crossings.find((c) => c.direction === direction);
 }
 
-/** Altitude extremes over the night, sampled (for explaining missing events). */
-function altitudeRange(f: (ut: number) => number, frame: NightFrame): { min: number; max: number } {
-  let min = Infinity;
-  let max = -Infinity;
-  for (let ut = frame.ut0; ut <= frame.ut1; ut += SEARCH_STEP_DAYS) {
-    const v = f(ut);
-    if (v < min) min = v;
-    if (v > max) max = v;
-  }
-  return { min, max };
-}
-
-function missing(f: (ut: number) => number, frame: NightFrame, twilight: boolean): EventTime {
-  const { min, max } = altitudeRange(f, frame);
-  if (min > 0) return { time: null, reason: twilight ? 'stays-above' : 'always-above' };
-  if (max < 0) return { time: null, reason: twilight ? 'stays-below' : 'always-below' };
-  return { time: null, reason: 'outside-night' };
+/**
+ * Why an event is missing: with no crossing at all the function kept one sign all night (always
+ * above or always below); otherwise the crossing it needed happens outside the night.
+ */
+function missing(f: (ut: number) => number, frame: NightFrame, crossings: readonly Crossing[], twilight: boolean): EventTime {
+  if (crossings.length > 0) return { time: null, reason: 'outside-night' };
+  const above = f(frame.ut0) > 0;
+  if (twilight) return { time: null, reason: above ? 'stays-above' : 'stays-below' };
+  return { time: null, reason: above ? 'always-above' : 'always-below' };
 }
 
 /** Rise, transit and set of a body within the night of `frame` (the first of each). */
@@ -82,8 +74,8 @@ export function riseTransitSet(frame: NightFrame, track: Track): RiseTransitSet 
   });
   const transit = transits[0];
   return {
-    rise: rise ? { time: dateFromUt(rise.ut) } : missing(f, frame, false),
-    set: set ? { time: dateFromUt(set.ut) } : missing(f, frame, false),
+    rise: rise ? { time: dateFromUt(rise.ut) } : missing(f, frame, crossings, false),
+    set: set ? { time: dateFromUt(set.ut) } : missing(f, frame, crossings, false),
     transit: transit
       ? { time: dateFromUt(transit.ut), altitudeDeg: track.apparentAltitudeDeg(transit.ut) }
       : { time: null, reason: 'outside-night' },
@@ -112,8 +104,8 @@ export function sunEvents(frame: NightFrame): SunEvents {
     const dusk = first(c, -1);
     const dawn = first(c, 1);
     return {
-      dusk: dusk ? { time: dateFromUt(dusk.ut) } : missing(f, frame, true),
-      dawn: dawn ? { time: dateFromUt(dawn.ut) } : missing(f, frame, true),
+      dusk: dusk ? { time: dateFromUt(dusk.ut) } : missing(f, frame, c, true),
+      dawn: dawn ? { time: dateFromUt(dawn.ut) } : missing(f, frame, c, true),
     };
   };
   const civil = twilight(6);

@@ -10,6 +10,8 @@ import * as Astronomy from 'astronomy-engine';
 import { builtInBody } from '../body.ts';
 import { compass } from '../describe.ts';
 import { observe } from '../observe.ts';
+import { findMaximum } from '../search.ts';
+import { dateFromUt, utDays } from '../track.ts';
 import type { AlmanacContext } from './context.ts';
 import type { AlmanacEvent, EclipseContact, EclipseDetails, EventVisibility } from './types.ts';
 import { hidden } from './visibility.ts';
@@ -29,15 +31,10 @@ function pct(x: number): number {
   return Math.round(x * 100);
 }
 
-/** Samples [t0, t1] every 5 minutes and returns the moment the body is highest, with its altitude. */
+/** The moment in [t0, t1] when the body is highest, with its altitude (the search module's maximum). */
 function highest(altitudeAt: (t: Date) => number, t0: Date, t1: Date): { time: Date; altitudeDeg: number } {
-  let best = { time: t0, altitudeDeg: altitudeAt(t0) };
-  for (let ms = t0.getTime(); ms <= t1.getTime(); ms += STEP_MINUTES * 60_000) {
-    const a = altitudeAt(new Date(ms));
-    if (a > best.altitudeDeg) best = { time: new Date(ms), altitudeDeg: a };
-  }
-  const end = altitudeAt(t1);
-  return end > best.altitudeDeg ? { time: t1, altitudeDeg: end } : best;
+  const top = findMaximum((ut) => altitudeAt(dateFromUt(ut)), utDays(t0), utDays(t1), { stepDays: STEP_MINUTES / 1440 });
+  return top ? { time: dateFromUt(top.ut), altitudeDeg: top.value } : { time: t0, altitudeDeg: altitudeAt(t0) };
 }
 
 /** Lunar eclipses with their peak in [from, to). */

@@ -150,8 +150,9 @@ export function showerEvents(ctx: AlmanacContext, from: Date, to: Date, showers:
           note: `Best at ${ctx.clock(b.time)}, radiant ${Math.round(b.radiantAltitudeDeg)}° up in the ${compass(b.radiantAzimuthDeg).word}; look anywhere in the sky, about 40° from the radiant.`,
         };
       } else {
-        let dark = false;
-        for (let ut = frame.ut0; ut <= frame.ut1 && !dark; ut += 10 / 1440) dark = apparentPlace(frame, frame.sun.body, ut).altitudeDeg <= ctx.darkSunAltitudeDeg;
+        // Dark at some moment: the Sun's lowest point of the night is below the darkness altitude.
+        const lowest = -findMaximum((ut) => -apparentPlace(frame, frame.sun.body, ut).altitudeDeg, frame.ut0, frame.ut1, { stepDays: 10 / 1440 })!.value;
+        const dark = lowest <= ctx.darkSunAltitudeDeg;
         visibility = hidden(ctx, dark ? 'radiant-below-horizon' : 'no-darkness');
         description = `The ${shower.name} peak on ${night}, but ${dark ? `from here the radiant in ${shower.constellation} stays too low in the dark hours to see more than a stray meteor` : 'the sky here does not get dark enough'}.`;
       }
