@@ -67,7 +67,8 @@ export function moonPhase(instant: Instant): MoonPhase {
   const time = astroTime(instant);
   const elongationDeg = Astronomy.MoonPhase(time);
   const illum = Astronomy.Illumination(Astronomy.Body.Moon, time);
-  // The previous new Moon lies within the last 30 days; search forward from 31 days before.
+  // The previous new Moon lies about elongation / 12.19 days back (the mean daily gain on the Sun):
+  // search a 4-day window starting 2 days before that estimate.
   const lastNew = Astronomy.SearchMoonPhase(0, time.AddDays(-(elongationDeg / 12.19) - 2), 4);
   return {
     name: phaseName(elongationDeg),

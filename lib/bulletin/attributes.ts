@@ -22,7 +22,7 @@ export type AttributeType =
   /** An integer in a range. */
   | { kind: 'integer'; min: number; max: number }
   /** A named moment (`rise`, `transit`, …) or a local clock time `HH:MM` (before 12:00 = the next morning). */
-  | { kind: 'moment'; values: readonly string[]; reserved?: Readonly<Record<string, string>> };
+  | { kind: 'moment'; values: readonly string[] };
 
 export interface AttributeSpec {
   type: AttributeType;
@@ -59,7 +59,7 @@ export function describeType(type: AttributeType): string {
     case 'integer':
       return `an integer ${type.min}–${type.max}`;
     case 'moment':
-      return `${[...type.values, ...Object.keys(type.reserved ?? {})].join(' | ')} | HH:MM`;
+      return `${type.values.join(' | ')} | HH:MM`;
   }
 }
 
@@ -116,13 +116,6 @@ export function readAttribute(name: string, raw: string, type: AttributeType, co
       return n;
     }
     case 'moment': {
-      const waiting = type.reserved?.[value];
-      if (waiting) {
-        throw new GloamingError('invalid-placeholder', `${name}=${value} is not available yet: it needs ${waiting}`, {
-          actual: raw,
-          expected: describeType(type),
-        });
-      }
       if (type.values.includes(value)) return value;
       const m = /^(\d{1,2}):(\d{2})$/.exec(value);
       if (m) {
@@ -131,7 +124,7 @@ export function readAttribute(name: string, raw: string, type: AttributeType, co
         if (hour > 23 || minute > 59) bad(`'${value}' is not a clock time`, raw, type);
         return { hour, minute };
       }
-      return bad(`cannot read the moment '${value}'`, raw, type, didYouMean(value, [...type.values, ...Object.keys(type.reserved ?? {})]));
+      return bad(`cannot read the moment '${value}'`, raw, type, didYouMean(value, type.values));
     }
   }
 }

@@ -51,7 +51,7 @@ export function placeholderTable(): string {
     const attrs = Object.entries(spec.attributes)
       .map(([name, a]) => `\`${name}\`${a.required ? ' (required)' : ''}: ${describeType(a.type)}${a.default !== undefined ? ` (default: ${a.default})` : ''}`)
       .join('; ');
-    const output = spec.needs ? `reserved: needs ${spec.needs}` : outputOf(spec.example, cache);
+    const output = outputOf(spec.example, cache);
     lines.push(`| \`${written}\` | ${cell(spec.summary)} | ${cell(attrs || '—')} | \`${cell(spec.example)}\` | ${cell(output)} |`);
   }
   return lines.join('\n') + '\n';

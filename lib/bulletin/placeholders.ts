@@ -3,10 +3,7 @@
  * placeholder, says whether it is written inline (`:name{…}`) or as a block on its own line
  * (`::name{…}`), lists its attributes with types and defaults, gives an example for the docs, and
  * renders from the shared week data (`WeekData`). Adding a placeholder is adding one entry.
- *
- * Entries with `needs` are reserved: their names are taken, and using them is a clear build error
- * until the data they need exists (best time and verdicts #4, guide patterns #5, charts #7,
- * events #8).
+
  *
  * Output is semantic HTML: `<time datetime>` for instants and dates, `<data value>` for numbers,
  * `data-*` attributes carrying the exact values, and classes `gl gl-<name>` for styling.
@@ -57,9 +54,7 @@ export interface PlaceholderSpec {
   attributes: Readonly<Record<string, AttributeSpec>>;
   /** An example as written in a template. */
   example: string;
-  /** Reserved: what the placeholder needs before it can render (e.g. `the best-viewing-time model (#4)`). */
-  needs?: string;
-  render?: (call: PlaceholderCall) => ElementContent;
+  render: (call: PlaceholderCall) => ElementContent;
 }
 
 let sharedCharts: ChartOutput | undefined;

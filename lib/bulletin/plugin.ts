@@ -140,11 +140,6 @@ function check(node: Directive, read: ReadContext, defaults: { night: number; cl
   if (node.children.length > 0) {
     throw new GloamingError('invalid-placeholder', `'${written(node)}' takes no [label]`, { hint: `attributes go in braces, e.g. ${spec.example}` });
   }
-  if (spec.needs) {
-    throw new GloamingError('invalid-placeholder', `'${written(node)}' is not available yet: it needs ${spec.needs}`, {
-      hint: 'remove it for now; the build will accept it once that data exists',
-    });
-  }
   const attrs = new Map<string, AttributeValue>();
   const given = new Set<string>();
   for (const [name, raw] of Object.entries(node.attributes ?? {})) {
@@ -275,7 +270,7 @@ export function remarkPlaceholders(options: RemarkPlaceholdersOptions) {
         nearSun: (body) => nearSun.set(body.id, body),
         ...(scope.charts ? { charts: scope.charts } : {}),
       };
-      replaceWith(c.node, c.spec.render!(call));
+      replaceWith(c.node, c.spec.render(call));
     }
     file.data.placeholders = { count: checked.length, nearSun: [...nearSun.values()] };
     return undefined;
