@@ -30,6 +30,13 @@ export interface SkyPoint {
   distanceAu: number;
 }
 
+/** Angle between two vectors, degrees (atan2 form: accurate at 0° and 180°). */
+export function separationDeg(a: readonly [number, number, number], b: readonly [number, number, number]): number {
+  const dot = a[0] * b[0] + a[1] * b[1] + a[2] * b[2];
+  const cross = Math.hypot(a[1] * b[2] - a[2] * b[1], a[2] * b[0] - a[0] * b[2], a[0] * b[1] - a[1] * b[0]);
+  return Math.atan2(cross, dot) / RAD;
+}
+
 /** Converts a `Date` to `astronomy-engine` UT days. */
 export function utDays(date: Date): number {
   return Astronomy.MakeTime(date).ut;

@@ -27,10 +27,9 @@ import { extinctionCoefficientGreen, extinctionMag } from './sky/extinction.ts';
 import { skyBrightness, type SkyBrightness } from './sky/brightness.ts';
 import { limitingMagnitude, DEFAULT_INSTRUMENTS, type Instrument, type InstrumentKind } from './sky/threshold.ts';
 import { findCrossings, findMaximum } from './search.ts';
-import { dateFromUt, utDays, type Track } from './track.ts';
+import { dateFromUt, separationDeg, utDays, type Track } from './track.ts';
 import { addDays, localMidnight, zonedTime } from './time.ts';
 
-const RAD = Math.PI / 180;
 /** Below this elongation a body is reported as too close to the Sun, degrees (near conjunction). */
 export const TOO_CLOSE_TO_SUN_DEG = 8;
 /** Sampling step of the visibility search, days (5 minutes). */
@@ -110,12 +109,6 @@ export function viewingSpan(report: NightReport): { ut0: number; ut1: number } {
   return { ut0: utDays(start), ut1: utDays(localMidnight(night)) };
 }
 
-/** Angle between two vectors, degrees. */
-function separationDeg(a: [number, number, number], b: [number, number, number]): number {
-  const dot = a[0] * b[0] + a[1] * b[1] + a[2] * b[2];
-  const cross = Math.hypot(a[1] * b[2] - a[2] * b[1], a[2] * b[0] - a[0] * b[2], a[0] * b[1] - a[1] * b[0]);
-  return Math.atan2(cross, dot) / RAD;
-}
 
 /** The sky state of a body at `ut`, or null when it is not above the skyline and minimum altitude. */
 interface SkyState {

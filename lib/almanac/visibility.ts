@@ -6,16 +6,14 @@
  * best moment of the same night (local noon to local noon) is searched: the moment when the
  * lowest of the bodies stands highest above its limit (`findMaximum` of lib/search.ts).
  */
-import * as Astronomy from 'astronomy-engine';
 import type { Body } from '../body.ts';
 import { compass } from '../describe.ts';
 import { findMaximum } from '../search.ts';
 import { skylineAltitudeDeg } from '../site.ts';
-import { dateFromUt, utDays, type NightFrame } from '../track.ts';
+import { dateFromUt, separationDeg, utDays, type NightFrame } from '../track.ts';
 import type { AlmanacContext } from './context.ts';
 import type { EventHiddenReason, EventVisibility } from './types.ts';
 
-const RAD = Math.PI / 180;
 /** Below this elongation a body is reported as lost in the Sun's glare, degrees (common practice). */
 export const GLARE_ELONGATION_DEG = 10;
 /** Sampling step of the best-moment search, days (10 minutes; refined to 1 s). */
@@ -32,8 +30,8 @@ export const HIDDEN_REASON_TEXT: Record<EventHiddenReason, string> = {
 
 /** Apparent (refracted) altitude and azimuth of a body on a night's track, degrees. */
 export function apparentPlace(frame: NightFrame, body: Body, ut: number): { altitudeDeg: number; azimuthDeg: number } {
-  const p = frame.track(body).at(ut);
-  return { altitudeDeg: p.geometricAltitudeDeg + Astronomy.Refraction('normal', p.geometricAltitudeDeg), azimuthDeg: p.azimuthDeg };
+  const track = frame.track(body);
+  return { altitudeDeg: track.apparentAltitudeDeg(ut), azimuthDeg: track.at(ut).azimuthDeg };
 }
 
 /** Lowest margin (apparent altitude − max(skyline, minimum altitude)) of the bodies at `ut`, degrees. */
@@ -53,10 +51,7 @@ function isDark(ctx: AlmanacContext, frame: NightFrame, ut: number): boolean {
 
 /** Geocentric angle between a body and the Sun at `ut`, degrees. */
 export function elongationDeg(frame: NightFrame, body: Body, ut: number): number {
-  const a = frame.track(body).vectorAt(ut);
-  const s = frame.sun.vectorAt(ut);
-  const dot = a[0] * s[0] + a[1] * s[1] + a[2] * s[2];
-  return Math.acos(Math.max(-1, Math.min(1, dot / (Math.hypot(...a) * Math.hypot(...s))))) / RAD;
+  return separationDeg(frame.track(body).vectorAt(ut), frame.sun.vectorAt(ut));
 }
 
 /** The note for a moment: "21:10, 25° up in the south-west". */
