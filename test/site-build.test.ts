@@ -168,6 +168,18 @@ describe('site build', () => {
     expect(readdirSync(work).filter((n) => n.startsWith('.tmp-'))).toEqual([]);
   }, 60_000);
 
+  it('bad comet elements stop the build before any page is made, with file:line:column and field', () => {
+    const before = treeDigest(join(work, 'a'));
+    const bad = join(work, 'bad-object');
+    cpSync(join(ROOT, 'content'), bad, { recursive: true });
+    const file = join(bad, 'objects/comet-lumen.yaml');
+    writeFileSync(file, readFileSync(file, 'utf8').replace('eccentricity: 0.999', 'eccentricity: -0.2'));
+    const r = build(['--today', TODAY, '--out', join(work, 'a'), '--content', bad]);
+    expect(r.status).toBe(1);
+    expect(r.stderr).toMatch(/^error: \S*objects\/comet-lumen\.yaml:\d+:\d+ field 'elements\.eccentricity': /);
+    expect(treeDigest(join(work, 'a'))).toEqual(before);
+  }, 60_000);
+
   it('a placeholder error inside a bulletin (found while Astro runs) is positioned too, and nothing is replaced', () => {
     const before = treeDigest(join(work, 'a'));
     const bad = join(work, 'bad-template');
