@@ -493,7 +493,8 @@ function eventItem(call: PlaceholderCall, e: AlmanacEvent): ElementContent {
     { type: 'text', value: ' ' },
     el('span', { className: ['gl-event-text'] }, e.description),
   ];
-  if (e.visibility.note && !e.description.includes(e.visibility.note)) children.push({ type: 'text', value: ' ' }, el('span', { className: ['gl-event-note'] }, e.visibility.note));
+  // A visible event's sentence already says when and where to look; a hidden one gets its reason.
+  if (!e.visible && e.visibility.note && !e.description.includes(e.visibility.note)) children.push({ type: 'text', value: ' ' }, el('span', { className: ['gl-event-note'] }, e.visibility.note));
   if (e.caution) children.push({ type: 'text', value: ' ' }, el('strong', { className: ['gl-caution'] }, e.caution));
   return el('li', { dataType: e.type, dataVisible: String(e.visible), dataBodies: e.bodies.join(' ') }, children);
 }
