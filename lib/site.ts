@@ -48,6 +48,8 @@ export interface Site {
   viewingHours: ViewingHours | null;
   /** BCP 47 locale for formatting times (12/24-hour clock), e.g. `en-GB`. */
   locale: string;
+  /** A sentence or two about the site for its page (may be empty). */
+  description: string;
   /** The observer for `astronomy-engine`. */
   observer: Astronomy.Observer;
 }
@@ -65,6 +67,7 @@ export interface SiteInput {
   minAltitude?: unknown;
   viewingHours?: unknown;
   locale?: unknown;
+  description?: unknown;
 }
 
 const FIELDS = ['id', 'name', 'latitude', 'longitude', 'elevation', 'timeZone', 'sky', 'horizon', 'minAltitude', 'viewingHours', 'locale', 'description'];
@@ -186,6 +189,8 @@ export function defineSite(input: unknown, place?: Place): Site {
     }
     const name = o.name === undefined ? id : o.name;
     if (typeof name !== 'string' || name.trim() === '') fail('name', 'a site name is non-empty text', name, 'a display name');
+    const description = o.description === undefined ? '' : o.description;
+    if (typeof description !== 'string') fail('description', 'a site description is text', description, 'a sentence or two');
     const locale = o.locale === undefined ? 'en-GB' : o.locale;
     if (typeof locale !== 'string' || !isLocale(locale)) fail('locale', 'unknown locale', locale, "a BCP 47 locale such as 'en-GB' or 'en-US'");
     return {
@@ -200,6 +205,7 @@ export function defineSite(input: unknown, place?: Place): Site {
       minAltitudeDeg: o.minAltitude === undefined ? 5 : numberIn(o.minAltitude, 'minAltitude', 0, 45, 'a minimum altitude in degrees'),
       viewingHours: parseViewingHours(o.viewingHours),
       locale,
+      description: description.trim(),
       observer: new Astronomy.Observer(latitudeDeg, longitudeDeg, elevationM),
     };
   } catch (error) {

@@ -5,7 +5,6 @@
  */
 import { readFileSync } from 'node:fs';
 import { join, relative, resolve } from 'node:path';
-import { parse as parseYaml } from 'yaml';
 import { BodyRegistry } from '../../lib/body.ts';
 import { pagesFor, parseBulletin } from '../../lib/bulletin/index.ts';
 import type { BulletinTemplate, PageSpec } from '../../lib/bulletin/types.ts';
@@ -72,9 +71,7 @@ export function loadProject(root: string, options: SiteBuildOptions): Project {
         expected: `an id not used by ${sites.get(site.id)!.file}`,
       });
     }
-    const raw = parseYaml(text) as { description?: unknown } | null;
-    const description = typeof raw?.description === 'string' ? raw.description.trim() : '';
-    sites.set(site.id, { site, file, textDigest: sha256(text), description });
+    sites.set(site.id, { site, file, textDigest: sha256(text), description: site.description });
   }
   const siteMap = new Map([...sites].map(([id, s]) => [id, s.site]));
   const selected = (options.only ?? [...sites.keys()].sort()).map((id) => sites.get(findSite(siteMap, id, { field: 'sites' }).id)!);
