@@ -31,6 +31,7 @@ import { guidePattern, type GuideResult } from '../stars/guide.ts';
 import { patternById, patterns, type StarPattern } from '../stars/patterns.ts';
 import { starByHip } from '../stars/catalogue.ts';
 import { SkyAt } from './place.ts';
+import { brightLimbAngle, moonMarkup } from './moon.ts';
 import { angleFromRadius, makeLayout, stereographicRadius, type AltAz, type ChartLayout } from './projection.ts';
 
 export type { ChartLayout };
@@ -285,7 +286,8 @@ export function horizonChart(input: { site: Site; body: Body; time: Date; option
     const mark: ChartMark = { kind: isMoon ? 'moon' : 'planet', id: other.id, label: other.name, altitudeDeg: o.altitudeDeg, azimuthDeg: o.azimuthDeg, x: q.x, y: q.y, labelled: false };
     if (isMoon) {
       const r = Math.max(6, o.semidiameterDeg * scale * (Math.PI / 180) * 2);
-      bodyMarkup.push(`<circle cx="${n(q.x)}" cy="${n(q.y)}" r="${n(r)}" fill="${COLOURS.moon}" stroke="${COLOURS.sky}" stroke-width="1"/>`);
+      const sun = observe(site, builtInBody('sun'), time);
+      bodyMarkup.push(moonMarkup(q.x, q.y, r, o.illuminatedFraction, brightLimbAngle(layout, o, sun)));
       labelQueue.push({ x: q.x, y: q.y, text: 'Moon', size: FONT.label, gap: r, fill: COLOURS.moon, mark, force: true });
     } else {
       // Planets: a small filled square, so they differ from stars by shape as well as colour.

@@ -24,6 +24,7 @@ import { patternById, patterns, type StarPattern } from '../stars/patterns.ts';
 import { zonedTime } from '../time.ts';
 import type { ChartMark } from './horizon.ts';
 import { SkyAt } from './place.ts';
+import { brightLimbAngle, moonMarkup } from './moon.ts';
 import { makeLayout, type ChartLayout } from './projection.ts';
 import { CHART_WIDTH, COLOURS, FONT, chartMagnitudeLimit, starRadius } from './style.ts';
 import { LabelPlacer, SVG_CLOSE, n, pathOf, svgOpen, text } from './svg.ts';
@@ -163,7 +164,7 @@ export function skyChart(input: { site: Site; time: Date; body?: Body; options?:
     const isMoon = other.kind === 'moon';
     const mark: ChartMark = { kind: isMoon ? 'moon' : 'planet', id: other.id, label: other.name, altitudeDeg: o.altitudeDeg, azimuthDeg: o.azimuthDeg, x: q.x, y: q.y, labelled: false };
     marks.push(mark);
-    if (isMoon) parts.push(`<circle cx="${n(q.x)}" cy="${n(q.y)}" r="6" fill="${COLOURS.moon}" stroke="${COLOURS.sky}" stroke-width="1"/>`);
+    if (isMoon) parts.push(moonMarkup(q.x, q.y, 6, o.illuminatedFraction, brightLimbAngle(layout, o, observe(site, builtInBody('sun'), time))));
     else parts.push(`<rect x="${n(q.x - 3.2)}" y="${n(q.y - 3.2)}" width="6.4" height="6.4" fill="${COLOURS.planet}" stroke="${COLOURS.sky}" stroke-width="1" transform="rotate(45 ${n(q.x)} ${n(q.y)})"/>`);
     placer.reserve(q.x - 7, q.y - 7, q.x + 7, q.y + 7);
     labels.push({ x: q.x, y: q.y, text: other.name, fill: isMoon ? COLOURS.moon : COLOURS.planet, gap: isMoon ? 7 : 5, mark });
