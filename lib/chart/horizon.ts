@@ -28,9 +28,9 @@ import { observe, type Observation } from '../observe.ts';
 import { tailPointGeoVector, type SmallBody } from '../orbit/body.ts';
 import { skylineAltitudeDeg, type Site } from '../site.ts';
 import { guidePattern, type GuideResult } from '../stars/guide.ts';
-import { patternById, patterns, type StarPattern } from '../stars/patterns.ts';
+import { patternById, type StarPattern } from '../stars/patterns.ts';
 import { starByHip } from '../stars/catalogue.ts';
-import { SkyAt } from './place.ts';
+import { patternLinesMarkup, SkyAt } from './place.ts';
 import { brightLimbAngle, moonMarkup } from './moon.ts';
 import { angleFromRadius, makeLayout, stereographicRadius, type AltAz, type ChartLayout } from './projection.ts';
 
@@ -202,25 +202,16 @@ export function horizonChart(input: { site: Site; body: Body; time: Date; option
   if (grid.length) parts.push(`<path d="${grid.join('')}" fill="none" stroke="${COLOURS.grid}" stroke-width="0.8" stroke-dasharray="3 4" opacity="0.7"/>`);
 
   // Pattern lines: other patterns faint, the guide pattern bold.
-  const linePath = (pattern: StarPattern): string => {
-    let d = '';
-    for (const [a, b] of pattern.lines) {
-      const pa = sky.star(starByHip(a)!);
-      const pb = sky.star(starByHip(b)!);
-      if (pa.altitudeDeg < -2 || pb.altitudeDeg < -2) continue;
-      const qa = layout.toChart(pa.altitudeDeg, pa.azimuthDeg);
-      const qb = layout.toChart(pb.altitudeDeg, pb.azimuthDeg);
-      if (!inScene(qa, 150) || !inScene(qb, 150)) continue;
-      if (!inScene(qa) && !inScene(qb)) continue;
-      d += `M${n(qa.x)} ${n(qa.y)}L${n(qb.x)} ${n(qb.y)}`;
-    }
-    return d;
-  };
-  let others = '';
-  for (const pattern of patterns()) if (pattern.id !== guidePat?.id) others += linePath(pattern);
-  if (others) parts.push(`<path d="${others}" fill="none" stroke="${COLOURS.otherPattern}" stroke-width="1"/>`);
-  const guideLines = guidePat ? linePath(guidePat) : '';
-  if (guideLines) parts.push(`<path d="${guideLines}" fill="none" stroke="${COLOURS.guide}" stroke-width="1.6" opacity="0.9"/>`);
+  // Lines a little below the horizon still show a pattern that is rising; ends far off the scene are dropped.
+  parts.push(
+    ...patternLinesMarkup(
+      sky,
+      layout,
+      guidePat,
+      ({ a, b, qa, qb }) => a.altitudeDeg >= -2 && b.altitudeDeg >= -2 && inScene(qa, 150) && inScene(qb, 150) && (inScene(qa) || inScene(qb)),
+      { guideWidth: 1.6, guideOpacity: 0.9 },
+    ),
+  );
 
   // Stars: to the limit, plus every star of the guide pattern.
   const drawn: HorizonChart['stars'] = [];

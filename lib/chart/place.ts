@@ -11,8 +11,11 @@
  */
 import * as Astronomy from 'astronomy-engine';
 import type { Site } from '../site.ts';
-import { stars, type Star } from '../stars/catalogue.ts';
-import type { AltAz } from './projection.ts';
+import { starByHip, stars, type Star } from '../stars/catalogue.ts';
+import { patterns, type StarPattern } from '../stars/patterns.ts';
+import type { AltAz, ChartLayout } from './projection.ts';
+import { COLOURS } from './style.ts';
+import { n } from './svg.ts';
 
 const RAD = Math.PI / 180;
 
@@ -98,4 +101,47 @@ export class SkyAt {
     }
     return out;
   }
+}
+
+/** A pattern line's two ends: where the stars are in the sky and on the chart (null when unprojectable). */
+export interface LineEnds {
+  a: { altitudeDeg: number; azimuthDeg: number };
+  b: { altitudeDeg: number; azimuthDeg: number };
+  qa: { x: number; y: number } | null;
+  qb: { x: number; y: number } | null;
+}
+
+/**
+ * The pattern lines of a chart as SVG: every pattern's lines that `keep` accepts, in the quiet
+ * colour, and the guide pattern's on top in its own colour. One drawing for both kinds of chart;
+ * each chart says which lines belong on it.
+ */
+export function patternLinesMarkup(
+  sky: SkyAt,
+  layout: ChartLayout,
+  guide: StarPattern | null,
+  keep: (ends: LineEnds) => boolean,
+  style: { guideWidth: number; guideOpacity?: number },
+): string[] {
+  const path = (pattern: StarPattern): string => {
+    let d = '';
+    for (const [ha, hb] of pattern.lines) {
+      const a = sky.star(starByHip(ha)!);
+      const b = sky.star(starByHip(hb)!);
+      const ends = { a, b, qa: layout.toChart(a.altitudeDeg, a.azimuthDeg), qb: layout.toChart(b.altitudeDeg, b.azimuthDeg) };
+      if (!ends.qa || !ends.qb || !keep(ends)) continue;
+      d += `M${n(ends.qa.x)} ${n(ends.qa.y)}L${n(ends.qb.x)} ${n(ends.qb.y)}`;
+    }
+    return d;
+  };
+  const out: string[] = [];
+  let others = '';
+  for (const pattern of patterns()) if (pattern.id !== guide?.id) others += path(pattern);
+  if (others) out.push(`<path d="${others}" fill="none" stroke="${COLOURS.otherPattern}" stroke-width="1"/>`);
+  const guideLines = guide ? path(guide) : '';
+  if (guideLines) {
+    const opacity = style.guideOpacity !== undefined ? ` opacity="${style.guideOpacity}"` : '';
+    out.push(`<path d="${guideLines}" fill="none" stroke="${COLOURS.guide}" stroke-width="${style.guideWidth}"${opacity}/>`);
+  }
+  return out;
 }

@@ -20,10 +20,10 @@ import { observe, type Observation } from '../observe.ts';
 import { skylineAltitudeDeg, type Site } from '../site.ts';
 import { starByHip } from '../stars/catalogue.ts';
 import { guidePattern, type GuideResult } from '../stars/guide.ts';
-import { patternById, patterns, type StarPattern } from '../stars/patterns.ts';
+import { patternById, type StarPattern } from '../stars/patterns.ts';
 import { zonedTime } from '../time.ts';
 import type { ChartMark } from './horizon.ts';
-import { SkyAt } from './place.ts';
+import { patternLinesMarkup, SkyAt } from './place.ts';
 import { brightLimbAngle, moonMarkup } from './moon.ts';
 import { makeLayout, type ChartLayout } from './projection.ts';
 import { CHART_WIDTH, COLOURS, FONT, chartMagnitudeLimit, starRadius } from './style.ts';
@@ -109,23 +109,7 @@ export function skyChart(input: { site: Site; time: Date; body?: Body; options?:
   }
 
   // Pattern lines: every pattern with both ends above the horizon; the guide pattern emphasised.
-  const linePath = (pattern: StarPattern): string => {
-    let d = '';
-    for (const [a, b] of pattern.lines) {
-      const pa = sky.star(starByHip(a)!);
-      const pb = sky.star(starByHip(b)!);
-      if (!up(pa.altitudeDeg) || !up(pb.altitudeDeg)) continue;
-      const qa = layout.toChart(pa.altitudeDeg, pa.azimuthDeg)!;
-      const qb = layout.toChart(pb.altitudeDeg, pb.azimuthDeg)!;
-      d += `M${n(qa.x)} ${n(qa.y)}L${n(qb.x)} ${n(qb.y)}`;
-    }
-    return d;
-  };
-  let others = '';
-  for (const pattern of patterns()) if (pattern.id !== guidePat?.id) others += linePath(pattern);
-  if (others) parts.push(`<path d="${others}" fill="none" stroke="${COLOURS.otherPattern}" stroke-width="1"/>`);
-  const guideLines = guidePat ? linePath(guidePat) : '';
-  if (guideLines) parts.push(`<path d="${guideLines}" fill="none" stroke="${COLOURS.guide}" stroke-width="1.6"/>`);
+  parts.push(...patternLinesMarkup(sky, layout, guidePat, ({ a, b }) => up(a.altitudeDeg) && up(b.altitudeDeg), { guideWidth: 1.6 }));
 
   // Stars.
   const placed = sky.stars(magnitudeLimit, visible);
