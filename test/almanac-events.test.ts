@@ -11,7 +11,7 @@ import { findEvents, hourlyRate, METEOR_SHOWERS, type AlmanacEvent } from '../li
 import { eventJson, EVENTS_HELP, runEvents } from '../lib/cli/events.ts';
 import { observe } from '../lib/observe.ts';
 import { builtInBody } from '../lib/body.ts';
-import { expectWithin } from './helpers/tolerance.ts';
+import { expectWithin, separationDeg } from './helpers/tolerance.ts';
 
 const london = defineSite({ id: 'london', name: 'London', latitude: 51.5, longitude: -0.12, timeZone: 'Europe/London', sky: { bortle: 6 } });
 const sydney = defineSite({ id: 'sydney-field', name: 'Field station', latitude: -34.35, longitude: 150.05, elevation: 640, timeZone: 'Australia/Sydney', sky: { bortle: 3 } });
@@ -200,5 +200,25 @@ describe('week helpers for the bulletin placeholders', () => {
     const vj = pickEvent(week, { type: 'close-approach', bodies: ['venus', 'jupiter'] });
     expect(vj?.bodies).toEqual(['venus', 'jupiter']);
     expect(pickEvent(week, { type: 'solar-eclipse' })).toBeNull();
+  });
+});
+
+describe('comets passing the stars of familiar patterns', () => {
+  it('finds the invented comet passing stars of the Circlet of Pisces, at the separation of the two J2000 directions (Meeus eq. 17.1)', async () => {
+    const { loadBodies } = await import('../lib/content.ts');
+    const { starByHip } = await import('../lib/stars/catalogue.ts');
+    const bodies = loadBodies('content/objects');
+    const events = findEvents({ site: london, from: new Date('2027-01-20T00:00:00Z'), to: new Date('2027-02-15T00:00:00Z'), bodies, options: { types: ['close-approach'] } });
+    const passes = events.filter((e) => e.bodies[0] === 'comet-lumen' && e.bodies[1]!.startsWith('star:'));
+    expect(passes.length).toBeGreaterThan(0);
+    const circlet = passes.find((e) => e.description.includes('Circlet of Pisces'));
+    expect(circlet, passes.map((e) => e.description).join('\n')).toBeDefined();
+    for (const e of passes) {
+      const star = starByHip(Number(e.bodies[1]!.slice(5)))!;
+      const comet = observe(london, bodies.get('comet-lumen'), e.time);
+      // Separation of the comet's astrometric J2000 place and the catalogue star (the minimum is geocentric, J2000).
+      expectWithin(separationDeg(comet.raJ2000Hours, comet.decJ2000Deg, star.raDeg / 15, star.decDeg), e.separationDeg!, 0.02, `${e.title} separation`);
+      expect(e.separationDeg!).toBeLessThanOrEqual(1.5);
+    }
   });
 });

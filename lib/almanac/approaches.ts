@@ -15,7 +15,8 @@ import { builtInBody } from '../body.ts';
 import { compass } from '../describe.ts';
 import { findCrossings } from '../search.ts';
 import { distanceWords, offsetInSky, type OffsetDirection } from '../stars/guide.ts';
-import { stars, type Star } from '../stars/catalogue.ts';
+import { starByHip, stars, type Star } from '../stars/catalogue.ts';
+import { patterns } from '../stars/patterns.ts';
 import { dateFromUt, utDays } from '../track.ts';
 import type { AlmanacContext } from './context.ts';
 import { starBody } from './context.ts';
@@ -111,7 +112,7 @@ export interface ApproachOptions {
   moon?: boolean;
 }
 
-/** Close approaches with minima in [from, to): Moon–planet, Moon–star, planet–planet, planet–star, comet–star. */
+/** Close approaches with minima in [from, to): Moon–planet, Moon–star, planet–planet, planet–star, comet–star (bright stars and every pattern star). */
 export function approachEvents(ctx: AlmanacContext, from: Date, to: Date, options: ApproachOptions = {}): AlmanacEvent[] {
   const limits = { ...DEFAULT_APPROACH_LIMITS, ...options.limits };
   const planetIds = options.planets ?? ['mercury', 'venus', 'mars', 'jupiter', 'saturn'];
@@ -135,7 +136,11 @@ export function approachEvents(ctx: AlmanacContext, from: Date, to: Date, option
     for (let j = i + 1; j < movers.length; j++) pairs.push({ a: movers[i]!, b: movers[j]!, limit: limits.planetPlanetDeg });
   }
   for (const p of planets) for (const s of eclipticStars) pairs.push({ a: p, b: s, limit: limits.planetStarDeg });
-  for (const c of small) for (const s of allStars) pairs.push({ a: c, b: s, limit: limits.planetStarDeg });
+  // Comets and asteroids also against every star of a pattern: a comet passing a familiar figure
+  // is news even when the star is faint.
+  const brightHips = new Set(bright.map((s) => s.hip));
+  const patternStars = [...PATTERN_OF_STAR.keys()].filter((hip) => !brightHips.has(hip)).map((hip) => starDirections(starByHip(hip)!));
+  for (const c of small) for (const s of [...allStars, ...patternStars]) pairs.push({ a: c, b: s, limit: limits.planetStarDeg });
 
   const out: AlmanacEvent[] = [];
   for (const { a, b, limit } of pairs) {
@@ -144,16 +149,29 @@ export function approachEvents(ctx: AlmanacContext, from: Date, to: Date, option
   return out;
 }
 
+/** Star id (`star:<HIP>`) → how its pattern reads in a sentence (the first pattern that uses the star). */
+const PATTERN_OF_STAR = new Map<number, string>();
+for (const pattern of patterns()) for (const hip of pattern.stars) if (!PATTERN_OF_STAR.has(hip)) PATTERN_OF_STAR.set(hip, pattern.sentenceName);
+
+/** ", in the Great Square of Pegasus" for a pattern star, else nothing. */
+function patternWords(body: Body): string {
+  const hip = /^star:(\d+)$/.exec(body.id)?.[1];
+  const pattern = hip ? PATTERN_OF_STAR.get(Number(hip)) : undefined;
+  return pattern ? `, in ${pattern}` : '';
+}
+
 function magnitudeOf(body: Body, time: Date): number {
   return body.illumination(Astronomy.MakeTime(time)).magnitude.value;
 }
 
 /** The event for one minimum: visibility from the site and a sentence with the placement seen from there. */
 export function describeApproach(ctx: AlmanacContext, first: Body, second: Body, time: Date, separationDeg: number): AlmanacEvent {
-  // Lead with the Moon, else the brighter body.
+  // Lead with the Moon, else with the body that moves (a planet or comet before a star), else the brighter.
   let a = first;
   let b = second;
-  if (b.kind === 'moon' || (a.kind !== 'moon' && magnitudeOf(b, time) < magnitudeOf(a, time))) [a, b] = [b, a];
+  const isStar = (x: Body): boolean => x.id.startsWith('star:');
+  const lead = (x: Body, y: Body): boolean => x.kind === 'moon' || (y.kind !== 'moon' && (isStar(y) !== isStar(x) ? isStar(y) : magnitudeOf(x, time) <= magnitudeOf(y, time)));
+  if (!lead(a, b)) [a, b] = [b, a];
   const visibility = eventVisibility(ctx, [a, b], time, { preferNear: true });
   const day = ctx.day(time);
   const geo = separationDeg < 1 ? separationDeg.toFixed(1) : String(Math.round(separationDeg));
@@ -168,10 +186,10 @@ export function describeApproach(ctx: AlmanacContext, first: Body, second: Body,
     description =
       a.kind === 'moon'
         ? `The Moon passes ${distanceWords(off.separationDeg)} ${relation(off.offsetDirection, b.name)} on ${day}; ${look}.`
-        : `${a.name} and ${b.name} are only ${distanceWords(off.separationDeg)} apart on ${day}, ${a.name} ${relation(off.offsetDirection, b.name)}; ${look}.`;
+        : `${a.name} and ${b.name} are only ${distanceWords(off.separationDeg)} apart on ${day}, ${a.name} ${relation(off.offsetDirection, b.name)}${patternWords(b)}; ${look}.`;
   } else {
     const why = visibility.reason === 'too-close-to-sun' ? 'too close to the Sun to be seen' : 'not up together in a dark sky from here';
-    description = a.kind === 'moon' ? `The Moon passes ${geo}° from ${b.name} on ${day}, but the pair is ${why}.` : `${a.name} and ${b.name} pass ${geo}° apart on ${day}, but the pair is ${why}.`;
+    description = a.kind === 'moon' ? `The Moon passes ${geo}° from ${b.name} on ${day}, but the pair is ${why}.` : `${a.name} and ${b.name}${patternWords(b)} pass ${geo}° apart on ${day}, but the pair is ${why}.`;
   }
   return {
     type: 'close-approach',

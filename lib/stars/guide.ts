@@ -182,8 +182,9 @@ export function offsetInSky(input: { fromAltitudeDeg: number; fromAzimuthDeg: nu
  */
 export function distanceWords(angleDeg: number): string {
   const a = Math.abs(angleDeg);
-  const degrees = a < 1 ? a.toFixed(1) : String(Math.round(a));
-  return `about ${degrees}° (${handMeasure(a)})`;
+  // The hand measure follows the degrees as printed, so "about 3°" never reads "(about a finger)".
+  const shown = a < 1 ? Number(a.toFixed(1)) : Math.round(a);
+  return `about ${a < 1 ? a.toFixed(1) : String(shown)}° (${handMeasure(shown)})`;
 }
 
 function directionWords(direction: OffsetDirection, what: string): string {
