@@ -10,19 +10,10 @@ import * as Astronomy from 'astronomy-engine';
 import { describe, expect, it } from 'vitest';
 import { stereographic } from '../lib/chart/projection.ts';
 import { expectWithin } from './helpers/tolerance.ts';
+import { seededRandom } from './helpers/random.ts';
 
 const RAD = Math.PI / 180;
 
-/** A seeded generator (mulberry32), so failures repeat. */
-function random(seed: number): () => number {
-  let a = seed;
-  return () => {
-    a = (a + 0x6d2b79f5) | 0;
-    let t = Math.imul(a ^ (a >>> 15), 1 | a);
-    t = (t + Math.imul(t ^ (t >>> 7), 61 | t)) ^ t;
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 /** Horizontal unit vector (x north, y east, z up) for the outside angle computation. */
 function vec(altitudeDeg: number, azimuthDeg: number): Astronomy.Vector {
@@ -31,7 +22,7 @@ function vec(altitudeDeg: number, azimuthDeg: number): Astronomy.Vector {
 }
 
 describe('stereographic projection (Snyder 1987 §21)', () => {
-  const rnd = random(7);
+  const rnd = seededRandom(7);
   const cases = Array.from({ length: 400 }, () => ({
     centre: { altitudeDeg: -10 + 100 * rnd(), azimuthDeg: 360 * rnd() },
     alt: -20 + 110 * rnd(),

@@ -18,6 +18,7 @@ import { defineSite, type Site } from '../lib/site.ts';
 import { nightOf, formatLocalDate } from '../lib/time.ts';
 import type { EventTime } from '../lib/events.ts';
 import { ARCMIN, errorStats, separationDeg } from './helpers/tolerance.ts';
+import { seededRandom } from './helpers/random.ts';
 import {
   REF_BODIES, REF_PLANETS, apparentTopocentric, astrometricJ2000, deltaTModels, jdUtOf, planetMagnitude, saturnRingGeometry,
   referenceEvents, type RefBodyId, type RefEvent, type RefEventKind,
@@ -25,17 +26,6 @@ import {
 
 const RAD = Math.PI / 180;
 
-/** Deterministic pseudo-random numbers in [0, 1) (mulberry32), so the grid is the same on every run. */
-function seeded(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4_294_967_296;
-  };
-}
 
 interface GridSite {
   label: string;
@@ -66,7 +56,7 @@ interface GridNight {
 }
 
 function buildNights(): GridNight[] {
-  const random = seeded(20_260_402);
+  const random = seededRandom(20_260_402);
   const out: GridNight[] = [];
   for (const g of GRID) {
     const site = defineSite({ latitude: g.latitude, longitude: g.longitude, timeZone: g.timeZone });
@@ -97,7 +87,7 @@ function summary(what: string, errors: number[], unit: string, digits = 1): stri
 
 describe('positions against astronomia (Meeus ch. 25, 32–33, 40, 47)', () => {
   // Two instants in each grid night, every body: 9 bodies × 2 × 30 nights.
-  const random = seeded(7);
+  const random = seededRandom(7);
   const samples = NIGHTS.flatMap((n) => {
     const night = nightOf(n.date, n.site.timeZone);
     return [random(), random()].map((f) => ({ ...n, at: new Date(night.start.getTime() + f * (night.end.getTime() - night.start.getTime())) }));
@@ -242,7 +232,7 @@ describe('rise, transit, set and twilight against astronomia (Meeus ch. 15)', ()
 });
 
 describe('planet magnitudes (targets: within 0.15 mag)', () => {
-  const random = seeded(41);
+  const random = seededRandom(41);
   const instants = Array.from({ length: 80 }, () => new Date(Date.UTC(1990, 0, 1) + random() * 51 * 365.25 * 86_400_000));
   const site = defineSite({ latitude: 0, longitude: 0, timeZone: 'UTC' });
   /**

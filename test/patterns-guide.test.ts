@@ -28,21 +28,11 @@ import { starByHip, starByName } from '../lib/stars/catalogue.ts';
 import { patternById } from '../lib/stars/patterns.ts';
 import { GloamingError } from '../lib/errors.ts';
 import { angleDiffDeg, expectWithin, separationDeg } from './helpers/tolerance.ts';
+import { seededRandom } from './helpers/random.ts';
 
 const R = Math.PI / 180;
 const SECTORS: OffsetDirection[] = ['above', 'upper right', 'right', 'lower right', 'below', 'lower left', 'left', 'upper left'];
 
-/** Deterministic pseudo-random numbers (mulberry32), so failures can be replayed. */
-function rng(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 /**
  * Position angle of point 2 seen from point 1, measured from the zenith direction toward increasing
@@ -66,7 +56,7 @@ function altAzSeparationDeg(alt1: number, az1: number, alt2: number, az2: number
 
 describe('offset words against the alt-az position angle (Meeus eq. 48.5 in alt-az)', () => {
   it('agree in every quadrant of azimuth, at every altitude up to 89.5°, for offsets up to 25°', () => {
-    const random = rng(20261201);
+    const random = seededRandom(20261201);
     const quadrants = new Set<number>();
     let checked = 0;
     let nearZenith = 0;
@@ -93,7 +83,7 @@ describe('offset words against the alt-az position angle (Meeus eq. 48.5 in alt-
   });
 
   it('agree with plain alt-az differences for small offsets (Δalt up, Δaz·cos alt right)', () => {
-    const random = rng(7);
+    const random = seededRandom(7);
     let checked = 0;
     for (let i = 0; i < 4000; i++) {
       const alt1 = -5 + random() * 94; // up to 89°
@@ -151,7 +141,7 @@ function placeAt(altitudeDeg: number, azimuthDeg: number, time: AstroTime, site:
 
 describe('guidePattern end to end: words agree with astronomy-engine alt-az places', () => {
   it('nearest star and pattern anchor directions agree for random sites (both hemispheres), times and targets', () => {
-    const random = rng(42);
+    const random = seededRandom(42);
     const start = MakeTime(new Date('2026-01-01T00:00:00Z'));
     let checked = 0;
     let south = 0;

@@ -1,0 +1,14 @@
+/**
+ * Deterministic pseudo-random numbers in [0, 1) (the mulberry32 generator), so property tests and
+ * reference grids draw the same cases on every run and a failure can be replayed.
+ */
+export function seededRandom(seed: number): () => number {
+  let a = seed >>> 0;
+  return () => {
+    a = (a + 0x6d2b79f5) >>> 0;
+    let t = a;
+    t = Math.imul(t ^ (t >>> 15), t | 1);
+    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
+    return ((t ^ (t >>> 14)) >>> 0) / 4_294_967_296;
+  };
+}
