@@ -10,7 +10,7 @@ import { defineSite } from '../lib/site.ts';
 import { eventsToICalendar, findEvents, type AlmanacEvent } from '../lib/almanac/index.ts';
 import { escapeText, foldLine } from '../lib/almanac/ical.ts';
 
-const site = defineSite({ id: 'harbour', name: 'Harbour Roof, "Quayside"; level 5', latitude: 50.897, longitude: -1.404, timeZone: 'Europe/London', sky: { bortle: 7 } });
+const site = defineSite({ id: 'harbour', name: 'Harbour Roof, "Quayside"; level 5', latitude: 50.45, longitude: -1.55, timeZone: 'Europe/London', sky: { bortle: 7 } });
 const now = new Date('2026-07-01T08:00:00Z');
 const events = findEvents({ site, from: new Date('2026-08-01T00:00:00Z'), to: new Date('2026-09-01T00:00:00Z') });
 const feed = eventsToICalendar(events, { site, prodId: '-//Test Centre//gloaming//EN', now });

@@ -10,7 +10,7 @@ import { existsSync, readFileSync, writeFileSync } from 'node:fs';
 import { Resvg } from '@resvg/resvg-js';
 import { describe, expect, it } from 'vitest';
 import { builtInBody } from '../lib/body.ts';
-import { eveningMoment, horizonChart, skyChart } from '../lib/chart/index.ts';
+import { eveningMoment, horizonChart, wholeSkyChart } from '../lib/chart/index.ts';
 import { loadBodies, loadSites } from '../lib/content.ts';
 import { computeNight } from '../lib/night.ts';
 
@@ -64,7 +64,7 @@ function cases(): { name: string; svg: string }[] {
   return [
     { name: 'horizon-harbour-roof-jupiter-2026-12-10', svg: horizonChart({ site: harbour, body: jupiter, time: n1.bodies[0]!.visibility.best!.time, options: { trackDays: [-3, -2, -1, 1, 2, 3] } }).svg },
     { name: 'horizon-southern-station-comet-lumen-2027-01-12', svg: horizonChart({ site: southern, body: comet, time: n2.bodies[0]!.visibility.best!.time, options: { trackDays: [-3, -2, -1, 1, 2, 3] } }).svg },
-    { name: 'sky-southern-station-2027-01-12', svg: skyChart({ site: southern, time: eveningMoment(n2), body: comet }).svg },
+    { name: 'sky-southern-station-2027-01-12', svg: wholeSkyChart({ site: southern, time: eveningMoment(n2), body: comet }).svg },
   ];
 }
 

@@ -10,7 +10,7 @@ import { Resvg } from '@resvg/resvg-js';
 import * as Astronomy from 'astronomy-engine';
 import { afterAll, describe, expect, it } from 'vitest';
 import { builtInBody } from '../lib/body.ts';
-import { ChartCache, CHART_BUDGET_BYTES, chartImg, chartKey, horizonAltText, horizonChart, skyAltText, skyChart, eveningMoment } from '../lib/chart/index.ts';
+import { ChartCache, CHART_BUDGET_BYTES, chartImg, chartKey, horizonAltText, horizonChart, wholeSkyAltText, wholeSkyChart, eveningMoment } from '../lib/chart/index.ts';
 import { loadBodies, loadSites } from '../lib/content.ts';
 import { compass } from '../lib/describe.ts';
 import { computeNight } from '../lib/night.ts';
@@ -67,7 +67,7 @@ const jupiterChart = horizonChart({ site: harbour, body: jupiter, time: best.tim
 const southNight = computeNight(southern, '2027-01-12', [comet]);
 const cometBest = southNight.bodies[0]!.visibility.best!;
 const cometChart = horizonChart({ site: southern, body: comet, time: cometBest.time, options: { trackDays: [-3, -2, -1, 1, 2, 3] } });
-const wholeSky = skyChart({ site: southern, time: eveningMoment(southNight), body: comet });
+const wholeSky = wholeSkyChart({ site: southern, time: eveningMoment(southNight), body: comet });
 
 describe('horizon chart geometry', () => {
   it('plots named stars where astronomy-engine puts them (J2000 precessed to date, Horizon with refraction)', () => {
@@ -208,7 +208,7 @@ describe('alt text', () => {
   });
 
   it('lists the bodies of the whole sky with their altitude and direction', () => {
-    const text = skyAltText(wholeSky);
+    const text = wholeSkyAltText(wholeSky);
     const moon = planetAltAz(southern, Astronomy.Body.Moon, wholeSky.time);
     expect(text).toContain(`the Moon ${Math.round(moon.altitudeDeg)}° up in the ${compass(moon.azimuthDeg).word}`);
     expect(text).toContain('north at the top and east at the left');

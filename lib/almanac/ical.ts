@@ -18,7 +18,7 @@ export interface ICalendarOptions {
   prodId: string;
   /** The build instant, used as every DTSTAMP (lib/ never reads the clock). */
   now: Date;
-  /** Calendar name shown by clients (X-WR-CALNAME); default "<site name>: sky events". */
+  /** Calendar name shown by clients (X-WR-CALNAME); default "<site name>: night-sky diary". */
   name?: string;
 }
 
@@ -70,7 +70,7 @@ export function eventsToICalendar(events: readonly AlmanacEvent[], options: ICal
     `PRODID:${options.prodId}`,
     'CALSCALE:GREGORIAN',
     'METHOD:PUBLISH',
-    `X-WR-CALNAME:${escapeText(options.name ?? `${site.name}: sky events`)}`,
+    `X-WR-CALNAME:${escapeText(options.name ?? `${site.name}: night-sky diary`)}`,
     `X-WR-TIMEZONE:${site.timeZone}`,
   ];
   for (const e of events) {

@@ -8,7 +8,7 @@
  */
 import { compass } from '../describe.ts';
 import type { ChartMark, HorizonChart } from './horizon.ts';
-import type { SkyChart } from './sky.ts';
+import type { WholeSkyChart } from './whole-sky.ts';
 import { chartLabel, formatChartTime } from './words.ts';
 
 function bodyName(mark: ChartMark): string {
@@ -34,7 +34,7 @@ export function horizonAltText(chart: HorizonChart): string {
 }
 
 /** Alt text of a whole-sky chart. */
-export function skyAltText(chart: SkyChart): string {
+export function wholeSkyAltText(chart: WholeSkyChart): string {
   const clock = formatChartTime(chart.time, chart.site);
   const up = chart.marks.filter((m) => m.kind !== 'star' && m.kind !== 'track');
   const phrases = up.map((m) => `${m.kind === 'target' ? chartLabel(chart.body!) : bodyName(m)} ${Math.round(m.altitudeDeg)}° up in the ${compass(m.azimuthDeg).word}`);

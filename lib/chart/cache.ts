@@ -19,9 +19,9 @@ import { fileURLToPath } from 'node:url';
 import { Resvg } from '@resvg/resvg-js';
 import type { Body } from '../body.ts';
 import type { Site } from '../site.ts';
-import { horizonAltText, skyAltText } from './alt.ts';
+import { horizonAltText, wholeSkyAltText } from './alt.ts';
 import { horizonChart, type HorizonChartOptions } from './horizon.ts';
-import { skyChart, type SkyChartOptions } from './sky.ts';
+import { wholeSkyChart, type WholeSkyChartOptions } from './whole-sky.ts';
 import { escapeXml } from './svg.ts';
 
 /** Bump when the drawing changes in a way the code fingerprint would not show (never needed in practice). */
@@ -32,7 +32,7 @@ export const CHART_BUDGET_BYTES = 80 * 1024;
 /** What to draw. */
 export type ChartRequest =
   | { kind: 'horizon'; site: Site; body: Body; time: Date; options?: HorizonChartOptions }
-  | { kind: 'sky'; site: Site; time: Date; body?: Body; options?: SkyChartOptions };
+  | { kind: 'sky'; site: Site; time: Date; body?: Body; options?: WholeSkyChartOptions };
 
 /** A chart ready to publish (drawn now or read from the cache). */
 export interface DeliveredChart {
@@ -116,7 +116,7 @@ function bodyKey(body: Body | undefined): unknown {
   return { id: body.id, name: body.name, kind: body.kind, radiusKm: body.radiusKm, coma: body.comaDiameterArcmin ?? null, object: object ?? null };
 }
 
-function optionsKey(options: HorizonChartOptions | SkyChartOptions | undefined): unknown {
+function optionsKey(options: HorizonChartOptions | WholeSkyChartOptions | undefined): unknown {
   if (!options) return {};
   const { otherBodies, ...rest } = options;
   return { ...rest, otherBodies: otherBodies ? otherBodies.map((b) => bodyKey(b)) : null };
@@ -142,8 +142,8 @@ export function drawChart(request: ChartRequest): { svg: string; width: number; 
     const chart = horizonChart({ site: request.site, body: request.body, time: request.time, ...(request.options ? { options: request.options } : {}) });
     return { svg: chart.svg, width: chart.width, height: chart.height, alt: horizonAltText(chart) };
   }
-  const chart = skyChart({ site: request.site, time: request.time, ...(request.body ? { body: request.body } : {}), ...(request.options ? { options: request.options } : {}) });
-  return { svg: chart.svg, width: chart.width, height: chart.height, alt: skyAltText(chart) };
+  const chart = wholeSkyChart({ site: request.site, time: request.time, ...(request.body ? { body: request.body } : {}), ...(request.options ? { options: request.options } : {}) });
+  return { svg: chart.svg, width: chart.width, height: chart.height, alt: wholeSkyAltText(chart) };
 }
 
 /** Rasterises a chart's SVG to PNG at `widthPx` with `@resvg/resvg-js`. */

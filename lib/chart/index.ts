@@ -2,9 +2,9 @@
  * Finder charts (issue #7): the sky as the reader will see it, drawn as SVG text.
  *
  * - `horizonChart({ site, body, time, options })` — the view facing a target (lib/chart/horizon.ts).
- * - `skyChart({ site, time, body?, options })` — the whole sky as a disc (lib/chart/sky.ts);
+ * - `wholeSkyChart({ site, time, body?, options })` — the whole sky as a disc (lib/chart/whole-sky.ts);
  *   `eveningMoment(report)` picks the end of nautical twilight.
- * - `horizonAltText(chart)`, `skyAltText(chart)` — alt text from the computed values.
+ * - `horizonAltText(chart)`, `wholeSkyAltText(chart)` — alt text from the computed values.
  * - `ChartCache` — content-hash cache folder with progress reports; `chartImg` — the `<img>` markup.
  * - `placeholderChart(...)` — everything the `::chart{body night view}` placeholder needs.
  * - `stereographic(centre)` — the projection, with its inverse.
@@ -14,12 +14,12 @@ import type { NightReport } from '../night.ts';
 import type { Site } from '../site.ts';
 import { REASON_TEXT, type Visibility } from '../visibility.ts';
 import { ChartCache, chartImg, type ChartRequest, type DeliveredChart } from './cache.ts';
-import { eveningMoment } from './sky.ts';
+import { eveningMoment } from './whole-sky.ts';
 
 export { stereographic, stereographicRadius, angleFromRadius, makeLayout, type AltAz, type PlanePoint, type Stereographic } from './projection.ts';
 export { horizonChart, SIDEREAL_DAY_DAYS, type HorizonChart, type HorizonChartOptions, type ChartMark, type ChartLayout } from './horizon.ts';
-export { skyChart, eveningMoment, type SkyChart, type SkyChartOptions } from './sky.ts';
-export { horizonAltText, skyAltText } from './alt.ts';
+export { wholeSkyChart, eveningMoment, type WholeSkyChart, type WholeSkyChartOptions } from './whole-sky.ts';
+export { horizonAltText, wholeSkyAltText } from './alt.ts';
 export {
   ChartCache,
   chartImg,

@@ -123,7 +123,7 @@ export function runEvents(args: string[], out: (s: string) => void): void {
   if (values.ics) {
     // DTSTAMP: --now, or 00:00 UTC of --from, so the same command writes the same feed (lib never reads the clock).
     const now = values.now !== undefined ? parseInstant(values.now, '--now') : new Date(`${values.from}T00:00:00Z`);
-    return out(eventsToICalendar(events, { site, prodId: values.prodid ?? '-//gloaming//sky events//EN', now }).replace(/\r\n$/, ''));
+    return out(eventsToICalendar(events, { site, prodId: values.prodid ?? '-//gloaming//night-sky diary//EN', now }).replace(/\r\n$/, ''));
   }
   if (values.json) {
     return out(

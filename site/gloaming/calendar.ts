@@ -22,8 +22,8 @@ export function siteCalendar(site: Site, bodies: BodyRegistry, today: string): s
   });
   return eventsToICalendar(events, {
     site,
-    prodId: `-//${CENTRE.name}//gloaming sky events//EN`,
+    prodId: `-//${CENTRE.name}//gloaming night-sky diary//EN`,
     now: new Date(`${today}T00:00:00Z`),
-    name: `Sky events · ${site.name}`,
+    name: `Night-sky diary · ${site.name}`,
   });
 }

@@ -37,14 +37,14 @@ const LEGEND_HEIGHT = 36;
 /** Brightest-star cap on a whole-sky chart: it covers 2π sr on a phone screen, so stars stop at V 4.5. */
 const SKY_FAINTEST = 4.5;
 
-export interface SkyChartOptions {
+export interface WholeSkyChartOptions {
   /** Faintest star drawn, V magnitude (default: `chartMagnitudeLimit(site.sky)`, at most 4.5). */
   magnitudeLimit?: number;
   /** Bodies drawn when above the horizon (default: the Moon and the planets). */
   otherBodies?: readonly Body[];
 }
 
-export interface SkyChart {
+export interface WholeSkyChart {
   kind: 'sky';
   svg: string;
   width: number;
@@ -72,7 +72,7 @@ export function eveningMoment(report: NightReport): Date {
 }
 
 /** Draws the whole-sky chart of `site` at `time`, with `body` (optional) highlighted. */
-export function skyChart(input: { site: Site; time: Date; body?: Body; options?: SkyChartOptions }): SkyChart {
+export function wholeSkyChart(input: { site: Site; time: Date; body?: Body; options?: WholeSkyChartOptions }): WholeSkyChart {
   const { site, time } = input;
   const body = input.body ?? null;
   const options = input.options ?? {};
@@ -113,7 +113,7 @@ export function skyChart(input: { site: Site; time: Date; body?: Body; options?:
 
   // Stars.
   const placed = sky.stars(magnitudeLimit, visible);
-  const drawn: SkyChart['stars'] = [];
+  const drawn: WholeSkyChart['stars'] = [];
   let starMarkup = '';
   for (const s of placed) {
     const q = layout.toChart(s.altitudeDeg, s.azimuthDeg)!;
