@@ -35,6 +35,13 @@ export const ERROR_CODES = {
 
 export type ErrorCode = keyof typeof ERROR_CODES;
 
+/**
+ * Exit codes of the command line and of the build, one convention for both (docs/deploy.md):
+ * `input` for every `GloamingError` (wrong arguments, content or output that must not be
+ * published: the message names the place), `unexpected` for anything else (a bug; the stack is printed).
+ */
+export const EXIT_CODES = { ok: 0, unexpected: 1, input: 2 } as const;
+
 export interface GloamingErrorOptions {
   place?: Place;
   /** The offending value, as the user wrote it. */
@@ -62,14 +69,30 @@ export function formatPlace(place: Place | undefined): string {
   return parts.join(' ');
 }
 
-function describeValue(value: unknown): string {
-  if (typeof value === 'string') return `'${value}'`;
+/** Longest echo of an offending value in a message, characters; longer values are cut with "…". */
+export const MAX_ECHO_CHARS = 80;
+
+/**
+ * A value as it appears in a message: strings in single quotes, everything else as JSON, cut to
+ * `MAX_ECHO_CHARS` (a 100 KB argument or a whole file must not flood the terminal) with line
+ * breaks and other control characters shown as `\n`, `\r`, `\t` or `\u00XX`, so the message stays one line.
+ */
+export function quoteValue(value: unknown): string {
   if (value === undefined) return 'nothing';
-  try {
-    return JSON.stringify(value) ?? String(value);
-  } catch {
-    return String(value);
+  let text: string;
+  if (typeof value === 'string') text = value;
+  else {
+    try {
+      text = JSON.stringify(value) ?? String(value);
+    } catch {
+      text = String(value);
+    }
   }
+  const chars = [...text];
+  const cut = chars.length > MAX_ECHO_CHARS ? `${chars.slice(0, MAX_ECHO_CHARS - 1).join('')}…` : text;
+  // eslint-disable-next-line no-control-regex
+  const shown = cut.replace(/[\u0000-\u001f\u007f]/g, (c) => ({ '\n': '\\n', '\r': '\\r', '\t': '\\t' })[c] ?? `\\u${c.charCodeAt(0).toString(16).padStart(4, '0')}`);
+  return typeof value === 'string' ? `'${shown}'` : shown;
 }
 
 /** An input problem with its place, the offending value and what was expected. */
@@ -90,7 +113,7 @@ export class GloamingError extends Error {
   constructor(code: ErrorCode, reason: string, options: GloamingErrorOptions = {}) {
     const where = formatPlace(options.place);
     let text = reason;
-    if ('actual' in options) text += ` (got ${describeValue(options.actual)})`;
+    if ('actual' in options) text += ` (got ${quoteValue(options.actual)})`;
     if (options.expected) text += `; expected ${options.expected}`;
     if (options.hint) text += ` — ${options.hint}`;
     super(where ? `${where}: ${text}` : text, options.cause === undefined ? undefined : { cause: options.cause });

@@ -9,7 +9,7 @@
  *   and the following morning belong to the same night;
  * - a *week* is the ISO 8601 week (Monday to Sunday) containing a date.
  */
-import { GloamingError } from './errors.ts';
+import { GloamingError, quoteValue } from './errors.ts';
 
 const formatters = new Map<string, Intl.DateTimeFormat>();
 
@@ -33,13 +33,18 @@ function formatter(zone: string): Intl.DateTimeFormat {
 
 /** Checks that `zone` is an IANA zone the platform knows; returns its canonical spelling. */
 export function assertTimeZone(zone: string, field = 'timeZone'): string {
+  const unknown = (): GloamingError =>
+    new GloamingError('unknown-zone', `unknown time zone ${quoteValue(zone)}`, {
+      place: { field },
+      expected: "an IANA time zone such as 'Europe/Berlin' or 'America/Santiago'",
+      // The platform also takes bare offsets ('+05:00'); they are not zones: they know no daylight saving.
+      ...(/^[+-]\d/.test(zone.trim()) ? { hint: "a fixed offset is not a zone; use 'Etc/GMT-5' for UTC+5 (the Etc sign is inverted) or the place's IANA zone" } : {}),
+    });
+  if (/^[+-]\d/.test(zone.trim())) throw unknown();
   try {
     return new Intl.DateTimeFormat('en-US', { timeZone: zone }).resolvedOptions().timeZone;
   } catch {
-    throw new GloamingError('unknown-zone', `unknown time zone '${zone}'`, {
-      place: { field },
-      expected: "an IANA time zone such as 'Europe/Berlin' or 'America/Santiago'",
-    });
+    throw unknown();
   }
 }
 
@@ -67,45 +72,105 @@ export function zonedParts(instant: Date, zone: string): ZonedParts {
   };
 }
 
-/** UTC offset of `zone` at `instant`, minutes east of Greenwich (e.g. +60 for CET). */
-export function offsetMinutes(instant: Date, zone: string): number {
+/**
+ * UTC offset of `zone` at `instant`, seconds east of Greenwich (e.g. 3600 for CET). Historical
+ * local mean times keep their seconds (Dublin until 1916: −00:25:21 = −1521 s, IANA tz database).
+ */
+export function offsetSeconds(instant: Date, zone: string): number {
   const p = zonedParts(instant, zone);
   const asUtc = Date.UTC(p.year, p.month - 1, p.day, p.hour, p.minute, p.second);
   const truncated = Math.floor(instant.getTime() / 1000) * 1000;
-  return Math.round((asUtc - truncated) / 60_000);
+  return Math.round((asUtc - truncated) / 1000);
+}
+
+/** UTC offset of `zone` at `instant`, minutes east of Greenwich (e.g. +60 for CET), rounded to the minute. */
+export function offsetMinutes(instant: Date, zone: string): number {
+  return Math.round(offsetSeconds(instant, zone) / 60);
+}
+
+/**
+ * The years gloaming accepts in dates and instants given to it: 1000 to 2999. Astronomy Engine's
+ * ΔT follows Espenak & Meeus (2006), whose polynomials end in 3000; before 1000 no zone has civil
+ * time (the IANA database gives local mean time) and JavaScript dates of years below 100 are
+ * read as 19xx. Inside gloaming, weeks and nights may run a few days past these years.
+ */
+export const SUPPORTED_YEARS = { first: 1000, last: 2999 } as const;
+
+function supportedYear(year: number): boolean {
+  return year >= SUPPORTED_YEARS.first && year <= SUPPORTED_YEARS.last;
 }
 
 const DATE_RE = /^(\d{4})-(\d{2})-(\d{2})$/;
 
-/** Reads a `YYYY-MM-DD` date; raises `invalid-date` naming `field` when it is not a real date. */
+/**
+ * Reads a `YYYY-MM-DD` date given to gloaming; raises `invalid-date` naming `field` when it is not
+ * a real date or lies outside `SUPPORTED_YEARS`.
+ */
 export function parseLocalDate(text: string, field = 'date'): { year: number; month: number; day: number } {
-  const m = DATE_RE.exec(text.trim());
-  const value = m && { year: Number(m[1]), month: Number(m[2]), day: Number(m[3]) };
-  if (!value || !isRealDate(value.year, value.month, value.day)) {
-    throw new GloamingError('invalid-date', `cannot read the date '${text}'`, {
+  const value = readDate(text);
+  if (!value) {
+    throw new GloamingError('invalid-date', `cannot read the date ${quoteValue(text)}`, {
       place: { field },
       expected: 'a calendar date written YYYY-MM-DD, e.g. 2026-12-04',
     });
   }
+  if (!supportedYear(value.year)) throw outOfRange(text, field);
+  return value;
+}
+
+function outOfRange(text: string, field: string): GloamingError {
+  return new GloamingError('invalid-date', `the date ${quoteValue(text)} is outside the years gloaming computes`, {
+    place: { field },
+    expected: `a date from ${SUPPORTED_YEARS.first}-01-01 to ${SUPPORTED_YEARS.last}-12-31`,
+  });
+}
+
+/** A real `YYYY-MM-DD` date of any four-digit year (for arithmetic inside gloaming), or null. */
+function readDate(text: string): { year: number; month: number; day: number } | null {
+  const m = DATE_RE.exec(text.trim());
+  const value = m && { year: Number(m[1]), month: Number(m[2]), day: Number(m[3]) };
+  return value && isRealDate(value.year, value.month, value.day) ? value : null;
+}
+
+/** `readDate` for dates gloaming made itself: a failure is a bug, not an input problem. */
+function internalDate(text: string): { year: number; month: number; day: number } {
+  const value = readDate(text);
+  if (!value) return parseLocalDate(text);
   return value;
 }
 
 function isRealDate(year: number, month: number, day: number): boolean {
-  const d = new Date(Date.UTC(year, month - 1, day));
+  const d = new Date(0);
+  d.setUTCFullYear(year, month - 1, day); // Date.UTC would read years 0–99 as 1900–1999
+
   return d.getUTCFullYear() === year && d.getUTCMonth() === month - 1 && d.getUTCDate() === day;
 }
 
-const INSTANT_RE = /^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}(:\d{2}(\.\d+)?)?(Z|[+-]\d{2}:?\d{2})$/;
+const INSTANT_RE = /^(\d{4}-\d{2}-\d{2})T(\d{2}):(\d{2})(?::(\d{2})(\.\d+)?)?(Z|[+-](\d{2}):?(\d{2}))$/;
 
-/** Reads an ISO 8601 instant with an explicit offset or `Z`; raises `invalid-date` otherwise. */
+/**
+ * Reads an ISO 8601 instant with an explicit offset or `Z`; raises `invalid-date` when it is not
+ * written so, names a day or time that does not exist (2026-02-30, 24:00, 23:60, an offset beyond
+ * ±14:00 — the Date parser would roll them over) or falls outside `SUPPORTED_YEARS`.
+ */
 export function parseInstant(text: string, field = 'at'): Date {
+  const m = INSTANT_RE.exec(text.trim());
   const d = new Date(text.trim());
-  if (!INSTANT_RE.test(text.trim()) || Number.isNaN(d.getTime())) {
-    throw new GloamingError('invalid-date', `cannot read the instant '${text}'`, {
+  const real =
+    m &&
+    readDate(m[1]!) &&
+    Number(m[2]) < 24 &&
+    Number(m[3]) < 60 &&
+    Number(m[4] ?? 0) < 60 &&
+    (m[6] === 'Z' || (Number(m[7]) * 60 + Number(m[8]) <= 14 * 60 && Number(m[8]) < 60)) &&
+    !Number.isNaN(d.getTime());
+  if (!real) {
+    throw new GloamingError('invalid-date', `cannot read the instant ${quoteValue(text)}`, {
       place: { field },
       expected: 'an ISO 8601 instant with a zone, e.g. 2026-12-04T18:30:00Z or 2026-12-04T19:30+01:00',
     });
   }
+  if (!supportedYear(Number(m[1]!.slice(0, 4))) || !supportedYear(d.getUTCFullYear())) throw outOfRange(text, field);
   return d;
 }
 
@@ -116,7 +181,7 @@ export function formatLocalDate(year: number, month: number, day: number): strin
 
 /** The local date `days` after `date` (calendar arithmetic, no zone involved). */
 export function addDays(date: string, days: number): string {
-  const { year, month, day } = parseLocalDate(date);
+  const { year, month, day } = internalDate(date);
   const d = new Date(Date.UTC(year, month - 1, day + days));
   return formatLocalDate(d.getUTCFullYear(), d.getUTCMonth() + 1, d.getUTCDate());
 }
@@ -127,13 +192,13 @@ export function addDays(date: string, days: number): string {
  * clock jumps to (e.g. 02:30 → 03:30). In an autumn fold the earlier of the two instants is returned.
  */
 export function zonedTime(date: string, hour: number, minute: number, zone: string): Date {
-  const { year, month, day } = parseLocalDate(date);
+  const { year, month, day } = internalDate(date);
   const wall = Date.UTC(year, month - 1, day, hour, minute);
   // Zone offsets change at most once within a day either side: the offsets a day before and a day
   // after are the only candidates. A candidate is valid when the instant it gives shows that offset.
-  const before = offsetMinutes(new Date(wall - 86_400_000), zone) * 60_000;
-  const after = offsetMinutes(new Date(wall + 86_400_000), zone) * 60_000;
-  const valid = [wall - before, wall - after].filter((t) => offsetMinutes(new Date(t), zone) * 60_000 === wall - t);
+  const before = offsetSeconds(new Date(wall - 86_400_000), zone) * 1000;
+  const after = offsetSeconds(new Date(wall + 86_400_000), zone) * 1000;
+  const valid = [wall - before, wall - after].filter((t) => offsetSeconds(new Date(t), zone) * 1000 === wall - t);
   // Fold: both readings exist, take the earlier. Gap: none exists, the clock jumps forward by the
   // change, which the offset before the change gives (02:30 EST does not exist → 07:30Z = 03:30 EDT).
   return new Date(valid.length ? Math.min(...valid) : wall - before);
@@ -147,18 +212,21 @@ export function localDateOf(instant: Date, zone: string): string {
 
 /**
  * ISO 8601 text of `instant` with the zone's offset, to the second: `2026-12-04T17:42:10+01:00`.
- * This is the form every gloaming event time takes in JSON.
+ * This is the form every gloaming event time takes in JSON. An offset with seconds (local mean
+ * time before about 1970, e.g. Dublin's −00:25:21 until 1916) keeps them: `−hh:mm:ss`, so the
+ * wall time and the offset always add up to the instant.
  */
 export function formatInstant(instant: Date, zone: string): string {
   const rounded = new Date(Math.round(instant.getTime() / 1000) * 1000);
   const p = zonedParts(rounded, zone);
-  const off = offsetMinutes(rounded, zone);
+  const off = offsetSeconds(rounded, zone);
   const sign = off < 0 ? '-' : '+';
   const abs = Math.abs(off);
   const pad = (n: number): string => String(n).padStart(2, '0');
+  const seconds = abs % 60 ? `:${pad(abs % 60)}` : '';
   return (
     `${formatLocalDate(p.year, p.month, p.day)}T${pad(p.hour)}:${pad(p.minute)}:${pad(p.second)}` +
-    `${sign}${pad(Math.floor(abs / 60))}:${pad(abs % 60)}`
+    `${sign}${pad(Math.floor(abs / 3600))}:${pad(Math.floor(abs / 60) % 60)}${seconds}`
   );
 }
 
@@ -175,7 +243,7 @@ export interface Night {
 
 /** The night that begins on the local evening of `date` in `zone`. */
 export function nightOf(date: string, zone: string): Night {
-  parseLocalDate(date);
+  internalDate(date);
   return { date, start: zonedTime(date, 12, 0, zone), end: zonedTime(addDays(date, 1), 12, 0, zone), timeZone: zone };
 }
 
@@ -198,7 +266,7 @@ export interface IsoWeek {
 
 /** The ISO 8601 week (Monday–Sunday) that contains `date`. */
 export function isoWeekOf(date: string): IsoWeek {
-  const { year, month, day } = parseLocalDate(date);
+  const { year, month, day } = internalDate(date);
   const d = new Date(Date.UTC(year, month - 1, day));
   const weekday = (d.getUTCDay() + 6) % 7; // Monday = 0
   const monday = addDays(date, -weekday);

@@ -14,15 +14,16 @@
  * `--merge a b c --out dist` joins the outputs of CI shards (each built with `--sites`) into one
  * folder and writes one sitemap index for all of them.
  *
- * Errors are printed as `error: file:line:column: message` without a stack trace; the exit code
- * is 1 for input and output problems, 2 for anything unexpected.
+ * Errors are printed as `error: file:line:column: message` without a stack trace. Exit codes are
+ * the command line's (`EXIT_CODES` in lib/errors.ts): 2 for input and output problems, 1 for
+ * anything unexpected (with the stack).
  */
 import { cp, mkdir, readdir, readFile, rename, rm, stat, writeFile } from 'node:fs/promises';
 import { basename, dirname, join, relative, resolve, sep } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { parseArgs } from 'node:util';
 import { assertPublishable } from '../lib/bulletin/index.ts';
-import { GloamingError } from '../lib/errors.ts';
+import { ERROR_CODES, EXIT_CODES, GloamingError, type ErrorCode, type Place } from '../lib/errors.ts';
 import { parseLocalDate } from '../lib/time.ts';
 import { chartCacheDir, parseSiteList } from '../site/gloaming/options.ts';
 import { loadProject } from '../site/gloaming/project.ts';
@@ -166,15 +167,23 @@ async function swapInto(fresh: string, out: string): Promise<void> {
   if (had) await rm(old, { recursive: true, force: true });
 }
 
-/** A GloamingError thrown inside Astro's module runner is another class instance: recognise it by shape. */
-function findGloamingError(error: unknown): { message: string } | null {
+/**
+ * The `GloamingError` behind `error`, or null. One thrown inside Astro's module runner is an
+ * instance of another copy of the class, often wrapped in Astro's own errors: it is recognised by
+ * shape along the `cause` chain and rebuilt here with its own code, place and message.
+ */
+export function asGloamingError(error: unknown): GloamingError | null {
   const seen = new Set<unknown>();
   let e: unknown = error;
   while (e && typeof e === 'object' && !seen.has(e)) {
     seen.add(e);
-    const o = e as { name?: unknown; code?: unknown; message?: unknown; cause?: unknown };
-    if (e instanceof GloamingError || (o.name === 'GloamingError' && typeof o.code === 'string' && typeof o.message === 'string')) {
-      return { message: o.message as string };
+    if (e instanceof GloamingError) return e;
+    const o = e as { name?: unknown; code?: unknown; message?: unknown; cause?: unknown; place?: unknown; reason?: unknown };
+    if (o.name === 'GloamingError' && typeof o.code === 'string' && o.code in ERROR_CODES && typeof o.message === 'string') {
+      const copy = new GloamingError(o.code as ErrorCode, typeof o.reason === 'string' ? o.reason : o.message, { place: o.place as Place | undefined });
+      // The message was formatted by the other copy of the class: keep it word for word.
+      Object.defineProperty(copy, 'message', { value: o.message });
+      return copy;
     }
     e = o.cause;
   }
@@ -211,13 +220,7 @@ export async function buildSite(options: BuildOptions): Promise<BuildResult> {
     return { out: options.out, files, astroMs, totalMs: performance.now() - t0 };
   } catch (error) {
     await rm(tmp, { recursive: true, force: true });
-    const inner = findGloamingError(error);
-    if (inner && !(error instanceof GloamingError)) {
-      const e = new GloamingError('invalid-value', inner.message);
-      Object.defineProperty(e, 'message', { value: inner.message });
-      throw e;
-    }
-    throw error;
+    throw asGloamingError(error) ?? error;
   }
 }
 
@@ -263,20 +266,19 @@ export async function mergeShards(shards: string[], out: string): Promise<{ file
   }
 }
 
-/** Prints an error the way compilers do: no stack for input problems. */
-function report(error: unknown): number {
-  if (error instanceof GloamingError) {
-    console.error(`error: ${error.message}`);
-    return 1;
+/**
+ * Prints an error the way compilers do and returns the exit code (`EXIT_CODES`, the same
+ * convention as the command line): input problems without a stack (2), anything else with it (1).
+ */
+export function report(error: unknown, print: (line: string) => void = console.error): number {
+  const known = asGloamingError(error);
+  if (known) {
+    print(`error: ${known.message}`);
+    return EXIT_CODES.input;
   }
-  const inner = findGloamingError(error);
-  if (inner) {
-    console.error(`error: ${inner.message}`);
-    return 1;
-  }
-  console.error('error: the build failed unexpectedly; the previous output is unchanged.');
-  console.error(error instanceof Error ? (error.stack ?? error.message) : String(error));
-  return 2;
+  print('error: the build failed unexpectedly; the previous output is unchanged.');
+  print(error instanceof Error ? (error.stack ?? error.message) : String(error));
+  return EXIT_CODES.unexpected;
 }
 
 async function main(): Promise<number> {
@@ -285,13 +287,13 @@ async function main(): Promise<number> {
     if (options.merge) {
       const { files } = await mergeShards(options.merge, options.out);
       console.log(`merged ${options.merge.length} shard(s): ${files} files in ${relative(process.cwd(), options.out) || '.'}`);
-      return 0;
+      return EXIT_CODES.ok;
     }
     const result = await buildSite(options);
     const where = relative(process.cwd(), result.out) || '.';
     const which = options.sites ? options.sites.join(', ') : 'all sites';
     console.log(`built ${which} for ${options.today}: ${result.files} files in ${where} (${(result.totalMs / 1000).toFixed(1)} s)`);
-    return 0;
+    return EXIT_CODES.ok;
   } catch (error) {
     return report(error);
   }

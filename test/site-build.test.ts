@@ -161,7 +161,7 @@ describe('site build', () => {
     const file = join(bad, 'sites/harbour-roof.yaml');
     writeFileSync(file, readFileSync(file, 'utf8').replace('bortle: 7', 'bortle: 12'));
     const r = build(['--today', TODAY, '--out', join(work, 'a'), '--content', bad]);
-    expect(r.status).toBe(1);
+    expect(r.status).toBe(2);
     expect(r.stderr).toMatch(/^error: \S*sites\/harbour-roof\.yaml:\d+:\d+ field 'sky\.bortle': .*out of range/);
     expect(r.stderr).not.toMatch(/\n\s+at /); // no stack trace
     expect(treeDigest(join(work, 'a'))).toEqual(before);
@@ -175,7 +175,7 @@ describe('site build', () => {
     const file = join(bad, 'objects/comet-lumen.yaml');
     writeFileSync(file, readFileSync(file, 'utf8').replace('eccentricity: 0.999', 'eccentricity: -0.2'));
     const r = build(['--today', TODAY, '--out', join(work, 'a'), '--content', bad]);
-    expect(r.status).toBe(1);
+    expect(r.status).toBe(2);
     expect(r.stderr).toMatch(/^error: \S*objects\/comet-lumen\.yaml:\d+:\d+ field 'elements\.eccentricity': /);
     expect(treeDigest(join(work, 'a'))).toEqual(before);
   }, 60_000);
@@ -189,7 +189,7 @@ describe('site build', () => {
     writeFileSync(file, `${text}\nLook for :best-time{body=jupyter} tonight.\n`);
     const line = text.split('\n').length + 1;
     const r = build(['--today', TODAY, '--out', join(work, 'a'), '--content', bad]);
-    expect(r.status).toBe(1);
+    expect(r.status).toBe(2);
     expect(r.stderr).toContain(`bulletins/weekly.md:${line}:`);
     expect(r.stderr).toContain("did you mean 'jupiter'?");
     expect(r.stderr).not.toMatch(/\n\s+at /);
@@ -211,10 +211,10 @@ describe('site build', () => {
 
   it('rejects a bad --today and an unknown --sites id with a suggestion', () => {
     const a = build(['--today', '2026-02-30', '--out', join(work, 'x')]);
-    expect(a.status).toBe(1);
+    expect(a.status).toBe(2);
     expect(a.stderr).toMatch(/^error: .*cannot read the date '2026-02-30'/);
     const b = build(['--today', TODAY, '--sites', 'harbor-roof', '--out', join(work, 'x')]);
-    expect(b.status).toBe(1);
+    expect(b.status).toBe(2);
     expect(b.stderr).toMatch(/unknown site 'harbor-roof'.*did you mean 'harbour-roof'\?/);
     expect(existsSync(join(work, 'x'))).toBe(false);
   }, 60_000);

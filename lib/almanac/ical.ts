@@ -22,9 +22,17 @@ export interface ICalendarOptions {
   name?: string;
 }
 
-/** Escapes a TEXT value (RFC 5545 §3.3.11). */
+/** Escapes a TEXT value (RFC 5545 §3.3.11); other control characters, which TEXT may not hold (§3.3.11 CONTROL), are dropped. */
 export function escapeText(text: string): string {
-  return text.replace(/\\/g, '\\\\').replace(/;/g, '\\;').replace(/,/g, '\\,').replace(/\r\n|\r|\n/g, '\\n');
+  return (
+    text
+      .replace(/\\/g, '\\\\')
+      .replace(/;/g, '\\;')
+      .replace(/,/g, '\\,')
+      .replace(/\r\n|\r|\n/g, '\\n')
+      // eslint-disable-next-line no-control-regex
+      .replace(/[\u0000-\u0008\u000a-\u001f\u007f]/g, '')
+  );
 }
 
 /** Folds one content line at 75 octets (RFC 5545 §3.1); continuation lines begin with a space. */
@@ -67,7 +75,8 @@ export function eventsToICalendar(events: readonly AlmanacEvent[], options: ICal
   const lines: string[] = [
     'BEGIN:VCALENDAR',
     'VERSION:2.0',
-    `PRODID:${options.prodId}`,
+    // PRODID's value is TEXT (§3.7.3): escaped like any text, so a line break cannot start a new property.
+    `PRODID:${escapeText(options.prodId)}`,
     'CALSCALE:GREGORIAN',
     'METHOD:PUBLISH',
     `X-WR-CALNAME:${escapeText(options.name ?? `${site.name}: night-sky diary`)}`,

@@ -11,12 +11,12 @@ import { loadObjectFile } from '../orbit/elements.ts';
 import { smallBody } from '../orbit/body.ts';
 import { isSmallBody, tailInSky } from '../orbit/tail.ts';
 import { compass, describeAltitude } from '../describe.ts';
-import { GloamingError } from '../errors.ts';
+import { EXIT_CODES, GloamingError, quoteValue } from '../errors.ts';
 import { computeNight } from '../night.ts';
 import { observe } from '../observe.ts';
 import { formatClock, parseInstant, parseLocalDate } from '../time.ts';
 import { nightJson, positionJson, round, weekJson } from './format.ts';
-import { argumentError, joinNegativeNumbers, requireFlag, siteFromFlags } from './args.ts';
+import { argumentError, fileFlag, joinNegativeNumbers, requireFlag, siteFromFlags } from './args.ts';
 import { EVENTS_HELP, runEvents } from './events.ts';
 import { computeWeek } from '../week.ts';
 import { REASON_TEXT } from '../visibility.ts';
@@ -33,6 +33,10 @@ const FLAG_OF_FIELD: Record<string, string> = {
   at: '--at',
   body: '--body',
   site: '--site',
+  from: '--from',
+  to: '--to',
+  prodid: '--prodid',
+  now: '--now',
 };
 
 const COMMON = {
@@ -102,7 +106,7 @@ function registry(values: Record<string, unknown>): BodyRegistry {
   const contentDir = resolve(String(values.content ?? 'content'));
   const reg = loadBodies(resolve(contentDir, 'objects'));
   if (typeof values.elements === 'string') {
-    const body = smallBody(loadObjectFile(values.elements));
+    const body = smallBody(loadObjectFile(fileFlag(values.elements, '--elements', 'an object file (comet or asteroid elements, YAML)')));
     // An object file loaded from anywhere replaces a content object of the same id.
     return reg.ids().includes(body.id) ? new BodyRegistry().add(body) : reg.add(body);
   }
@@ -215,34 +219,51 @@ const COMMANDS: Record<string, (args: string[], out: (s: string) => void) => voi
   events: runEvents,
 };
 
-/** Runs the command line; returns the exit code (0 ok, 2 bad input, 1 unexpected failure). */
+/**
+ * One line for a `parseArgs` error (its own messages run over three lines): the option it names
+ * and what is wrong with it.
+ */
+function parseArgsLine(error: Error, command: string): string {
+  const flag = /Option '(-{1,2}[\w-]+)/.exec(error.message)?.[1];
+  const code = String((error as { code?: unknown }).code);
+  if (flag && code === 'ERR_PARSE_ARGS_INVALID_OPTION_VALUE' && /ambiguous|missing/.test(error.message)) {
+    return `${flag}: needs a value; see 'gloaming ${command} --help'`;
+  }
+  return `${error.message.split('\n')[0]!.replace(/\.$/, '')}; see 'gloaming ${command} --help'`;
+}
+
+/**
+ * Runs the command line; returns the exit code. One convention for the command line and the
+ * build (docs/deploy.md): 0 success, 2 a problem with the input (arguments, content files; the
+ * message says what and where), 1 an unexpected failure (a bug: the message carries the stack).
+ */
 export function main(argv: string[], out: (s: string) => void = console.log, err: (s: string) => void = console.error): number {
   const [command, ...rest] = argv;
   if (!command || command === '--help' || command === '-h' || command === 'help') {
     out(HELP.main!);
-    return command ? 0 : 2;
+    return command ? EXIT_CODES.ok : EXIT_CODES.input;
   }
   const run = COMMANDS[command];
   if (!run) {
-    err(`gloaming: unknown command '${command}'; expected one of ${Object.keys(COMMANDS).join(', ')}`);
-    return 2;
+    err(`gloaming: unknown command ${quoteValue(command)}; expected one of ${Object.keys(COMMANDS).join(', ')}`);
+    return EXIT_CODES.input;
   }
   try {
     run(joinNegativeNumbers(rest), out);
-    return 0;
+    return EXIT_CODES.ok;
   } catch (error) {
     if (error instanceof GloamingError) {
       const field = error.place?.field;
       const flag = field && !error.place?.file ? (field.startsWith('--') ? field : (FLAG_OF_FIELD[field.split('.')[0]!] ?? field)) : undefined;
       err(`gloaming ${command}: ${flag ? `${flag}: ${error.detail}` : error.message}`);
-      return 2;
+      return EXIT_CODES.input;
     }
     if (error instanceof Error && 'code' in error && String(error.code).startsWith('ERR_PARSE_ARGS')) {
-      err(`gloaming ${command}: ${error.message}; see 'gloaming ${command} --help'`);
-      return 2;
+      err(`gloaming ${command}: ${parseArgsLine(error, command)}`);
+      return EXIT_CODES.input;
     }
     err(`gloaming ${command}: internal error: ${error instanceof Error ? (error.stack ?? error.message) : String(error)}`);
-    return 1;
+    return EXIT_CODES.unexpected;
   }
 }
 
