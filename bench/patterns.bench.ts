@@ -6,7 +6,7 @@
  *   node bench/patterns.bench.ts        (or `npm run bench -- patterns`)
  */
 import { Body, Equator, MakeTime, Observer } from 'astronomy-engine';
-import { describeMotion, guidePattern } from '../lib/stars/guide.ts';
+import { describeMotion, guideTarget } from '../lib/stars/guide.ts';
 import { measure, report, type BenchRow } from './harness.ts';
 
 const observer = { latitudeDeg: 51.48, longitudeDeg: 0, elevationM: 20 };
@@ -20,10 +20,10 @@ const cases = Array.from({ length: 365 }, (_, d) => {
 });
 
 export async function run(): Promise<BenchRow[]> {
-  guidePattern({ observer, ...cases[0]! });
+  guideTarget({ observer, ...cases[0]! });
   let i = 0;
   const rows: BenchRow[] = [];
-  rows.push(await measure('patterns: guide pattern + phrase + nearest star, one body', () => guidePattern({ observer, ...cases[i++ % cases.length]! }), { targetMs: 1 }));
+  rows.push(await measure('patterns: guide pattern + phrase + nearest star, one body', () => guideTarget({ observer, ...cases[i++ % cases.length]! }), { targetMs: 1 }));
   // The Moon over a week: it moves far enough for a phrase.
   const week = [0, 2, 4, 6].map((d) => {
     const time = start.AddDays(d);

@@ -46,8 +46,15 @@ export function handMeasure(angleDeg: number): string {
   return Number.isInteger(f) ? `about ${f} fists` : `about ${Math.floor(f)} and a half fists`;
 }
 
-/** Altitude in degrees and fists: `{ degrees: 18, fists: 2, words: "18° (about 2 fists) up" }`. */
+/**
+ * Altitude in degrees and fists: `{ degrees: 18, fists: 2, words: "18° (about 2 fists) up" }`.
+ * Below the horizon the words say so, without a hand measure: "13° below the horizon", "just
+ * below the horizon" (−0.5° to 0°).
+ */
 export function describeAltitude(altitudeDeg: number): { degrees: number; fists: number; words: string } {
   const degrees = Math.round(altitudeDeg);
+  if (altitudeDeg < 0) {
+    return { degrees, fists: fists(altitudeDeg), words: degrees === 0 ? 'just below the horizon' : `${Math.abs(degrees)}° below the horizon` };
+  }
   return { degrees, fists: fists(altitudeDeg), words: `${degrees}° (${handMeasure(altitudeDeg)}) up` };
 }

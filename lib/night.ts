@@ -14,8 +14,8 @@ import { localMidnight, nightOf, type Night } from './time.ts';
 export { localMidnight };
 import { NightFrame } from './track.ts';
 import { NightVisibility, type Visibility } from './visibility.ts';
-import { observe } from './observe.ts';
-import { guidePattern, type GuideResult } from './stars/guide.ts';
+import type { GuideResult } from './stars/guide.ts';
+import { guideFor } from './guide.ts';
 
 /** One body's night: rise, transit and set, and (computed on first use) its visibility. */
 export interface BodyNight extends RiseTransitSet {
@@ -39,8 +39,7 @@ export function nightMagnitude(night: Night, body: Body): MagnitudeEstimate {
 
 /** The guide pattern for `body` at `time` as seen from `site` (see `lib/stars/guide.ts`). */
 export function guideAt(site: Site, body: Body, time: Date): GuideResult | null {
-  const o = observe(site, body, time);
-  return guidePattern({ observer: site, time: o.time, target: { raHours: o.raHours, decDeg: o.decDeg } });
+  return guideFor({ site, body, time });
 }
 
 export interface NightReport {

@@ -152,7 +152,8 @@ describe.each(SITE_IDS)('site %s', (siteId) => {
       const e = element(render(site, week, ':guide{body=jupiter night=fri}'), 'guide');
       if (g) {
         expect(e.text).toBe(g.phrase);
-        expect(e.attrs['data-pattern']).toBe(g.pattern.id);
+        expect(e.attrs['data-guide']).toBe(g.kind);
+        expect(e.attrs['data-pattern']).toBe(g.pattern?.id);
       } else {
         expect(e.attrs.class).toContain('gl-none');
       }

@@ -6,6 +6,7 @@
  */
 import { execFileSync } from 'node:child_process';
 import { describe, expect, it } from 'vitest';
+import { Body, Equator, Horizon, MakeTime, Observer } from 'astronomy-engine';
 import { main } from '../lib/cli/main.ts';
 import { ARCMIN, separationDeg } from './helpers/tolerance.ts';
 import { apparentTopocentric, jdUtOf, referenceEvents } from './reference/core/astronomia-reference.ts';
@@ -94,6 +95,15 @@ describe('gloaming night --json', () => {
     expect(Math.abs(jdUtOf(new Date(String(json.sun.rise))) - rise.jdUt) * 1440).toBeLessThanOrEqual(1);
   });
 
+  it('each body says what its guide leads from (pattern, star, planet, moon or horizon)', () => {
+    for (const b of json.bodies) {
+      const guide = b.guide as { kind: string; phrase: string } | null;
+      if (b.best === null) continue;
+      expect(['pattern', 'star', 'planet', 'moon', 'horizon'], String(b.body)).toContain(guide?.kind);
+      expect(guide!.phrase.length, String(b.body)).toBeGreaterThan(10);
+    }
+  });
+
   it('without --body covers the Moon and all planets', () => {
     const all = JSON.parse(run('night', '--lat', '0', '--lon', '0', '--tz', 'UTC', '--date', '2030-01-01', '--json').out) as { bodies: { body: string }[] };
     for (const id of ['mercury', 'venus', 'mars', 'jupiter', 'saturn', 'uranus', 'neptune']) {
@@ -161,5 +171,45 @@ describe('the real binary', () => {
     const version = execFileSync('npx', ['node', '--version'], { cwd: ROOT, encoding: 'utf8' }).trim();
     const [major, minor] = version.replace(/^v/, '').split('.').map(Number) as [number, number];
     expect(major > 22 || (major === 22 && minor >= 18), version).toBe(true);
+  });
+});
+
+describe('honest text on the command line (issue #13)', () => {
+  it('a body below the horizon is said to be below it, never "−13° … up"', () => {
+    // Jupiter at noon UTC on 2026-12-10 from 51° N: below the horizon (astronomy-engine Horizon, checked here).
+    const at = '2026-12-10T15:00:00Z';
+    const r = run('position', '--lat', '51', '--lon', '-1.5', '--at', at, '--body', 'jupiter');
+    const t = MakeTime(new Date(at));
+    const observer = new Observer(51, -1.5, 0);
+    const eq = Equator(Body.Jupiter, t, observer, true, true);
+    const alt = Horizon(t, observer, eq.ra, eq.dec, 'normal').altitude;
+    expect(alt).toBeLessThan(-1);
+    expect(r.out).toContain(`${Math.round(-alt)}° below the horizon`);
+    expect(r.out).not.toMatch(/−?\d+° \([^)]*\) up/);
+  });
+
+  it('night --body moon lists the Moon once', () => {
+    const r = run('night', '--lat', '51', '--lon', '-1.5', '--tz', 'Europe/London', '--date', '2026-12-20', '--body', 'moon', '--body', 'jupiter');
+    expect(r.code).toBe(0);
+    expect(r.out.match(/^Moon\b/gm)).toHaveLength(1);
+    expect(r.out).toMatch(/^Moon: .*% lit; rises .*; (best|not visible)/m);
+  });
+
+  it('events text rounds clock times to the minute as the sentences do (no truncation)', () => {
+    const json = JSON.parse(run('events', '--lat', '51', '--lon', '-1.5', '--tz', 'Europe/London', '--from', '2026-12-07', '--json').out) as { events: { time: string; description: string }[] };
+    const text = run('events', '--lat', '51', '--lon', '-1.5', '--tz', 'Europe/London', '--from', '2026-12-07').out.split('\n').slice(1);
+    expect(text.length).toBe(json.events.length);
+    let rounded = 0;
+    json.events.forEach((e, i) => {
+      // Round half up to the minute, from the ISO time with its offset (independent of lib/time.ts).
+      const ms = Date.parse(e.time);
+      const local = new Date(Math.round(ms / 60_000) * 60_000 + (Number(e.time.slice(-6, -3)) * 60 + Number(e.time.slice(-2)) * Math.sign(Number(e.time.slice(-6, -3)) || 1)) * 60_000);
+      const expected = local.toISOString().slice(0, 16).replace('T', ' ');
+      expect(text[i]!.startsWith(expected), `${text[i]} vs ${e.time}`).toBe(true);
+      if (Number(e.time.slice(17, 19)) >= 30) rounded++;
+      const clock = /at (\d\d:\d\d)/.exec(e.description);
+      if (clock) expect(expected.slice(11)).toBe(clock[1]);
+    });
+    expect(rounded).toBeGreaterThan(0);
   });
 });

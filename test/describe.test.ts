@@ -43,4 +43,10 @@ describe('hand measures (common practice: fist ≈ 10°, finger ≈ 2°)', () =>
     expect(fists(18)).toBe(2);
     expect(describeAltitude(18.4)).toEqual({ degrees: 18, fists: 2, words: '18° (about 2 fists) up' });
   });
+
+  it('below the horizon the words say so, with no hand measure and no "up"', () => {
+    expect(describeAltitude(-13.2).words).toBe('13° below the horizon');
+    expect(describeAltitude(-0.3).words).toBe('just below the horizon');
+    for (let a = -90; a < 0; a += 0.7) expect(describeAltitude(a).words).not.toMatch(/\bup\b|fist|finger|−/);
+  });
 });

@@ -23,7 +23,7 @@ import {
   Spherical,
   type AstroTime,
 } from 'astronomy-engine';
-import { describeMotion, distanceWords, guidePattern, offsetInSky, type OffsetDirection } from '../lib/stars/guide.ts';
+import { describeMotion, distanceWords, guideTarget, IN_PATTERN_DEG, NEAR_BODY_DEG, NEAR_STAR_DEG, offsetInSky, type OffsetDirection } from '../lib/stars/guide.ts';
 import { starByHip, starByName } from '../lib/stars/catalogue.ts';
 import { patternById } from '../lib/stars/patterns.ts';
 import { GloamingError } from '../lib/errors.ts';
@@ -139,7 +139,7 @@ function placeAt(altitudeDeg: number, azimuthDeg: number, time: AstroTime, site:
   return { raHours: eq.ra, decDeg: eq.dec };
 }
 
-describe('guidePattern end to end: words agree with astronomy-engine alt-az places', () => {
+describe('guideTarget end to end: words agree with astronomy-engine alt-az places', () => {
   it('nearest star and pattern anchor directions agree for random sites (both hemispheres), times and targets', () => {
     const random = seededRandom(42);
     const start = MakeTime(new Date('2026-01-01T00:00:00Z'));
@@ -158,11 +158,11 @@ describe('guidePattern end to end: words agree with astronomy-engine alt-az plac
       const altitudeDeg = random() < 0.2 ? 80 + random() * 9.5 : 15 + random() * 65;
       const azimuthDeg = random() * 360;
       const target = placeAt(altitudeDeg, azimuthDeg, time, site);
-      const result = guidePattern({ observer, time, target });
+      const result = guideTarget({ observer, time, target });
       if (!result) continue;
       const checks: { hip: number; direction: OffsetDirection; sep: number }[] = [];
       if (result.nearestStar) checks.push({ hip: result.nearestStar.hip, direction: result.nearestStar.offsetDirection, sep: result.nearestStar.separationDeg });
-      if (result.anchorStar) checks.push({ hip: starByName(result.anchorStar).hip, direction: result.offsetDirection, sep: result.separationDeg });
+      if (result.anchorStar) checks.push({ hip: starByName(result.anchorStar).hip, direction: result.offsetDirection!, sep: result.separationDeg! });
       for (const c of checks) {
         const star = starAltAz(c.hip, time, site);
         const pa = positionAngleDeg(star.altitudeDeg, star.azimuthDeg, altitudeDeg, azimuthDeg);
@@ -170,7 +170,8 @@ describe('guidePattern end to end: words agree with astronomy-engine alt-az plac
         // astronomy-engine includes stellar aberration (≤ 20″), the guide does not: separations agree
         // within 0.01°, and directions unless the target sits within 1° of a sector boundary.
         expectWithin(c.sep, sep, 0.01, 'separation from the star');
-        if (sep < 1 || boundaryDistance(pa) < 1) continue;
+        // Within 0.5° of the zenith "up" is undefined and the guide says 'below' (its documented convention).
+        if (sep < 1 || boundaryDistance(pa) < 1 || star.altitudeDeg > 89.4) continue;
         expect(c.direction, `site ${latitudeDeg.toFixed(1)},${longitudeDeg.toFixed(1)} star HIP ${c.hip} PA ${pa.toFixed(1)}`).toBe(sectorOf(pa));
         checked++;
         if (latitudeDeg < 0) south++;
@@ -187,7 +188,7 @@ describe('guidePattern end to end: words agree with astronomy-engine alt-az plac
   });
 });
 
-describe('guidePattern scenarios', () => {
+describe('guideTarget scenarios', () => {
   const observer = { latitudeDeg: 51.5, longitudeDeg: -0.1, elevationM: 10 };
   const site = new Observer(observer.latitudeDeg, observer.longitudeDeg, observer.elevationM);
   // A spring evening in London: the Big Dipper stands high in the north-east (checked below).
@@ -206,13 +207,13 @@ describe('guidePattern scenarios', () => {
     const centreAz = Math.atan2(c[1]!, c[0]!) / R;
     const lowestAlt = Math.min(...bowl.map((s) => s.altitudeDeg));
     const targetAlt = lowestAlt - 8;
-    const result = guidePattern({ observer, time: late, target: placeAt(targetAlt, centreAz, late, site) });
+    const result = guideTarget({ observer, time: late, target: placeAt(targetAlt, centreAz, late, site) });
     const edge = Math.min(...bowl.map((s) => altAzSeparationDeg(s.altitudeDeg, s.azimuthDeg, targetAlt, centreAz)));
     expect(centreAlt).toBeGreaterThan(targetAlt);
-    expect(result?.pattern.id).toBe('big-dipper');
+    expect(result?.pattern?.id).toBe('big-dipper');
     expect(result?.part).toBe('bowl');
     expect(result?.offsetDirection).toBe('below');
-    expectWithin(result!.separationDeg, edge, 0.02, 'distance below the bowl');
+    expectWithin(result!.separationDeg!, edge, 0.02, 'distance below the bowl');
     expect(result?.phrase).toBe(`about ${Math.round(edge)}° (almost a fist) below the bowl of the Big Dipper`);
   });
 
@@ -223,18 +224,19 @@ describe('guidePattern scenarios', () => {
     const d = 2 * R, pa = 45 * R, a1 = regulus.altitudeDeg * R;
     const alt2 = Math.asin(Math.sin(a1) * Math.cos(d) + Math.cos(a1) * Math.sin(d) * Math.cos(pa)) / R;
     const az2 = regulus.azimuthDeg + Math.atan2(Math.sin(pa) * Math.sin(d) * Math.cos(a1), Math.cos(d) - Math.sin(a1) * Math.sin(alt2 * R)) / R;
-    const result = guidePattern({ observer, time, target: placeAt(alt2, az2, time, site) });
+    const result = guideTarget({ observer, time, target: placeAt(alt2, az2, time, site) });
     expect(result?.nearestStar?.name).toBe('Regulus');
     expect(result?.nearestStar?.offsetDirection).toBe('upper right');
     expect(result?.nearestStar?.phrase).toBe('about 2° (about a finger) to the upper right of Regulus');
-    expect(result?.pattern.id).toBe('leo');
+    expect(result?.pattern?.id).toBe('leo');
   });
 
-  it('returns null when no pattern is close enough, and rejects impossible sites', () => {
+  it('returns null only below the horizon, and rejects impossible sites', () => {
     const target = placeAt(60, 200, time, site);
-    expect(guidePattern({ observer, time, target, maxSeparationDeg: 0.01 })).toBeNull();
-    expect(() => guidePattern({ observer: { ...observer, latitudeDeg: 100 }, time, target })).toThrow(GloamingError);
-    expect(() => guidePattern({ observer, time, target: { raHours: 25, decDeg: 0 } })).toThrow(GloamingError);
+    expect(guideTarget({ observer, time, target, maxSeparationDeg: 0.01 })?.kind).not.toBe('pattern');
+    expect(guideTarget({ observer, time, target: placeAt(-3, 200, time, site) })).toBeNull();
+    expect(() => guideTarget({ observer: { ...observer, latitudeDeg: 100 }, time, target })).toThrow(GloamingError);
+    expect(() => guideTarget({ observer, time, target: { raHours: 25, decDeg: 0 } })).toThrow(GloamingError);
   });
 });
 
@@ -282,5 +284,135 @@ describe('distance words (common practice: fist ≈ 10°, finger ≈ 2°)', () =
     expect(distanceWords(10.2)).toBe('about 10° (about a fist)');
     expect(distanceWords(0.4)).toBe('about 0.4° (less than a finger)');
     expect(distanceWords(20)).toBe('about 20° (about 2 fists)');
+  });
+});
+
+/** The point `distanceDeg` from (alt, az) along position angle `paDeg` (from up through right): the spherical offset formula in alt-az. */
+function offsetPoint(altDeg: number, azDeg: number, distanceDeg: number, paDeg: number): { altitudeDeg: number; azimuthDeg: number } {
+  const d = distanceDeg * R, pa = paDeg * R, a1 = altDeg * R;
+  const alt2 = Math.asin(Math.sin(a1) * Math.cos(d) + Math.cos(a1) * Math.sin(d) * Math.cos(pa));
+  const daz = Math.atan2(Math.sin(pa) * Math.sin(d) * Math.cos(a1), Math.cos(d) - Math.sin(a1) * Math.sin(alt2));
+  return { altitudeDeg: alt2 / R, azimuthDeg: azDeg + daz / R };
+}
+
+describe('guide rules, in their documented order', () => {
+  // An autumn evening at 51.5° N: the Great Square of Pegasus stands high in the south (checked below).
+  const observer = { latitudeDeg: 51.5, longitudeDeg: -0.1, elevationM: 10 };
+  const site = new Observer(observer.latitudeDeg, observer.longitudeDeg, observer.elevationM);
+  const time = MakeTime(new Date('2026-10-15T21:00:00Z'));
+  const square = patternById('great-square').stars.map((hip) => ({ hip, name: starByHip(hip)!.name, ...starAltAz(hip, time, site) }));
+  const noPatterns = { minAltitudeDeg: 91 }; // no reference point stands this high: rule 1 cannot apply
+
+  /** Separation and direction of a named star's offset, from astronomy-engine places and Meeus eq. 48.5. */
+  function expectOffsetFrom(starName: string, target: { altitudeDeg: number; azimuthDeg: number }, got: { separationDeg: number | null; offsetDirection: OffsetDirection | null }): void {
+    const star = starAltAz(starByName(starName).hip, time, site);
+    expectWithin(got.separationDeg!, altAzSeparationDeg(star.altitudeDeg, star.azimuthDeg, target.altitudeDeg, target.azimuthDeg), 0.01, `separation from ${starName}`);
+    const pa = positionAngleDeg(star.altitudeDeg, star.azimuthDeg, target.altitudeDeg, target.azimuthDeg);
+    if (boundaryDistance(pa) > 1) expect(got.offsetDirection).toBe(sectorOf(pa));
+  }
+
+  it('rule 1, inside the figure: "inside" always comes with a named star, a direction and a distance', () => {
+    expect(Math.min(...square.map((s) => s.altitudeDeg))).toBeGreaterThan(30);
+    // The middle of the Square: the alt-az mean of its four corners.
+    const v = square.map((s) => [Math.cos(s.altitudeDeg * R) * Math.cos(s.azimuthDeg * R), Math.cos(s.altitudeDeg * R) * Math.sin(s.azimuthDeg * R), Math.sin(s.altitudeDeg * R)]);
+    const c = [0, 1, 2].map((k) => v.reduce((sum, x) => sum + x[k]!, 0));
+    const middle = { altitudeDeg: Math.atan2(c[2]!, Math.hypot(c[0]!, c[1]!)) / R, azimuthDeg: Math.atan2(c[1]!, c[0]!) / R };
+    const result = guideTarget({ observer, time, target: placeAt(middle.altitudeDeg, middle.azimuthDeg, time, site) })!;
+    expect(result.kind).toBe('pattern');
+    expect(result.inside).toBe(true);
+    expect(result.phrase).toMatch(/^inside the Great Square of Pegasus, about \d+° \([^)]+\) (above|below|to the (upper |lower )?(left|right) of) (Alpheratz|Scheat|Markab|Algenib)$/);
+    expectOffsetFrom(result.anchorStar!, middle, result);
+    expect(result.names).toEqual(expect.arrayContaining([{ kind: 'pattern', id: 'great-square', name: 'Great Square of Pegasus' }]));
+  });
+
+  it(`rule 1, outside the figure: "in <pattern>" only within ${IN_PATTERN_DEG}° of its stars`, () => {
+    // Points straight out from Markab, away from the Square's middle, at growing distances.
+    const markab = square.find((s) => s.name === 'Markab')!;
+    const alpheratz = square.find((s) => s.name === 'Alpheratz')!;
+    const away = (positionAngleDeg(markab.altitudeDeg, markab.azimuthDeg, alpheratz.altitudeDeg, alpheratz.azimuthDeg) + 180) % 360;
+    for (const distance of [2, 4.5, 7, 12, 25]) {
+      const p = offsetPoint(markab.altitudeDeg, markab.azimuthDeg, distance, away);
+      const result = guideTarget({ observer, time, target: placeAt(p.altitudeDeg, p.azimuthDeg, time, site) })!;
+      const nearestSquareStar = Math.min(...square.map((s) => altAzSeparationDeg(s.altitudeDeg, s.azimuthDeg, p.altitudeDeg, p.azimuthDeg)));
+      expect(result.phrase, `${distance}°`).not.toMatch(/\binside\b/);
+      if (nearestSquareStar <= IN_PATTERN_DEG - 0.1) {
+        expect(result.phrase, `${distance}°`).toMatch(/, in the Great Square of Pegasus$/);
+        expectOffsetFrom(result.anchorStar!, p, result);
+      } else if (nearestSquareStar > IN_PATTERN_DEG + 0.1) {
+        expect(result.phrase, `${distance}°`).not.toMatch(/, in the Great Square/);
+      }
+      if (result.kind === 'star') {
+        expect(result.separationDeg!).toBeLessThanOrEqual(NEAR_STAR_DEG);
+        expectOffsetFrom(result.anchorStar!, p, result);
+      }
+    }
+  });
+
+  it('rule 1, a compact figure: "in" reaches no farther than the figure is wide (the Pleiades, radius about 1°)', () => {
+    const winter = MakeTime(new Date('2026-12-15T22:00:00Z'));
+    const alcyone = starAltAz(starByName('Alcyone').hip, winter, site);
+    expect(alcyone.altitudeDeg).toBeGreaterThan(40);
+    for (const pa of [0, 90, 180, 270]) {
+      const p = offsetPoint(alcyone.altitudeDeg, alcyone.azimuthDeg, 3.5, pa);
+      const result = guideTarget({ observer, time: winter, target: placeAt(p.altitudeDeg, p.azimuthDeg, winter, site) })!;
+      expect(result.phrase, `PA ${pa}`).not.toMatch(/in the Pleiades|inside/);
+    }
+  });
+
+  it(`rule 2: the Moon or a bright planet within ${NEAR_BODY_DEG}°, when no pattern qualifies; faint planets do not guide`, () => {
+    const target = { altitudeDeg: 8, azimuthDeg: 250 };
+    const above = (distance: number) => offsetPoint(target.altitudeDeg, target.azimuthDeg, distance, 0);
+    const companion = (id: string, name: string, kind: 'moon' | 'planet', magnitude: number, at: { altitudeDeg: number; azimuthDeg: number }) => ({
+      id, name, kind, magnitude, place: placeAt(at.altitudeDeg, at.azimuthDeg, time, site),
+    });
+    const place = placeAt(target.altitudeDeg, target.azimuthDeg, time, site);
+    const venus = guideTarget({ observer, time, target: place, ...noPatterns, companions: [companion('venus', 'Venus', 'planet', -4.1, above(6))] })!;
+    expect(venus.kind).toBe('planet');
+    expect(venus.anchorBody).toBe('venus');
+    expect(venus.phrase).toBe('about 6° (about 3 fingers) below Venus');
+    expect(venus.names).toEqual([{ kind: 'body', id: 'venus', name: 'Venus' }]);
+    const moon = guideTarget({ observer, time, target: place, ...noPatterns, companions: [companion('moon', 'Moon', 'moon', -10, above(4)), companion('venus', 'Venus', 'planet', -4.1, above(6))] })!;
+    expect(moon.kind).toBe('moon');
+    expect(moon.phrase).toBe('about 4° (about 2 fingers) below the Moon');
+    const faint = guideTarget({ observer, time, target: place, ...noPatterns, companions: [companion('uranus', 'Uranus', 'planet', 5.7, above(3))] })!;
+    expect(faint.kind).not.toBe('planet');
+    const far = guideTarget({ observer, time, target: place, ...noPatterns, companions: [companion('venus', 'Venus', 'planet', -4.1, above(NEAR_BODY_DEG + 1))] })!;
+    expect(far.kind).not.toBe('planet');
+  });
+
+  it(`rule 3: a bright named star within ${NEAR_STAR_DEG}°, only the brightest ones in twilight`, () => {
+    const altair = starAltAz(starByName('Altair').hip, time, site);
+    const p = offsetPoint(altair.altitudeDeg, altair.azimuthDeg, 4, 90);
+    const dark = guideTarget({ observer, time, target: placeAt(p.altitudeDeg, p.azimuthDeg, time, site), ...noPatterns })!;
+    expect(dark.kind).toBe('star');
+    expect(dark.anchorStar).toBe('Altair');
+    expect(dark.phrase).toBe('about 4° (about 2 fingers) to the right of Altair');
+    expect(dark.names).toEqual([{ kind: 'star', hip: starByName('Altair').hip, name: 'Altair' }]);
+    // 4° from Enif (V 2.4): in the dark it guides; with the Sun 8° down only stars of V ≤ 1.5 may.
+    const enif = starAltAz(starByName('Enif').hip, time, site);
+    const q = offsetPoint(enif.altitudeDeg, enif.azimuthDeg, 4, 180);
+    const target = placeAt(q.altitudeDeg, q.azimuthDeg, time, site);
+    expect(guideTarget({ observer, time, target, ...noPatterns })!.anchorStar).toBe('Enif');
+    const sun = placeAt(-8, 270, time, site);
+    const twilight = guideTarget({ observer, time, target, sun, ...noPatterns })!;
+    expect(twilight.anchorStar).not.toBe('Enif');
+    if (twilight.anchorStar) expect(starByName(twilight.anchorStar).vMag).toBeLessThanOrEqual(1.5);
+  });
+
+  it('every target above the horizon gets a phrase, whatever the sky (random sites, times and places)', () => {
+    const random = seededRandom(1313);
+    const kinds = new Set<string>();
+    for (let i = 0; i < 400; i++) {
+      const obs = { latitudeDeg: -70 + random() * 140, longitudeDeg: -180 + random() * 360, elevationM: 0 };
+      const s = new Observer(obs.latitudeDeg, obs.longitudeDeg, 0);
+      const t = MakeTime(new Date('2026-01-01T00:00:00Z')).AddDays(random() * 730);
+      const target = placeAt(random() * 89, random() * 360, t, s);
+      const sunEq = Equator(Body.Sun, t, s, true, true);
+      const result = guideTarget({ observer: obs, time: t, target, sun: { raHours: sunEq.ra, decDeg: sunEq.dec }, maxStarMagnitude: random() < 0.3 ? -2 : 3 });
+      expect(result).not.toBeNull();
+      expect(result!.phrase).not.toMatch(/^inside [^,]+$/);
+      kinds.add(result!.kind);
+    }
+    expect([...kinds].sort()).toEqual(['horizon', 'pattern', 'star']);
   });
 });

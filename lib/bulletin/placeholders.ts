@@ -368,11 +368,11 @@ function guide(call: PlaceholderCall): ElementContent {
   const body = bodyOf(call);
   const g = call.week.bodyNight(call.night, body).guide;
   if (!g) {
-    return el('span', { ...classes(call, 'gl-none'), dataNight: nightDate(call), dataBody: body.id }, 'no bright star pattern stands near it this night');
+    return el('span', { ...classes(call, 'gl-none'), dataNight: nightDate(call), dataBody: body.id }, 'below the horizon at that time');
   }
   return el(
     'span',
-    { ...classes(call), dataNight: nightDate(call), dataBody: body.id, dataPattern: g.pattern.id, dataSeparationDeg: exact(g.separationDeg, 2), dataOffset: g.offsetDirection, ...(g.nearestStar ? { dataNearestStar: g.nearestStar.name } : {}) },
+    { ...classes(call), dataNight: nightDate(call), dataBody: body.id, dataGuide: g.kind, ...(g.pattern ? { dataPattern: g.pattern.id } : {}), ...(g.separationDeg !== null ? { dataSeparationDeg: exact(g.separationDeg, 2) } : {}), ...(g.offsetDirection ? { dataOffset: g.offsetDirection } : {}), ...(g.nearestStar ? { dataNearestStar: g.nearestStar.name } : {}) },
     g.phrase,
   );
 }

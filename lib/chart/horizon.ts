@@ -27,7 +27,8 @@ import { GloamingError } from '../errors.ts';
 import { observe, type Observation } from '../observe.ts';
 import { tailPointGeoVector, type SmallBody } from '../orbit/body.ts';
 import { skylineAltitudeDeg, type Site } from '../site.ts';
-import { guidePattern, type GuideResult } from '../stars/guide.ts';
+import { guideFor } from '../guide.ts';
+import type { GuideResult } from '../stars/guide.ts';
 import { patternById, type StarPattern } from '../stars/patterns.ts';
 import { starByHip } from '../stars/catalogue.ts';
 import { patternLinesMarkup, SkyAt } from './place.ts';
@@ -134,8 +135,8 @@ export function horizonChart(input: { site: Site; body: Body; time: Date; option
   const H = SCENE_HEIGHT + LEGEND_HEIGHT;
   const target = observe(site, body, time);
   const sky = new SkyAt(site, time);
-  const guide = guidePattern({ observer: site, time: target.time, target: { raHours: target.raHours, decDeg: target.decDeg } });
-  const guidePat: StarPattern | null = guide ? patternById(guide.pattern.id) : null;
+  const guide = guideFor({ site, body, time: target.time });
+  const guidePat: StarPattern | null = guide?.pattern ? patternById(guide.pattern.id) : null;
   const magnitudeLimit = options.magnitudeLimit ?? chartMagnitudeLimit(site.sky);
   const azimuth0 = target.azimuthDeg;
 

@@ -8,7 +8,7 @@ import { BodyRegistry } from '../body.ts';
 import { loadBodies } from '../content.ts';
 import { GloamingError } from '../errors.ts';
 import { argumentError, joinNegativeNumbers, siteFromFlags } from './args.ts';
-import { addDays, formatInstant, parseInstant, parseLocalDate, zonedTime } from '../time.ts';
+import { addDays, formatInstant, parseInstant, parseLocalDate, roundInstant, zonedTime } from '../time.ts';
 import { EVENT_TYPES, eventsToICalendar, findEvents, type AlmanacEvent, type AlmanacEventType } from '../almanac/index.ts';
 import { round } from './format.ts';
 
@@ -141,7 +141,8 @@ export function runEvents(args: string[], out: (s: string) => void): void {
   }
   const lines = [`Events ${values.from} – ${lastDate} at ${site.name} (${zone})`];
   for (const e of events) {
-    lines.push(`${formatInstant(e.time, zone).slice(0, 16).replace('T', ' ')}  ${e.visible ? 'visible    ' : 'not visible'}  ${e.description}`);
+    // Rounded to the minute like the sentences and the pages (never truncated).
+    lines.push(`${formatInstant(roundInstant(e.time, 'minute'), zone).slice(0, 16).replace('T', ' ')}  ${e.visible ? 'visible    ' : 'not visible'}  ${e.description}`);
     if (e.caution) lines.push(`                              ${e.caution}`);
   }
   if (events.length === 0) lines.push('No events in this range.');

@@ -109,7 +109,7 @@ export function nightJson(report: NightReport): Record<string, unknown> {
         ...(b.transit.time && b.transit.altitudeDeg !== undefined ? { transitAltitude: round(b.transit.altitudeDeg, 2) } : {}),
         ...(reasons(events) ? { reasons: reasons(events) } : {}),
         ...visibilityJson(b.visibility, zone),
-        pattern: guideJson(b.guide),
+        guide: guideJson(b.guide),
       };
     }),
   };
@@ -162,15 +162,16 @@ export function weekJson(report: WeekReport): Record<string, unknown> {
   };
 }
 
-/** The `pattern` field of a body's night entry (issue #5 shape), or null. */
+/** The `guide` field of a body's night entry, or null when the body is below the horizon. */
 export function guideJson(g: GuideResult | null): Record<string, unknown> | null {
   if (!g) return null;
   return {
-    id: g.pattern.id,
-    name: g.pattern.name,
-    ...(g.part ? { part: g.part } : {}),
+    kind: g.kind,
     phrase: g.phrase,
-    separation: round(g.separationDeg, 2),
+    pattern: g.pattern ? { id: g.pattern.id, name: g.pattern.name, ...(g.part ? { part: g.part } : {}) } : null,
+    star: g.anchorStar ?? null,
+    body: g.anchorBody ?? null,
+    separation: g.separationDeg === null ? null : round(g.separationDeg, 2),
     offsetDirection: g.offsetDirection,
     nearestStar: g.nearestStar ? { name: g.nearestStar.name, separation: round(g.nearestStar.separationDeg, 2), phrase: g.nearestStar.phrase } : null,
   };

@@ -171,20 +171,24 @@ function runNight(args: string[], out: (s: string) => void): void {
   if (values.json) return out(JSON.stringify(nightJson(report), null, 2));
   const zone = site.timeZone;
   const s = report.sun;
+  const seenText = (b: (typeof report.bodies)[number]): string => {
+    const v = b.visibility;
+    const seen = v.best
+      ? `best ${hhmm(v.best.time, zone)}${v.outsideViewingHours ? ' (outside viewing hours)' : ''}, ${compass(v.best.azimuthDeg).abbreviation} ${Math.round(v.best.altitudeDeg)}° up, ${v.verdict}`
+      : `not visible: ${REASON_TEXT[v.reason!]}`;
+    return `${seen}${b.guide && v.best ? `; ${b.guide.phrase}` : ''}`;
+  };
+  // The Moon has its own line; when it is also asked for as a body, its visibility joins that line.
+  const moonBody = report.bodies.find((b) => b.body.id === 'moon');
   const lines = [
     `Night of ${date} at ${round(site.latitudeDeg, 4)}°, ${round(site.longitudeDeg, 4)}° (${zone})`,
     `Sun: sets ${timeText(s.set, zone)}, civil dusk ${timeText(s.civilDusk, zone)}, nautical dusk ${timeText(s.nauticalDusk, zone)}, ` +
       `astronomical dusk ${timeText(s.astronomicalDusk, zone)}; astronomical dawn ${timeText(s.astronomicalDawn, zone)}, rises ${timeText(s.rise, zone)}`,
     `Moon: ${PHASE_LABEL[report.moon.phase.name]}, ${Math.round(report.moon.phase.illuminatedFraction * 100)}% lit; rises ${timeText(report.moon.rise, zone)}, ` +
-      `transits ${timeText(report.moon.transit, zone)}, sets ${timeText(report.moon.set, zone)}`,
-    ...report.bodies.map((b) => {
-      const v = b.visibility;
-      const seen = v.best
-        ? `best ${hhmm(v.best.time, zone)}${v.outsideViewingHours ? ' (outside viewing hours)' : ''}, ${compass(v.best.azimuthDeg).abbreviation} ${Math.round(v.best.altitudeDeg)}° up, ${v.verdict}`
-        : `not visible: ${REASON_TEXT[v.reason!]}`;
-      const guide = b.guide ? `; ${b.guide.phrase}` : '';
-      return `${b.body.name}: rises ${timeText(b.rise, zone)}, transits ${timeText(b.transit, zone)}, sets ${timeText(b.set, zone)}; ${seen}${guide}`;
-    }),
+      `transits ${timeText(report.moon.transit, zone)}, sets ${timeText(report.moon.set, zone)}${moonBody ? `; ${seenText(moonBody)}` : ''}`,
+    ...report.bodies
+      .filter((b) => b !== moonBody)
+      .map((b) => `${b.body.name}: rises ${timeText(b.rise, zone)}, transits ${timeText(b.transit, zone)}, sets ${timeText(b.set, zone)}; ${seenText(b)}`),
   ];
   out(lines.join('\n'));
 }

@@ -16,13 +16,14 @@
  */
 import {
   Observer,
+  Refraction,
   Rotation_EQD_EQJ,
   Rotation_EQD_HOR,
   Rotation_EQJ_EQD,
   type AstroTime,
   type RotationMatrix,
 } from 'astronomy-engine';
-import { handMeasure } from '../describe.ts';
+import { compass, handMeasure } from '../describe.ts';
 import { GloamingError } from '../errors.ts';
 import { starByHip, stars, type Star } from './catalogue.ts';
 import { partPhrase, patternById, patterns, type StarPattern } from './patterns.ts';
@@ -57,25 +58,53 @@ export interface NearestStar {
   phrase: string;
 }
 
+/** What a guide phrase leads the eye from. */
+export type GuideKind = 'pattern' | 'star' | 'planet' | 'moon' | 'horizon';
+
+/** A star, pattern or body named in a guide phrase (a chart that shows the phrase must label it). */
+export type GuideName =
+  | { kind: 'star'; hip: number; name: string }
+  | { kind: 'pattern'; id: string; name: string }
+  | { kind: 'body'; id: string; name: string };
+
+/** The Moon or a bright planet that may lead the eye to a target: id, display name, apparent place of date, V magnitude. */
+export interface GuideCompanion {
+  id: string;
+  name: string;
+  kind: 'moon' | 'planet';
+  place: ApparentPlace;
+  magnitude: number;
+}
+
 export interface GuideResult {
-  pattern: { id: string; name: string };
-  /** The named part used as the reference ("bowl"), when the pattern has parts. */
-  part?: string;
-  /** The star of the pattern used as the reference point, when the phrase names one. */
-  anchorStar?: string;
-  /** Whether the target lies inside the outline of the pattern (or part). */
-  inside: boolean;
-  /** Degrees from the target to the nearest star of the reference (to its centre when inside). */
-  separationDeg: number;
-  /** Where the target lies as seen from the reference. */
-  offsetDirection: OffsetDirection;
-  /** "about 8° (almost a fist) below the bowl of the Big Dipper". */
+  /** What the phrase leads from: a star pattern, a named star, a planet, the Moon, or the horizon (and the Sun). */
+  kind: GuideKind;
+  /** "about 3° (about 2 fingers) to the upper right of Regulus, in the Sickle of Leo". */
   phrase: string;
-  /** Altitude of the reference point above the horizon, degrees (geometric). */
-  referenceAltitudeDeg: number;
-  /** The score that chose this pattern (lower is better; see `patternScore`). */
-  score: number;
+  /** The pattern the phrase names (kind 'pattern', or the pattern a guide star belongs to), else null. */
+  pattern: { id: string; name: string } | null;
+  /** The named part used as the reference ("bowl"), when the phrase names one. */
+  part?: string;
+  /** The named star the phrase measures from, when it names one. */
+  anchorStar?: string;
+  /** The id of the Moon or planet the phrase measures from (kinds 'moon' and 'planet'). */
+  anchorBody?: string;
+  /** Whether the target lies inside the figure of the pattern (or part). */
+  inside: boolean;
+  /** Degrees from the reference (star, body, or the pattern's nearest star) to the target; null for the horizon. */
+  separationDeg: number | null;
+  /** Where the target lies as seen from the reference; null for the horizon. */
+  offsetDirection: OffsetDirection | null;
+  /** Geometric altitude of the pattern's reference point, degrees, when a pattern was ranked. */
+  referenceAltitudeDeg: number | null;
+  /** The score of the best-ranked pattern (lower is better; see `patternScore`), or null when none stands up. */
+  score: number | null;
+  /** The nearest bright named star (V ≤ `maxStarMagnitude`) above the horizon, whatever the phrase uses. */
   nearestStar: NearestStar | null;
+  /** The horizon phrase's numbers (kind 'horizon'): the target's apparent altitude (standard refraction) and azimuth, and the Sun's set or rise point. */
+  horizon: { altitudeDeg: number; azimuthDeg: number; sun: { event: 'set' | 'rise'; offsetDeg: number; side: 'left' | 'right' | 'above' } | null } | null;
+  /** Every star, pattern and body the phrase names. */
+  names: GuideName[];
 }
 
 export interface GuideOptions {
@@ -83,9 +112,13 @@ export interface GuideOptions {
   time: AstroTime;
   /** Apparent RA (hours) and Dec (degrees) of date. */
   target: ApparentPlace;
+  /** The Sun's apparent place of date: with it, a horizon phrase says where the Sun set or will rise. */
+  sun?: ApparentPlace;
+  /** The Moon and planets that may serve as guides (not the target itself). */
+  companions?: readonly GuideCompanion[];
   /** A pattern is used only when its reference point stands this high, degrees. Default 10. */
   minAltitudeDeg?: number;
-  /** Patterns whose nearest star is farther than this from the target are not used, degrees. Default 30. */
+  /** Patterns whose nearest star is farther than this from the target are not ranked, degrees. Default 30. */
   maxSeparationDeg?: number;
   /** Faintest star that may serve as the nearest named star, V magnitude. Default 3.0. */
   maxStarMagnitude?: number;
@@ -94,10 +127,26 @@ export interface GuideOptions {
 type Vec = [number, number, number];
 
 const DEG = 180 / Math.PI;
-/** Inside a group when closer to its centre than this fraction of its radius. */
-const INSIDE_FRACTION = 0.75;
-/** Groups wider than this (radius, degrees) are referred to by their nearest star. */
+/** "in <pattern>" is said outside the figure only this close to one of its stars (and no farther than the figure's radius, but at least 1°), degrees. */
+export const IN_PATTERN_DEG = 5;
+/** A compact figure (radius ≤ `WIDE_GROUP_DEG`) guides without "in" up to this far from its nearest star, degrees. */
+export const NEAR_PATTERN_DEG = 10;
+/** Figures wider than this (radius, degrees) are told from their nearest star rather than their centre. */
 const WIDE_GROUP_DEG = 10;
+/** The Moon or a bright planet guides up to this far from the target, degrees. */
+export const NEAR_BODY_DEG = 15;
+/** A bright named star guides up to this far from the target, degrees. */
+export const NEAR_STAR_DEG = 20;
+/** Planets at least this bright (V) may guide. */
+export const BRIGHT_PLANET_MAG = 1.5;
+/** While the Sun is higher than −12° only stars at least this bright (V) may guide: fainter ones are not yet out. */
+export const TWILIGHT_STAR_MAG = 1.5;
+/** Guide stars and bodies must stand at least this high, degrees (geometric). */
+const MIN_GUIDE_ALTITUDE_DEG = 3;
+/** A companion closer than this is the target itself (or hides it), degrees. */
+const MIN_BODY_SEPARATION_DEG = 0.2;
+/** Targets whose geometric altitude is lower than this are below the horizon even with refraction, degrees. */
+const BELOW_HORIZON_DEG = -1;
 
 function dot(a: Vec, b: Vec): number {
   return a[0] * b[0] + a[1] * b[1] + a[2] * b[2];
@@ -290,52 +339,70 @@ function altitudeOf(v: Vec): number {
 }
 
 /**
- * Chooses the most useful guide pattern for a target seen by `observer` at `time`, and the
- * nearest bright named star, and tells where the target lies from each in the observer's frame.
+ * Where a target is, in the words a reader can follow outside, and what those words lead from.
+ * The rules, tried in this order (each one's limits are constants below):
  *
- * For each pattern, the reference is the named part with the nearest star to the target, or the
- * whole pattern when it has no parts or when one of its other stars is over 1° nearer. Patterns whose reference stands lower than `minAltitudeDeg` or whose nearest star is
- * farther than `maxSeparationDeg` are skipped; the rest are ranked by `patternScore`.
+ * 1. **A star pattern.** The patterns whose reference point (a named part, or the whole figure)
+ *    stands at least `minAltitudeDeg` (10°) high and whose nearest star is within
+ *    `maxSeparationDeg` (30°) of the target are ranked by `patternScore`; the best one is used
+ *    only if the target lies within its figure (inside the convex outline of its stars on the
+ *    gnomonic tangent plane) or close to one of its stars: within the figure's radius, at least 1°
+ *    and at most `IN_PATTERN_DEG` (5°). Then the phrase
+ *    says "in <pattern>" and measures from the nearest named star of that figure: "about 3° (about
+ *    2 fingers) to the upper right of Regulus, in the Sickle of Leo" (within 3° of the star, or
+ *    not inside), "inside the Great Square of Pegasus, about 6° (about 3 fingers) to the lower
+ *    left of Scheat" (inside; "inside" always comes with a named star, a direction and a
+ *    distance). A figure with no named star near enough reads "about 4° (about 2 fingers) to the
+ *    lower left of the Pleiades" (distance to its nearest star, direction from its centre, or from
+ *    that star for figures wider than `WIDE_GROUP_DEG`). A compact figure (radius ≤ 10°) within
+ *    `NEAR_PATTERN_DEG` (10°) also reads that way ("about 8° (almost a fist) below the bowl of the
+ *    Big Dipper"), with no "in".
+ * 2. **The Moon or a bright planet** (V ≤ `BRIGHT_PLANET_MAG`) at least `MIN_GUIDE_ALTITUDE_DEG`
+ *    up and within `NEAR_BODY_DEG` (15°): "about 6° (about 3 fingers) below Venus".
+ * 3. **A bright named star** at least `MIN_GUIDE_ALTITUDE_DEG` up and within `NEAR_STAR_DEG` (20°):
+ *    the one that minimises separation + 1.5 × (V − 1) for stars fainter than V 1, V ≤
+ *    `maxStarMagnitude` (V ≤ `TWILIGHT_STAR_MAG` while the Sun is higher than −12°, when fainter
+ *    stars are not yet out); "about 14° (about a fist and a half) to the lower left of Markab, a
+ *    star of the Great Square of Pegasus" (the pattern is named when the star belongs to one that
+ *    stands up).
+ * 4. **The horizon and the Sun**: "low in the west-southwest, about a fist above the horizon,
+ *    about 20° (about 2 fists) to the left of where the Sun set" (the Sun's part only in
+ *    twilight, Sun 0° to −18°, and within 90° of azimuth of the target).
  *
- * The phrase is told from the reference's nearest star when that star has a proper name and the
- * target is close to it (within 3°, or 30% of the reference's radius), or, outside the
- * reference, when the reference is wide (radius over 10°) or the target is nearer than the
- * reference's own size ("about 2° … of Merak, in the bowl of the Big Dipper"). A target within
- * three quarters of the reference's radius of its centre is "inside …" (followed by the offset
- * from the nearest star when it has a proper name). Otherwise the distance is to the nearest star
- * and the direction from the reference's centre ("about 8° (almost a fist) below the bowl of the
- * Big Dipper").
- *
- * The nearest star is the proper-named star of V ≤ `maxStarMagnitude` (default 3.0) above the
- * horizon that minimises separation + 1.5 × (V − 1) for stars fainter than V 1 (a brighter star
- * is worth a slightly longer hop).
- *
- * Returns null when no pattern qualifies. Throws `GloamingError` ('invalid-value') for
- * out-of-range inputs.
+ * So every target above the horizon gets a phrase. Returns null only for a target whose geometric
+ * altitude is below −1° (below the horizon even with refraction). Throws `GloamingError`
+ * ('invalid-value') for out-of-range inputs.
  */
-export function guidePattern(options: GuideOptions): GuideResult | null {
+export function guideTarget(options: GuideOptions): GuideResult | null {
   const minAltitudeDeg = options.minAltitudeDeg ?? 10;
   const maxSeparationDeg = options.maxSeparationDeg ?? 30;
-  const maxStarMagnitude = options.maxStarMagnitude ?? 3.0;
   const { groups, brightness, named } = prepare();
   const frame = horizontalFrame(options.observer, options.time);
   const target = targetVector(frame, options.target);
+  const targetAltitudeDeg = altitudeOf(target);
+  if (targetAltitudeDeg < BELOW_HORIZON_DEG) return null;
+  // The horizon phrase gives the altitude a reader sees: with standard refraction (astronomy-engine `Refraction`).
+  const apparentAltitudeDeg = targetAltitudeDeg + Refraction('normal', targetAltitudeDeg);
+  const sun = options.sun ? targetVector(frame, options.sun) : null;
+  const sunAltitudeDeg = sun ? altitudeOf(sun) : null;
+  const twilight = sunAltitudeDeg !== null && sunAltitudeDeg > -12;
+  const maxStarMagnitude = Math.min(options.maxStarMagnitude ?? 3.0, twilight ? TWILIGHT_STAR_MAG : Infinity);
 
-  let best: { group: Group; score: number; centroid: Vec; nearest: { star: Star; hor: Vec; sep: number }; centreSep: number } | null = null;
+  // Rank the patterns (rule 1).
+  let best: { group: Group; score: number; centroid: Vec; hors: Vec[]; nearest: { star: Star; hor: Vec; sep: number } } | null = null;
   for (const [id, list] of groups) {
-    let pick: { group: Group; centroid: Vec; nearest: { star: Star; hor: Vec; sep: number }; centreSep: number; rank: number } | null = null;
+    let pick: { group: Group; centroid: Vec; hors: Vec[]; nearest: { star: Star; hor: Vec; sep: number }; rank: number } | null = null;
     for (const group of list) {
+      const hors = group.stars.map((s) => rotate(frame.eqjToHor, s.eqj));
       let nearest: { star: Star; hor: Vec; sep: number } | null = null;
-      for (const s of group.stars) {
-        const hor = rotate(frame.eqjToHor, s.eqj);
+      hors.forEach((hor, i) => {
         const sep = angleDeg(hor, target);
-        if (!nearest || sep < nearest.sep) nearest = { star: s.star, hor, sep };
-      }
+        if (!nearest || sep < nearest.sep) nearest = { star: group.stars[i]!.star, hor, sep };
+      });
       const centroid = rotate(frame.eqjToHor, group.centroidEqj);
-      const centreSep = angleDeg(centroid, target);
       // A named part is preferred to the whole pattern unless the pattern has a star over 1° nearer.
       const rank = nearest!.sep + (group.part === undefined ? 1 : 0);
-      if (!pick || rank < pick.rank) pick = { group, centroid, nearest: nearest!, centreSep, rank };
+      if (!pick || rank < pick.rank) pick = { group, centroid, hors, nearest: nearest!, rank };
     }
     if (!pick) continue;
     const altitudeDeg = altitudeOf(pick.centroid);
@@ -344,70 +411,275 @@ export function guidePattern(options: GuideOptions): GuideResult | null {
     const score = patternScore({ separationDeg: pick.nearest.sep, familiarity: pattern.familiarity, brightnessMag: brightness.get(id)!, altitudeDeg });
     if (!best || score < best.score) best = { ...pick, score };
   }
-  if (!best) return null;
 
-  const { group, centroid, nearest, centreSep } = best;
-  const pattern = group.pattern;
-  const what = group.part === undefined ? pattern.sentenceName : partPhrase(pattern, group.part);
-  const inside = group.stars.length >= 3 && centreSep <= INSIDE_FRACTION * group.radiusDeg;
-  let phrase: string;
-  let separationDeg: number;
-  let offsetDirection: OffsetDirection;
-  let anchorStar: string | undefined;
-  const starAnchored = nearest.star.name !== '' && (nearest.sep <= Math.max(3, 0.3 * group.radiusDeg) || (!inside && (group.radiusDeg > WIDE_GROUP_DEG || nearest.sep < group.radiusDeg)));
-  if (starAnchored || (inside && nearest.star.name)) {
-    const o = offsetVectors(nearest.hor, target);
-    separationDeg = o.separationDeg;
-    offsetDirection = o.offsetDirection;
-    anchorStar = nearest.star.name;
-    const fromStar = `${distanceWords(separationDeg)} ${directionWords(offsetDirection, nearest.star.name)}`;
-    phrase = inside && !starAnchored ? `inside ${what}, ${fromStar}` : `${fromStar}, in ${what}`;
-  } else if (inside) {
-    const o = offsetVectors(centroid, target);
-    separationDeg = o.separationDeg;
-    offsetDirection = o.offsetDirection;
-    phrase = `inside ${what}`;
-  } else {
-    const o = offsetVectors(centroid, target);
-    separationDeg = nearest.sep;
-    offsetDirection = o.offsetDirection;
-    phrase = `${distanceWords(separationDeg)} ${directionWords(offsetDirection, what)}`;
-  }
-
-  let nearestStar: NearestStar | null = null;
+  // The nearest bright named star above the horizon (reported whatever the phrase uses; rule 3).
+  let nearestStar: (NearestStar & { hor: Vec; altitudeDeg: number }) | null = null;
+  let guideStar: (NearestStar & { hor: Vec }) | null = null;
   let bestCost = Infinity;
+  let bestGuideCost = Infinity;
   for (const s of named) {
-    if (s.star.vMag > maxStarMagnitude) continue;
+    if (s.star.vMag > (options.maxStarMagnitude ?? 3.0)) continue;
     const hor = rotate(frame.eqjToHor, s.eqj);
     if (hor[2] <= 0) continue;
     const sep = angleDeg(hor, target);
     const cost = sep + 1.5 * Math.max(0, s.star.vMag - 1);
+    const describe = (): NearestStar & { hor: Vec; altitudeDeg: number } => {
+      const o = offsetVectors(hor, target);
+      return { hip: s.star.hip, name: s.star.name, separationDeg: o.separationDeg, offsetDirection: o.offsetDirection, phrase: fromWords(o, s.star.name), hor, altitudeDeg: altitudeOf(hor) };
+    };
     if (cost < bestCost) {
       bestCost = cost;
-      const o = offsetVectors(hor, target);
-      nearestStar = {
-        hip: s.star.hip,
-        name: s.star.name,
-        separationDeg: o.separationDeg,
-        offsetDirection: o.offsetDirection,
-        phrase: `${distanceWords(o.separationDeg)} ${directionWords(o.offsetDirection, s.star.name)}`,
-      };
+      nearestStar = describe();
+    }
+    if (cost < bestGuideCost && s.star.vMag <= maxStarMagnitude && sep <= NEAR_STAR_DEG && altitudeOf(hor) >= MIN_GUIDE_ALTITUDE_DEG) {
+      bestGuideCost = cost;
+      guideStar = describe();
     }
   }
-
-  const result: GuideResult = {
-    pattern: { id: pattern.id, name: pattern.name },
-    inside,
-    separationDeg,
-    offsetDirection,
-    phrase,
-    referenceAltitudeDeg: altitudeOf(centroid),
-    score: best.score,
-    nearestStar,
+  const reported: NearestStar | null = nearestStar
+    ? { hip: nearestStar.hip, name: nearestStar.name, separationDeg: nearestStar.separationDeg, offsetDirection: nearestStar.offsetDirection, phrase: nearestStar.phrase }
+    : null;
+  const base = {
+    inside: false,
+    referenceAltitudeDeg: best ? altitudeOf(best.centroid) : null,
+    score: best ? best.score : null,
+    nearestStar: reported,
+    horizon: null,
   };
-  if (group.part !== undefined) result.part = group.part;
-  if (anchorStar !== undefined) result.anchorStar = anchorStar;
-  return result;
+
+  // Rule 1: the pattern, when the target is within its figure or close to its stars.
+  if (best) {
+    const phrased = patternPhrase(best, target, guideStar);
+    if (phrased) return { ...base, ...phrased, kind: 'pattern' };
+  }
+
+  // Rule 2: the Moon or a bright planet nearby.
+  let companion: { c: GuideCompanion; o: ReturnType<typeof offsetVectors> } | null = null;
+  for (const c of options.companions ?? []) {
+    if (c.kind === 'planet' && !(c.magnitude <= BRIGHT_PLANET_MAG)) continue;
+    const hor = targetVector(frame, c.place);
+    if (altitudeOf(hor) < MIN_GUIDE_ALTITUDE_DEG) continue;
+    const o = offsetVectors(hor, target);
+    if (o.separationDeg > NEAR_BODY_DEG || o.separationDeg < MIN_BODY_SEPARATION_DEG) continue;
+    if (!companion || o.separationDeg < companion.o.separationDeg) companion = { c, o };
+  }
+  if (companion) {
+    const { c, o } = companion;
+    const name = c.kind === 'moon' ? 'the Moon' : c.name;
+    return {
+      ...base,
+      kind: c.kind,
+      phrase: fromWords(o, name),
+      pattern: null,
+      anchorBody: c.id,
+      separationDeg: o.separationDeg,
+      offsetDirection: o.offsetDirection,
+      names: [{ kind: 'body', id: c.id, name: c.name }],
+    };
+  }
+
+  // Rule 3: a bright named star, with the pattern it belongs to when that pattern stands up.
+  if (guideStar) {
+    const home = patternOfStar(guideStar.hip, frame, minAltitudeDeg);
+    const result: GuideResult = {
+      ...base,
+      kind: 'star',
+      phrase: home ? `${guideStar.phrase}, a star of ${home.sentenceName}` : guideStar.phrase,
+      pattern: home ? { id: home.id, name: home.name } : null,
+      anchorStar: guideStar.name,
+      separationDeg: guideStar.separationDeg,
+      offsetDirection: guideStar.offsetDirection,
+      names: [{ kind: 'star', hip: guideStar.hip, name: guideStar.name }, ...(home ? [{ kind: 'pattern' as const, id: home.id, name: home.name }] : [])],
+    };
+    return result;
+  }
+
+  // Rule 4: the horizon, and where the Sun set or will rise.
+  const azimuthDeg = azimuthOf(target);
+  const sunPart = sun && sunAltitudeDeg !== null && options.sun ? sunPoint(options.observer.latitudeDeg, options.sun.decDeg, sunAltitudeDeg, azimuthOf(sun), azimuthDeg) : null;
+  let phrase = horizonWords(apparentAltitudeDeg, azimuthDeg);
+  if (sunPart) {
+    const where = sunPart.event === 'set' ? 'where the Sun set' : 'where the Sun will rise';
+    phrase += sunPart.side === 'above' ? `, right above ${where}` : `, ${distanceWords(sunPart.offsetDeg)} to the ${sunPart.side} of ${where}`;
+  }
+  return {
+    ...base,
+    kind: 'horizon',
+    phrase,
+    pattern: null,
+    separationDeg: null,
+    offsetDirection: null,
+    horizon: { altitudeDeg: apparentAltitudeDeg, azimuthDeg, sun: sunPart },
+    names: [],
+  };
+}
+
+/** "about 3° (about 2 fingers) to the upper right of Regulus". */
+function fromWords(o: { separationDeg: number; offsetDirection: OffsetDirection }, what: string): string {
+  return `${distanceWords(o.separationDeg)} ${directionWords(o.offsetDirection, what)}`;
+}
+
+/** Rule 1's phrase for the best-ranked pattern, or null when the target is neither within its figure nor close to it. */
+function patternPhrase(
+  best: { group: Group; centroid: Vec; hors: Vec[]; nearest: { star: Star; hor: Vec; sep: number } },
+  target: Vec,
+  guideStar: { hip: number; name: string; hor: Vec } | null,
+): Pick<GuideResult, 'phrase' | 'pattern' | 'part' | 'anchorStar' | 'inside' | 'separationDeg' | 'offsetDirection' | 'names'> | null {
+  const { group, centroid, hors, nearest } = best;
+  const pattern = group.pattern;
+  const what = group.part === undefined ? pattern.sentenceName : partPhrase(pattern, group.part);
+  const inside = group.stars.length >= 3 && insideOutline(centroid, hors, target);
+  // "in" reaches as far from the figure's stars as the figure is wide (its radius), at least 1°, at most IN_PATTERN_DEG.
+  const inLimitDeg = Math.min(IN_PATTERN_DEG, Math.max(1, group.radiusDeg));
+  const close = nearest.sep <= inLimitDeg;
+  // The nearest named star of the figure the phrase names.
+  let anchor: { star: Star; hor: Vec; sep: number } | null = null;
+  hors.forEach((hor, i) => {
+    const star = group.stars[i]!.star;
+    const sep = angleDeg(hor, target);
+    if (star.name && (!anchor || sep < anchor.sep)) anchor = { star, hor, sep };
+  });
+  const common = {
+    pattern: { id: pattern.id, name: pattern.name },
+    ...(group.part !== undefined ? { part: group.part } : {}),
+    inside,
+  };
+  const patternName: GuideName = { kind: 'pattern', id: pattern.id, name: pattern.name };
+  const a = anchor as { star: Star; hor: Vec; sep: number } | null;
+  // Inside a figure none of whose stars has a name, the bright named star nearby gives the distance.
+  const insideAnchor = a ? { hip: a.star.hip, name: a.star.name, hor: a.hor } : guideStar;
+  if (inside && insideAnchor) {
+    const o = offsetVectors(insideAnchor.hor, target);
+    const fromStar = fromWords(o, insideAnchor.name);
+    return {
+      ...common,
+      phrase: o.separationDeg > 3 ? `inside ${what}, ${fromStar}` : `${fromStar}, in ${what}`,
+      anchorStar: insideAnchor.name,
+      separationDeg: o.separationDeg,
+      offsetDirection: o.offsetDirection,
+      names: [{ kind: 'star', hip: insideAnchor.hip, name: insideAnchor.name }, patternName],
+    };
+  }
+  if (a && close && a.sep <= inLimitDeg) {
+    const o = offsetVectors(a.hor, target);
+    return {
+      ...common,
+      phrase: `${fromWords(o, a.star.name)}, in ${what}`,
+      anchorStar: a.star.name,
+      separationDeg: o.separationDeg,
+      offsetDirection: o.offsetDirection,
+      names: [{ kind: 'star', hip: a.star.hip, name: a.star.name }, patternName],
+    };
+  }
+  if (inside) return null;
+  const compactNear = group.radiusDeg <= WIDE_GROUP_DEG && nearest.sep <= NEAR_PATTERN_DEG;
+  if (close || compactNear) {
+    const o = offsetVectors(group.radiusDeg > WIDE_GROUP_DEG ? nearest.hor : centroid, target);
+    return {
+      ...common,
+      inside: false,
+      phrase: `${distanceWords(nearest.sep)} ${directionWords(o.offsetDirection, what)}`,
+      separationDeg: nearest.sep,
+      offsetDirection: o.offsetDirection,
+      names: [patternName],
+    };
+  }
+  return null;
+}
+
+/**
+ * Whether `target` lies inside the convex outline of `stars` (horizontal unit vectors), tested on
+ * the gnomonic tangent plane at `centre`, where great circles are straight lines.
+ */
+function insideOutline(centre: Vec, stars: readonly Vec[], target: Vec): boolean {
+  const ref: Vec = Math.abs(centre[2]) < 0.9 ? [0, 0, 1] : [1, 0, 0];
+  const e1 = normalize(cross(ref, centre));
+  const e2 = cross(centre, e1);
+  const plane = (v: Vec): [number, number] | null => {
+    const d = dot(v, centre);
+    return d <= 0.05 ? null : [dot(v, e1) / d, dot(v, e2) / d];
+  };
+  const t = plane(target);
+  if (!t) return false;
+  const points = stars.map(plane).filter((p): p is [number, number] => p !== null);
+  const hull = convexHull(points);
+  if (hull.length < 3) return false;
+  for (let i = 0; i < hull.length; i++) {
+    const p = hull[i]!, q = hull[(i + 1) % hull.length]!;
+    if ((q[0] - p[0]) * (t[1] - p[1]) - (q[1] - p[1]) * (t[0] - p[0]) < 0) return false;
+  }
+  return true;
+}
+
+/** Convex hull of plane points, counter-clockwise (Andrew's monotone chain). */
+function convexHull(points: readonly [number, number][]): [number, number][] {
+  const sorted = [...points].sort((a, b) => a[0] - b[0] || a[1] - b[1]);
+  if (sorted.length < 3) return sorted;
+  const turn = (o: [number, number], a: [number, number], b: [number, number]): number => (a[0] - o[0]) * (b[1] - o[1]) - (a[1] - o[1]) * (b[0] - o[0]);
+  const lower: [number, number][] = [];
+  for (const p of sorted) {
+    while (lower.length >= 2 && turn(lower[lower.length - 2]!, lower[lower.length - 1]!, p) <= 0) lower.pop();
+    lower.push(p);
+  }
+  const upper: [number, number][] = [];
+  for (const p of [...sorted].reverse()) {
+    while (upper.length >= 2 && turn(upper[upper.length - 2]!, upper[upper.length - 1]!, p) <= 0) upper.pop();
+    upper.push(p);
+  }
+  return [...lower.slice(0, -1), ...upper.slice(0, -1)];
+}
+
+/** The most familiar pattern that holds star `hip` and whose centre stands at least `minAltitudeDeg` up. */
+function patternOfStar(hip: number, frame: Frame, minAltitudeDeg: number): StarPattern | null {
+  let found: StarPattern | null = null;
+  for (const list of prepare().groups.values()) {
+    const whole = list[0]!;
+    if (!whole.pattern.stars.includes(hip)) continue;
+    if (altitudeOf(rotate(frame.eqjToHor, whole.centroidEqj)) < minAltitudeDeg) continue;
+    if (!found || whole.pattern.familiarity < found.familiarity) found = whole.pattern;
+  }
+  return found;
+}
+
+/** Azimuth of a horizontal unit vector (x north, y west, z zenith), degrees from north through east. */
+function azimuthOf(v: Vec): number {
+  return (((Math.atan2(-v[1], v[0]) * DEG) % 360) + 360) % 360;
+}
+
+/**
+ * "low in the west-southwest, about a fist above the horizon": below 20° "low in the …", below
+ * 50° "in the …", below 75° "high in the …", above that "nearly overhead, a little to the …".
+ */
+export function horizonWords(altitudeDeg: number, azimuthDeg: number): string {
+  const word = compass(azimuthDeg).word;
+  if (altitudeDeg >= 75) return `nearly overhead, a little to the ${word}`;
+  const height = altitudeDeg < 1 ? 'just above the horizon' : `${handMeasure(altitudeDeg)} above the horizon`;
+  const where = altitudeDeg < 20 ? `low in the ${word}` : altitudeDeg < 50 ? `in the ${word}` : `high in the ${word}`;
+  return `${where}, ${height}`;
+}
+
+/**
+ * Where the Sun set (or will rise) relative to a target at `targetAzimuthDeg`, while the Sun is
+ * between 0° and −18° (twilight). The set and rise points are the azimuths where the Sun's centre
+ * stands at −0.833° (standard refraction and semidiameter), from cos A = (sin δ − sin φ sin h₀) /
+ * (cos φ cos h₀) (the altitude–azimuth relation, Meeus, Astronomical Algorithms, eq. 13.6,
+ * solved for azimuth); evening when the Sun is in the western half of the sky. Null when the Sun
+ * is up or in full darkness, never sets or rises that day, or the point lies more than 90° of
+ * azimuth from the target. "left"/"right" are for a reader facing the target.
+ */
+function sunPoint(latitudeDeg: number, sunDecDeg: number, sunAltitudeDeg: number, sunAzimuthDeg: number, targetAzimuthDeg: number): { event: 'set' | 'rise'; offsetDeg: number; side: 'left' | 'right' | 'above' } | null {
+  if (sunAltitudeDeg >= 0 || sunAltitudeDeg < -18) return null;
+  const h0 = -0.833 / DEG;
+  const phi = latitudeDeg / DEG;
+  const cosA = (Math.sin(sunDecDeg / DEG) - Math.sin(phi) * Math.sin(h0)) / (Math.cos(phi) * Math.cos(h0));
+  if (!(Math.abs(cosA) <= 1)) return null;
+  const riseAz = Math.acos(cosA) * DEG;
+  const event = sunAzimuthDeg > 180 ? 'set' : 'rise';
+  const pointAz = event === 'set' ? 360 - riseAz : riseAz;
+  const diff = ((targetAzimuthDeg - pointAz + 540) % 360) - 180;
+  if (Math.abs(diff) > 90) return null;
+  const offsetDeg = Math.abs(diff);
+  return { event, offsetDeg, side: offsetDeg < 2 ? 'above' : diff > 0 ? 'right' : 'left' };
 }
 
 /** A target's apparent place at one moment, for `describeMotion`. */
