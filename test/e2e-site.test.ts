@@ -172,6 +172,26 @@ describe.skipIf(!available)('built pages on a phone (390×844)', () => {
     });
   }
 
+  it('the Content-Security-Policy blocks a script slipped into a page and nothing the page needs', async () => {
+    const page = await browser.newPage({ viewport: { width: 390, height: 844 } });
+    const violations: string[] = [];
+    page.on('console', (m) => {
+      if (/Content Security Policy/i.test(m.text())) violations.push(m.text());
+    });
+    await page.goto(origin + '/southern-station/2026-W49/weekly/', { waitUntil: 'load' });
+    await page.evaluate('document.fonts.ready.then(() => true)');
+    expect(violations, 'the page itself breaks its policy').toEqual([]);
+    // As if a content file had smuggled markup in: an inline script and an event handler.
+    await page.evaluate(`(() => {
+      const s = document.createElement('script'); s.textContent = 'window.__ran = 1'; document.body.append(s);
+      const img = document.createElement('img'); img.setAttribute('onerror', 'window.__ran = 2'); img.src = '/nowhere.png'; document.body.append(img);
+      return new Promise((r) => setTimeout(r, 300));
+    })()`);
+    expect(await page.evaluate('window.__ran ?? null')).toBeNull();
+    expect(violations.length).toBeGreaterThan(0);
+    await page.close();
+  });
+
   it('the red night light needs no JavaScript, turns the whole page red, and keeps contrast ≥ 4.5:1', async () => {
     const browserNoJs = await browser.newContext({ viewport: { width: 390, height: 844 }, javaScriptEnabled: false });
     const page = await browserNoJs.newPage();

@@ -84,6 +84,8 @@ describe('site build', () => {
     for (const f of files(out).filter((f) => f.endsWith('.html'))) {
       const html = readFileSync(join(out, f), 'utf8');
       expect(html, f).not.toMatch(/<script\b/i);
+      // The Content-Security-Policy forbids scripts, first thing in the head (issue #14 §3).
+      expect(html, f).toMatch(/^<!DOCTYPE html><html[^>]*>\s*<head>\s*<meta charset="utf-8">\s*<meta http-equiv="Content-Security-Policy" content="[^"]*script-src 'none'/i);
       expect(html, f).not.toMatch(/<link[^>]+rel="stylesheet"/); // CSS is inline: the page is the whole cost
       expect(Buffer.byteLength(html), f).toBeLessThan(40 * 1024);
     }

@@ -13,6 +13,7 @@ import { GloamingError } from '../errors.ts';
 import { isoWeekOf } from '../time.ts';
 import { fieldPlace } from './frontmatter.ts';
 import { NEAR_SUN_DEG } from './placeholders.ts';
+import { remarkSafeLinks } from './links.ts';
 import { remarkPlaceholders, type PlaceholderScope } from './plugin.ts';
 import { ECLIPSE_CAUTION, assertPublishable, nearSunCaution } from './safety.ts';
 import type { BulletinTemplate, RenderContext, RenderedBulletin } from './types.ts';
@@ -36,6 +37,8 @@ const processor = unified()
       return scope;
     },
   })
+  // Links, images and definitions may use only http:, https:, mailto: or relative addresses.
+  .use(remarkSafeLinks, { place: (file) => ({ file: file.data.gloamingScope?.file, lineOffset: file.data.gloamingScope?.lineOffset }) })
   .use(remarkRehype)
   .use(rehypeStringify)
   .freeze();

@@ -1,7 +1,8 @@
-/** One RSS feed per site: its bulletins up to the current week, newest first. */
+/** One RSS feed per site: its bulletins up to the current week, newest first (site/gloaming/feed.ts). */
 import rss from '@astrojs/rss';
 import type { APIRoute, GetStaticPaths } from 'astro';
 import { CENTRE } from '../../gloaming/centre.ts';
+import { siteFeed } from '../../gloaming/feed.ts';
 import { builtSites, pagesOf, paths, type SiteEntry } from '../../data.ts';
 
 export const getStaticPaths = (async () => {
@@ -11,17 +12,13 @@ export const getStaticPaths = (async () => {
 export const GET: APIRoute = async ({ props, site: origin }) => {
   const { site } = props as { site: SiteEntry };
   const pages = (await pagesOf(site.id)).filter((p) => p.weekId <= site.currentWeek).reverse();
-  return rss({
-    title: `${site.name} · ${CENTRE.name}`,
-    description: `Weekly night-sky bulletins for ${site.name}. ${CENTRE.inventedNote}`,
-    site: origin!,
-    items: pages.map((p) => ({
-      title: `${p.title} (${p.weekLabel})`,
-      link: paths.page(p),
-      // Monday of the bulletin's week, at 00:00 UTC: stable from build to build.
-      pubDate: new Date(`${p.weekStart}T00:00:00Z`),
-      description: p.description,
-    })),
-    customData: '<language>en</language>',
-  });
+  return rss(
+    siteFeed({
+      siteName: site.name,
+      centreName: CENTRE.name,
+      note: CENTRE.inventedNote,
+      origin: origin!,
+      pages: pages.map((p) => ({ title: p.title, description: p.description, weekLabel: p.weekLabel, weekStart: p.weekStart, path: paths.page(p) })),
+    }),
+  );
 };
