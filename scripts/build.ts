@@ -5,11 +5,14 @@
  *    place in gloaming that reads the clock) and the site subset (`--sites`, else `GLOAMING_SITES`).
  * 2. Loads and validates every input up front, so a bad file stops the build with
  *    `file:line:column` before Astro starts.
- * 3. Builds with Astro into a temporary folder beside the output folder.
- * 4. Checks every HTML and XML file (`assertPublishable`: no NaN, `undefined`, `Invalid Date` or
- *    empty placeholder).
- * 5. Swaps the temporary folder into place by renaming, so a failed build leaves the previous
- *    output untouched.
+ * 3. Takes the build lock (builds sharing this checkout or cache take turns) and removes work
+ *    folders that killed builds left behind.
+ * 4. Builds with Astro into a work folder beside the output folder (`.tmp-<out>-<pid>`).
+ * 5. Checks every HTML, XML and calendar file (`assertPublishable`: no NaN, `undefined`,
+ *    `Invalid Date` or empty placeholder) and that every file a page links is there.
+ * 6. Swaps the work folder into place (`swapInto`: an atomic link swap where the platform has
+ *    symbolic links), so a failed build leaves the previous output untouched and readers never
+ *    find the output missing. docs/deploy.md says what failed, killed and concurrent builds leave.
  *
  * `--merge a b c --out dist` joins the outputs of CI shards (each built with `--sites`) into one
  * folder and writes one sitemap index for all of them.
@@ -18,8 +21,8 @@
  * the command line's (`EXIT_CODES` in lib/errors.ts): 2 for input and output problems, 1 for
  * anything unexpected (with the stack).
  */
-import { cp, mkdir, readdir, readFile, rename, rm, stat, writeFile } from 'node:fs/promises';
-import { basename, dirname, join, relative, resolve, sep } from 'node:path';
+import { cp, mkdir, readdir, readFile, rm, writeFile } from 'node:fs/promises';
+import { dirname, join, relative, resolve, sep } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { parseArgs } from 'node:util';
 import { assertPublishable } from '../lib/bulletin/index.ts';
@@ -27,6 +30,8 @@ import { ERROR_CODES, EXIT_CODES, GloamingError, type ErrorCode, type Place } fr
 import { parseLocalDate } from '../lib/time.ts';
 import { chartCacheDir, parseSiteList } from '../site/gloaming/options.ts';
 import { loadProject } from '../site/gloaming/project.ts';
+import { checkLinkedFiles } from './output-check.ts';
+import { acquireBuildLock, exists, removeStaleWork, swapInto, workFolder } from './work-folders.ts';
 
 const ROOT = resolve(dirname(fileURLToPath(import.meta.url)), '..');
 
@@ -134,37 +139,29 @@ export async function copyLinkedCharts(dir: string, chartDir: string): Promise<n
   return wanted.size;
 }
 
-/** The final check: every HTML and XML file must be publishable. Paths in errors are relative to `dir`. */
-export async function checkOutput(dir: string): Promise<number> {
+/**
+ * The final check: every HTML, XML and calendar file must be publishable, and every file a page
+ * links (fonts, CSS, images, charts, cards, feeds) must be in the output — with `pages`, every
+ * page it links too. Paths in errors are relative to `dir`.
+ */
+export async function checkOutput(dir: string, options: { pages: boolean } = { pages: false }): Promise<number> {
   const files = await walk(dir);
+  const rel = (file: string): string => relative(dir, file).split(sep).join('/');
   for (const file of files) {
     if (!/\.(html|xml|ics)$/.test(file)) continue;
-    assertPublishable(await readFile(file, 'utf8'), relative(dir, file).split(sep).join('/'));
+    assertPublishable(await readFile(file, 'utf8'), rel(file));
   }
+  await checkLinkedFiles(dir, files.filter((f) => f.endsWith('.html')).map(rel), options);
   return files.length;
 }
 
-async function exists(path: string): Promise<boolean> {
-  try {
-    await stat(path);
-    return true;
-  } catch {
-    return false;
-  }
-}
-
-/** Replaces `out` with `fresh` by renaming (same folder, same filesystem); the old output is removed last. */
-async function swapInto(fresh: string, out: string): Promise<void> {
-  const old = join(dirname(out), `.tmp-old-${basename(out)}-${process.pid}`);
-  const had = await exists(out);
-  if (had) await rename(out, old);
-  try {
-    await rename(fresh, out);
-  } catch (error) {
-    if (had) await rename(old, out);
-    throw error;
-  }
-  if (had) await rm(old, { recursive: true, force: true });
+/**
+ * Folders a build shares with other builds: Astro's `.astro` folder in the project (and in the
+ * working directory, where Astro puts its prerender chunks when the output is outside it) and the
+ * cache folder. Builds that share one take turns (`acquireBuildLock`).
+ */
+function sharedFolders(cacheDir: string): string[] {
+  return [join(ROOT, '.astro'), join(process.cwd(), '.astro'), cacheDir];
 }
 
 /**
@@ -207,27 +204,35 @@ export async function buildSite(options: BuildOptions): Promise<BuildResult> {
   process.env.GLOAMING_CARD_CACHE = resolve(process.env.GLOAMING_CACHE_DIR ?? join(ROOT, 'node_modules/.astro'), 'gloaming');
 
   await mkdir(dirname(options.out), { recursive: true });
-  const tmp = join(dirname(options.out), `.tmp-${basename(options.out)}-${process.pid}`);
-  await rm(tmp, { recursive: true, force: true });
+  const lock = await acquireBuildLock(sharedFolders(process.env.GLOAMING_CARD_CACHE), {
+    onWait: (pid) => console.error(`waiting for another build (process ${pid}) in this checkout to finish …`),
+  });
+  const tmp = workFolder(options.out);
   try {
+    // Work folders of builds that were killed (kill -9, a cancelled CI job) go first.
+    await removeStaleWork(options.out);
+    await rm(tmp, { recursive: true, force: true });
     const { build } = await import('astro');
     const t1 = performance.now();
     await build({ root: ROOT, outDir: tmp, logLevel: options.logLevel, mode: 'production' });
     const astroMs = performance.now() - t1;
     await copyLinkedCharts(tmp, process.env.GLOAMING_CHART_CACHE);
-    const files = await checkOutput(tmp);
+    const files = await checkOutput(tmp, { pages: options.sites === null });
     await swapInto(tmp, options.out);
     return { out: options.out, files, astroMs, totalMs: performance.now() - t0 };
   } catch (error) {
     await rm(tmp, { recursive: true, force: true });
     throw asGloamingError(error) ?? error;
+  } finally {
+    await lock.release();
   }
 }
 
 /** Joins shard outputs into `out`; each shard's sitemap files are listed in one sitemap index. */
 export async function mergeShards(shards: string[], out: string): Promise<{ files: number }> {
   if (shards.length === 0) throw new GloamingError('invalid-argument', 'nothing to merge', { expected: '--merge <shard folder> <shard folder> … --out <folder>' });
-  const tmp = join(dirname(out), `.tmp-${basename(out)}-${process.pid}`);
+  await removeStaleWork(out);
+  const tmp = workFolder(out);
   await rm(tmp, { recursive: true, force: true });
   await mkdir(tmp, { recursive: true });
   try {

@@ -7,7 +7,7 @@
  * Astro's cache in folders under the project (Astro keeps its prerender chunks beside the output
  * only when the output is inside the working directory).
  */
-import { spawnSync } from 'node:child_process';
+import { spawn, spawnSync } from 'node:child_process';
 import { createHash } from 'node:crypto';
 import { cpSync, existsSync, mkdtempSync, readdirSync, readFileSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import { join, relative, resolve } from 'node:path';
@@ -30,6 +30,19 @@ function build(args: string[], env: Record<string, string> = {}): { status: numb
   return { status: r.status, stdout: r.stdout, stderr: r.stderr };
 }
 
+/** Starts a build without waiting for it. */
+function startBuild(args: string[]): { pid: number; done: Promise<{ status: number | null; stderr: string }> } {
+  const child = spawn(process.execPath, ['scripts/build.ts', ...args], {
+    cwd: ROOT,
+    env: { ...process.env, GLOAMING_CACHE_DIR: join(work, 'cache'), GLOAMING_TODAY: '', GLOAMING_SITES: '' },
+    stdio: ['ignore', 'ignore', 'pipe'],
+    timeout: 180_000,
+  });
+  let stderr = '';
+  child.stderr.on('data', (d: Buffer) => (stderr += d.toString()));
+  return { pid: child.pid!, done: new Promise((done) => child.on('close', (status) => done({ status, stderr }))) };
+}
+
 function files(dir: string): string[] {
   const out: string[] = [];
   const walk = (d: string): void => {
@@ -50,7 +63,8 @@ function treeDigest(dir: string): Map<string, string> {
 beforeAll(() => {
   work = mkdtempSync(join(ROOT, '.tmp-test-site-'));
   const r = build(['--today', TODAY, '--out', join(work, 'a')]);
-  expect(r.stderr).toBe('');
+  // Another test file may be building in this checkout at the same time: then this one waits its turn.
+  expect(r.stderr.replace(/^waiting for another build \(process \d+\) in this checkout to finish …\n/, '')).toBe('');
   expect(r.status).toBe(0);
 }, 180_000);
 
@@ -138,6 +152,37 @@ describe('site build', () => {
     expect(r.status).toBe(0);
     expect(treeDigest(join(work, 'b'))).toEqual(treeDigest(join(work, 'a')));
   }, 120_000);
+
+  it('two builds started at once in one checkout both publish the whole site (they take turns)', async () => {
+    const [c, d] = [startBuild(['--today', TODAY, '--out', join(work, 'c')]), startBuild(['--today', TODAY, '--out', join(work, 'd')])];
+    const [rc, rd] = await Promise.all([c.done, d.done]);
+    expect(rc.status, rc.stderr).toBe(0);
+    expect(rd.status, rd.stderr).toBe(0);
+    const full = treeDigest(join(work, 'a'));
+    expect([...full.keys()].some((f) => f.startsWith('_astro/') && f.endsWith('.woff2'))).toBe(true);
+    expect(treeDigest(join(work, 'c'))).toEqual(full);
+    expect(treeDigest(join(work, 'd'))).toEqual(full);
+    expect(`${rc.stderr}${rd.stderr}`).toMatch(/waiting for another build \(process \d+\)/);
+  }, 240_000);
+
+  it('a build killed with kill -9 leaves the previous output; the next build clears its work folder and lock', async () => {
+    const before = treeDigest(join(work, 'a'));
+    const killed = startBuild(['--today', TODAY, '--out', join(work, 'a')]);
+    const workFolder = join(work, `.tmp-a-${killed.pid}`);
+    const deadline = Date.now() + 120_000;
+    // Killed while Astro writes into its work folder (after it took the lock, which it leaves behind too).
+    while (!existsSync(workFolder) && Date.now() < deadline) await new Promise((r) => setTimeout(r, 100));
+    await new Promise((r) => setTimeout(r, 2000));
+    process.kill(killed.pid, 'SIGKILL');
+    await killed.done;
+    expect(existsSync(workFolder)).toBe(true); // what kill -9 leaves (docs/deploy.md)
+    expect(treeDigest(join(work, 'a'))).toEqual(before);
+    const r = build(['--today', TODAY, '--out', join(work, 'a')]);
+    expect(r.status, r.stderr).toBe(0);
+    expect(existsSync(workFolder)).toBe(false);
+    expect(readdirSync(work).filter((n) => n.startsWith('.tmp-'))).toEqual([]);
+    expect(treeDigest(join(work, 'a'))).toEqual(before);
+  }, 240_000);
 
   it('a shard builds only its sites, and merged shards equal the full build apart from sitemap names', () => {
     expect(build(['--today', TODAY, '--sites', 'harbour-roof', '--out', join(work, 's1')]).status).toBe(0);
