@@ -30,7 +30,7 @@ import { ERROR_CODES, EXIT_CODES, GloamingError, type ErrorCode, type Place } fr
 import { parseLocalDate } from '../lib/time.ts';
 import { chartCacheDir, parseSiteList } from '../site/gloaming/options.ts';
 import { loadProject } from '../site/gloaming/project.ts';
-import { checkLinkedFiles } from './output-check.ts';
+import { budgetMessage, checkLinkedFiles, pagesOverBudget } from './output-check.ts';
 import { acquireBuildLock, exists, removeStaleWork, swapInto, workFolder } from './work-folders.ts';
 
 const ROOT = resolve(dirname(fileURLToPath(import.meta.url)), '..');
@@ -46,6 +46,8 @@ export interface BuildOptions {
   content: string;
   /** Astro's log level; default 'warn'. */
   logLevel: 'debug' | 'info' | 'warn' | 'error' | 'silent';
+  /** Treat warnings (a page over the 40 KB budget) as errors. */
+  strict?: boolean;
 }
 
 export interface BuildResult {
@@ -55,6 +57,8 @@ export interface BuildResult {
   /** Wall time of the Astro build, milliseconds. */
   astroMs: number;
   totalMs: number;
+  /** Problems that do not stop the build (without `--strict`), one sentence each. */
+  warnings: string[];
 }
 
 /** Today's date in UTC, YYYY-MM-DD. The one reading of the clock in gloaming. */
@@ -76,13 +80,14 @@ export function readOptions(argv: string[], env: Record<string, string | undefin
         content: { type: 'string' },
         merge: { type: 'boolean' },
         verbose: { type: 'boolean' },
+        strict: { type: 'boolean' },
       },
       allowPositionals: true,
       strict: true,
     }));
   } catch (error) {
     throw new GloamingError('invalid-argument', (error as Error).message, {
-      expected: '--today YYYY-MM-DD, --sites a,b, --out <folder>, --content <folder>, --verbose, or --merge <folders…>',
+      expected: '--today YYYY-MM-DD, --sites a,b, --out <folder>, --content <folder>, --verbose, --strict, or --merge <folders…>',
     });
   }
   if (positionals.length && !values.merge) {
@@ -96,6 +101,7 @@ export function readOptions(argv: string[], env: Record<string, string | undefin
     out: resolve((values.out as string | undefined) ?? 'dist'),
     content: (values.content as string | undefined) || env.GLOAMING_CONTENT || 'content',
     logLevel: values.verbose ? 'info' : 'warn',
+    strict: values.strict === true,
     merge: values.merge ? positionals.map((p) => resolve(p)) : null,
   };
 }
@@ -142,17 +148,25 @@ export async function copyLinkedCharts(dir: string, chartDir: string): Promise<n
 /**
  * The final check: every HTML, XML and calendar file must be publishable, and every file a page
  * links (fonts, CSS, images, charts, cards, feeds) must be in the output — with `pages`, every
- * page it links too. Paths in errors are relative to `dir`.
+ * page it links too. A page over the 40 KB HTML+CSS budget is a warning, an error with `strict`.
+ * Paths in errors are relative to `dir`. Returns the number of files and the warnings.
  */
-export async function checkOutput(dir: string, options: { pages: boolean } = { pages: false }): Promise<number> {
+export async function checkOutput(dir: string, options: { pages: boolean; strict?: boolean } = { pages: false }): Promise<{ files: number; warnings: string[] }> {
   const files = await walk(dir);
   const rel = (file: string): string => relative(dir, file).split(sep).join('/');
   for (const file of files) {
     if (!/\.(html|xml|ics)$/.test(file)) continue;
     assertPublishable(await readFile(file, 'utf8'), rel(file));
   }
-  await checkLinkedFiles(dir, files.filter((f) => f.endsWith('.html')).map(rel), options);
-  return files.length;
+  const pages = files.filter((f) => f.endsWith('.html')).map(rel);
+  await checkLinkedFiles(dir, pages, options);
+  const over = await pagesOverBudget(dir, pages);
+  if (over.length && options.strict) {
+    throw new GloamingError('unsafe-output', `${budgetMessage(over[0]!)}${over.length > 1 ? ` (and ${over.length - 1} more page(s))` : ''}`, {
+      hint: 'shorten the template, or build without --strict to publish with a warning',
+    });
+  }
+  return { files: files.length, warnings: over.map(budgetMessage) };
 }
 
 /**
@@ -217,9 +231,9 @@ export async function buildSite(options: BuildOptions): Promise<BuildResult> {
     await build({ root: ROOT, outDir: tmp, logLevel: options.logLevel, mode: 'production' });
     const astroMs = performance.now() - t1;
     await copyLinkedCharts(tmp, process.env.GLOAMING_CHART_CACHE);
-    const files = await checkOutput(tmp, { pages: options.sites === null });
+    const { files, warnings } = await checkOutput(tmp, { pages: options.sites === null, strict: options.strict ?? false });
     await swapInto(tmp, options.out);
-    return { out: options.out, files, astroMs, totalMs: performance.now() - t0 };
+    return { out: options.out, files, astroMs, totalMs: performance.now() - t0, warnings };
   } catch (error) {
     await rm(tmp, { recursive: true, force: true });
     throw asGloamingError(error) ?? error;
@@ -262,7 +276,7 @@ export async function mergeShards(shards: string[], out: string): Promise<{ file
       unique.map((p) => `<sitemap><loc>${new URL(p, base).href}</loc></sitemap>`).join('') +
       '</sitemapindex>';
     await writeFile(join(tmp, 'sitemap-index.xml'), index);
-    const files = await checkOutput(tmp);
+    const { files } = await checkOutput(tmp);
     await swapInto(tmp, out);
     return { files };
   } catch (error) {
@@ -295,6 +309,7 @@ async function main(): Promise<number> {
       return EXIT_CODES.ok;
     }
     const result = await buildSite(options);
+    for (const w of result.warnings) console.error(`warning: ${w}`);
     const where = relative(process.cwd(), result.out) || '.';
     const which = options.sites ? options.sites.join(', ') : 'all sites';
     console.log(`built ${which} for ${options.today}: ${result.files} files in ${where} (${(result.totalMs / 1000).toFixed(1)} s)`);

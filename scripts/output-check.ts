@@ -92,3 +92,35 @@ export async function checkLinkedFiles(dir: string, htmlFiles: string[], options
   }
   return checked;
 }
+
+/** The page budget: HTML and CSS of one page, bytes (README: under 40 KB on a phone). */
+export const PAGE_BUDGET_BYTES = 40 * 1024;
+
+/** A page over the budget. */
+export interface OverBudget {
+  page: string;
+  bytes: number;
+}
+
+const STYLESHEET = /<link\b[^>]*\brel="stylesheet"[^>]*>/gi;
+
+/** The pages whose HTML plus the stylesheets they link weigh more than `PAGE_BUDGET_BYTES`. */
+export async function pagesOverBudget(dir: string, htmlFiles: string[]): Promise<OverBudget[]> {
+  const over: OverBudget[] = [];
+  for (const page of htmlFiles) {
+    const html = await readFile(join(dir, page));
+    let bytes = html.length;
+    for (const tag of html.toString('utf8').matchAll(STYLESHEET)) {
+      const href = /\bhref="([^"]+)"/.exec(tag[0])?.[1];
+      const path = href ? localPath(decodeAttribute(href), page, null) : null;
+      if (path && existsSync(join(dir, path))) bytes += statSync(join(dir, path)).size;
+    }
+    if (bytes > PAGE_BUDGET_BYTES) over.push({ page, bytes });
+  }
+  return over;
+}
+
+/** The budget problem of a page in words. */
+export function budgetMessage(o: OverBudget): string {
+  return `${o.page}: the page weighs ${(o.bytes / 1024).toFixed(1)} KB of HTML and CSS, over the ${PAGE_BUDGET_BYTES / 1024} KB budget for phones`;
+}

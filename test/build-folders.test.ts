@@ -9,6 +9,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { GloamingError } from '../lib/errors.ts';
+import { checkOutput, readOptions } from '../scripts/build.ts';
 import { checkLinkedFiles } from '../scripts/output-check.ts';
 import { acquireBuildLock, removeStaleWork, swapInto, workFolder } from '../scripts/work-folders.ts';
 
@@ -154,5 +155,37 @@ describe('the final output check', () => {
     mkdirSync(join(dir, 'b'));
     writeFileSync(join(dir, 'b/index.html'), '');
     expect(await checkLinkedFiles(dir, ['a/index.html'], { pages: true })).toBe(8); // + canonical /a/ and /b/
+  });
+});
+
+describe('the 40 KB page budget (HTML and CSS)', () => {
+  const dir = join(scratch, 'budget');
+  const html = (bytes: number, extra = ''): string => {
+    const head = `<!DOCTYPE html><html><head>${extra}</head><body><p>`;
+    const tail = '</p></body></html>';
+    return head + 'x'.repeat(bytes - head.length - tail.length) + tail;
+  };
+
+  it('warns about a page over 40 KB, counting the stylesheets it links; --strict makes it an error', async () => {
+    rmSync(dir, { recursive: true, force: true });
+    mkdirSync(join(dir, 'big'), { recursive: true });
+    mkdirSync(join(dir, 'styled'), { recursive: true });
+    mkdirSync(join(dir, 'small'), { recursive: true });
+    mkdirSync(join(dir, '_astro'), { recursive: true });
+    writeFileSync(join(dir, 'big/index.html'), html(41 * 1024));
+    writeFileSync(join(dir, 'styled/index.html'), html(30 * 1024, '<link rel="stylesheet" href="/_astro/page.css">'));
+    writeFileSync(join(dir, '_astro/page.css'), 'p{}'.repeat(4 * 1024)); // 12 KB
+    writeFileSync(join(dir, 'small/index.html'), html(39 * 1024));
+    const { warnings } = await checkOutput(dir, { pages: false });
+    expect(warnings).toEqual([
+      'big/index.html: the page weighs 41.0 KB of HTML and CSS, over the 40 KB budget for phones',
+      'styled/index.html: the page weighs 42.0 KB of HTML and CSS, over the 40 KB budget for phones',
+    ]);
+    await expect(checkOutput(dir, { pages: false, strict: true })).rejects.toThrow(/^big\/index\.html: the page weighs 41\.0 KB .* \(and 1 more page\(s\)\)/);
+  });
+
+  it('--strict is a build option', () => {
+    expect(readOptions(['--strict', '--today', '2026-12-04'], {}).strict).toBe(true);
+    expect(readOptions(['--today', '2026-12-04'], {}).strict).toBe(false);
   });
 });

@@ -215,6 +215,18 @@ describe('site build', () => {
     expect(readdirSync(work).filter((n) => n.startsWith('.tmp-'))).toEqual([]);
   }, 60_000);
 
+  it('a template over the 64 KiB limit stops the build before Astro starts, at its file:line:column', () => {
+    const before = treeDigest(join(work, 'a'));
+    const bad = join(work, 'big-template');
+    cpSync(join(ROOT, 'content'), bad, { recursive: true });
+    const file = join(bad, 'bulletins/weekly.md');
+    writeFileSync(file, readFileSync(file, 'utf8') + 'Look up tonight.\n'.repeat(5000));
+    const r = build(['--today', TODAY, '--out', join(work, 'a'), '--content', bad]);
+    expect(r.status).toBe(2);
+    expect(r.stderr).toMatch(/^error: \S*bulletins\/weekly\.md:\d+:\d+: the template is \d+ KiB, more than the 64 KiB/);
+    expect(treeDigest(join(work, 'a'))).toEqual(before);
+  }, 60_000);
+
   it('bad comet elements stop the build before any page is made, with file:line:column and field', () => {
     const before = treeDigest(join(work, 'a'));
     const bad = join(work, 'bad-object');

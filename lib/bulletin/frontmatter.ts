@@ -7,6 +7,7 @@ import { basename } from 'node:path';
 import { GloamingError, didYouMean } from '../errors.ts';
 import { parseLocalDate } from '../time.ts';
 import { loadYaml, type YamlSource } from '../yaml.ts';
+import { assertTemplateSize } from './limits.ts';
 import type { BulletinFrontMatter, BulletinTemplate } from './types.ts';
 
 /** Default schedule of a standing weekly bulletin: the last 8 and the next 4 ISO weeks. */
@@ -129,6 +130,7 @@ function fieldPlaces(source: YamlSource, fm: BulletinFrontMatter): Record<string
  * next `---` line. Errors carry `file:line:column` in the file's own numbering and the field.
  */
 export function parseBulletin(text: string, file: string): BulletinTemplate {
+  assertTemplateSize(text, file);
   const lines = text.replace(/^\uFEFF/, '').split(/\r?\n/);
   if (lines[0]?.trim() !== '---') {
     throw new GloamingError('missing-field', 'a bulletin template starts with front matter', {
