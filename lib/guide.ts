@@ -1,11 +1,12 @@
 /**
  * The guide phrase for a body at a moment, as every page, chart and command prints it: the body's
  * apparent place, the Sun's, and the Moon's and planets' (the guides of lib/stars/guide.ts, rule
- * 2) from `observe` (topocentric, equator of date), turned into words by `guideTarget`.
+ * 2) from `observe` (topocentric, equator of date), turned into words by `guideTarget`, which
+ * passes over what the site's skyline hides.
  */
 import { builtInBody, BUILT_IN_IDS, type Body } from './body.ts';
 import { observe, type Instant } from './observe.ts';
-import type { Site } from './site.ts';
+import { skylineAltitudeDeg, type Site } from './site.ts';
 import { guideTarget, type GuideCompanion, type GuideResult } from './stars/guide.ts';
 
 /**
@@ -30,5 +31,6 @@ export function guideFor(input: { site: Site; body: Body; time: Instant }): Guid
     target: { raHours: o.raHours, decDeg: o.decDeg },
     sun: { raHours: sun.raHours, decDeg: sun.decDeg },
     companions,
+    skylineAltitudeDeg: (azimuthDeg) => skylineAltitudeDeg(site, azimuthDeg),
   });
 }

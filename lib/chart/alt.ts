@@ -25,7 +25,8 @@ export function horizonAltText(chart: HorizonChart): string {
   const clock = formatChartTime(chart.time, chart.site);
   const alt = Math.round(chart.target.altitudeDeg);
   const where = chart.guide ? `, ${chart.guide.phrase}` : '';
-  let out = `Looking ${chart.facing.word} at ${clock}: ${chartLabel(chart.body)} ${alt}° up${where}.`;
+  const looking = chart.view === 'overhead' ? `Looking up, facing ${chart.facing.word},` : `Looking ${chart.facing.word}`;
+  let out = `${looking} at ${clock}: ${chartLabel(chart.body)} ${alt}° up${where}.`;
   const others = chart.marks.filter((m) => m.kind === 'moon' || m.kind === 'planet').map(bodyName);
   if (others.length) out += ` Also in view: ${list(others)}.`;
   const track = chart.marks.filter((m) => m.kind === 'track');

@@ -14,8 +14,8 @@ import type { Site } from '../site.ts';
 import { starByHip, stars, type Star } from '../stars/catalogue.ts';
 import { patterns, type StarPattern } from '../stars/patterns.ts';
 import type { AltAz, ChartLayout } from './projection.ts';
-import { COLOURS } from './style.ts';
-import { n } from './svg.ts';
+import { COLOURS, FONT } from './style.ts';
+import { LabelPlacer, n, text } from './svg.ts';
 
 const RAD = Math.PI / 180;
 
@@ -144,4 +144,29 @@ export function patternLinesMarkup(
     out.push(`<path d="${guideLines}" fill="none" stroke="${COLOURS.guide}" stroke-width="${style.guideWidth}"${opacity}/>`);
   }
   return out;
+}
+
+/**
+ * The guide pattern's name over its figure (`pts`: its stars' chart positions): centred on their
+ * mean position when that spot is clear, else at the nearest clear spot over the figure (its
+ * box widened by 24 units), on one line or, for a long name, on two. Stars are reserved in the
+ * placer, so the name never sits on one; when nothing is clear it is forced nearby. Returns the
+ * SVG text ('' when it could not be placed at all).
+ */
+export function patternLabel(placer: LabelPlacer, name: string, pts: readonly { x: number; y: number }[]): string {
+  const cx = pts.reduce((s, p) => s + p.x, 0) / pts.length;
+  const cy = pts.reduce((s, p) => s + p.y, 0) / pts.length;
+  const xs = pts.map((p) => p.x), ys = pts.map((p) => p.y);
+  const scan = { x0: Math.min(...xs) - 24, y0: Math.min(...ys) - 24, x1: Math.max(...xs) + 24, y1: Math.max(...ys) + 24 };
+  const words = name.split(' ');
+  const half = Math.ceil(words.length / 2);
+  const variants = words.length >= 2 ? [[name], [words.slice(0, half).join(' '), words.slice(half).join(' ')]] : [[name]];
+  const style = { size: FONT.label, fill: COLOURS.guide, weight: 'bold' as const, italic: true };
+  for (const lines of variants) {
+    const spot = placer.place(cx, cy, lines, FONT.label, 6, { bold: true, centred: true, scan, role: 'pattern' });
+    if (spot) return text(spot.x, spot.y, lines, { ...style, anchor: spot.anchor });
+  }
+  const lines = variants[variants.length - 1]!;
+  const spot = placer.place(cx, cy, lines, FONT.label, 6, { bold: true, centred: true, force: true, role: 'pattern' });
+  return spot ? text(spot.x, spot.y, lines, { ...style, anchor: spot.anchor }) : '';
 }

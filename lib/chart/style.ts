@@ -38,7 +38,11 @@ export const COLOURS = {
   tail: OKABE_ITO.bluishGreen,
   track: OKABE_ITO.reddishPurple,
   compass: '#F2D6A2',
+  sun: OKABE_ITO.vermillion,
 } as const;
+
+/** Stars fainter than this (V) are soft obstacles for labels: avoided where possible, covered when not. */
+export const FAINT_STAR_MAG = 3;
 
 /** Chart width in user units: 1 unit = 1 CSS px at a 390 px wide phone layout. */
 export const CHART_WIDTH = 390;

@@ -24,11 +24,11 @@ import type { GuideResult } from '../stars/guide.ts';
 import { patternById, type StarPattern } from '../stars/patterns.ts';
 import { zonedTime } from '../time.ts';
 import type { ChartMark } from './horizon.ts';
-import { patternLinesMarkup, SkyAt } from './place.ts';
+import { patternLabel, patternLinesMarkup, SkyAt } from './place.ts';
 import { brightLimbAngle, moonMarkup } from './moon.ts';
 import { makeLayout, type ChartLayout } from './projection.ts';
-import { CHART_WIDTH, COLOURS, FONT, chartMagnitudeLimit, starRadius } from './style.ts';
-import { LabelPlacer, SVG_CLOSE, n, pathOf, svgOpen, text } from './svg.ts';
+import { CHART_WIDTH, COLOURS, FAINT_STAR_MAG, FONT, chartMagnitudeLimit, starRadius } from './style.ts';
+import { LabelPlacer, SVG_CLOSE, leaderLine, n, pathOf, svgOpen, text, type PlacedLabel } from './svg.ts';
 import { chartLabel, formatChartTime, formatMagnitude } from './words.ts';
 
 /** Radius of the horizon circle, user units. */
@@ -59,6 +59,8 @@ export interface WholeSkyChart {
   magnitudeLimit: number;
   /** Bodies above the horizon (target first) and labelled stars. */
   marks: ChartMark[];
+  /** Every label on the chart with its box, user units. */
+  labels: PlacedLabel[];
   stars: { hip: number; x: number; y: number }[];
   layout: ChartLayout;
 }
@@ -96,6 +98,15 @@ export function wholeSkyChart(input: { site: Site; time: Date; body?: Body; opti
   const guide = target && body ? guideFor({ site, body, time: target.time }) : null;
   const guidePat: StarPattern | null = guide?.pattern ? patternById(guide.pattern.id) : null;
   const placer = new LabelPlacer(W, DISC_HEIGHT);
+  const namedHips = new Set<number>();
+  const namedBodies = new Set<string>();
+  for (const name of guide?.names ?? []) {
+    if (name.kind === 'star') namedHips.add(name.hip);
+    if (name.kind === 'body') namedBodies.add(name.id);
+  }
+  const guideHips = new Set(guidePat?.stars ?? []);
+  const clock = formatChartTime(time, site);
+  placer.fixed(6, 17, clock, FONT.label, { bold: true, role: 'title' });
   const parts: string[] = [];
   const marks: ChartMark[] = [];
   const up = (alt: number): boolean => alt > 0;
@@ -111,15 +122,25 @@ export function wholeSkyChart(input: { site: Site; time: Date; body?: Body; opti
 
   // Pattern lines: every pattern with both ends above the horizon; the guide pattern emphasised.
   parts.push(...patternLinesMarkup(sky, layout, guidePat, ({ a, b }) => up(a.altitudeDeg) && up(b.altitudeDeg), { guideWidth: 1.6 }));
+  for (const [ha, hb] of guidePat?.lines ?? []) {
+    const a = sky.star(starByHip(ha)!), b = sky.star(starByHip(hb)!);
+    if (!up(a.altitudeDeg) || !up(b.altitudeDeg)) continue;
+    const qa = layout.toChart(a.altitudeDeg, a.azimuthDeg)!, qb = layout.toChart(b.altitudeDeg, b.azimuthDeg)!;
+    placer.avoidLine(qa.x, qa.y, qb.x, qb.y);
+  }
 
-  // Stars.
-  const placed = sky.stars(magnitudeLimit, visible);
+  // Stars: to the limit, and every star the guide names.
+  const faintestNamed = Math.max(magnitudeLimit, ...[...namedHips].map((h) => starByHip(h)!.vMag));
+  const placed = sky.stars(faintestNamed, visible).filter((s) => s.star.vMag <= magnitudeLimit || namedHips.has(s.star.hip));
   const drawn: WholeSkyChart['stars'] = [];
   let starMarkup = '';
   for (const s of placed) {
     const q = layout.toChart(s.altitudeDeg, s.azimuthDeg)!;
-    starMarkup += `<circle cx="${n(q.x)}" cy="${n(q.y)}" r="${n(starRadius(s.star.vMag) * 0.85)}"/>`;
+    const r = starRadius(s.star.vMag) * 0.85;
+    starMarkup += `<circle cx="${n(q.x)}" cy="${n(q.y)}" r="${n(r)}"/>`;
     drawn.push({ hip: s.star.hip, x: Math.round(q.x * 10) / 10, y: Math.round(q.y * 10) / 10 });
+    // Labels never sit on a bright star or one of the guide's; they avoid faint ones where they can.
+    placer.reserve(q.x - r - 0.5, q.y - r - 0.5, q.x + r + 0.5, q.y + r + 0.5, { soft: s.star.vMag > FAINT_STAR_MAG && !namedHips.has(s.star.hip) && !guideHips.has(s.star.hip) });
   }
   parts.push(`<g fill="${COLOURS.star}" stroke="none">${starMarkup}</g>`);
 
@@ -136,11 +157,13 @@ export function wholeSkyChart(input: { site: Site; time: Date; body?: Body; opti
     const q = layout.toChart(0, az)!;
     const dx = (q.x - cx) / RADIUS;
     const dy = (q.y - cy) / RADIUS;
-    parts.push(text(cx + dx * (RADIUS + 11), cy + dy * (RADIUS + 11) + 5, label, { size: FONT.compass, fill: COLOURS.compass, anchor: 'middle', weight: 'bold', halo: COLOURS.skyEdge }));
+    const lx = cx + dx * (RADIUS + 11), ly = cy + dy * (RADIUS + 11) + 5;
+    placer.fixed(lx, ly, label, FONT.compass, { anchor: 'middle', bold: true, role: 'compass' });
+    parts.push(text(lx, ly, label, { size: FONT.compass, fill: COLOURS.compass, anchor: 'middle', weight: 'bold', halo: COLOURS.skyEdge }));
   }
 
   // Bodies.
-  const labels: { x: number; y: number; text: string; fill: string; gap: number; mark: ChartMark; bold?: boolean }[] = [];
+  const labels: { x: number; y: number; text: string; fill: string; gap: number; mark: ChartMark; bold?: boolean; role: 'target' | 'body' | 'star' | 'sun' }[] = [];
   for (const other of options.otherBodies ?? BUILT_IN_IDS.filter((id) => id !== 'sun').map((id) => builtInBody(id))) {
     if (other.id === body?.id || other.kind === 'sun') continue;
     const o = observe(site, other, time);
@@ -152,7 +175,19 @@ export function wholeSkyChart(input: { site: Site; time: Date; body?: Body; opti
     if (isMoon) parts.push(moonMarkup(q.x, q.y, 6, o.illuminatedFraction, brightLimbAngle(layout, o, observe(site, builtInBody('sun'), time))));
     else parts.push(`<rect x="${n(q.x - 3.2)}" y="${n(q.y - 3.2)}" width="6.4" height="6.4" fill="${COLOURS.planet}" stroke="${COLOURS.sky}" stroke-width="1" transform="rotate(45 ${n(q.x)} ${n(q.y)})"/>`);
     placer.reserve(q.x - 7, q.y - 7, q.x + 7, q.y + 7);
-    labels.push({ x: q.x, y: q.y, text: other.name, fill: isMoon ? COLOURS.moon : COLOURS.planet, gap: isMoon ? 7 : 5, mark });
+    const item = { x: q.x, y: q.y, text: other.name, fill: isMoon ? COLOURS.moon : COLOURS.planet, gap: isMoon ? 7 : 5, mark, role: 'body' as const };
+    if (namedBodies.has(other.id)) labels.unshift(item);
+    else labels.push(item);
+  }
+  // Where the Sun set or will rise, when the guide phrase measures from it: a mark on the rim.
+  const sunPoint = guide?.horizon?.sun ?? null;
+  if (sunPoint) {
+    const q = layout.toChart(Math.max(0, skylineAltitudeDeg(site, sunPoint.azimuthDeg)), sunPoint.azimuthDeg)!;
+    parts.push(`<circle cx="${n(q.x)}" cy="${n(q.y)}" r="5" fill="${COLOURS.sun}" stroke="none"/>`);
+    placer.reserve(q.x - 6, q.y - 6, q.x + 6, q.y + 6);
+    const mark: ChartMark = { kind: 'sun', id: 'sun', label: sunPoint.event === 'set' ? 'Sun set here' : 'Sun rises here', altitudeDeg: 0, azimuthDeg: sunPoint.azimuthDeg, x: q.x, y: q.y, labelled: false };
+    marks.push(mark);
+    labels.push({ x: q.x, y: q.y, text: mark.label, fill: COLOURS.sun, gap: 6, mark, role: 'sun' });
   }
   if (target && body) {
     const q = layout.toChart(target.altitudeDeg, target.azimuthDeg);
@@ -161,39 +196,48 @@ export function wholeSkyChart(input: { site: Site; time: Date; body?: Body; opti
       marks.unshift(mark);
       parts.push(`<circle cx="${n(q.x)}" cy="${n(q.y)}" r="7" fill="none" stroke="${COLOURS.target}" stroke-width="2.2"/><circle cx="${n(q.x)}" cy="${n(q.y)}" r="2.4" fill="${COLOURS.target}" stroke="none"/>`);
       placer.reserve(q.x - 8, q.y - 8, q.x + 8, q.y + 8);
-      labels.unshift({ x: q.x, y: q.y, text: chartLabel(body), fill: COLOURS.target, gap: 8, mark, bold: true });
+      labels.unshift({ x: q.x, y: q.y, text: chartLabel(body), fill: COLOURS.target, gap: 8, mark, bold: true, role: 'target' });
     }
   }
   const labelMarkup: string[] = [];
-  for (const l of labels) {
-    const spot = placer.place(l.x, l.y, [l.text], l.bold ? FONT.target : FONT.label, l.gap, { force: true, bold: l.bold ?? false });
+  // Stars the guide names are labelled right after the target and the bodies it names.
+  const namedStarLabels: typeof labels = placed
+    .filter((s) => namedHips.has(s.star.hip))
+    .map((s) => {
+      const q = layout.toChart(s.altitudeDeg, s.azimuthDeg)!;
+      const mark: ChartMark = { kind: 'star', id: `hip:${s.star.hip}`, label: s.star.name, altitudeDeg: s.altitudeDeg, azimuthDeg: s.azimuthDeg, x: q.x, y: q.y, labelled: false };
+      marks.push(mark);
+      return { x: q.x, y: q.y, text: s.star.name, fill: COLOURS.text, gap: starRadius(s.star.vMag) + 1, mark, role: 'star' as const };
+    });
+  const firstOthers = labels.findIndex((l) => l.role !== 'target' && !(l.role === 'body' && namedBodies.has(l.mark.id)));
+  const split = firstOthers < 0 ? labels.length : firstOthers;
+  for (const l of [...labels.slice(0, split), ...namedStarLabels, ...labels.slice(split)]) {
+    const spot = placer.place(l.x, l.y, [l.text], l.bold ? FONT.target : FONT.label, l.gap, { force: true, bold: l.bold ?? false, role: l.role });
     if (!spot) continue;
     l.mark.labelled = true;
+    labelMarkup.push(leaderLine(l.x, l.y, l.gap, spot.box, l.fill));
     labelMarkup.push(text(spot.x, spot.y, l.text, { size: l.bold ? FONT.target : FONT.label, fill: l.fill, anchor: spot.anchor, ...(l.bold ? { weight: 'bold' as const } : {}) }));
   }
+  // The guide pattern's name, by its figure (centred on it when there is room), never on a star.
   if (guidePat) {
-    const pts = guidePat.stars.map((hip) => sky.star(starByHip(hip)!)).filter((p) => up(p.altitudeDeg)).map((p) => layout.toChart(p.altitudeDeg, p.azimuthDeg)!);
+    const pts = guidePat.stars.map((hip) => sky.star(starByHip(hip)!)).filter((p) => visible(p)).map((p) => layout.toChart(p.altitudeDeg, p.azimuthDeg)!);
     if (pts.length) {
-      const x = pts.reduce((s, p) => s + p.x, 0) / pts.length;
-      const y = pts.reduce((s, p) => s + p.y, 0) / pts.length;
-      const spot = placer.place(x, y, [guidePat.name], FONT.label, 4, { bold: true });
-      if (spot) labelMarkup.push(text(spot.x, spot.y, guidePat.name, { size: FONT.label, fill: COLOURS.guide, anchor: spot.anchor, weight: 'bold' }));
+      labelMarkup.push(patternLabel(placer, guidePat.name, pts));
     }
   }
   // The brightest named stars (V ≤ 1.5), brightest first, where they fit.
   for (const s of placed) {
-    if (!s.star.name || s.star.vMag > 1.5) continue;
+    if (!s.star.name || s.star.vMag > 1.5 || namedHips.has(s.star.hip)) continue;
     const q = layout.toChart(s.altitudeDeg, s.azimuthDeg)!;
     const mark: ChartMark = { kind: 'star', id: `hip:${s.star.hip}`, label: s.star.name, altitudeDeg: s.altitudeDeg, azimuthDeg: s.azimuthDeg, x: q.x, y: q.y, labelled: false };
     marks.push(mark);
-    const spot = placer.place(q.x, q.y, [s.star.name], FONT.small, starRadius(s.star.vMag) + 1);
+    const spot = placer.place(q.x, q.y, [s.star.name], FONT.small, starRadius(s.star.vMag) + 1, { role: 'star' });
     if (!spot) continue;
     mark.labelled = true;
     labelMarkup.push(text(spot.x, spot.y, s.star.name, { size: FONT.small, fill: COLOURS.dimText, anchor: spot.anchor }));
   }
   parts.push(...labelMarkup);
 
-  const clock = formatChartTime(time, site);
   parts.push(text(6, 17, clock, { size: FONT.label, fill: COLOURS.text, weight: 'bold', halo: COLOURS.skyEdge }));
   parts.push(text(6, DISC_HEIGHT + 14, `Whole sky: zenith at the centre, N up, E left`, { size: FONT.small, fill: COLOURS.dimText, halo: COLOURS.skyEdge }));
   const hidden = target && body && !visible(target) ? ` · ${chartLabel(body)} not up` : '';
@@ -212,6 +256,7 @@ export function wholeSkyChart(input: { site: Site; time: Date; body?: Body; opti
     guide,
     magnitudeLimit,
     marks,
+    labels: placer.labels,
     stars: drawn,
     layout,
   };

@@ -102,9 +102,20 @@ export interface GuideResult {
   /** The nearest bright named star (V ≤ `maxStarMagnitude`) above the horizon, whatever the phrase uses. */
   nearestStar: NearestStar | null;
   /** The horizon phrase's numbers (kind 'horizon'): the target's apparent altitude (standard refraction) and azimuth, and the Sun's set or rise point. */
-  horizon: { altitudeDeg: number; azimuthDeg: number; sun: { event: 'set' | 'rise'; offsetDeg: number; side: 'left' | 'right' | 'above' } | null } | null;
+  horizon: { altitudeDeg: number; azimuthDeg: number; sun: SunPoint | null } | null;
   /** Every star, pattern and body the phrase names. */
   names: GuideName[];
+}
+
+/** Where the Sun set (or will rise) relative to a target: the point's azimuth (degrees from north through east) and its offset along the horizon. */
+export interface SunPoint {
+  event: 'set' | 'rise';
+  /** Azimuth of the set or rise point, degrees. */
+  azimuthDeg: number;
+  /** Degrees of azimuth between the target and the point. */
+  offsetDeg: number;
+  /** Which side of the point the target is on, for a reader facing the target ('above' within 2°). */
+  side: 'left' | 'right' | 'above';
 }
 
 export interface GuideOptions {
@@ -116,6 +127,8 @@ export interface GuideOptions {
   sun?: ApparentPlace;
   /** The Moon and planets that may serve as guides (not the target itself). */
   companions?: readonly GuideCompanion[];
+  /** The site's skyline: altitude (degrees) of the buildings or hills at an azimuth. Stars, bodies and figures behind it do not guide. */
+  skylineAltitudeDeg?: (azimuthDeg: number) => number;
   /** A pattern is used only when its reference point stands this high, degrees. Default 10. */
   minAltitudeDeg?: number;
   /** Patterns whose nearest star is farther than this from the target are not ranked, degrees. Default 30. */
@@ -369,7 +382,8 @@ function altitudeOf(v: Vec): number {
  *    about 20° (about 2 fists) to the left of where the Sun set" (the Sun's part only in
  *    twilight, Sun 0° to −18°, and within 90° of azimuth of the target).
  *
- * So every target above the horizon gets a phrase. Returns null only for a target whose geometric
+ * With `skylineAltitudeDeg`, stars, bodies and figures hidden behind the site's skyline are
+ * passed over. So every target above the horizon gets a phrase. Returns null only for a target whose geometric
  * altitude is below −1° (below the horizon even with refraction). Throws `GloamingError`
  * ('invalid-value') for out-of-range inputs.
  */
@@ -387,6 +401,12 @@ export function guideTarget(options: GuideOptions): GuideResult | null {
   const sunAltitudeDeg = sun ? altitudeOf(sun) : null;
   const twilight = sunAltitudeDeg !== null && sunAltitudeDeg > -12;
   const maxStarMagnitude = Math.min(options.maxStarMagnitude ?? 3.0, twilight ? TWILIGHT_STAR_MAG : Infinity);
+  const skyline = options.skylineAltitudeDeg ?? ((): number => 0);
+  /** Whether a direction stands at least `marginDeg` above the skyline (and the ideal horizon). */
+  const clear = (v: Vec, marginDeg = 0): boolean => {
+    const alt = altitudeOf(v);
+    return alt >= marginDeg && alt >= skyline(azimuthOf(v)) + marginDeg;
+  };
 
   // Rank the patterns (rule 1).
   let best: { group: Group; score: number; centroid: Vec; hors: Vec[]; nearest: { star: Star; hor: Vec; sep: number } } | null = null;
@@ -406,7 +426,7 @@ export function guideTarget(options: GuideOptions): GuideResult | null {
     }
     if (!pick) continue;
     const altitudeDeg = altitudeOf(pick.centroid);
-    if (altitudeDeg < minAltitudeDeg || pick.nearest.sep > maxSeparationDeg) continue;
+    if (altitudeDeg < minAltitudeDeg || !clear(pick.centroid) || pick.nearest.sep > maxSeparationDeg) continue;
     const pattern = pick.group.pattern;
     const score = patternScore({ separationDeg: pick.nearest.sep, familiarity: pattern.familiarity, brightnessMag: brightness.get(id)!, altitudeDeg });
     if (!best || score < best.score) best = { ...pick, score };
@@ -431,7 +451,7 @@ export function guideTarget(options: GuideOptions): GuideResult | null {
       bestCost = cost;
       nearestStar = describe();
     }
-    if (cost < bestGuideCost && s.star.vMag <= maxStarMagnitude && sep <= NEAR_STAR_DEG && altitudeOf(hor) >= MIN_GUIDE_ALTITUDE_DEG) {
+    if (cost < bestGuideCost && s.star.vMag <= maxStarMagnitude && sep <= NEAR_STAR_DEG && clear(hor, MIN_GUIDE_ALTITUDE_DEG)) {
       bestGuideCost = cost;
       guideStar = describe();
     }
@@ -449,7 +469,7 @@ export function guideTarget(options: GuideOptions): GuideResult | null {
 
   // Rule 1: the pattern, when the target is within its figure or close to its stars.
   if (best) {
-    const phrased = patternPhrase(best, target, guideStar);
+    const phrased = patternPhrase(best, target, guideStar, clear);
     if (phrased) return { ...base, ...phrased, kind: 'pattern' };
   }
 
@@ -458,7 +478,7 @@ export function guideTarget(options: GuideOptions): GuideResult | null {
   for (const c of options.companions ?? []) {
     if (c.kind === 'planet' && !(c.magnitude <= BRIGHT_PLANET_MAG)) continue;
     const hor = targetVector(frame, c.place);
-    if (altitudeOf(hor) < MIN_GUIDE_ALTITUDE_DEG) continue;
+    if (!clear(hor, MIN_GUIDE_ALTITUDE_DEG)) continue;
     const o = offsetVectors(hor, target);
     if (o.separationDeg > NEAR_BODY_DEG || o.separationDeg < MIN_BODY_SEPARATION_DEG) continue;
     if (!companion || o.separationDeg < companion.o.separationDeg) companion = { c, o };
@@ -524,6 +544,7 @@ function patternPhrase(
   best: { group: Group; centroid: Vec; hors: Vec[]; nearest: { star: Star; hor: Vec; sep: number } },
   target: Vec,
   guideStar: { hip: number; name: string; hor: Vec } | null,
+  clear: (v: Vec) => boolean,
 ): Pick<GuideResult, 'phrase' | 'pattern' | 'part' | 'anchorStar' | 'inside' | 'separationDeg' | 'offsetDirection' | 'names'> | null {
   const { group, centroid, hors, nearest } = best;
   const pattern = group.pattern;
@@ -532,12 +553,12 @@ function patternPhrase(
   // "in" reaches as far from the figure's stars as the figure is wide (its radius), at least 1°, at most IN_PATTERN_DEG.
   const inLimitDeg = Math.min(IN_PATTERN_DEG, Math.max(1, group.radiusDeg));
   const close = nearest.sep <= inLimitDeg;
-  // The nearest named star of the figure the phrase names.
+  // The nearest named star of the figure the phrase names, among those above the skyline.
   let anchor: { star: Star; hor: Vec; sep: number } | null = null;
   hors.forEach((hor, i) => {
     const star = group.stars[i]!.star;
     const sep = angleDeg(hor, target);
-    if (star.name && (!anchor || sep < anchor.sep)) anchor = { star, hor, sep };
+    if (star.name && clear(hor) && (!anchor || sep < anchor.sep)) anchor = { star, hor, sep };
   });
   const common = {
     pattern: { id: pattern.id, name: pattern.name },
@@ -667,7 +688,7 @@ export function horizonWords(altitudeDeg: number, azimuthDeg: number): string {
  * is up or in full darkness, never sets or rises that day, or the point lies more than 90° of
  * azimuth from the target. "left"/"right" are for a reader facing the target.
  */
-function sunPoint(latitudeDeg: number, sunDecDeg: number, sunAltitudeDeg: number, sunAzimuthDeg: number, targetAzimuthDeg: number): { event: 'set' | 'rise'; offsetDeg: number; side: 'left' | 'right' | 'above' } | null {
+function sunPoint(latitudeDeg: number, sunDecDeg: number, sunAltitudeDeg: number, sunAzimuthDeg: number, targetAzimuthDeg: number): SunPoint | null {
   if (sunAltitudeDeg >= 0 || sunAltitudeDeg < -18) return null;
   const h0 = -0.833 / DEG;
   const phi = latitudeDeg / DEG;
@@ -679,7 +700,7 @@ function sunPoint(latitudeDeg: number, sunDecDeg: number, sunAltitudeDeg: number
   const diff = ((targetAzimuthDeg - pointAz + 540) % 360) - 180;
   if (Math.abs(diff) > 90) return null;
   const offsetDeg = Math.abs(diff);
-  return { event, offsetDeg, side: offsetDeg < 2 ? 'above' : diff > 0 ? 'right' : 'left' };
+  return { event, azimuthDeg: pointAz, offsetDeg, side: offsetDeg < 2 ? 'above' : diff > 0 ? 'right' : 'left' };
 }
 
 /** A target's apparent place at one moment, for `describeMotion`. */
