@@ -241,10 +241,22 @@ export interface Night {
   timeZone: string;
 }
 
-/** The night that begins on the local evening of `date` in `zone`. */
+/**
+ * The night that begins on the local evening of `date` in `zone`. Raises `invalid-date` for a date
+ * the zone's clocks skipped (Pacific/Apia had no 30 December 2011: it moved across the date line),
+ * which has no evening and so no night.
+ */
 export function nightOf(date: string, zone: string): Night {
   internalDate(date);
-  return { date, start: zonedTime(date, 12, 0, zone), end: zonedTime(addDays(date, 1), 12, 0, zone), timeZone: zone };
+  const start = zonedTime(date, 12, 0, zone);
+  const end = zonedTime(addDays(date, 1), 12, 0, zone);
+  if (localDateOf(start, zone) !== date) {
+    throw new GloamingError('invalid-date', `the date ${quoteValue(date)} did not happen in ${zone}: its clocks skipped that day`, {
+      place: { field: 'date' },
+      expected: `a date that exists in ${zone}, such as ${localDateOf(end, zone)}`,
+    });
+  }
+  return { date, start, end, timeZone: zone };
 }
 
 /** Local midnight that splits the night of `night.date` (the start of the next date). */

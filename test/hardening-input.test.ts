@@ -44,6 +44,7 @@ describe('command line: impossible input is refused with one line and exit code 
     { what: '--site together with --lat', argv: ['night', '--site', 'harbour-roof', '--lat', '10', '--date', '2026-01-01'], names: /--site/, mentions: /--lat/ },
     { what: '--elements on a missing file', argv: [...POSITION.filter((a) => a !== '--body' && a !== 'mars'), '--lat', '52', '--at', '2026-02-03T20:00Z', '--elements', join(scratch, 'nowhere.yaml')], names: /--elements/, mentions: /no such file/ },
     { what: '--elements on a folder', argv: ['position', '--lat', '52', '--lon', '5', '--at', '2026-02-03T20:00Z', '--elements', scratch], names: /--elements/, mentions: /is a folder/ },
+    { what: 'a date the zone skipped (Pacific/Apia had no 30 December 2011; IANA tz database)', argv: ['night', '--lat', '-13.8', '--lon', '-171.8', '--tz', 'Pacific/Apia', '--date', '2011-12-30'], names: /--date/, mentions: /'2011-12-30' did not happen in Pacific\/Apia/ },
     { what: 'the events range error names --to', argv: ['events', '--lat', '52', '--lon', '5', '--tz', 'UTC', '--from', '2026-01-01', '--to', '2032-01-01'], names: /^gloaming events: --to: / },
   ];
   for (const c of cases) {
