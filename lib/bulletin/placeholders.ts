@@ -452,7 +452,7 @@ const DEFINITIONS: PlaceholderSpec[] = [
   { name: 'best-time', form: 'inline', summary: 'best viewing time: largest visibility margin within the viewing hours (lib/visibility.ts)', attributes: { body: BODY, ...TIME_ATTRS }, example: ':best-time{body=jupiter}', render: bestTime },
   { name: 'window', form: 'inline', summary: 'viewing window: the span around the best time where the body stays visible', attributes: { body: BODY, ...TIME_ATTRS }, example: ':window{body=jupiter}', render: viewingWindow },
   { name: 'verdict', form: 'inline', summary: 'naked eye, binoculars, telescope or not visible, with the reason', attributes: { body: BODY, night: NIGHT }, example: ':verdict{body=saturn}', render: verdict },
-  { name: 'guide', form: 'inline', summary: 'where to look from a nearby bright star pattern, at the best time (or transit)', attributes: { body: BODY, night: NIGHT }, example: ':guide{body=jupiter}', render: guide },
+  { name: 'guide', form: 'inline', summary: 'where to look, at the best time (or transit): from a nearby star pattern, a bright star, the Moon or a bright planet, or else the horizon and where the Sun set', attributes: { body: BODY, night: NIGHT }, example: ':guide{body=jupiter}', render: guide },
   { name: 'targets', form: 'block', summary: 'every naked-eye or binocular target of the night, by best time, with direction, altitude, magnitude and nearby pattern', attributes: { ...TIME_ATTRS }, example: '::targets{night=fri}', render: targets },
   {
     name: 'chart',

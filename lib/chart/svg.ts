@@ -191,12 +191,16 @@ export class LabelPlacer {
     const labelOverlap = (b: Box): number => this.labels.reduce((sum, o) => sum + overlapArea(b, o), 0);
     const markOverlap = (b: Box): number => this.#marks.reduce((sum, o) => sum + overlapArea(b, o), 0);
     const crosses = (b: Box): boolean => this.#segments.some((sg) => segmentHitsBox(sg, b));
-    const clear = inside.filter((c) => labelOverlap(c.box) === 0 && markOverlap(c.box) === 0);
-    // Among clear spots, the one with the least cost: 3 per ring outward, 1 for crossing a line, 2 per faint star covered.
-    const cost = (c: (typeof clear)[number]): number => 3 * c.rank + (crosses(c.box) ? 1 : 0) + 2 * this.#soft.filter((o) => overlapArea(c.box, o) > 0).length;
-    let chosen: (typeof clear)[number] | undefined;
+    const hits = (b: Box, list: readonly Box[]): boolean => list.some((o) => overlapArea(b, o) > 0);
+    // Among clear spots (no label, no mark), the one with the least cost: 3 per ring outward, 1 for
+    // crossing a line, 2 per faint star covered. Spots are tried nearest first, and the search stops
+    // once no farther spot can cost less.
+    const cost = (c: (typeof inside)[number]): number => 3 * c.rank + (crosses(c.box) ? 1 : 0) + 2 * this.#soft.filter((o) => overlapArea(c.box, o) > 0).length;
+    let chosen: (typeof inside)[number] | undefined;
     let least = Infinity;
-    for (const c of clear) {
+    for (const c of [...inside].sort((a, b) => a.rank - b.rank)) {
+      if (3 * c.rank >= least) break;
+      if (hits(c.box, this.labels) || hits(c.box, this.#marks)) continue;
       const k = cost(c);
       if (k < least) {
         least = k;
