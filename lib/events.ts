@@ -94,20 +94,29 @@ export interface SunEvents {
   rise: EventTime;
 }
 
-/** Sunset, twilights and sunrise of the night of `frame`. */
+/**
+ * Sunset, twilights and sunrise of the night of `frame`, always in this order: each morning event is the first
+ * upward crossing after the matching evening one. Where the Sun is still below the horizon at local noon (polar
+ * edges, zones far from their longitude) an upward crossing before the evening's is the tail of the day, not this
+ * night's dawn: the dawn then falls after the night's end and is `null` ('outside-night').
+ */
 export function sunEvents(frame: NightFrame): SunEvents {
   const sun = frame.sun;
-  const rs = riseTransitSet(frame, sun);
-  const twilight = (depthDeg: number): { dusk: EventTime; dawn: EventTime } => {
-    const f = (ut: number): number => sun.at(ut).geometricAltitudeDeg + depthDeg;
+  const pair = (f: (ut: number) => number, twilight: boolean): { down: EventTime; up: EventTime } => {
     const c = findCrossings(f, frame.ut0, frame.ut1, { stepDays: SEARCH_STEP_DAYS });
-    const dusk = first(c, -1);
-    const dawn = first(c, 1);
+    const down = first(c, -1);
+    const up = c.find((x) => x.direction === 1 && (!down || x.ut > down.ut));
     return {
-      dusk: dusk ? { time: dateFromUt(dusk.ut) } : missing(f, frame, c, true),
-      dawn: dawn ? { time: dateFromUt(dawn.ut) } : missing(f, frame, c, true),
+      down: down ? { time: dateFromUt(down.ut) } : missing(f, frame, c, twilight),
+      up: up ? { time: dateFromUt(up.ut) } : down ? { time: null, reason: 'outside-night' } : missing(f, frame, c, twilight),
     };
   };
+  const twilight = (depthDeg: number): { dusk: EventTime; dawn: EventTime } => {
+    const { down, up } = pair((ut) => sun.at(ut).geometricAltitudeDeg + depthDeg, true);
+    return { dusk: down, dawn: up };
+  };
+  const horizon = pair(horizonFunction(sun), false);
+  const rs = { set: horizon.down, rise: horizon.up };
   const civil = twilight(6);
   const nautical = twilight(12);
   const astronomical = twilight(18);

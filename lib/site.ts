@@ -4,8 +4,9 @@
  */
 import * as Astronomy from 'astronomy-engine';
 import { GloamingError, type Place } from './errors.ts';
-import { assertTimeZone } from './time.ts';
+import { assertTimeZone, offsetMinutes } from './time.ts';
 import type { SkyQuality } from './sky/quality.ts';
+import type { InstrumentKind } from './sky/threshold.ts';
 
 /** How dark the site's sky is: `{ bortle }` (class 1–9), `{ sqm }` (mag/arcsec²) or `{ nelm }`. */
 export type { SkyQuality };
@@ -44,8 +45,15 @@ export interface Site {
   horizon: HorizonPoint[];
   /** Lowest altitude worth recommending, degrees (default 5). */
   minAltitudeDeg: number;
-  /** Audience viewing hours, or null for the default (sunset to local midnight). */
+  /** Audience viewing hours, or null for the default (`DEFAULT_VIEWING_HOURS` hours from sunset, see `lib/visibility.ts`). */
   viewingHours: ViewingHours | null;
+  /**
+   * Findability margin per optical aid, magnitudes: how far above the 50 % detection threshold a target must be
+   * before gloaming recommends it (`margin >= requiredMargin`). Default `DEFAULT_FINDABILITY_MARGIN_MAG`.
+   */
+  findabilityMarginMag: Readonly<Record<InstrumentKind, number>>;
+  /** Largest allowed difference between the zone's standard offset and longitude/15, hours (default 3.5). */
+  zoneToleranceHours: number;
   /** BCP 47 locale for formatting times (12/24-hour clock), e.g. `en-GB`. */
   locale: string;
   /** A sentence or two about the site for its page (may be empty). */
@@ -68,9 +76,84 @@ export interface SiteInput {
   viewingHours?: unknown;
   locale?: unknown;
   description?: unknown;
+  findabilityMargin?: unknown;
+  zoneTolerance?: unknown;
 }
 
-const FIELDS = ['id', 'name', 'latitude', 'longitude', 'elevation', 'timeZone', 'sky', 'horizon', 'minAltitude', 'viewingHours', 'locale', 'description'];
+const FIELDS = ['id', 'name', 'latitude', 'longitude', 'elevation', 'timeZone', 'sky', 'horizon', 'minAltitude', 'viewingHours', 'locale', 'description', 'findabilityMargin', 'zoneTolerance'];
+
+/**
+ * How far (magnitudes) a target must stand above Schaefer's threshold before a bulletin recommends it, per aid.
+ * Schaefer's limiting magnitude is the 50 % detection limit of an observer who knows exactly where to look;
+ * a member of the public scanning for a target needs it clearly brighter. One magnitude (a factor 2.5 in light)
+ * is common practice (this project's choice, not a published value); sites may override it (`findabilityMargin`).
+ */
+export const DEFAULT_FINDABILITY_MARGIN_MAG: Readonly<Record<InstrumentKind, number>> = Object.freeze({
+  'naked-eye': 1,
+  binoculars: 1,
+  telescope: 1,
+});
+
+/**
+ * Default bound on |standard zone offset − longitude/15|, hours. Legal zones run up to about 3 h from
+ * their longitude (western China: UTC+8 at 76° E is 2.9 h); beyond 3.5 h a zone is almost surely the wrong
+ * one for the coordinates (a site at 68° W with Asia/Tokyo). Sites with a real exception set `zoneTolerance`.
+ */
+export const DEFAULT_ZONE_TOLERANCE_HOURS = 3.5;
+
+const KINDS: readonly InstrumentKind[] = ['naked-eye', 'binoculars', 'telescope'];
+
+function parseFindability(value: unknown): Readonly<Record<InstrumentKind, number>> {
+  if (value === undefined || value === null) return DEFAULT_FINDABILITY_MARGIN_MAG;
+  const what = 'a findability margin in magnitudes';
+  if (typeof value === 'number' || typeof value !== 'object' || Array.isArray(value)) {
+    const m = numberIn(value, 'findabilityMargin', 0, 3, what);
+    return Object.freeze({ 'naked-eye': m, binoculars: m, telescope: m });
+  }
+  const o = value as Record<string, unknown>;
+  for (const key of Object.keys(o)) {
+    if (!KINDS.includes(key as InstrumentKind)) {
+      throw new GloamingError('unknown-field', `unknown optical aid '${key}' in findabilityMargin`, { place: { field: `findabilityMargin.${key}` }, expected: `one of ${KINDS.join(', ')}` });
+    }
+  }
+  const out = { ...DEFAULT_FINDABILITY_MARGIN_MAG };
+  for (const kind of KINDS) if (o[kind] !== undefined) out[kind] = numberIn(o[kind], `findabilityMargin.${kind}`, 0, 3, what);
+  return Object.freeze(out);
+}
+
+/** Formats an offset in hours as `UTC+09:00` / `UTC−04:33`. */
+function utcOffsetLabel(hours: number): string {
+  const minutes = Math.round(Math.abs(hours) * 60);
+  return `UTC${hours < 0 ? '\u2212' : '+'}${String(Math.floor(minutes / 60)).padStart(2, '0')}:${String(minutes % 60).padStart(2, '0')}`;
+}
+
+/**
+ * The zone's standard offset (the smaller of its January and July offsets in 2026), hours east of Greenwich.
+ * Sanity check only: it does not need the offset of any particular date.
+ */
+export function standardOffsetHours(timeZone: string): number {
+  const jan = offsetMinutes(new Date(Date.UTC(2026, 0, 15)), timeZone);
+  const jul = offsetMinutes(new Date(Date.UTC(2026, 6, 15)), timeZone);
+  return Math.min(jan, jul) / 60;
+}
+
+/** Raises a `timeZone` error when the zone's standard offset is further than `toleranceHours` from longitude/15. */
+function checkZoneAgainstLongitude(timeZone: string, longitudeDeg: number, toleranceHours: number): void {
+  const offset = standardOffsetHours(timeZone);
+  const solar = longitudeDeg / 15;
+  const diff = ((((offset - solar) % 24) + 36) % 24) - 12; // wrapped to −12…12 (Kiribati's +14 is −10)
+  if (Math.abs(diff) <= toleranceHours) return;
+  const side = longitudeDeg < 0 ? `${(-longitudeDeg).toFixed(2)}° W` : `${longitudeDeg.toFixed(2)}° E`;
+  throw new GloamingError(
+    'invalid-value',
+    `time zone ${timeZone} (${utcOffsetLabel(offset)}) is ${Math.abs(diff).toFixed(1)} h from the site's longitude (${side}, about ${utcOffsetLabel(solar)}): every time on the site's pages would be wrong`,
+    {
+      place: { field: 'timeZone' },
+      actual: timeZone,
+      expected: `the zone the site's clocks keep, within ${toleranceHours} h of longitude/15; if this zone is right, allow it with 'zoneTolerance: ${Math.ceil(Math.abs(diff))}' (hours)`,
+    },
+  );
+}
 
 function fail(field: string, reason: string, actual: unknown, expected: string): never {
   throw new GloamingError('invalid-value', reason, { place: { field }, actual, expected });
@@ -191,6 +274,8 @@ export function defineSite(input: unknown, place?: Place): Site {
     if (typeof name !== 'string' || name.trim() === '') fail('name', 'a site name is non-empty text', name, 'a display name');
     const description = o.description === undefined ? '' : o.description;
     if (typeof description !== 'string') fail('description', 'a site description is text', description, 'a sentence or two');
+    const zoneToleranceHours = o.zoneTolerance === undefined ? DEFAULT_ZONE_TOLERANCE_HOURS : numberIn(o.zoneTolerance, 'zoneTolerance', 0, 12, 'a tolerance in hours');
+    checkZoneAgainstLongitude(timeZone, longitudeDeg, zoneToleranceHours);
     const locale = o.locale === undefined ? 'en-GB' : o.locale;
     if (typeof locale !== 'string' || !isLocale(locale)) fail('locale', 'unknown locale', locale, "a BCP 47 locale such as 'en-GB' or 'en-US'");
     return {
@@ -204,6 +289,8 @@ export function defineSite(input: unknown, place?: Place): Site {
       horizon: parseHorizon(o.horizon),
       minAltitudeDeg: o.minAltitude === undefined ? 5 : numberIn(o.minAltitude, 'minAltitude', 0, 45, 'a minimum altitude in degrees'),
       viewingHours: parseViewingHours(o.viewingHours),
+      findabilityMarginMag: parseFindability(o.findabilityMargin),
+      zoneToleranceHours,
       locale,
       description: description.trim(),
       observer: new Astronomy.Observer(latitudeDeg, longitudeDeg, elevationM),

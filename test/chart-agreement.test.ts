@@ -136,7 +136,7 @@ describe('charts of 200 generated site-nights label what their words name, with 
       const span = id === 'comet-lumen' ? 90 : 1095;
       const date = new Date(start + Math.floor(random() * span) * 86_400_000).toISOString().slice(0, 10);
       const horizon = random() < 0.4 ? [{ azimuth: 0, altitude: random() * 8 }, { azimuth: 120, altitude: random() * 15 }, { azimuth: 240, altitude: random() * 10 }] : [];
-      const site = defineSite({ id: `gen-${i}`, name: `Generated site ${i}`, latitude, longitude, timeZone: 'UTC', sky: { bortle: 1 + Math.floor(random() * 8) }, horizon, locale: random() < 0.5 ? 'en-GB' : 'en-US' });
+      const site = defineSite({ id: `gen-${i}`, name: `Generated site ${i}`, latitude, longitude, timeZone: 'UTC', zoneTolerance: 12, sky: { bortle: 1 + Math.floor(random() * 8) }, horizon, locale: random() < 0.5 ? 'en-GB' : 'en-US' });
       const body = id === 'comet-lumen' ? bodies.get(id) : builtInBody(id as (typeof BUILT_IN_IDS)[number]);
       const chart = chartOfNight(site, body, date);
       if (!chart) continue;

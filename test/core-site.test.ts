@@ -94,8 +94,8 @@ describe('defineSite rejects bad values, naming the field, the value and the all
   });
 
   it('the limits themselves are accepted (poles, antimeridian, Bortle 1 and 9)', () => {
-    expect(defineSite({ latitude: 90, longitude: 180, timeZone: 'UTC' }).latitudeDeg).toBe(90);
-    expect(defineSite({ latitude: -90, longitude: -180, timeZone: 'UTC' }).longitudeDeg).toBe(-180);
+    expect(defineSite({ latitude: 90, longitude: 180, timeZone: 'UTC', zoneTolerance: 12 }).latitudeDeg).toBe(90);
+    expect(defineSite({ latitude: -90, longitude: -180, timeZone: 'UTC', zoneTolerance: 12 }).longitudeDeg).toBe(-180);
     expect(defineSite({ ...GOOD, sky: { bortle: 1 } }).sky).toEqual({ bortle: 1 });
     expect(defineSite({ ...GOOD, sky: 'bortle:9' }).sky).toEqual({ bortle: 9 });
   });

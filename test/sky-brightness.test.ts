@@ -15,6 +15,7 @@ import {
   moonlightNl,
   skyBrightness,
   twilightNl,
+  twilightNlSchaefer,
   type SkyBrightnessInput,
 } from '../lib/sky/brightness.ts';
 import { darkSkyFromQuality, magPerArcsec2ToNl, nlToMagPerArcsec2 } from '../lib/sky/quality.ts';
@@ -89,7 +90,7 @@ describe('moonlight (KS91 eqs. 8, 9, 21)', () => {
 
 describe('twilight (Schaefer 1998, Sky & Telescope 95(5):57, VISLIMIT)', () => {
   const zenithTwilight = (sunAltDeg: number, k: number): number =>
-    twilightNl({ targetAltitudeDeg: 90, sunSeparationDeg: 90 - sunAltDeg, sunAltitudeDeg: sunAltDeg, kV: k });
+    twilightNlSchaefer({ targetAltitudeDeg: 90, sunSeparationDeg: 90 - sunAltDeg, sunAltitudeDeg: sunAltDeg, kV: k });
 
   it('VISLIMIT defaults (k 0.219, zenith, dark 52.4 nL): −6° 1.29e5, −9° 7940, −12° 536, −15° 82, −18° 54 nL [digest, computed from the listing]', () => {
     const rows: Array<[number, number]> = [

@@ -35,22 +35,22 @@ describe('verdicts (common practice)', () => {
     expect(v.outsideViewingHours).toBe(false);
   });
 
-  it('a magnitude-6 comet 60° from the full Moon is not naked-eye, but is a binocular object from a dark site', () => {
+  it('a magnitude-4.5 comet 60° from the full Moon is not naked-eye, but is a binocular object from a dark site (with the default findability margin)', () => {
     const date = fullMoonDate();
     const midnight = Astronomy.MakeTime(new Date(`${date}T00:00:00Z`));
     const moon = Astronomy.GeoVector(Astronomy.Body.Moon, midnight, true);
     const place = offsetFrom(moon, 60, true);
-    const comet = fixedBody({ raHours: place.raHours, decDeg: place.decDeg, magnitude: 6, comaDiameterArcmin: 5 });
+    const comet = fixedBody({ raHours: place.raHours, decDeg: place.decDeg, magnitude: 4.5, comaDiameterArcmin: 5 });
     const v = computeNight(dark, date, [comet]).bodies[0]!.visibility;
     expect(v.verdict).toBe('binoculars');
     const noMoon = computeNight(dark, '2026-12-09', [comet]).bodies[0]!.visibility;
     expect(noMoon.verdict, 'without the Moon the same comet is a naked-eye object at a dark site').toBe('naked-eye');
   });
 
-  it('with the Sun up only the Moon and Venus near its brightest are naked-eye objects', () => {
+  it('with the Sun up only the Moon and Venus near its brightest are naked-eye objects (at the detection threshold: findability margin 0)', () => {
     // Venus near greatest brilliancy (about −4.7) on 2026 September 10, seen around local noon
     // from a clear, dark, 800 m site at 32° N; the Moon is high that day, Jupiter (−1.9) too.
-    const site = defineSite({ id: 'hill', latitude: 32, longitude: 35, elevation: 800, timeZone: 'Asia/Jerusalem', sky: { bortle: 4 } });
+    const site = defineSite({ id: 'hill', latitude: 32, longitude: 35, elevation: 800, timeZone: 'Asia/Jerusalem', sky: { bortle: 4 }, findabilityMargin: 0 });
     const r = computeNight(site, '2026-09-10', [builtInBody('venus'), builtInBody('jupiter'), builtInBody('moon')]);
     const noon = utDays(r.night.start);
     const span = { ut0: noon - 2 / 24, ut1: noon + 3 / 24 };

@@ -22,7 +22,7 @@ import type { ChartOutput } from './types.ts';
 import { ChartCache } from '../chart/cache.ts';
 import { placeholderChart } from '../chart/index.ts';
 import { EVENT_TYPES, pickEvent, type AlmanacEvent, type AlmanacEventType } from '../almanac/index.ts';
-import { REASON_TEXT, type Visibility } from '../visibility.ts';
+import { reasonText, WINDOW_END_TEXT, type Visibility } from '../visibility.ts';
 
 /** A target within this angle of the Sun (geocentric, at local midnight of the night) triggers the eye-safety caution. */
 export const NEAR_SUN_DEG = 15;
@@ -211,7 +211,7 @@ function bodyEvent(field: 'rise' | 'transit' | 'set') {
 /** The honest phrase for a body with no best moment this night. */
 function notVisible(call: PlaceholderCall, body: Body, v: Visibility, data: Properties = {}): ElementContent {
   const reason = v.reason ?? 'too-faint';
-  return el('span', { ...classes(call, 'gl-none'), dataNight: nightDate(call), dataBody: body.id, dataVerdict: v.verdict, dataReason: reason, ...data }, `not visible this night: ${REASON_TEXT[reason]}`);
+  return el('span', { ...classes(call, 'gl-none'), dataNight: nightDate(call), dataBody: body.id, dataVerdict: v.verdict, dataReason: reason, ...data }, `not visible this night: ${reasonText(reason, call.site)}`);
 }
 
 function direction(call: PlaceholderCall): ElementContent {
@@ -329,7 +329,7 @@ const VERDICT_WORDS = { 'naked-eye': 'visible to the naked eye', binoculars: 'a 
 function visibilityData(v: Visibility): Properties {
   return {
     dataVerdict: v.verdict,
-    ...(v.best ? { dataMargin: exact(v.best.margin, 2), dataAltitudeDeg: exact(v.best.altitudeDeg, 3), dataAzimuthDeg: exact(v.best.azimuthDeg, 3) } : {}),
+    ...(v.best ? { dataMargin: exact(v.best.margin, 2), dataRequiredMargin: exact(v.best.requiredMargin, 2), dataAltitudeDeg: exact(v.best.altitudeDeg, 3), dataAzimuthDeg: exact(v.best.azimuthDeg, 3) } : {}),
     ...(v.outsideViewingHours ? { dataOutsideViewingHours: 'true' } : {}),
   };
 }
@@ -350,17 +350,20 @@ function viewingWindow(call: PlaceholderCall): ElementContent {
   if (!v.window) return notVisible(call, body, v);
   const zone = call.site.timeZone;
   const format = { clock: call.clock, precision: precisionOf(call) };
-  return el('span', { ...classes(call), dataNight: nightDate(call), dataBody: body.id, ...visibilityData(v) }, [
+  // An optics window cut short for safety says so, so nobody keeps sweeping towards the rising Sun.
+  const why: ElementContent[] = v.window.endReason === 'optics-safety' ? [{ type: 'text', value: `, when ${WINDOW_END_TEXT['optics-safety']}` }] : [];
+  return el('span', { ...classes(call), dataNight: nightDate(call), dataBody: body.id, dataEndReason: v.window.endReason, ...visibilityData(v) }, [
     el('time', { dateTime: formatInstant(v.window.start, zone) }, formatClock(v.window.start, call.site, format)),
     { type: 'text', value: '\u2013' },
     el('time', { dateTime: formatInstant(v.window.end, zone) }, formatClock(v.window.end, call.site, format)),
+    ...why,
   ]);
 }
 
 function verdict(call: PlaceholderCall): ElementContent {
   const body = bodyOf(call);
   const v = call.week.bodyNight(call.night, body).visibility;
-  const words = v.verdict === 'not-visible' ? `not visible this night: ${REASON_TEXT[v.reason ?? 'too-faint']}` : VERDICT_WORDS[v.verdict];
+  const words = v.verdict === 'not-visible' ? `not visible this night: ${reasonText(v.reason ?? 'too-faint', call.site)}` : VERDICT_WORDS[v.verdict];
   return el('data', { ...classes(call), value: v.verdict, dataNight: nightDate(call), dataBody: body.id, ...(v.reason ? { dataReason: v.reason } : {}), ...visibilityData(v) }, words);
 }
 

@@ -9,7 +9,7 @@ import type { NightReport } from '../night.ts';
 import type { Observation } from '../observe.ts';
 import { PHASE_LABEL } from '../moon.ts';
 import { formatInstant } from '../time.ts';
-import { REASON_TEXT, type Visibility } from '../visibility.ts';
+import { reasonText, WINDOW_END_TEXT, type Visibility } from '../visibility.ts';
 import type { WeekReport } from '../week.ts';
 import type { GuideResult } from '../stars/guide.ts';
 
@@ -108,7 +108,7 @@ export function nightJson(report: NightReport): Record<string, unknown> {
         set: eventJson(b.set, zone),
         ...(b.transit.time && b.transit.altitudeDeg !== undefined ? { transitAltitude: round(b.transit.altitudeDeg, 2) } : {}),
         ...(reasons(events) ? { reasons: reasons(events) } : {}),
-        ...visibilityJson(b.visibility, zone),
+        ...visibilityJson(b.visibility, zone, report.site),
         guide: guideJson(b.guide),
       };
     }),
@@ -116,7 +116,7 @@ export function nightJson(report: NightReport): Record<string, unknown> {
 }
 
 /** The visibility fields of a body's night entry (issue #4 shape). */
-export function visibilityJson(v: Visibility, zone: string): Record<string, unknown> {
+export function visibilityJson(v: Visibility, zone: string, site: { minAltitudeDeg: number } = { minAltitudeDeg: 0 }): Record<string, unknown> {
   const b = v.best;
   return {
     best: b
@@ -130,13 +130,17 @@ export function visibilityJson(v: Visibility, zone: string): Record<string, unkn
           limitingMagnitude: round(b.limitingMagnitude, 2),
           skyBrightness: round(b.skyBrightnessMagArcsec2, 2),
           margin: round(b.margin, 2),
+          requiredMargin: round(b.requiredMargin, 2),
         }
       : null,
-    window: v.window ? { start: formatInstant(v.window.start, zone), end: formatInstant(v.window.end, zone) } : null,
+    window: v.window
+      ? { start: formatInstant(v.window.start, zone), end: formatInstant(v.window.end, zone), endReason: v.window.endReason, endsBecause: WINDOW_END_TEXT[v.window.endReason] }
+      : null,
     verdict: v.verdict,
     instrument: v.instrument?.id ?? null,
     outsideViewingHours: v.outsideViewingHours,
-    reason: v.reason ? REASON_TEXT[v.reason] : null,
+    reason: v.reason ? reasonText(v.reason, site) : null,
+    reasonId: v.reason,
   };
 }
 
@@ -157,7 +161,7 @@ export function weekJson(report: WeekReport): Record<string, unknown> {
       magnitude: { first: round(b.magnitude.first, 2), last: round(b.magnitude.last, 2) },
       changes: b.changes,
       moonInterference: b.moonInterference,
-      nights: b.nights.map((n) => ({ date: n.date, ...visibilityJson(n.visibility, zone) })),
+      nights: b.nights.map((n) => ({ date: n.date, ...visibilityJson(n.visibility, zone, report.site) })),
     })),
   };
 }

@@ -30,6 +30,8 @@ export interface SkyBrightnessInput {
   sun: {
     /** Apparent altitude of the Sun's centre, degrees. */
     altitudeDeg: number;
+    /** Geometric altitude of the Sun's centre, degrees: the depression that sets the twilight (default: `altitudeDeg`). */
+    geometricAltitudeDeg?: number;
   };
   moon: {
     /** Apparent altitude of the Moon's centre, degrees. Below 0 the Moon adds no light. */
@@ -132,8 +134,8 @@ const SUN_V = -26.74;
 const MO_V = -11.05;
 
 /**
- * Twilight and daylight at a target, nL, from Schaefer's model (Schaefer 1998, "To the Visual
- * Limits", Sky & Telescope 95(5):57, VISLIMIT.BAS, V band), using Rozenberg airmasses as the program does:
+ * Twilight and daylight at a target, nL, exactly as Schaefer's model gives them (Schaefer 1998, "To the
+ * Visual Limits", Sky & Telescope 95(5):57, VISLIMIT.BAS, V band), using Rozenberg airmasses as the program does:
  * - twilight B_T = 10^(−0.4 (m_sun − m_O + 32.5 − h_sun − z/(360 k))) · (100/ρ_sun) · (1 − 10^(−0.4 k X))
  * - daylight B_D = 10^(−0.4 (m_sun − m_O + 43.27)) (1 − 10^(−0.4 k X)) (f(ρ_sun) C + 440000 (1 − C)),
  *   C = 10^(−0.4 k X_sun), X_sun = 40 with the Sun below the horizon, f the KS91 scattering function;
@@ -142,9 +144,12 @@ const MO_V = -11.05;
  * below the horizon B_T is the (small) twilight. In units: B_nL = B / 1.11·10⁻¹⁵, m_O = −11.05, m_sun = −26.74.
  * ρ_sun is clamped to ≥ 1°.
  *
+ * Kept as published (and tested against the program's numbers); the sky model uses the calibrated
+ * `twilightNl`, whose twilight falls with the Sun's depression as measured rather than by 1 mag per degree.
+ *
  * @returns nL (≥ 0).
  */
-export function twilightNl(input: {
+export function twilightNlSchaefer(input: {
   targetAltitudeDeg: number;
   sunSeparationDeg: number;
   sunAltitudeDeg: number;
@@ -156,15 +161,99 @@ export function twilightNl(input: {
   const rho = input.sunSeparationDeg < 1 ? 1 : input.sunSeparationDeg;
   const scatter = 1 - pow10(-0.4 * k * airmassRozenberg(input.targetAltitudeDeg));
   const twilight = pow10(-0.4 * (SUN_V - MO_V + 32.5 - hSun - zDeg / (360 * k))) * (100 / rho) * scatter;
-  const c = pow10(-0.4 * k * airmassRozenberg(hSun));
-  const daylight =
-    pow10(-0.4 * (SUN_V - MO_V + 43.27)) * scatter * (scatteringFunctionKs91(rho) * c + 440000 * (1 - c));
-  return (twilight < daylight ? twilight : daylight) * VISLIMIT_UNIT_NL;
+  return Math.min(twilight, schaeferDaylight(k, hSun, rho, scatter)) * VISLIMIT_UNIT_NL;
+}
+
+/** Schaefer's daylight term B_D in VISLIMIT units (see `twilightNlSchaefer`). */
+function schaeferDaylight(k: number, sunAltitudeDeg: number, rho: number, scatter: number): number {
+  const c = pow10(-0.4 * k * airmassRozenberg(sunAltitudeDeg));
+  return pow10(-0.4 * (SUN_V - MO_V + 43.27)) * scatter * (scatteringFunctionKs91(rho) * c + 440000 * (1 - c));
+}
+
+/**
+ * Patat, Ugolnikov & Postylyakov 2006 (A&A 455:385, "UBVRI twilight sky brightness at ESO-Paranal"),
+ * Table 4, V band: zenith m(ζ) = 11.84 + 1.518 (ζ − 95°) − 0.057 (ζ − 95°)² mag/arcsec², fitted for Sun zenith
+ * distances 95° ≤ ζ ≤ 105°, night sky included. Coefficients as read in two independent third-party codes
+ * (not confirmed against the paper's table). The Paranal night sky (21.6 V mag/arcsec², Patat 2003, A&A 400:1183)
+ * is taken out to leave the twilight alone; the extinction the model gives Paranal's 2635 m (Green 1992,
+ * k = 0.141) sets the scale for other sites.
+ */
+const PATAT_V = { a0: 11.84, a1: 1.518, a2: -0.057 } as const;
+const PATAT_NIGHT_V = 21.6;
+const PATAT_K = 0.1412;
+/** (k / k_Paranal)^0.38: 1.3× at sea level (k 0.281), Patat et al.'s low-site ratio. */
+const SITE_SCALE_EXPONENT = Math.log(1.3) / Math.log(0.281 / 0.1412);
+/** Zenith distances of the Sun between which the Patat fit is used; outside it the twilight changes by 1 mag per degree (Schaefer's law). */
+const PATAT_ZETA_MIN = 95;
+const PATAT_ZETA_MAX = 105;
+const SCHAEFER_SLOPE_MAG_PER_DEG = 1;
+/**
+ * Between sunset and ζ = 95° the zenith brightens by 0.78 mag per degree towards sunset: the straight line from
+ * Patat's value at 95° to Schaefer's own zenith twilight at ζ = 90° for Paranal (7.93 mag/arcsec²), whose whole-sky
+ * illuminance near sunset agrees with the few hundred lux measured on clear evenings (AMS Glossary, "civil twilight").
+ */
+const SUNSET_SLOPE_MAG_PER_DEG = 0.78;
+
+/** Twilight alone at the zenith of a Paranal-like site, V mag/arcsec², for Sun zenith distance ζ (degrees); see `PATAT_V`. */
+function patatZenithTwilightMag(zetaDeg: number): number {
+  const fit = (z: number): number => {
+    const x = z - 95;
+    const total = PATAT_V.a0 + PATAT_V.a1 * x + PATAT_V.a2 * x * x;
+    // Remove the night sky: m_twi = m − 2.5 log10(1 − 10^(−0.4 (m_night − m))).
+    return total - 2.5 * Math.log10(1 - pow10(-0.4 * (PATAT_NIGHT_V - total)));
+  };
+  if (zetaDeg < PATAT_ZETA_MIN) return fit(PATAT_ZETA_MIN) - SUNSET_SLOPE_MAG_PER_DEG * (PATAT_ZETA_MIN - zetaDeg);
+  if (zetaDeg > PATAT_ZETA_MAX) return fit(PATAT_ZETA_MAX) + SCHAEFER_SLOPE_MAG_PER_DEG * (zetaDeg - PATAT_ZETA_MAX);
+  return fit(zetaDeg);
+}
+
+/** 1 V mag/arcsec² in nL: B_nL = 3.408·10¹⁰ · 10^(−0.4 V) (Garstang 1986, PASP 98:364, eq. 19). */
+const NL_AT_ZERO_MAG = 3.408e10;
+
+/**
+ * Twilight and daylight at a target, nL: the model gloaming uses.
+ *
+ * - How bright the twilit zenith is for a given solar depression comes from measurements: the Patat et al.
+ *   2006 V-band zenith fit at Paranal (see `PATAT_V`) for Sun zenith distances 95°–105°, continued outside
+ *   that range towards sunset by a straight line to Schaefer's zenith value at ζ = 90° (0.78 mag per degree),
+ *   and into the night by Schaefer's 1 mag per degree.
+ * - How it spreads over the sky is Schaefer's (1998, VISLIMIT): relative to the zenith, a target at zenith
+ *   distance z and distance ρ from the Sun gets 10^(0.4 z/(360 k)) · (ζ/ρ) · (1 − 10^(−0.4 k X))/(1 − 10^(−0.4 k)).
+ * - The level scales with the site's extinction as (k / k_Paranal)^0.38, chosen so that a sea-level site (k 0.28)
+ *   gets the 1.3× Paranal's twilight that Patat et al. report for a low-altitude site (their abstract).
+ * - As in Schaefer's program the result is min(twilight, daylight), the daylight term taking over with the Sun up.
+ *
+ * Compared with `twilightNlSchaefer` fed the same Sun altitude (Paranal's k): equal at sunset, 1.1 mag brighter
+ * with the Sun 5° down, 0.7 mag at 6°, 0.1 mag at 8°, within 0.4 mag from 9° to 15°.
+ *
+ * @param input.sunAltitudeDeg apparent altitude of the Sun's centre, degrees (sets the daylight term's airmass).
+ * @param input.sunGeometricAltitudeDeg geometric (airless) altitude of the Sun's centre, degrees: the depression
+ *   that sets the twilight, ζ = 90° − altitude, as in the USNO twilight definitions and Patat's fit; default: the apparent one.
+ * @returns nL (≥ 0).
+ */
+export function twilightNl(input: {
+  targetAltitudeDeg: number;
+  sunSeparationDeg: number;
+  sunAltitudeDeg: number;
+  sunGeometricAltitudeDeg?: number;
+  kV: number;
+}): number {
+  const k = input.kV > 1e-6 ? input.kV : 1e-6;
+  const hSun = input.sunAltitudeDeg;
+  const zeta = 90 - (input.sunGeometricAltitudeDeg ?? hSun);
+  const zDeg = 90 - (input.targetAltitudeDeg < 0 ? 0 : input.targetAltitudeDeg > 90 ? 90 : input.targetAltitudeDeg);
+  const rho = input.sunSeparationDeg < 1 ? 1 : input.sunSeparationDeg;
+  const scatter = 1 - pow10(-0.4 * k * airmassRozenberg(input.targetAltitudeDeg));
+  const zenithScatter = 1 - pow10(-0.4 * k);
+  const zenithNl = NL_AT_ZERO_MAG * pow10(-0.4 * patatZenithTwilightMag(zeta)) * Math.pow(k / PATAT_K, SITE_SCALE_EXPONENT);
+  const twilightNl = zenithNl * pow10((0.4 * zDeg) / (360 * k)) * (zeta / rho) * (scatter / zenithScatter);
+  const daylightNl = schaeferDaylight(k, hSun, rho, scatter) * VISLIMIT_UNIT_NL;
+  return twilightNl < daylightNl ? twilightNl : daylightNl;
 }
 
 /**
  * Sky brightness at a target: dark sky (KS91 eqs. 2–3) + moonlight (KS91 eqs. 8, 9, 21 with the
- * opposition effect) + min(twilight, daylight) (Schaefer 1998), in nL and V mag/arcsec²
+ * opposition effect) + min(twilight, daylight) (`twilightNl`: Patat et al. 2006 depression law, Schaefer 1998 distribution and daylight), in nL and V mag/arcsec²
  * (Garstang 1986 units). The brightening by the Moon in magnitudes (KS91 eq. 22) is
  * −2.5 log10((darkNl + moonNl) / darkNl).
  */
@@ -182,6 +271,7 @@ export function skyBrightness(input: SkyBrightnessInput): SkyBrightness {
     targetAltitudeDeg: target.altitudeDeg,
     sunSeparationDeg: target.sunSeparationDeg,
     sunAltitudeDeg: sun.altitudeDeg,
+    ...(sun.geometricAltitudeDeg === undefined ? {} : { sunGeometricAltitudeDeg: sun.geometricAltitudeDeg }),
     kV,
   });
   const totalNl = darkNl + moonNl + twiNl;

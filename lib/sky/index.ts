@@ -39,6 +39,7 @@ export {
   scatteringFunctionKs91,
   skyBrightness,
   twilightNl,
+  twilightNlSchaefer,
   type SkyBrightness,
   type SkyBrightnessInput,
 } from './brightness.ts';
