@@ -99,7 +99,14 @@ function engineBody(id: keyof typeof PLANETS): EngineBody {
         };
       }
       const info = Astronomy.Illumination(spec.body, time);
-      const mag = spec.body === Astronomy.Body.Saturn ? saturnMagnitude(time, info.helio_dist, info.geo_dist, info.phase_angle) : info.mag;
+      const mag =
+        spec.body === Astronomy.Body.Saturn
+          ? saturnMagnitude(time, info.helio_dist, info.geo_dist, info.phase_angle)
+          : spec.body === Astronomy.Body.Mercury
+            ? mercuryMagnitude(info.helio_dist, info.geo_dist, info.phase_angle)
+            : spec.body === Astronomy.Body.Venus
+              ? venusMagnitude(info.helio_dist, info.geo_dist, info.phase_angle)
+              : info.mag;
       return {
         heliocentricDistanceAu: info.helio_dist,
         geocentricDistanceAu: info.geo_dist,
@@ -133,6 +140,30 @@ function saturnMagnitude(time: Astronomy.AstroTime, r: number, delta: number, ph
   const sinBeta = Math.sin(beta * (Math.PI / 180));
   const a = phaseAngleDeg;
   return 5 * Math.log10(r * delta) - 8.914 - 1.825 * sinBeta + 0.026 * a - 0.378 * sinBeta * Math.exp(-2.25 * a);
+}
+
+/**
+ * Mercury's visual magnitude, Mallama & Hilton (2018), "Computing apparent planetary magnitudes for The
+ * Astronomical Almanac", Astronomy and Computing 25:10, valid for the phase angles the Earth sees (to about 170°):
+ *   V = 5 log10(r Δ) − 0.613 + 6.3280·10⁻² α − 1.6336·10⁻³ α² + 3.3644·10⁻⁵ α³ − 3.4265·10⁻⁷ α⁴ + 1.6893·10⁻⁹ α⁵ − 3.0334·10⁻¹² α⁶,
+ * α in degrees, r and Δ in AU. Coefficients as transcribed in the project's methods digest from a third-party
+ * implementation. astronomy-engine's own law (Hilton 2005) is 0.17 mag fainter at α = 142°, a thin crescent.
+ */
+export function mercuryMagnitude(r: number, delta: number, phaseAngleDeg: number): number {
+  const a = phaseAngleDeg;
+  return 5 * Math.log10(r * delta) - 0.613 + a * (6.328e-2 + a * (-1.6336e-3 + a * (3.3644e-5 + a * (-3.4265e-7 + a * (1.6893e-9 + a * -3.0334e-12)))));
+}
+
+/**
+ * Venus's visual magnitude, Mallama & Hilton (2018, as for Mercury): for α < 163.7°
+ *   V = 5 log10(r Δ) − 4.384 − 1.044·10⁻³ α + 3.687·10⁻⁴ α² − 2.814·10⁻⁶ α³ + 8.938·10⁻⁹ α⁴,
+ * and beyond (the forward-scattering brightening of the thinnest crescents) V = 5 log10(r Δ) + 236.05828 − 2.81914 α + 8.39034·10⁻³ α².
+ * Coefficients as transcribed in the project's methods digest from a third-party implementation.
+ */
+export function venusMagnitude(r: number, delta: number, phaseAngleDeg: number): number {
+  const a = phaseAngleDeg;
+  const law = a < 163.7 ? -4.384 + a * (-1.044e-3 + a * (3.687e-4 + a * (-2.814e-6 + a * 8.938e-9))) : 236.05828 + a * (-2.81914 + a * 8.39034e-3);
+  return 5 * Math.log10(r * delta) + law;
 }
 
 const BUILT_IN = new Map<string, EngineBody>(BUILT_IN_IDS.map((id) => [id, engineBody(id)]));

@@ -94,7 +94,7 @@ export function smallBody(object: SmallBodyObject): SmallBody {
       return {
         ...geometry,
         illuminatedFraction: (1 + cosPhase) / 2,
-        magnitude: expectedMagnitude(object.magnitude, geometry),
+        magnitude: expectedMagnitude(object.magnitude, geometry, { id: object.id, ...(object.file ? { file: object.file } : {}) }),
       };
     },
   };

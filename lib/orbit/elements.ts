@@ -91,6 +91,8 @@ export interface SmallBodyObject {
   /** Apparent coma diameter, arcminutes, when given. */
   comaArcmin?: number;
   source: string;
+  /** The file the object was read from, when it came from one (for errors that name it). */
+  file?: string;
 }
 
 const TOP_FIELDS = ['id', 'name', 'kind', 'elements', 'magnitude', 'coma', 'source'];
@@ -249,7 +251,9 @@ function validateMagnitude(value: unknown, kind: SmallBodyKind): MagnitudeModel 
   if (hg) {
     const H = finite(input, 'H', 'magnitude.H', 'H, the absolute magnitude');
     const G = finite(input, 'G', 'magnitude.G', 'G, the slope parameter (typically 0.15)');
-    if (G < -0.5 || G > 1.5) invalid('magnitude.G', 'the slope parameter G is out of range', G, 'G from −0.5 to 1.5 (typically 0.15)');
+    // G weighs the two phase functions, V = H + 5 log10(rΔ) − 2.5 log10((1 − G) Φ1 + G Φ2): only for 0 ≤ G ≤ 1 is the
+    // blend positive at every phase angle (with G = −0.5 it is negative at α = 60° and the magnitude is not a number).
+    if (G < 0 || G > 1) invalid('magnitude.G', 'the slope parameter G is outside the H–G system', G, 'G from 0 to 1 (typically 0.15), the range where (1 − G) Φ1 + G Φ2 stays positive at every phase angle (Bowell et al. 1989)');
     return { model: 'hg', H, G };
   }
   const M1 = finite(input, 'M1', 'magnitude.M1', 'M1, the total absolute magnitude');
@@ -296,7 +300,7 @@ export function validateObject(data: unknown): SmallBodyObject {
 
 /** Parses and validates object-file text; errors carry `file:line:column` and the field. */
 export function parseObject(text: string, file: string): SmallBodyObject {
-  return validateYaml(loadYaml(text, file), validateObject);
+  return { ...validateYaml(loadYaml(text, file), validateObject), file };
 }
 
 /** Reads and validates one object file from disk. */

@@ -14,6 +14,7 @@
  * r = heliocentric distance, Δ = geocentric distance (AU); α = phase angle (degrees).
  */
 import type { MagnitudeEstimate } from '../body.ts';
+import { GloamingError } from '../errors.ts';
 import type { MagnitudeModel } from './elements.ts';
 
 /** Comet total magnitude m = M1 + 5 log10 Δ + K1 log10 r; r and Δ in AU (see the module note). */
@@ -62,10 +63,19 @@ export function hgMagnitude(H: number, G: number, heliocentricDistanceAu: number
 export function expectedMagnitude(
   model: MagnitudeModel,
   geometry: { heliocentricDistanceAu: number; geocentricDistanceAu: number; phaseAngleDeg: number },
+  origin?: { id: string; file?: string },
 ): MagnitudeEstimate {
   const { heliocentricDistanceAu: r, geocentricDistanceAu: delta, phaseAngleDeg } = geometry;
-  if (model.model === 'hg') return { value: hgMagnitude(model.H, model.G, r, delta, phaseAngleDeg) };
-  const value = cometMagnitude(model.M1, model.K1, r, delta);
+  const value = model.model === 'hg' ? hgMagnitude(model.H, model.G, r, delta, phaseAngleDeg) : cometMagnitude(model.M1, model.K1, r, delta);
+  if (!Number.isFinite(value)) {
+    // Never publish a magnitude that is not a number: name the object file so its author can fix it.
+    throw new GloamingError('invalid-value', `the magnitude of '${origin?.id ?? 'the object'}' cannot be computed at r = ${r.toFixed(3)} AU, Δ = ${delta.toFixed(3)} AU, phase angle ${phaseAngleDeg.toFixed(1)}°`, {
+      place: { ...(origin?.file ? { file: origin.file } : {}), field: 'magnitude' },
+      actual: value,
+      expected: 'magnitude parameters that give a finite magnitude (H–G: 0 ≤ G ≤ 1; comets: finite M1 and K1)',
+    });
+  }
+  if (model.model === 'hg') return { value };
   if (model.K1Alternative === undefined && model.uncertaintyMag === undefined) return { value };
   let brightest = value;
   let faintest = value;
