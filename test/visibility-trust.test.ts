@@ -9,6 +9,7 @@ import { describe, expect, it } from 'vitest';
 import { builtInBody } from '../lib/body.ts';
 import { computeNight, type NightReport } from '../lib/night.ts';
 import { defineSite } from '../lib/site.ts';
+import { parseSite } from '../lib/content.ts';
 import { utDays } from '../lib/track.ts';
 import { GloamingError } from '../lib/errors.ts';
 import { OPTICS_SUN_DEPRESSION_DEG, OPTICS_SUN_MINUTES, viewingSpan } from '../lib/visibility.ts';
@@ -286,6 +287,14 @@ describe('the measured cases of issue #11', () => {
     } catch (error) {
       expect(error).toBeInstanceOf(GloamingError);
       expect((error as GloamingError).place?.field).toBe('timeZone');
+    }
+    // In a site file the error carries file, line and column of the timeZone field (lib/yaml.ts).
+    try {
+      parseSite('name: Desert\nlatitude: -23.46\nlongitude: -68.23\ntimeZone: Asia/Tokyo\n', 'content/sites/desert.yaml');
+      expect.unreachable();
+    } catch (error) {
+      expect((error as GloamingError).place).toMatchObject({ file: 'content/sites/desert.yaml', line: 4, column: 11, field: 'timeZone' });
+      expect((error as GloamingError).message.startsWith('content/sites/desert.yaml:4:11')).toBe(true);
     }
     // Western China keeps Beijing time: 2.9 h from its longitude, within the default bound.
     expect(defineSite({ latitude: 39.47, longitude: 75.99, timeZone: 'Asia/Shanghai' }).timeZone).toBe('Asia/Shanghai');

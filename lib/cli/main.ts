@@ -19,7 +19,7 @@ import { nightJson, positionJson, round, weekJson } from './format.ts';
 import { argumentError, fileFlag, joinNegativeNumbers, requireFlag, siteFromFlags } from './args.ts';
 import { EVENTS_HELP, runEvents } from './events.ts';
 import { computeWeek } from '../week.ts';
-import { REASON_TEXT } from '../visibility.ts';
+import { reasonText } from '../visibility.ts';
 import { MISSING_REASON_TEXT, type EventTime } from '../events.ts';
 import { PHASE_LABEL } from '../moon.ts';
 
@@ -175,7 +175,7 @@ function runNight(args: string[], out: (s: string) => void): void {
     const v = b.visibility;
     const seen = v.best
       ? `best ${hhmm(v.best.time, zone)}${v.outsideViewingHours ? ' (outside viewing hours)' : ''}, ${compass(v.best.azimuthDeg).abbreviation} ${Math.round(v.best.altitudeDeg)}° up, ${v.verdict}`
-      : `not visible: ${REASON_TEXT[v.reason!]}`;
+      : `not visible: ${reasonText(v.reason!, site)}`;
     return `${seen}${b.guide && v.best ? `; ${b.guide.phrase}` : ''}`;
   };
   // The Moon has its own line; when it is also asked for as a body, its visibility joins that line.
@@ -210,7 +210,7 @@ function runWeek(args: string[], out: (s: string) => void): void {
   const lines = [`Week ${report.week.id} (${report.week.days[0]} – ${report.week.days[6]}) at ${round(site.latitudeDeg, 4)}°, ${round(site.longitudeDeg, 4)}° (${zone})`];
   for (const b of report.bodies) {
     const best = b.nights.find((n) => n.date === b.bestNight)?.visibility;
-    const when = best?.best ? `best on ${b.bestNight} at ${hhmm(best.best.time, zone)} (${best.verdict})` : `not visible this week: ${REASON_TEXT[b.nights[0]!.visibility.reason ?? 'too-faint']}`;
+    const when = best?.best ? `best on ${b.bestNight} at ${hhmm(best.best.time, zone)} (${best.verdict})` : `not visible this week: ${reasonText(b.nights[0]!.visibility.reason ?? 'too-faint', site)}`;
     lines.push(`${b.body.name}: ${when}${b.changes.length ? `; ${b.changes.join('; ')}` : ''}`);
   }
   out(lines.join('\n'));
