@@ -71,7 +71,8 @@ function drift(values: (number | null)[]): number | null {
   return sxy / sxx;
 }
 
-function interfered(v: Visibility): boolean {
+/** Moonlight interferes with a target: it is washed out by moonlight, or at its best moment moonlight at least doubles the sky brightness at its place (moon ≥ dark-sky part, nL). */
+export function moonInterferes(v: Visibility): boolean {
   if (v.reason === 'moonlight') return true;
   const p = v.best?.skyParts;
   return !!p && p.moonNl >= p.darkNl;
@@ -101,9 +102,9 @@ function summarise(body: Body, nights: NightReport[]): BodyWeek {
   const sentence = (verb: string, d: number): string => `${verb} ${Math.round(Math.abs(d))} minutes ${d < 0 ? 'earlier' : 'later'} each night`;
   if (riseDrift !== null && Math.abs(riseDrift) >= DRIFT_MINUTES) changes.push(sentence('rises', riseDrift));
   else if (setDrift !== null && Math.abs(setDrift) >= DRIFT_MINUTES) changes.push(sentence('sets', setDrift));
-  const moonNights = nights.filter((_, i) => interfered(visibilities[i]!)).map((n) => n.night.date);
+  const moonNights = nights.filter((_, i) => moonInterferes(visibilities[i]!)).map((n) => n.night.date);
   if (body.kind !== 'moon') {
-    const flags = visibilities.map(interfered);
+    const flags = visibilities.map(moonInterferes);
     for (let i = 1; i < flags.length; i++) {
       if (flags[i - 1] && !flags[i]) changes.push(`Moon interference ends on ${weekdayName(nights[i]!.night.date)}`);
       if (!flags[i - 1] && flags[i]) changes.push(`Moon interference begins on ${weekdayName(nights[i]!.night.date)}`);

@@ -45,7 +45,7 @@ function clock(instant: Date, site: Site): string {
 
 describe('every placeholder covered', () => {
   it('each placeholder of the table is exercised by this file', () => {
-    const covered = ['week', 'date', 'sunset', 'sunrise', 'dark', 'dawn', 'rise', 'transit', 'set', 'direction', 'altitude', 'magnitude', 'moon-phase', 'moon-lit', 'moon-and-twilight', 'best-time', 'window', 'verdict', 'targets', 'guide', 'chart', 'events', 'event'];
+    const covered = ['week', 'date', 'sunset', 'sunrise', 'dark', 'dawn', 'rise', 'transit', 'set', 'direction', 'altitude', 'magnitude', 'moon-phase', 'moon-lit', 'moon-and-twilight', 'best-time', 'window', 'verdict', 'targets', 'guide', 'chart', 'events', 'event', 'name'];
     for (const spec of PLACEHOLDERS.values()) expect(covered, spec.name).toContain(spec.name);
   });
 });
@@ -72,8 +72,10 @@ describe.each(SITE_IDS)('site %s', (siteId) => {
           expect(e.attrs.datetime).toBe(formatInstant(event.time, site.timeZone));
           expect(e.text).toBe(clock(event.time, site));
         } else {
+          // No value: the neutral mark, with the honest phrase in its title (and a fallback warning).
           expect(e.attrs.class).toContain('gl-none');
-          expect(e.text.length).toBeGreaterThan(10);
+          expect(e.text).toBe('\u2013');
+          expect(e.attrs.title!.length).toBeGreaterThan(10);
         }
       }
     });
@@ -116,7 +118,8 @@ describe.each(SITE_IDS)('site %s', (siteId) => {
         expect(best.attrs.datetime).toBe(formatInstant(v.best.time, site.timeZone));
         expect(win.text).toBe(`${clock(v.window!.start, site)}\u2013${clock(v.window!.end, site)}`);
       } else {
-        expect(best.text).toMatch(/^not visible this night: /);
+        expect(best.text).toBe('\u2013');
+        expect(best.attrs.title).toMatch(/^Jupiter is not visible this night: /);
       }
     });
 
@@ -194,6 +197,7 @@ describe.each(SITE_IDS)('site %s', (siteId) => {
     it('date, week and targets render', () => {
       expect(element(render(site, week, ':week'), 'week').attrs.datetime).toBe(week.id);
       expect(element(render(site, week, ':date{night=7}'), 'date').attrs.datetime).toBe(week.days[6]);
+      expect(element(render(site, week, ':name{body=moon}'), 'name').text).toBe('the Moon');
       const html = render(site, week, '::targets{night=fri}');
       expect(html).toMatch(/class="gl gl-targets/);
     });

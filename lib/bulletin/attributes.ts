@@ -31,6 +31,8 @@ export interface AttributeSpec {
   /** Default as written in the table; `undefined` with `required` for mandatory attributes. */
   default?: string;
   required?: boolean;
+  /** Supplied by an enclosing section when not written: the body of `:::every-target`, the event of `:::every-event`. */
+  bound?: 'body' | 'event';
 }
 
 /** A local clock time as given in a `moment` attribute. */

@@ -7,7 +7,8 @@
 import { BodyRegistry } from '../body.ts';
 import { defineSite, type Site } from '../site.ts';
 import { isoWeekOf, type IsoWeek } from '../time.ts';
-import { describeType } from './attributes.ts';
+import { describeType, type AttributeSpec } from './attributes.ts';
+import { SECTIONS } from './sections.ts';
 import { PLACEHOLDERS } from './placeholders.ts';
 import { renderBulletinSync } from './render.ts';
 import { WeekCache } from './week.ts';
@@ -48,11 +49,25 @@ export function placeholderTable(): string {
   ];
   for (const spec of PLACEHOLDERS.values()) {
     const written = spec.form === 'block' ? `::${spec.name}` : `:${spec.name}`;
-    const attrs = Object.entries(spec.attributes)
-      .map(([name, a]) => `\`${name}\`${a.required ? ' (required)' : ''}: ${describeType(a.type)}${a.default !== undefined ? ` (default: ${a.default})` : ''}`)
-      .join('; ');
     const output = outputOf(spec.example, cache);
-    lines.push(`| \`${written}\` | ${cell(spec.summary)} | ${cell(attrs || '—')} | \`${cell(spec.example)}\` | ${cell(output)} |`);
+    const summary = spec.slot ? `${spec.summary} — *value slot*: \`–\` when there is no value` : spec.summary;
+    lines.push(`| \`${written}\` | ${cell(summary)} | ${cell(attributeList(spec.attributes) || '—')} | \`${cell(spec.example)}\` | ${cell(output)} |`);
+  }
+  lines.push('', 'Sections are container directives: `:::name{…}` on a line, the block, an optional `::otherwise` line and the alternative, then `:::`.', '');
+  lines.push('| Section | What it does | Attributes | Example |', '| --- | --- | --- | --- |');
+  for (const spec of SECTIONS.values()) {
+    lines.push(`| \`:::${spec.name}\` | ${cell(spec.summary)} | ${cell(attributeList(spec.attributes, { withDoc: true }))} | \`${cell(spec.example)}\` |`);
   }
   return lines.join('\n') + '\n';
+}
+
+/** Attributes as `name (required): type (default: …)`; with `withDoc`, what each means too (for sections, whose attributes are conditions). */
+function attributeList(attributes: Readonly<Record<string, AttributeSpec>>, options: { withDoc?: boolean } = {}): string {
+  return Object.entries(attributes)
+    .map(([name, a]) => {
+      const need = a.required ? (a.bound ? ` (required outside :::every-${a.bound === 'body' ? 'target' : 'event'})` : ' (required)') : '';
+      const doc = options.withDoc ? ` — ${a.doc}` : '';
+      return `\`${name}\`${need}: ${describeType(a.type)}${doc}${a.default !== undefined ? ` (default: ${a.default})` : ''}`;
+    })
+    .join('; ');
 }

@@ -16,6 +16,7 @@ import { PHASE_LABEL } from '../moon.ts';
 import type { Site } from '../site.ts';
 import { addDays, formatInstant, localDateOf, zonedTime } from '../time.ts';
 import type { AttributeSpec, AttributeValue, ClockTime } from './attributes.ts';
+import { FALLBACK_MARK } from './problems.ts';
 import { el, exact, formatClock, formatDay, formatDayRange, formatNumber, type Clock, type TimePrecision } from './format.ts';
 import type { WeekData } from './week.ts';
 import type { ChartOutput } from './types.ts';
@@ -23,6 +24,7 @@ import { ChartCache } from '../chart/cache.ts';
 import { placeholderChart } from '../chart/index.ts';
 import { EVENT_TYPES, pickEvent, type AlmanacEvent, type AlmanacEventType } from '../almanac/index.ts';
 import { reasonText, WINDOW_END_TEXT, type Visibility } from '../visibility.ts';
+import { GloamingError } from '../errors.ts';
 
 /** A target within this angle of the Sun (geocentric, at local midnight of the night) triggers the eye-safety caution. */
 export const NEAR_SUN_DEG = 15;
@@ -43,6 +45,19 @@ export interface PlaceholderCall {
   nearSun(body: Body): void;
   /** Where finder charts go; absent: the default chart output (see `defaultCharts`). */
   charts?: ChartOutput;
+  /** The page's events: the week's, or those around a one-off's date (see `WeekData.eventsBetween`). */
+  events(): AlmanacEvent[];
+  /** How the page's event span is named in sentences: `this week` or `around this date`. */
+  eventSpan: string;
+  /** The event bound by an enclosing `:::every-event` (used by `:event` without a type). */
+  event?: AlmanacEvent;
+  /**
+   * Records that a value placeholder had no value (it prints `FALLBACK_MARK`); `honest` is the
+   * sentence saying why. The plugin turns it into a problem with the place, site and week.
+   */
+  fallback(honest: string): void;
+  /** Table cells: print the honest phrase instead of the mark (a cell has room for it). */
+  honest?: boolean;
 }
 
 export interface PlaceholderSpec {
@@ -54,6 +69,13 @@ export interface PlaceholderSpec {
   attributes: Readonly<Record<string, AttributeSpec>>;
   /** An example as written in a template. */
   example: string;
+  /**
+   * A value slot: it can have no value (a body not visible, an event that does not happen), and
+   * then prints `FALLBACK_MARK` and reports a fallback. Only slots can be tested with `:::provided{has=…}`.
+   */
+  slot?: boolean;
+  /** Extra checks of the attributes against what an enclosing section binds (`bound`). */
+  validate?: (attrs: ReadonlyMap<string, AttributeValue>, bound: Readonly<{ body: boolean; event: boolean }>) => void;
   render: (call: PlaceholderCall) => ElementContent;
 }
 
@@ -71,7 +93,7 @@ export function defaultCharts(): ChartOutput {
 const NIGHT: AttributeSpec = { type: { kind: 'night' }, default: 'Monday, or the one-off date', doc: 'which night of the week' };
 const CLOCK: AttributeSpec = { type: { kind: 'clock' }, default: "the site's locale", doc: '12- or 24-hour clock' };
 const TIME_PRECISION: AttributeSpec = { type: { kind: 'time-precision' }, default: 'minute', doc: 'times are rounded to this' };
-const BODY: AttributeSpec = { type: { kind: 'body' }, required: true, doc: 'the body or object' };
+const BODY: AttributeSpec = { type: { kind: 'body' }, required: true, bound: 'body', doc: 'the body or object' };
 const TWILIGHT: AttributeSpec = { type: { kind: 'choice', values: ['civil', 'nautical', 'astronomical'] }, default: 'astronomical', doc: 'which twilight' };
 const DIGITS = (fallback: number, doc = 'decimals shown'): AttributeSpec => ({ type: { kind: 'integer', min: 0, max: 2 }, default: String(fallback), doc });
 
@@ -111,9 +133,19 @@ function timeElement(call: PlaceholderCall, instant: Date, data: Properties = {}
   );
 }
 
-/** An event that does not happen this night, in honest words. */
+/**
+ * A value slot with no value: the neutral mark `–` (the honest sentence in its title and in the
+ * problem report), or the sentence itself in a table cell. Says why in `data-reason`.
+ */
+function noValue(call: PlaceholderCall, honest: string, data: Properties = {}): ElementContent {
+  if (call.honest) return el('span', { ...classes(call, 'gl-none'), dataNight: nightDate(call), ...data }, honest);
+  call.fallback(honest);
+  return el('span', { ...classes(call, 'gl-none'), dataNight: nightDate(call), title: honest, ...data }, FALLBACK_MARK);
+}
+
+/** An event that does not happen this night. */
 function missingElement(call: PlaceholderCall, reason: MissingReason, phrase: string, data: Properties = {}): ElementContent {
-  return el('span', { ...classes(call, 'gl-none'), dataNight: nightDate(call), dataReason: reason, ...data }, phrase);
+  return noValue(call, phrase, { dataReason: reason, ...data });
 }
 
 function eventElement(call: PlaceholderCall, event: EventTime, phrases: Record<MissingReason, string>, data: Properties = {}): ElementContent {
@@ -211,7 +243,7 @@ function bodyEvent(field: 'rise' | 'transit' | 'set') {
 /** The honest phrase for a body with no best moment this night. */
 function notVisible(call: PlaceholderCall, body: Body, v: Visibility, data: Properties = {}): ElementContent {
   const reason = v.reason ?? 'too-faint';
-  return el('span', { ...classes(call, 'gl-none'), dataNight: nightDate(call), dataBody: body.id, dataVerdict: v.verdict, dataReason: reason, ...data }, `not visible this night: ${reasonText(reason, call.site)}`);
+  return noValue(call, `${body.name} is not visible this night: ${reasonText(reason, call.site)}`, { dataBody: body.id, dataVerdict: v.verdict, dataReason: reason, ...data });
 }
 
 function direction(call: PlaceholderCall): ElementContent {
@@ -301,7 +333,7 @@ function moonAndTwilight(call: PlaceholderCall): ElementContent {
   const head = ['Night', 'Sunset', `End of ${kind} twilight`, `Start of ${kind} twilight`, 'Moonrise', 'Moonset', 'Moon'];
   const rows: ElementContent[] = call.week.nights.map((report, i) => {
     const cell = (child: ElementContent): ElementContent => el('td', {}, [child]);
-    const sub: PlaceholderCall = { ...call, night: i };
+    const sub: PlaceholderCall = { ...call, night: i, honest: true };
     const as = (name: string): PlaceholderCall => ({ ...sub, name });
     const p = report.moon.phase;
     return el('tr', { dataNight: report.night.date }, [
@@ -370,9 +402,7 @@ function verdict(call: PlaceholderCall): ElementContent {
 function guide(call: PlaceholderCall): ElementContent {
   const body = bodyOf(call);
   const g = call.week.bodyNight(call.night, body).guide;
-  if (!g) {
-    return el('span', { ...classes(call, 'gl-none'), dataNight: nightDate(call), dataBody: body.id }, 'below the horizon at that time');
-  }
+  if (!g) return noValue(call, `${body.name} is below the horizon at that time`, { dataBody: body.id });
   return el(
     'span',
     { ...classes(call), dataNight: nightDate(call), dataBody: body.id, dataGuide: g.kind, ...(g.pattern ? { dataPattern: g.pattern.id } : {}), ...(g.separationDeg !== null ? { dataSeparationDeg: exact(g.separationDeg, 2) } : {}), ...(g.offsetDirection ? { dataOffset: g.offsetDirection } : {}), ...(g.nearestStar ? { dataNearestStar: g.nearestStar.name } : {}) },
@@ -415,16 +445,17 @@ function targets(call: PlaceholderCall): ElementContent {
 const DEFINITIONS: PlaceholderSpec[] = [
   { name: 'week', form: 'inline', summary: "the page's week as a date range", attributes: {}, example: ':week', render: weekOf },
   { name: 'date', form: 'inline', summary: 'the date of a night of the week', attributes: { night: NIGHT, style: { type: { kind: 'choice', values: ['long', 'short'] }, default: 'long', doc: 'weekday and month written out or abbreviated' } }, example: ':date{night=fri}', render: dateOf },
-  { name: 'sunset', form: 'inline', summary: 'sunset (upper limb on the horizon, standard refraction)', attributes: TIME_ATTRS, example: ':sunset{night=sat}', render: sunTime('set') },
-  { name: 'sunrise', form: 'inline', summary: 'sunrise the morning after the night', attributes: TIME_ATTRS, example: ':sunrise', render: sunTime('rise') },
-  { name: 'dark', form: 'inline', summary: 'end of evening twilight (Sun 6°, 12° or 18° below the horizon)', attributes: { kind: TWILIGHT, ...TIME_ATTRS }, example: ':dark{kind=nautical}', render: twilight('dusk') },
-  { name: 'dawn', form: 'inline', summary: 'start of morning twilight', attributes: { kind: TWILIGHT, ...TIME_ATTRS }, example: ':dawn', render: twilight('dawn') },
-  { name: 'rise', form: 'inline', summary: 'rise time of a body (or an honest phrase when it does not rise)', attributes: { body: BODY, ...TIME_ATTRS }, example: ':rise{body=jupiter}', render: bodyEvent('rise') },
-  { name: 'transit', form: 'inline', summary: 'time a body crosses the meridian, highest in the sky', attributes: { body: BODY, ...TIME_ATTRS }, example: ':transit{body=saturn}', render: bodyEvent('transit') },
-  { name: 'set', form: 'inline', summary: 'set time of a body', attributes: { body: BODY, ...TIME_ATTRS }, example: ':set{body=moon night=3}', render: bodyEvent('set') },
+  { name: 'sunset', form: 'inline', slot: true, summary: 'sunset (upper limb on the horizon, standard refraction)', attributes: TIME_ATTRS, example: ':sunset{night=sat}', render: sunTime('set') },
+  { name: 'sunrise', form: 'inline', slot: true, summary: 'sunrise the morning after the night', attributes: TIME_ATTRS, example: ':sunrise', render: sunTime('rise') },
+  { name: 'dark', form: 'inline', slot: true, summary: 'end of evening twilight (Sun 6°, 12° or 18° below the horizon)', attributes: { kind: TWILIGHT, ...TIME_ATTRS }, example: ':dark{kind=nautical}', render: twilight('dusk') },
+  { name: 'dawn', form: 'inline', slot: true, summary: 'start of morning twilight', attributes: { kind: TWILIGHT, ...TIME_ATTRS }, example: ':dawn', render: twilight('dawn') },
+  { name: 'rise', form: 'inline', slot: true, summary: 'rise time of a body (or an honest phrase when it does not rise)', attributes: { body: BODY, ...TIME_ATTRS }, example: ':rise{body=jupiter}', render: bodyEvent('rise') },
+  { name: 'transit', form: 'inline', slot: true, summary: 'time a body crosses the meridian, highest in the sky', attributes: { body: BODY, ...TIME_ATTRS }, example: ':transit{body=saturn}', render: bodyEvent('transit') },
+  { name: 'set', form: 'inline', slot: true, summary: 'set time of a body', attributes: { body: BODY, ...TIME_ATTRS }, example: ':set{body=moon night=3}', render: bodyEvent('set') },
   {
     name: 'direction',
     form: 'inline',
+    slot: true,
     summary: 'compass direction of a body at a moment',
     attributes: {
       body: BODY,
@@ -438,6 +469,7 @@ const DEFINITIONS: PlaceholderSpec[] = [
   {
     name: 'altitude',
     form: 'inline',
+    slot: true,
     summary: 'height above the horizon in degrees and fists (apparent, with refraction)',
     attributes: {
       body: BODY,
@@ -452,10 +484,10 @@ const DEFINITIONS: PlaceholderSpec[] = [
   { name: 'moon-phase', form: 'inline', summary: "the Moon's phase at local midnight", attributes: { night: NIGHT }, example: ':moon-phase{night=sun}', render: moonPhase },
   { name: 'moon-lit', form: 'inline', summary: "the lit fraction of the Moon's disc at local midnight, in per cent", attributes: { night: NIGHT, precision: DIGITS(0) }, example: ':moon-lit', render: moonLit },
   { name: 'moon-and-twilight', form: 'block', summary: 'a table of the week: sunset, twilight, moonrise, moonset and phase for each night', attributes: { kind: TWILIGHT, clock: CLOCK, precision: TIME_PRECISION }, example: '::moon-and-twilight', render: moonAndTwilight },
-  { name: 'best-time', form: 'inline', summary: 'best viewing time: largest visibility margin within the viewing hours (lib/visibility.ts)', attributes: { body: BODY, ...TIME_ATTRS }, example: ':best-time{body=jupiter}', render: bestTime },
-  { name: 'window', form: 'inline', summary: 'viewing window: the span around the best time where the body stays visible', attributes: { body: BODY, ...TIME_ATTRS }, example: ':window{body=jupiter}', render: viewingWindow },
+  { name: 'best-time', form: 'inline', slot: true, summary: 'best viewing time: largest visibility margin within the viewing hours (lib/visibility.ts)', attributes: { body: BODY, ...TIME_ATTRS }, example: ':best-time{body=jupiter}', render: bestTime },
+  { name: 'window', form: 'inline', slot: true, summary: 'viewing window: the span around the best time where the body stays visible', attributes: { body: BODY, ...TIME_ATTRS }, example: ':window{body=jupiter}', render: viewingWindow },
   { name: 'verdict', form: 'inline', summary: 'naked eye, binoculars, telescope or not visible, with the reason', attributes: { body: BODY, night: NIGHT }, example: ':verdict{body=saturn}', render: verdict },
-  { name: 'guide', form: 'inline', summary: 'where to look, at the best time (or transit): from a nearby star pattern, a bright star, the Moon or a bright planet, or else the horizon and where the Sun set', attributes: { body: BODY, night: NIGHT }, example: ':guide{body=jupiter}', render: guide },
+  { name: 'guide', form: 'inline', slot: true, summary: 'where to look, at the best time (or transit): from a nearby star pattern, a bright star, the Moon or a bright planet, or else the horizon and where the Sun set', attributes: { body: BODY, night: NIGHT }, example: ':guide{body=jupiter}', render: guide },
   { name: 'targets', form: 'block', summary: 'every naked-eye or binocular target of the night, by best time, with direction, altitude, magnitude and nearby pattern', attributes: { ...TIME_ATTRS }, example: '::targets{night=fri}', render: targets },
   {
     name: 'chart',
@@ -476,15 +508,29 @@ const DEFINITIONS: PlaceholderSpec[] = [
   {
     name: 'event',
     form: 'inline',
-    summary: "one event of the week, found by type (and body): its time, date, separation or sentence; says so when there is none",
+    summary: "one event of the week (or around a one-off's date), found by type (and body), or the event of an enclosing :::every-event: its time, date, separation, sentence or title",
+    slot: true,
     attributes: {
-      type: { type: { kind: 'choice', values: EVENT_TYPES }, required: true, doc: 'the event type' },
+      type: { type: { kind: 'choice', values: EVENT_TYPES }, required: true, bound: 'event', doc: 'the event type' },
       body: { ...BODY, required: false, doc: 'a body the event must involve' },
-      show: { type: { kind: 'choice', values: ['time', 'date', 'separation', 'sentence'] }, default: 'time', doc: 'what to show' },
+      show: { type: { kind: 'choice', values: ['time', 'date', 'separation', 'sentence', 'title'] }, default: 'time', doc: 'what to show' },
       clock: CLOCK,
     },
     example: ':event{type=full-moon show=date}',
     render: oneEvent,
+  },
+  {
+    name: 'name',
+    form: 'inline',
+    summary: 'the name of a body, or of the body or event an enclosing :::every-target or :::every-event is about',
+    attributes: { body: { ...BODY, required: false } },
+    example: ':name{body=moon}',
+    validate: (attrs, bound) => {
+      if (!attrs.has('body') && !bound.body && !bound.event) {
+        throw new GloamingError('invalid-placeholder', "':name' has nothing to name here", { place: { field: 'body' }, hint: 'give body=… or put it inside :::every-target or :::every-event' });
+      }
+    },
+    render: nameOf,
   },
 ];
 
@@ -505,18 +551,18 @@ function eventItem(call: PlaceholderCall, e: AlmanacEvent): ElementContent {
 /** `::events`: the week's events for the site. */
 function weekEvents(call: PlaceholderCall): ElementContent {
   const order = call.attrs.get('order') as 'time' | 'interest';
-  const events = [...call.week.events()];
+  const events = [...call.events()];
   if (order === 'interest') events.sort((a, b) => b.score - a.score || a.time.getTime() - b.time.getTime());
-  if (events.length === 0) return el('p', { ...classes(call, 'gl-none') }, 'No special events this week.');
+  if (events.length === 0) return el('p', { ...classes(call, 'gl-none') }, `No special events ${call.eventSpan}.`);
   return el('ul', { ...classes(call), dataOrder: order }, events.map((e) => eventItem(call, e)));
 }
 
-/** `:event`: one event of the week picked by type (and body). */
+/** `:event`: one event of the page's span picked by type (and body), or the event bound by `:::every-event`. */
 function oneEvent(call: PlaceholderCall): ElementContent {
-  const type = call.attrs.get('type') as AlmanacEventType;
+  const type = call.attrs.get('type') as AlmanacEventType | undefined;
   const body = call.attrs.get('body') as Body | undefined;
-  const e = pickEvent(call.week.events(), { type, ...(body ? { bodies: [body.id] } : {}) });
-  if (!e) return el('span', { ...classes(call, 'gl-none'), dataType: type }, `no ${type.replace(/-/g, ' ')} this week`);
+  const e = type === undefined ? (call.event ?? null) : pickEvent(call.events(), { type, ...(body ? { bodies: [body.id] } : {}) });
+  if (!e) return noValue(call, `no ${(type ?? 'event').replace(/-/g, ' ')}${body ? ` involving ${body.name}` : ''} ${call.eventSpan}`, { dataType: type ?? '' });
   const zone = call.site.timeZone;
   const data = { ...classes(call), dataType: e.type, dataVisible: String(e.visible) };
   switch (call.attrs.get('show')) {
@@ -524,13 +570,23 @@ function oneEvent(call: PlaceholderCall): ElementContent {
       return el('time', { ...data, dateTime: localDateOf(e.time, zone) }, formatDay(localDateOf(e.time, zone), call.site, { weekday: 'long' }));
     case 'separation':
       return e.separationDeg === undefined
-        ? el('span', { ...classes(call, 'gl-none'), dataType: e.type }, 'no separation for this event')
+        ? noValue(call, `no separation for ${e.title}`, { dataType: e.type })
         : el('data', { ...data, value: exact(e.separationDeg, 4) }, `${formatNumber(e.separationDeg, e.separationDeg < 1 ? 1 : 0)}°`);
     case 'sentence':
       return el('span', data, e.description);
+    case 'title':
+      return el('span', data, e.title);
     default:
       return el('time', { ...data, dateTime: formatInstant(e.time, zone) }, formatClock(e.time, call.site, { clock: call.clock, precision: 'minute' }));
   }
+}
+
+/** `:name`: the name of a body, or of the body or event an enclosing section binds. */
+function nameOf(call: PlaceholderCall): ElementContent {
+  const body = call.attrs.get('body') as Body | undefined;
+  if (body) return el('span', { ...classes(call), dataBody: body.id }, body.kind === 'moon' ? 'the Moon' : body.name);
+  const e = call.event!;
+  return el('span', { ...classes(call), dataType: e.type }, e.title);
 }
 
 /** `::chart`: a figure with the finder chart image and a caption, or an honest sentence. */

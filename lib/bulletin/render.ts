@@ -10,7 +10,8 @@ import remarkRehype from 'remark-rehype';
 import { unified } from 'unified';
 import type { Body } from '../body.ts';
 import { GloamingError } from '../errors.ts';
-import { isoWeekOf } from '../time.ts';
+import type { AlmanacEvent } from '../almanac/index.ts';
+import { addDays, isoWeekOf, type IsoWeek } from '../time.ts';
 import { fieldPlace } from './frontmatter.ts';
 import { NEAR_SUN_DEG } from './placeholders.ts';
 import { remarkSafeLinks } from './links.ts';
@@ -55,8 +56,8 @@ function frontMatterBodies(template: BulletinTemplate, context: RenderContext): 
   });
 }
 
-/** Cautions for a page: near-Sun targets (front matter bodies on any night, placeholder bodies on their night) and eclipses. */
-function cautionsFor(template: BulletinTemplate, week: WeekData, listed: Body[], shown: Body[]): string[] {
+/** Cautions for a page: near-Sun targets (front matter bodies on any night, placeholder bodies on their night) and eclipses among the page's events. */
+function cautionsFor(template: BulletinTemplate, week: WeekData, events: AlmanacEvent[], listed: Body[], shown: Body[]): string[] {
   const near = new Map<string, Body>();
   for (const body of listed) {
     if (body.kind === 'sun' || week.nights.some((_, i) => week.elongationDeg(i, body) < NEAR_SUN_DEG)) near.set(body.id, body);
@@ -66,15 +67,32 @@ function cautionsFor(template: BulletinTemplate, week: WeekData, listed: Body[],
   const cautions: string[] = [];
   if (near.size > 0) cautions.push(nearSunCaution(names));
   // Every page of a week with a solar eclipse visible from the site carries the eclipse caution.
-  if (template.frontMatter.eclipse || week.events().some((e) => e.type === 'solar-eclipse' && e.visible)) cautions.push(ECLIPSE_CAUTION);
+  if (template.frontMatter.eclipse || events.some((e) => e.type === 'solar-eclipse' && e.visible)) cautions.push(ECLIPSE_CAUTION);
   return cautions;
+}
+
+/** A one-off bulletin's events are looked up this many nights either side of its date. */
+export const ONE_OFF_EVENT_NIGHTS = 3;
+
+/**
+ * The nights a page is about. A standing bulletin: Monday of its ISO week by default, events of
+ * the week's seven nights. A one-off: its date's night, and events from local noon
+ * `ONE_OFF_EVENT_NIGHTS` evenings before its date to local noon after the evening
+ * `ONE_OFF_EVENT_NIGHTS` after it — so a meteor shower peaking at 10:49 on a Monday morning (which
+ * belongs to Sunday's night, and so to the previous ISO week) is found by a one-off dated Monday.
+ */
+export function pageNights(template: BulletinTemplate, week: IsoWeek): { defaultNight?: string; eventNights?: { first: string; last: string } } {
+  const date = template.frontMatter.date;
+  if (date === undefined || isoWeekOf(date).id !== week.id) return {};
+  return { defaultNight: date, eventNights: { first: addDays(date, -ONE_OFF_EVENT_NIGHTS), last: addDays(date, ONE_OFF_EVENT_NIGHTS) } };
 }
 
 /**
  * Renders `template` for `context.site` and `context.week`. Pass one `WeekCache` to every call of
  * a build so each site-week is computed once. The default night is Monday of the week, or the
- * one-off bulletin's date when it falls in the week. Throws `GloamingError` for any problem in the
- * template (placed at `file:line:column`) and `unsafe-output` if the HTML is not publishable.
+ * one-off bulletin's date (see `pageNights`). Throws `GloamingError` for any problem in the
+ * template (placed at `file:line:column`; several at once as `TemplateErrors`) and `unsafe-output`
+ * if the HTML is not publishable. Problems that depend on the site and week are in `problems`.
  */
 export async function renderBulletin(template: BulletinTemplate, context: RenderContext, cache: WeekCache = new WeekCache()): Promise<RenderedBulletin> {
   return renderBulletinSync(template, context, cache);
@@ -83,7 +101,7 @@ export async function renderBulletin(template: BulletinTemplate, context: Render
 /** The synchronous form of `renderBulletin` (same result). */
 export function renderBulletinSync(template: BulletinTemplate, context: RenderContext, cache: WeekCache = new WeekCache()): RenderedBulletin {
   const listed = frontMatterBodies(template, context);
-  const date = template.frontMatter.date;
+  const nights = pageNights(template, context.week);
   const scope: PlaceholderScope = {
     site: context.site,
     week: context.week,
@@ -92,17 +110,21 @@ export function renderBulletinSync(template: BulletinTemplate, context: RenderCo
     file: template.file,
     lineOffset: template.bodyLine - 1,
     ...(context.charts ? { charts: context.charts } : {}),
-    ...(date !== undefined && isoWeekOf(date).id === context.week.id ? { defaultNight: date } : {}),
+    ...nights,
+    ...(nights.defaultNight ? { weekLabel: nights.defaultNight } : {}),
   };
   const file = processor.processSync({ value: template.body, path: template.file, data: { gloamingScope: scope } });
   const html = String(file);
   assertPublishable(html, template.file);
   const shown = file.data.placeholders?.nearSun ?? [];
   const week = cache.get(context.site, context.week, context.bodies);
+  const days = context.week.days;
+  const events = week.eventsBetween(nights.eventNights?.first ?? days[0]!, nights.eventNights?.last ?? days[6]!);
   return {
     html,
     title: template.frontMatter.title,
     description: template.frontMatter.description ?? '',
-    cautions: cautionsFor(template, week, listed, shown),
+    cautions: cautionsFor(template, week, events, listed, shown),
+    problems: file.data.placeholders?.problems ?? [],
   };
 }

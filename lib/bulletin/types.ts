@@ -7,6 +7,7 @@ import type { BodyRegistry } from '../body.ts';
 import type { ChartCache } from '../chart/cache.ts';
 import type { Site } from '../site.ts';
 import type { IsoWeek } from '../time.ts';
+import type { Problem } from './problems.ts';
 
 /** A bulletin template's front matter, validated (see `parseBulletin`). */
 export interface BulletinFrontMatter {
@@ -17,7 +18,7 @@ export interface BulletinFrontMatter {
   sites: string[] | 'all';
   /** A standing weekly template: one page per site per ISO week in [today − past weeks, today + future weeks]. */
   schedule?: { every: 'week'; past: number; future: number };
-  /** A one-off bulletin: the local date it is about (its page covers that date's ISO week). */
+  /** A one-off bulletin: the local date it is about (computed for that night; events ±3 nights around it; its URL uses the date's ISO week). */
   date?: string;
   /** Bodies the bulletin is about (used for cautions, cards and the default target list). */
   bodies?: string[];
@@ -60,6 +61,8 @@ export interface RenderedBulletin {
   description: string;
   /** Safety cautions the page must show (e.g. near-Sun targets, eclipses), as plain sentences. */
   cautions: string[];
+  /** Warnings for this site and week (value placeholders with no value, empty repeated sections), placed in the template. */
+  problems: Problem[];
 }
 
 /** Where finder charts are kept and how pages link to them. */

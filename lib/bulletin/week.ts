@@ -8,10 +8,10 @@
 import * as Astronomy from 'astronomy-engine';
 import { BodyRegistry, builtInBody, type Body } from '../body.ts';
 import { computeNight, localMidnight, nightMagnitude, type BodyNight, type NightReport } from '../night.ts';
-import { eventsOfWeek, type AlmanacEvent } from '../almanac/index.ts';
+import { findEvents, type AlmanacEvent } from '../almanac/index.ts';
 import { observe, type Observation } from '../observe.ts';
 import type { Site } from '../site.ts';
-import type { IsoWeek } from '../time.ts';
+import { nightOf, type IsoWeek } from '../time.ts';
 
 /** One body over the week: its expected magnitude at local midnight of each night. */
 export interface WeekMagnitudes {
@@ -33,7 +33,7 @@ export class WeekData {
   readonly #observations = new Map<string, Observation>();
   readonly #magnitudes = new Map<string, WeekMagnitudes>();
   readonly #elongations = new Map<string, number>();
-  #events: AlmanacEvent[] | undefined;
+  readonly #events = new Map<string, AlmanacEvent[]>();
 
   constructor(site: Site, week: IsoWeek, bodies: BodyRegistry = new BodyRegistry()) {
     this.site = site;
@@ -52,10 +52,25 @@ export class WeekData {
     return this.nights[index]!.body(body);
   }
 
-  /** The week's events for the site (lib/almanac: the seven nights, Monday noon to the next Monday noon), in time order, computed once on the week's own night frames. */
+  /** The week's events for the site (lib/almanac: the seven nights, Monday noon to the next Monday noon), in time order. */
   events(): AlmanacEvent[] {
-    this.#events ??= eventsOfWeek({ site: this.site, date: this.week.days[0]!, bodies: this.bodies, frames: this.nights.map((n) => n.frame) });
-    return this.#events;
+    return this.eventsBetween(this.week.days[0]!, this.week.days[6]!);
+  }
+
+  /**
+   * The site's events from local noon of `firstNight` to local noon after `lastNight` (local dates
+   * of evenings), in time order, computed once per span on the week's own night frames where they
+   * overlap. A one-off bulletin asks for the nights around its date.
+   */
+  eventsBetween(firstNight: string, lastNight: string): AlmanacEvent[] {
+    const key = `${firstNight}/${lastNight}`;
+    let events = this.#events.get(key);
+    if (!events) {
+      const zone = this.site.timeZone;
+      events = findEvents({ site: this.site, from: nightOf(firstNight, zone).start, to: nightOf(lastNight, zone).end, bodies: this.bodies, frames: this.nights.map((n) => n.frame) });
+      this.#events.set(key, events);
+    }
+    return events;
   }
 
   /** Exact position of `body` at `instant` from the site (`observe`), memoised per instant. */
