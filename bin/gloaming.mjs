@@ -11,4 +11,6 @@ if (major < 22 || (major === 22 && minor < 18)) {
   process.exit(1);
 }
 const { main } = await import('../lib/cli/main.ts');
-process.exitCode = main(process.argv.slice(2));
+// The edge of the command line reads the clock (for `check`'s default span); lib/ never does.
+const today = process.env.GLOAMING_TODAY || new Date().toISOString().slice(0, 10);
+process.exitCode = main(process.argv.slice(2), console.log, console.error, { today });

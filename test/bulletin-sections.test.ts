@@ -180,7 +180,7 @@ describe('value slots with no value', () => {
     const r = render(outpost, june, 'Neptune is :verdict{body=neptune}.\nLook at :best-time{body=neptune}, :guide{body=neptune}.');
     expect(text(r.html)).toMatch(new RegExp(`^Neptune is not visible this night: [a-z ]+\\. Look at ${FALLBACK_MARK}, `));
     const messages = r.problems.map(formatProblem);
-    expect(messages[0]).toMatch(/^content\/bulletins\/t\.md:7:9: warning: ':best-time\{body=neptune\}' has no value on Monday 22 June \(Neptune is not visible this night: .+\), so it prints '–' — put it inside :::provided\{seen=either …\} with ::otherwise, or use :verdict for the honest sentence \(site northern-outpost, week 2026-W26\)$/);
+    expect(messages[0]).toMatch(/^content\/bulletins\/t\.md:7:9: warning: ':best-time\{body=neptune\}' has no value on Monday 22 June \(Neptune is not visible this night: .+\), so it prints '–' — put it inside :::provided\{seen=either body=neptune\} with ::otherwise, or use :verdict for the honest sentence \(site northern-outpost, week 2026-W26\)$/);
     expect(r.problems.every((p) => p.kind === 'fallback' && p.severity === 'warning')).toBe(true);
   });
 

@@ -53,9 +53,10 @@ export interface PlaceholderCall {
   event?: AlmanacEvent;
   /**
    * Records that a value placeholder had no value (it prints `FALLBACK_MARK`); `honest` is the
-   * sentence saying why. The plugin turns it into a problem with the place, site and week.
+   * sentence saying why, `guard` the `:::provided` condition that would have guarded it (default
+   * `has=<name> …`). The plugin turns it into a problem with the place, site and week.
    */
-  fallback(honest: string): void;
+  fallback(honest: string, guard?: string): void;
   /** Table cells: print the honest phrase instead of the mark (a cell has room for it). */
   honest?: boolean;
 }
@@ -137,9 +138,9 @@ function timeElement(call: PlaceholderCall, instant: Date, data: Properties = {}
  * A value slot with no value: the neutral mark `–` (the honest sentence in its title and in the
  * problem report), or the sentence itself in a table cell. Says why in `data-reason`.
  */
-function noValue(call: PlaceholderCall, honest: string, data: Properties = {}): ElementContent {
+function noValue(call: PlaceholderCall, honest: string, data: Properties = {}, guard?: string): ElementContent {
   if (call.honest) return el('span', { ...classes(call, 'gl-none'), dataNight: nightDate(call), ...data }, honest);
-  call.fallback(honest);
+  call.fallback(honest, guard);
   return el('span', { ...classes(call, 'gl-none'), dataNight: nightDate(call), title: honest, ...data }, FALLBACK_MARK);
 }
 
@@ -243,7 +244,7 @@ function bodyEvent(field: 'rise' | 'transit' | 'set') {
 /** The honest phrase for a body with no best moment this night. */
 function notVisible(call: PlaceholderCall, body: Body, v: Visibility, data: Properties = {}): ElementContent {
   const reason = v.reason ?? 'too-faint';
-  return noValue(call, `${body.name} is not visible this night: ${reasonText(reason, call.site)}`, { dataBody: body.id, dataVerdict: v.verdict, dataReason: reason, ...data });
+  return noValue(call, `${body.name} is not visible this night: ${reasonText(reason, call.site)}`, { dataBody: body.id, dataVerdict: v.verdict, dataReason: reason, ...data }, `seen=either body=${body.id}`);
 }
 
 function direction(call: PlaceholderCall): ElementContent {
@@ -562,7 +563,7 @@ function oneEvent(call: PlaceholderCall): ElementContent {
   const type = call.attrs.get('type') as AlmanacEventType | undefined;
   const body = call.attrs.get('body') as Body | undefined;
   const e = type === undefined ? (call.event ?? null) : pickEvent(call.events(), { type, ...(body ? { bodies: [body.id] } : {}) });
-  if (!e) return noValue(call, `no ${(type ?? 'event').replace(/-/g, ' ')}${body ? ` involving ${body.name}` : ''} ${call.eventSpan}`, { dataType: type ?? '' });
+  if (!e) return noValue(call, `no ${(type ?? 'event').replace(/-/g, ' ')}${body ? ` involving ${body.name}` : ''} ${call.eventSpan}`, { dataType: type ?? '' }, `event=${type ?? '…'}${body ? ` body=${body.id}` : ''}`);
   const zone = call.site.timeZone;
   const data = { ...classes(call), dataType: e.type, dataVisible: String(e.visible) };
   switch (call.attrs.get('show')) {

@@ -515,8 +515,8 @@ class Pass {
     const c = checkPlaceholder(node, this.read, this.defaults(binding), { body: !!binding.body, event: !!binding.event });
     const call = this.call(c.spec, c.attrs, c.given, binding, {
       nearSun: (body) => this.nearSun.set(body.id, body),
-      fallback: (honest) => {
-        const guard = c.spec.name === 'event' ? `:::provided{event=…}` : c.attrs.has('body') && ['best-time', 'window', 'guide'].includes(c.spec.name) ? ':::provided{seen=either …}' : `:::provided{has=${c.spec.name} …}`;
+      fallback: (honest, condition) => {
+        const guard = `:::provided{${condition ?? `has=${c.spec.name} …`}}`;
         const date = formatDay(this.scope.week.days[call.night]!, this.scope.site, { weekday: 'long' });
         this.warn('fallback', node, `'${asWritten(node)}' has no value on ${date} (${honest}), so it prints '–' — put it inside ${guard} with ::otherwise, or use :verdict for the honest sentence`);
       },

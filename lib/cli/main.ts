@@ -18,6 +18,7 @@ import { formatClock, parseInstant, parseLocalDate } from '../time.ts';
 import { nightJson, positionJson, round, weekJson } from './format.ts';
 import { argumentError, fileFlag, joinNegativeNumbers, requireFlag, siteFromFlags } from './args.ts';
 import { EVENTS_HELP, runEvents } from './events.ts';
+import { CHECK_HELP, runCheck } from './check.ts';
 import { computeWeek } from '../week.ts';
 import { reasonText } from '../visibility.ts';
 import { MISSING_REASON_TEXT, type EventTime } from '../events.ts';
@@ -53,6 +54,7 @@ const COMMON = {
 
 const HELP: Record<string, string> = {
   events: EVENTS_HELP,
+  check: CHECK_HELP,
   main: `gloaming — computed night-sky bulletins
 
 Usage: gloaming <command> [options]
@@ -62,6 +64,7 @@ Commands:
   night      the night that begins on a local evening: twilight, the Moon, rise/transit/set, best time and verdict
   week       the seven nights of the ISO week containing a date: best night and the week's changes per body
   events     the sky's events for a site and date range (Moon phases, close approaches, showers, eclipses …); --ics for a calendar
+  check      render every bulletin template for every site and week of a span and list every problem with its place
 
 Run 'gloaming <command> --help' for the options of a command.`,
   position: `gloaming position — where a body is at one instant
@@ -216,11 +219,18 @@ function runWeek(args: string[], out: (s: string) => void): void {
   out(lines.join('\n'));
 }
 
-const COMMANDS: Record<string, (args: string[], out: (s: string) => void) => void> = {
+/** What the command line's edge (bin/gloaming.mjs) passes in: the date, read from the clock there and nowhere in lib/. */
+export interface CliContext {
+  today?: string;
+}
+
+/** A command prints through `out` and returns its exit code (nothing means 0). */
+const COMMANDS: Record<string, (args: string[], out: (s: string) => void, context: CliContext) => void | number> = {
   position: runPosition,
   night: runNight,
   week: runWeek,
   events: runEvents,
+  check: runCheck,
 };
 
 /**
@@ -239,9 +249,10 @@ function parseArgsLine(error: Error, command: string): string {
 /**
  * Runs the command line; returns the exit code. One convention for the command line and the
  * build (docs/deploy.md): 0 success, 2 a problem with the input (arguments, content files; the
- * message says what and where), 1 an unexpected failure (a bug: the message carries the stack).
+ * message says what and where), 1 an unexpected failure (a bug: the message carries the stack) —
+ * and for `check`, 1 also when it found problems in the templates.
  */
-export function main(argv: string[], out: (s: string) => void = console.log, err: (s: string) => void = console.error): number {
+export function main(argv: string[], out: (s: string) => void = console.log, err: (s: string) => void = console.error, context: CliContext = {}): number {
   const [command, ...rest] = argv;
   if (!command || command === '--help' || command === '-h' || command === 'help') {
     out(HELP.main!);
@@ -253,8 +264,7 @@ export function main(argv: string[], out: (s: string) => void = console.log, err
     return EXIT_CODES.input;
   }
   try {
-    run(joinNegativeNumbers(rest), out);
-    return EXIT_CODES.ok;
+    return run(joinNegativeNumbers(rest), out, context) ?? EXIT_CODES.ok;
   } catch (error) {
     if (error instanceof GloamingError) {
       const field = error.place?.field;
@@ -272,5 +282,5 @@ export function main(argv: string[], out: (s: string) => void = console.log, err
 }
 
 if (import.meta.main) {
-  process.exitCode = main(process.argv.slice(2));
+  process.exitCode = main(process.argv.slice(2), console.log, console.error, { ...(process.env.GLOAMING_TODAY ? { today: process.env.GLOAMING_TODAY } : {}) });
 }
