@@ -3,8 +3,11 @@
  *
  * 1. Reads the build date (`--today`, else `GLOAMING_TODAY`, else today's date in UTC — the only
  *    place in gloaming that reads the clock) and the site subset (`--sites`, else `GLOAMING_SITES`).
- * 2. Loads and validates every input up front, so a bad file stops the build with
- *    `file:line:column` before Astro starts.
+ * 2. Loads and validates every input up front, then renders every page it will publish through
+ *    the same checks as `gloaming check` (`checkPages`): every error of every template is listed
+ *    with `file:line:column` before Astro starts; warnings (a value placeholder with no value, a
+ *    repeated section with nothing to repeat, a page over the budget) are printed with their site
+ *    and week, and stop the build only with `--strict`.
  * 3. Takes the build lock (builds sharing this checkout or cache take turns) and removes work
  *    folders that killed builds left behind.
  * 4. Builds with Astro into a work folder beside the output folder (`.tmp-<out>-<pid>`).
@@ -25,7 +28,8 @@ import { cp, mkdir, readdir, readFile, rm, writeFile } from 'node:fs/promises';
 import { dirname, join, relative, resolve, sep } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { parseArgs } from 'node:util';
-import { assertPublishable } from '../lib/bulletin/index.ts';
+import { ProblemList, assertPublishable, checkPages, errorsOf, formatProblem } from '../lib/bulletin/index.ts';
+import { ChartCache } from '../lib/chart/cache.ts';
 import { ERROR_CODES, EXIT_CODES, GloamingError, type ErrorCode, type Place } from '../lib/errors.ts';
 import { parseLocalDate } from '../lib/time.ts';
 import { chartCacheDir, parseSiteList } from '../site/gloaming/options.ts';
@@ -46,7 +50,7 @@ export interface BuildOptions {
   content: string;
   /** Astro's log level; default 'warn'. */
   logLevel: 'debug' | 'info' | 'warn' | 'error' | 'silent';
-  /** Treat warnings (a page over the 40 KB budget) as errors. */
+  /** Warnings (a value placeholder without a value, an empty repeated section, a page over the 40 KB budget) stop the build too (`--strict`). */
   strict?: boolean;
 }
 
@@ -57,8 +61,32 @@ export interface BuildResult {
   /** Wall time of the Astro build, milliseconds. */
   astroMs: number;
   totalMs: number;
-  /** Problems that do not stop the build (without `--strict`), one sentence each. */
-  warnings: string[];
+  /** The warnings found (errors stop the build). Later checks of the output add theirs here. */
+  problems: ProblemList;
+}
+
+/**
+ * The build stopped because of problems in its input or output: every problem found (up to the
+ * list's limit), printed one a line by `report`. The previous output is untouched.
+ */
+export class BuildProblems extends GloamingError {
+  readonly problems: ProblemList;
+
+  constructor(problems: ProblemList, strict: boolean) {
+    const errors = problems.errors.length;
+    const warnings = problems.warnings.length;
+    const why = errors > 0 ? `${errors} error(s)` : `${warnings} warning(s) with --strict`;
+    super(problems.errors[0]?.code ?? 'invalid-value', `the build stopped: ${why}; the previous output is unchanged`, {
+      ...(problems.items[0] ? { place: problems.items[0].place } : {}),
+    });
+    Object.defineProperty(this, 'message', { value: [...problems.items.map(formatProblem), `${why}${problems.dropped ? ` (and ${problems.dropped} more not listed)` : ''}: the build stopped${strict && errors === 0 ? ' (--strict)' : ''}; the previous output is unchanged`].join('\n') });
+    this.problems = problems;
+  }
+}
+
+/** Stops the build when `problems` has errors, or any warning with `strict`. */
+export function stopOnProblems(problems: ProblemList, strict: boolean): void {
+  if (problems.errors.length > 0 || (strict && problems.items.length > 0)) throw new BuildProblems(problems, strict);
 }
 
 /** Today's date in UTC, YYYY-MM-DD. The one reading of the clock in gloaming. */
@@ -206,6 +234,12 @@ export async function buildSite(options: BuildOptions): Promise<BuildResult> {
   const t0 = performance.now();
   // Validate every input before starting Astro: a bad file is reported with its place, fast.
   const project = loadProject(ROOT, { today: options.today, only: options.sites, content: options.content });
+  // Render every page through the checks first: all template errors at once, warnings per site and week.
+  // Charts go into the build's chart cache with the loader's code version, so Astro finds them there.
+  const problems = new ProblemList();
+  const charts = { cache: new ChartCache({ dir: chartCacheDir(process.env, ROOT), codeVersion: project.codeDigest }), url: (file: string) => `/charts/${file}` };
+  checkPages(project.pages, { bodies: project.bodies, charts, problems });
+  stopOnProblems(problems, options.strict ?? false);
 
   process.env.GLOAMING_TODAY = options.today;
   if (options.sites) process.env.GLOAMING_SITES = options.sites.join(',');
@@ -231,9 +265,12 @@ export async function buildSite(options: BuildOptions): Promise<BuildResult> {
     await build({ root: ROOT, outDir: tmp, logLevel: options.logLevel, mode: 'production' });
     const astroMs = performance.now() - t1;
     await copyLinkedCharts(tmp, process.env.GLOAMING_CHART_CACHE);
-    const { files, warnings } = await checkOutput(tmp, { pages: options.sites === null, strict: options.strict ?? false });
+    // The output's own checks (the page budget) add their warnings to the same list; --strict decides once, here.
+    const { files, warnings } = await checkOutput(tmp, { pages: options.sites === null });
+    for (const w of warnings) problems.add({ kind: 'page-size', severity: 'warning', message: w, place: {} });
+    stopOnProblems(problems, options.strict ?? false);
     await swapInto(tmp, options.out);
-    return { out: options.out, files, astroMs, totalMs: performance.now() - t0, warnings };
+    return { out: options.out, files, astroMs, totalMs: performance.now() - t0, problems };
   } catch (error) {
     await rm(tmp, { recursive: true, force: true });
     throw asGloamingError(error) ?? error;
@@ -290,9 +327,13 @@ export async function mergeShards(shards: string[], out: string): Promise<{ file
  * convention as the command line): input problems without a stack (2), anything else with it (1).
  */
 export function report(error: unknown, print: (line: string) => void = console.error): number {
+  if (error instanceof BuildProblems) {
+    for (const line of error.message.split('\n')) print(line);
+    return EXIT_CODES.input;
+  }
   const known = asGloamingError(error);
   if (known) {
-    print(`error: ${known.message}`);
+    for (const e of errorsOf(known)) print(`error: ${e.message}`);
     return EXIT_CODES.input;
   }
   print('error: the build failed unexpectedly; the previous output is unchanged.');
@@ -309,10 +350,11 @@ async function main(): Promise<number> {
       return EXIT_CODES.ok;
     }
     const result = await buildSite(options);
-    for (const w of result.warnings) console.error(`warning: ${w}`);
+    for (const p of result.problems.items) console.error(formatProblem(p));
     const where = relative(process.cwd(), result.out) || '.';
     const which = options.sites ? options.sites.join(', ') : 'all sites';
-    console.log(`built ${which} for ${options.today}: ${result.files} files in ${where} (${(result.totalMs / 1000).toFixed(1)} s)`);
+    const warnings = result.problems.items.length + result.problems.dropped;
+    console.log(`built ${which} for ${options.today}: ${result.files} files in ${where} (${(result.totalMs / 1000).toFixed(1)} s)${warnings ? `, ${warnings} warning(s) above` : ''}`);
     return EXIT_CODES.ok;
   } catch (error) {
     return report(error);

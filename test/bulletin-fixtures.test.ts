@@ -12,7 +12,7 @@ import { BodyRegistry } from '../lib/body.ts';
 import { loadSites, parseSite } from '../lib/content.ts';
 import { GloamingError } from '../lib/errors.ts';
 import { isoWeekOf } from '../lib/time.ts';
-import { ECLIPSE_CAUTION, WeekCache, assertPublishable, pagesFor, parseBulletin, placeholderTable, renderBulletin } from '../lib/bulletin/index.ts';
+import { ECLIPSE_CAUTION, WeekCache, assertPublishable, formatProblem, pagesFor, parseBulletin, placeholderTable, renderBulletin } from '../lib/bulletin/index.ts';
 
 const ROOT = 'test/fixtures';
 const UPDATE = process.env.UPDATE_FIXTURES === '1';
@@ -26,7 +26,7 @@ async function renderCase(name: string, cache = new WeekCache()): Promise<{ html
   const pages = pagesFor([template], { sites: new Map([[site.id, site]]), today });
   const page = pages.find((p) => p.week.id === isoWeekOf(today).id) ?? pages[0]!;
   const r = await renderBulletin(template, { site, week: page.week, bodies: new BodyRegistry() }, cache);
-  return { html: r.html + '\n', meta: { path: page.path, pages: pages.map((p) => p.path), title: r.title, description: r.description, cautions: r.cautions } };
+  return { html: r.html + '\n', meta: { path: page.path, pages: pages.map((p) => p.path), title: r.title, description: r.description, cautions: r.cautions, problems: r.problems.map(formatProblem) } };
 }
 
 describe.each(CASES)('fixture %s', (name) => {

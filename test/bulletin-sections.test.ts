@@ -146,7 +146,7 @@ describe(':::every-target and :::every-event', () => {
     const bare = render(outpost, june, 'Comets:\n\n:::every-target{kind=comet}\n- :name\n:::');
     expect(text(bare.html)).toBe('Comets:');
     expect(bare.problems.map(formatProblem)).toEqual([
-      `${FILE}:8:1: warning: ':::every-target{kind=comet}' has nothing to repeat on Monday 22 June and no ::otherwise, so it prints nothing — add ::otherwise with a sentence for such nights (site northern-outpost, week 2026-W26)`,
+      `warning: ${FILE}:8:1: ':::every-target{kind=comet}' has nothing to repeat on Monday 22 June and no ::otherwise, so it prints nothing — add ::otherwise with a sentence for such nights (site northern-outpost, week 2026-W26)`,
     ]);
   });
 
@@ -180,7 +180,7 @@ describe('value slots with no value', () => {
     const r = render(outpost, june, 'Neptune is :verdict{body=neptune}.\nLook at :best-time{body=neptune}, :guide{body=neptune}.');
     expect(text(r.html)).toMatch(new RegExp(`^Neptune is not visible this night: [a-z ]+\\. Look at ${FALLBACK_MARK}, `));
     const messages = r.problems.map(formatProblem);
-    expect(messages[0]).toMatch(/^content\/bulletins\/t\.md:7:9: warning: ':best-time\{body=neptune\}' has no value on Monday 22 June \(Neptune is not visible this night: .+\), so it prints '–' — put it inside :::provided\{seen=either body=neptune\} with ::otherwise, or use :verdict for the honest sentence \(site northern-outpost, week 2026-W26\)$/);
+    expect(messages[0]).toMatch(/^warning: content\/bulletins\/t\.md:7:9: ':best-time\{body=neptune\}' has no value on Monday 22 June \(Neptune is not visible this night: .+\), so it prints '–' — put it inside :::provided\{seen=either body=neptune\} with ::otherwise, or use :verdict for the honest sentence \(site northern-outpost, week 2026-W26\)$/);
     expect(r.problems.every((p) => p.kind === 'fallback' && p.severity === 'warning')).toBe(true);
   });
 

@@ -96,3 +96,19 @@ describe('README placeholder table', () => {
     expect(block).toBe(generated);
   });
 });
+
+describe('README: writing a template that lasts', () => {
+  it('the worked example renders for every demo site and every week of a year without a problem', async () => {
+    const { BodyRegistry } = await import('../lib/body.ts');
+    const { loadSites } = await import('../lib/content.ts');
+    const { checkPages, formatProblem, parseBulletin, ProblemList, WeekCache } = await import('../lib/bulletin/index.ts');
+    const { addDays, isoWeekOf } = await import('../lib/time.ts');
+    const example = /\*\*A worked example\.\*\*[^\n]*\n\n```markdown\n([\s\S]*?)```/.exec(readme)?.[1];
+    expect(example, 'README has the worked example').toBeDefined();
+    const template = parseBulletin(`---\ntitle: Example\nsites: all\nschedule: { every: week }\n---\n${example}`, 'readme-example.md');
+    const sites = [...loadSites('content/sites').values()];
+    const pages = sites.flatMap((site) => Array.from({ length: 52 }, (_, k) => ({ template, site, week: isoWeekOf(addDays('2027-01-04', 7 * k)) })));
+    const problems = checkPages(pages, { bodies: new BodyRegistry(), problems: new ProblemList(), cache: new WeekCache() });
+    expect(problems.items.map(formatProblem)).toEqual([]);
+  }, 240_000);
+});

@@ -247,13 +247,43 @@ describe('site build', () => {
     const text = readFileSync(file, 'utf8');
     writeFileSync(file, `${text}\nLook for :best-time{body=jupyter} tonight.\n`);
     const line = text.split('\n').length + 1;
+    // A second mistake in another template: both are reported by the same run.
+    const other = join(bad, 'bulletins/comet-lumen.md');
+    const otherText = readFileSync(other, 'utf8');
+    writeFileSync(other, `${otherText}\nSunset :sunsett.\n`);
     const r = build(['--today', TODAY, '--out', join(work, 'a'), '--content', bad]);
     expect(r.status).toBe(2);
     expect(r.stderr).toContain(`bulletins/weekly.md:${line}:`);
     expect(r.stderr).toContain("did you mean 'jupiter'?");
+    expect(r.stderr).toContain(`bulletins/comet-lumen.md:${otherText.split('\n').length + 1}:8: unknown placeholder ':sunsett'`);
     expect(r.stderr).not.toMatch(/\n\s+at /);
     expect(treeDigest(join(work, 'a'))).toEqual(before);
   }, 120_000);
+
+  it('with --strict, a value placeholder without a value stops the build with its place, site and week', () => {
+    const before = treeDigest(join(work, 'a'));
+    const bad = join(work, 'strict-template');
+    cpSync(join(ROOT, 'content'), bad, { recursive: true });
+    const file = join(bad, 'bulletins/weekly.md');
+    const text = readFileSync(file, 'utf8');
+    // No solar eclipse falls in the build's weeks (2026-W41 to 2026-W53; NASA's five-millennium canon lists none between 12 Aug 2026 and 6 Feb 2027).
+    writeFileSync(file, `${text}\nThe eclipse starts at :event{type=solar-eclipse}.\n`);
+    const line = text.split('\n').length + 1;
+    const r = build(['--today', TODAY, '--out', join(work, 'a'), '--content', bad, '--strict']);
+    expect(r.status).toBe(2);
+    expect(r.stderr).toContain(`warning: ${join(bad, 'bulletins/weekly.md').replace(ROOT + '/', '')}:${line}:23: ':event{type=solar-eclipse}' has no value`);
+    expect(r.stderr).toMatch(/\(site harbour-roof, week 2026-W49\)/);
+    expect(r.stderr.trim().split('\n').at(-1)).toMatch(/warning\(s\) with --strict.*the build stopped \(--strict\); the previous output is unchanged$/);
+    expect(treeDigest(join(work, 'a'))).toEqual(before);
+  }, 120_000);
+
+  it('a one-off bulletin shows its date, not a week range, on its page, card text and archive', () => {
+    const html = readFileSync(join(work, 'a/harbour-roof/2027-W02/comet-lumen/index.html'), 'utf8');
+    expect(html).toMatch(/<p class="kicker">Wednesday 13 January 2027<\/p>/);
+    expect(html).toContain('<title>Comet Lumen at its best · Harbour Roof Terrace · Wednesday 13 January 2027</title>');
+    const archive = readFileSync(join(work, 'a/harbour-roof/archive/index.html'), 'utf8');
+    expect(archive).toMatch(/href="\/harbour-roof\/2027-W02\/comet-lumen\/"><strong>Wednesday 13 January 2027<\/strong>/);
+  });
 
   it('a build date across the year boundary rolls the weeks into the next ISO year', () => {
     // 2027-01-01 is a Friday in ISO week 2026-W53 (ISO 8601: the week belongs to the year of its Thursday, 2026-12-31).

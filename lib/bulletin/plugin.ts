@@ -487,8 +487,8 @@ class Pass {
     }
     if (decision.items.length === 0) {
       if (c.otherwise) return renderBlock(c.otherwise, binding);
-      const date = this.scope.week.days[night]!;
-      this.warn('empty-section', node, `'${asWritten(node)}' has nothing to repeat on ${formatDay(date, this.scope.site, { weekday: 'long' })} and no ::otherwise, so it prints nothing — add ::otherwise with a sentence for such nights`);
+      const when = spec.binds === 'event' ? this.eventSpan : `on ${formatDay(this.scope.week.days[night]!, this.scope.site, { weekday: 'long' })}`;
+      this.warn('empty-section', node, `'${asWritten(node)}' has nothing to repeat ${when} and no ::otherwise, so it prints nothing — add ::otherwise with a sentence for such ${spec.binds === 'event' ? 'weeks' : 'nights'}`);
       return [];
     }
     return joinLists(decision.items.map((item) => renderBlock(c.body, { ...binding, ...item, night: item.night ?? night })));
@@ -516,7 +516,8 @@ class Pass {
     const call = this.call(c.spec, c.attrs, c.given, binding, {
       nearSun: (body) => this.nearSun.set(body.id, body),
       fallback: (honest, condition) => {
-        const guard = `:::provided{${condition ?? `has=${c.spec.name} …`}}`;
+        const written = Object.entries(node.attributes ?? {}).map(([k, v]) => ` ${k}=${v ?? ''}`).join('');
+        const guard = `:::provided{${condition ?? `has=${c.spec.name}${written}`}}`;
         const date = formatDay(this.scope.week.days[call.night]!, this.scope.site, { weekday: 'long' });
         this.warn('fallback', node, `'${asWritten(node)}' has no value on ${date} (${honest}), so it prints '–' — put it inside ${guard} with ::otherwise, or use :verdict for the honest sentence`);
       },

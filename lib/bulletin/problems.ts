@@ -29,11 +29,11 @@ export const FALLBACK_MARK = '\u2013';
 /** How many problems a run collects before it stops looking (the rest are counted, not listed). */
 export const PROBLEM_LIMIT = 200;
 
-/** One line, the way compilers print: `file:line:column: warning: message (site x, week y)`. */
+/** One line, as the build prints its errors: `warning: file:line:column: message (site x, week y)`. */
 export function formatProblem(p: Problem): string {
   const where = formatPlace(p.place);
   const context = [p.site && `site ${p.site}`, p.week && `week ${p.week}`].filter(Boolean).join(', ');
-  return `${where ? `${where}: ` : ''}${p.severity}: ${p.message}${context ? ` (${context})` : ''}`;
+  return `${p.severity}: ${where ? `${where}: ` : ''}${p.message}${context ? ` (${context})` : ''}`;
 }
 
 /** An error as a problem. */

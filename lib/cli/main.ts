@@ -226,10 +226,11 @@ export interface CliContext {
 
 /** A command prints through `out` and returns its exit code (nothing means 0). */
 const COMMANDS: Record<string, (args: string[], out: (s: string) => void, context: CliContext) => void | number> = {
-  position: runPosition,
-  night: runNight,
-  week: runWeek,
-  events: runEvents,
+  // These print and return nothing (some end with `return out(…)`, whose value is not a code).
+  position: (args, out) => void runPosition(args, out),
+  night: (args, out) => void runNight(args, out),
+  week: (args, out) => void runWeek(args, out),
+  events: (args, out) => void runEvents(args, out),
   check: runCheck,
 };
 

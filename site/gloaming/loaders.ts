@@ -16,7 +16,7 @@ import { entryDigest } from './digest.ts';
 import { nextNights, type NightRow } from './nights.ts';
 import { optionsFromEnv } from './options.ts';
 import { loadProject, type Project, type SiteSource } from './project.ts';
-import { skyLabel, weekLabel } from './words.ts';
+import { dateLabel, skyLabel, weekLabel } from './words.ts';
 
 /** How many nights the per-site home page shows, starting with the build date's evening. */
 export const NIGHTS_SHOWN = 5;
@@ -57,6 +57,8 @@ export interface PageEntry {
   slug: string;
   /** A one-off bulletin (dated) rather than a standing weekly one. */
   oneOff: boolean;
+  /** What the page is about in words: the week ("30 Nov – 6 Dec 2026"), or a one-off's date ("Wednesday 13 January 2027"). */
+  when: string;
   title: string;
   description: string;
   html: string;
@@ -154,6 +156,7 @@ export function pagesLoader(): Loader {
           weekStart: spec.week.days[0]!,
           slug: spec.template.slug,
           oneOff: spec.template.frontMatter.date !== undefined,
+          when: spec.template.frontMatter.date !== undefined ? dateLabel(spec.template.frontMatter.date, spec.site.locale) : weekLabel(spec.week, spec.site.locale),
           title: rendered.title,
           description: rendered.description,
           html: rendered.html,

@@ -6,7 +6,7 @@
 import { readFileSync } from 'node:fs';
 import { join, relative, resolve } from 'node:path';
 import { BodyRegistry } from '../../lib/body.ts';
-import { pagesFor, parseBulletin } from '../../lib/bulletin/index.ts';
+import { errorsOf, pagesFor, parseBulletin, throwErrors } from '../../lib/bulletin/index.ts';
 import type { BulletinTemplate, PageSpec } from '../../lib/bulletin/types.ts';
 import { findSite, parseSite, yamlFiles } from '../../lib/content.ts';
 import { GloamingError } from '../../lib/errors.ts';
@@ -62,16 +62,28 @@ function markdownFiles(dir: string): string[] {
 export function loadProject(root: string, options: SiteBuildOptions): Project {
   const content = resolve(root, options.content);
   const sites = new Map<string, SiteSource>();
-  for (const file of yamlFiles(shown(content, CONTENT_DIRS.sites))) {
-    const text = readFileSync(file, 'utf8');
-    const site = parseSite(text, file);
-    if (sites.has(site.id)) {
-      throw new GloamingError('invalid-value', `site id '${site.id}' is used twice`, {
-        place: { file, field: 'id' },
-        expected: `an id not used by ${sites.get(site.id)!.file}`,
-      });
+  // Every file is read and every problem collected before any stops the build.
+  const errors: GloamingError[] = [];
+  const each = (load: () => void): void => {
+    try {
+      load();
+    } catch (error) {
+      if (!(error instanceof GloamingError)) throw error;
+      errors.push(...errorsOf(error));
     }
-    sites.set(site.id, { site, file, textDigest: sha256(text), description: site.description });
+  };
+  for (const file of yamlFiles(shown(content, CONTENT_DIRS.sites))) {
+    each(() => {
+      const text = readFileSync(file, 'utf8');
+      const site = parseSite(text, file);
+      if (sites.has(site.id)) {
+        throw new GloamingError('invalid-value', `site id '${site.id}' is used twice`, {
+          place: { file, field: 'id' },
+          expected: `an id not used by ${sites.get(site.id)!.file}`,
+        });
+      }
+      sites.set(site.id, { site, file, textDigest: sha256(text), description: site.description });
+    });
   }
   const siteMap = new Map([...sites].map(([id, s]) => [id, s.site]));
   const selected = (options.only ?? [...sites.keys()].sort()).map((id) => sites.get(findSite(siteMap, id, { field: 'sites' }).id)!);
@@ -81,13 +93,18 @@ export function loadProject(root: string, options: SiteBuildOptions): Project {
   const templateDigests = new Map<string, string>();
   for (const name of markdownFiles(join(content, CONTENT_DIRS.bulletins))) {
     const file = join(templateDir, name);
-    const text = readFileSync(file, 'utf8');
-    templates.push(parseBulletin(text, file));
-    templateDigests.set(file, sha256(text));
+    each(() => {
+      const text = readFileSync(file, 'utf8');
+      templates.push(parseBulletin(text, file));
+      templateDigests.set(file, sha256(text));
+    });
   }
 
   const bodies = new BodyRegistry();
-  for (const body of loadObjects(shown(content, CONTENT_DIRS.objects))) bodies.add(body);
+  each(() => {
+    for (const body of loadObjects(shown(content, CONTENT_DIRS.objects))) bodies.add(body);
+  });
+  throwErrors(errors);
   const objectFiles = filesUnder(join(content, CONTENT_DIRS.objects), content);
 
   const wanted = new Set(selected.map((s) => s.site.id));

@@ -26,3 +26,8 @@ export function latLonLabel(latitudeDeg: number, longitudeDeg: number): string {
   const lon = `${Math.abs(longitudeDeg).toFixed(1)}° ${longitudeDeg >= 0 ? 'E' : 'W'}`;
   return `${lat}, ${lon}`;
 }
+
+/** "Wednesday 13 January 2027": the date of a one-off bulletin, in the site's locale. */
+export function dateLabel(date: string, locale: string): string {
+  return new Intl.DateTimeFormat(locale, { timeZone: 'UTC', weekday: 'long', day: 'numeric', month: 'long', year: 'numeric' }).format(utcNoon(date));
+}

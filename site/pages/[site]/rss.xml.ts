@@ -18,7 +18,7 @@ export const GET: APIRoute = async ({ props, site: origin }) => {
       centreName: CENTRE.name,
       note: CENTRE.inventedNote,
       origin: origin!,
-      pages: pages.map((p) => ({ title: p.title, description: p.description, weekLabel: p.weekLabel, weekStart: p.weekStart, path: paths.page(p) })),
+      pages: pages.map((p) => ({ title: p.title, description: p.description, weekLabel: p.when, weekStart: p.weekStart, path: paths.page(p) })),
     }),
   );
 };

@@ -18,7 +18,7 @@ export const GET: APIRoute = async ({ props }) => {
     centre: CENTRE.name,
     title: page.title,
     siteName: site.name,
-    weekLabel: page.weekLabel,
+    weekLabel: page.when,
     horizon: site.horizon,
     caution: page.cautions.length > 0,
   }, { cacheDir: process.env.GLOAMING_CARD_CACHE, codeDigest: process.env.GLOAMING_CODE_DIGEST });
