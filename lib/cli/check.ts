@@ -56,7 +56,7 @@ function loadContent(contentDir: string, problems: ProblemList): { sites: Map<st
   }
   const bodies = collect(problems, () => loadBodies(join(contentDir, 'objects'))) ?? new BodyRegistry();
   const dir = join(contentDir, 'bulletins');
-  let names: string[] = [];
+  let names: string[];
   try {
     names = readdirSync(dir).filter((n) => n.endsWith('.md')).sort();
   } catch {
