@@ -14,6 +14,7 @@ import { escapeXml } from '../../lib/chart/svg.ts';
 export interface FeedPage {
   title: string;
   description: string;
+  /** What the page is about: its week ("30 Nov – 6 Dec 2026"), or a one-off's date. */
   weekLabel: string;
   /** Monday of the page's week, YYYY-MM-DD. */
   weekStart: string;
