@@ -29,5 +29,7 @@ export function latLonLabel(latitudeDeg: number, longitudeDeg: number): string {
 
 /** "Wednesday 13 January 2027": the date of a one-off bulletin, in the site's locale. */
 export function dateLabel(date: string, locale: string): string {
-  return new Intl.DateTimeFormat(locale, { timeZone: 'UTC', weekday: 'long', day: 'numeric', month: 'long', year: 'numeric' }).format(utcNoon(date));
+  // Weekday and date apart, as the bulletin's own dates read ("Wednesday 13 January"): ICU puts a comma after the weekday when a year follows.
+  const weekday = new Intl.DateTimeFormat(locale, { timeZone: 'UTC', weekday: 'long' }).format(utcNoon(date));
+  return `${weekday} ${new Intl.DateTimeFormat(locale, { timeZone: 'UTC', day: 'numeric', month: 'long', year: 'numeric' }).format(utcNoon(date))}`;
 }
