@@ -172,7 +172,7 @@ describe('site build', () => {
     const deadline = Date.now() + 120_000;
     // Killed while Astro writes into its work folder (after it took the lock, which it leaves behind too).
     while (!existsSync(workFolder) && Date.now() < deadline) await new Promise((r) => setTimeout(r, 100));
-    await new Promise((r) => setTimeout(r, 2000));
+    await new Promise((r) => setTimeout(r, 300));
     process.kill(killed.pid, 'SIGKILL');
     await killed.done;
     expect(existsSync(workFolder)).toBe(true); // what kill -9 leaves (docs/deploy.md)
