@@ -84,6 +84,9 @@ export function reasonText(reason: NotVisibleReason, site: { minAltitudeDeg: num
   return reason === 'under-min-altitude' ? `${REASON_TEXT[reason]} (${Math.round(site.minAltitudeDeg)}°)` : REASON_TEXT[reason];
 }
 
+/** The words for a positive verdict, to follow "is": "Jupiter is visible to the naked eye". */
+export const VERDICT_WORDS = { 'naked-eye': 'visible to the naked eye', binoculars: 'a target for binoculars', telescope: 'a target for a small telescope' } as const;
+
 /** Why a viewing window ends. */
 export type WindowEnd = 'optics-safety' | 'sunrise' | 'dawn' | 'sets' | 'behind-skyline' | 'under-min-altitude' | 'low' | 'moonlight' | 'night-end';
 

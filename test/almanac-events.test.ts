@@ -222,3 +222,37 @@ describe('comets passing the stars of familiar patterns', () => {
     }
   });
 });
+
+describe('comet and asteroid events speak for the site', () => {
+  it("say what the site's own visibility verdict for that night says (not a magnitude rule), with its best time", async () => {
+    const { loadBodies } = await import('../lib/content.ts');
+    const { computeNight } = await import('../lib/night.ts');
+    const { nightDateOf } = await import('../lib/almanac/context.ts');
+    const { VERDICT_WORDS } = await import('../lib/visibility.ts');
+    const { formatClock } = await import('../lib/time.ts');
+    const bodies = loadBodies('content/objects');
+    const comet = bodies.get('comet-lumen');
+    const city = defineSite({ id: 'city', name: 'City centre', latitude: 51.5, longitude: -0.12, timeZone: 'Europe/London', sky: { bortle: 9 } });
+    const verdicts = new Set<string>();
+    for (const site of [city, london, sydney]) {
+      const events = findEvents({ site, from: new Date('2026-12-01T00:00:00Z'), to: new Date('2027-03-01T00:00:00Z'), bodies, options: { types: ['perihelion', 'closest-approach-to-earth', 'peak-brightness'] } });
+      const own = events.filter((e) => e.bodies[0] === 'comet-lumen');
+      expect(own.length, site.id).toBeGreaterThan(0);
+      for (const e of own) {
+        const v = computeNight(site, nightDateOf(e.time, site.timeZone), [comet]).body(comet).visibility;
+        verdicts.add(`${site.id}:${v.verdict}`);
+        if (v.verdict === 'not-visible') {
+          expect(e.visible, e.description).toBe(false);
+          expect(e.description).toContain('not visible that night');
+        } else {
+          expect(e.description).toContain(`${VERDICT_WORDS[v.verdict]} from here`);
+          expect(e.description).toContain(formatClock(v.best!.time, site));
+        }
+        // The old rule called every comet brighter than magnitude 5 naked-eye "from a dark site", whatever the site.
+        expect(e.description).not.toContain('dark site');
+      }
+    }
+    // A magnitude ~4.6 comet is not a naked-eye object from a Bortle 9 city (Bortle 2001: naked-eye limit ≤ 4.0 there).
+    expect([...verdicts].filter((v) => v.startsWith('city:'))).not.toContain('city:naked-eye');
+  });
+});

@@ -12,17 +12,24 @@ import { compass } from '../describe.ts';
 import { findCrossings } from '../search.ts';
 import { dateFromUt, utDays } from '../track.ts';
 import { KM_PER_AU } from '../observe.ts';
-import type { AlmanacContext } from './context.ts';
-import { eventVisibility } from './visibility.ts';
+import { nightDateOf, type AlmanacContext } from './context.ts';
+import { eventVisibility, hidden } from './visibility.ts';
+import { computeNight } from '../night.ts';
+import { reasonText, VERDICT_WORDS } from '../visibility.ts';
 import type { AlmanacEvent, AlmanacEventType } from './types.ts';
 
 const DELTA_DAYS = 0.01;
 
-/** What a reader needs to see a magnitude (common practice for a diffuse comet under a dark sky). */
-export function instrumentWords(magnitude: number): string {
-  if (magnitude <= 5) return 'visible to the naked eye from a dark site';
-  if (magnitude <= 8) return 'a binocular object';
-  return 'a telescope object';
+/**
+ * What the reader at this site can expect on the night of the event, in the words the pages use
+ * for the same night: the verdict of the visibility model (lib/visibility.ts: twilight, moonlight,
+ * the site's sky, skyline and findability margin) with its best time and direction, or why not.
+ */
+function siteWords(ctx: AlmanacContext, body: Body, time: Date): { words: string; seen: boolean } {
+  const v = computeNight(ctx.site, nightDateOf(time, ctx.site.timeZone), [body]).body(body).visibility;
+  if (v.verdict === 'not-visible' || !v.best) return { words: `; from here it is not visible that night: ${reasonText(v.reason ?? 'too-faint', ctx.site)}`, seen: false };
+  const day = ctx.day(v.best.time) === ctx.day(time) ? '' : ` (${ctx.day(v.best.time)})`;
+  return { words: `, ${VERDICT_WORDS[v.verdict]} from here; look ${compass(v.best.azimuthDeg).word} at ${ctx.clock(v.best.time)}${day}`, seen: true };
 }
 
 /** Minima of `quantity` over [from, to) as instants. */
@@ -58,8 +65,9 @@ export function smallBodyEvents(ctx: AlmanacContext, from: Date, to: Date, bodie
         const m = i.magnitude;
         const mag = Math.round(m.value * 10) / 10;
         const band = m.brightest !== undefined && m.faintest !== undefined ? ` (between ${m.brightest.toFixed(1)} and ${m.faintest.toFixed(1)})` : '';
-        const visibility = eventVisibility(ctx, [body], time);
-        const look = visibility.visible && visibility.time && visibility.azimuthDeg !== null ? `; look ${compass(visibility.azimuthDeg).word} at ${ctx.clock(visibility.time)}` : ', but from here it is not up in a dark sky that night';
+        const placed = eventVisibility(ctx, [body], time);
+        const site = siteWords(ctx, body, time);
+        const visibility = placed.visible && !site.seen ? hidden(ctx, 'too-faint') : placed;
         const day = ctx.day(time);
         const what =
           type === 'perihelion'
@@ -75,7 +83,7 @@ export function smallBodyEvents(ctx: AlmanacContext, from: Date, to: Date, bodie
           visible: visibility.visible,
           visibility,
           title: type === 'perihelion' ? `${body.name} at perihelion` : type === 'closest-approach-to-earth' ? `${body.name} closest to Earth` : `${body.name} at its brightest`,
-          description: `${what}: expected magnitude ${mag}${band}, ${instrumentWords(mag)}${look}.`,
+          description: `${what}: expected magnitude ${mag}${band}${site.words}.`,
           score: 0,
           data: { magnitude: mag, heliocentricDistanceAu: Number(i.heliocentricDistanceAu.toFixed(4)), geocentricDistanceAu: Number(i.geocentricDistanceAu.toFixed(4)) },
         });

@@ -37,7 +37,8 @@ export type EventHiddenReason =
   | 'too-close-to-sun' // within a few degrees of the Sun: lost in its glare
   | 'no-darkness' // the Sun never gets low enough that night (high-latitude summer)
   | 'radiant-below-horizon' // meteor shower: the radiant stays down during the dark hours
-  | 'sun-below-horizon'; // solar eclipse: the Sun is down for the whole eclipse
+  | 'sun-below-horizon' // solar eclipse: the Sun is down for the whole eclipse
+  | 'too-faint'; // up in a dark sky, but the visibility model finds it too faint (or washed out) from the site
 
 /** Whether, when and where an event can be seen from the site. */
 export interface EventVisibility {

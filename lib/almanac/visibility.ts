@@ -26,6 +26,7 @@ export const HIDDEN_REASON_TEXT: Record<EventHiddenReason, string> = {
   'no-darkness': 'the sky does not get dark that night',
   'radiant-below-horizon': 'the radiant stays below the horizon during the dark hours',
   'sun-below-horizon': 'the Sun is below the horizon for the whole eclipse',
+  'too-faint': 'too faint to see from here that night',
 };
 
 /** Apparent (refracted) altitude and azimuth of a body on a night's track, degrees. */

@@ -23,7 +23,7 @@ import type { ChartOutput } from './types.ts';
 import { ChartCache } from '../chart/cache.ts';
 import { placeholderChart } from '../chart/index.ts';
 import { EVENT_TYPES, pickEvent, type AlmanacEvent, type AlmanacEventType } from '../almanac/index.ts';
-import { reasonText, WINDOW_END_TEXT, type Visibility } from '../visibility.ts';
+import { reasonText, VERDICT_WORDS, WINDOW_END_TEXT, type Visibility } from '../visibility.ts';
 import { GloamingError } from '../errors.ts';
 
 /** A target within this angle of the Sun (geocentric, at local midnight of the night) triggers the eye-safety caution. */
@@ -356,8 +356,6 @@ function moonAndTwilight(call: PlaceholderCall): ElementContent {
     ]),
   ]);
 }
-
-const VERDICT_WORDS = { 'naked-eye': 'visible to the naked eye', binoculars: 'a target for binoculars', telescope: 'a target for a small telescope' } as const;
 
 function visibilityData(v: Visibility): Properties {
   return {
