@@ -31,6 +31,7 @@ export const ERROR_CODES = {
   'unknown-placeholder': 'A placeholder name is not known',
   'invalid-placeholder': 'A placeholder is malformed or has a wrong attribute',
   'unsafe-output': 'Built output contains a value that must never be published',
+  'stale-elements': 'Satellite elements are too old (or too far ahead) for the requested dates',
 } as const;
 
 export type ErrorCode = keyof typeof ERROR_CODES;

@@ -1,5 +1,5 @@
 /**
- * `gloaming` command line: `position`, `night`, `week` and `events`. Prints JSON with `--json`,
+ * `gloaming` command line: `position`, `night`, `week`, `events` and `passes`. Prints JSON with `--json`,
  * a short summary otherwise. Wrong input exits with code 2 and one line naming the argument,
  * the bad value and what is expected.
  */
@@ -19,6 +19,7 @@ import { nightJson, positionJson, round, weekJson } from './format.ts';
 import { argumentError, fileFlag, joinNegativeNumbers, requireFlag, siteFromFlags } from './args.ts';
 import { EVENTS_HELP, runEvents } from './events.ts';
 import { CHECK_HELP, runCheck } from './check.ts';
+import { PASSES_HELP, runPasses } from './passes.ts';
 import { computeWeek } from '../week.ts';
 import { reasonText } from '../visibility.ts';
 import { MISSING_REASON_TEXT, type EventTime } from '../events.ts';
@@ -55,6 +56,7 @@ const COMMON = {
 const HELP: Record<string, string> = {
   events: EVENTS_HELP,
   check: CHECK_HELP,
+  passes: PASSES_HELP,
   main: `gloaming — computed night-sky bulletins
 
 Usage: gloaming <command> [options]
@@ -65,6 +67,7 @@ Commands:
   week       the seven nights of the ISO week containing a date: best night and the week's changes per body
   events     the sky's events for a site and date range (Moon phases, close approaches, showers, eclipses …); --ics for a calendar
   check      render every bulletin template for every site and week of a span and list every problem with its place
+  passes     satellite passes over a site: when, where, how bright, and whether the public can see them
 
 Run 'gloaming <command> --help' for the options of a command.`,
   position: `gloaming position — where a body is at one instant
@@ -232,6 +235,7 @@ const COMMANDS: Record<string, (args: string[], out: (s: string) => void, contex
   week: (args, out) => void runWeek(args, out),
   events: (args, out) => void runEvents(args, out),
   check: runCheck,
+  passes: (args, out) => void runPasses(args, out),
 };
 
 /**
