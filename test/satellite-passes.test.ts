@@ -15,6 +15,8 @@ import { loadSatellites } from '../lib/satellite/catalogue.ts';
 import { readTle } from '../lib/satellite/elements.ts';
 import { lambertPhaseFunction, satelliteMagnitude } from '../lib/satellite/magnitude.ts';
 import { findPasses, MAX_ELEMENT_AGE_DAYS, type Satellite } from '../lib/satellite/passes.ts';
+import { stateAt, StateTrack } from '../lib/satellite/propagate.ts';
+import { utDays } from '../lib/track.ts';
 import { errorStats, expectWithin, SECOND_MS } from './helpers/tolerance.ts';
 
 const KM_PER_AU = 149_597_870.7;
@@ -167,5 +169,22 @@ describe('element files of the demo', () => {
     const tle = readTle(readFileSync(new URL('../content/satellites/demo.tle', import.meta.url), 'utf8'), 'demo.tle');
     expect(tle.length).toBeGreaterThanOrEqual(3);
     expect(satellites.map((s) => s.id)).toContain('demo-cargo-ship');
+  });
+});
+
+describe('interpolated SGP4 states', () => {
+  it('stay within 20 m of SGP4 itself between nodes two minutes apart (a day of the demo station)', () => {
+    const base = utDays(new Date('2026-12-04T00:00:00Z'));
+    const track = new StateTrack(station.elements, { baseUt: base, nodeDays: 2 / 1440 });
+    const errors: number[] = [];
+    for (let i = 0; i < 1000; i++) {
+      const ut = base + i * 0.001 + 0.0003;
+      const a = track.at(ut)!.positionKm;
+      const b = stateAt(station.elements, ut)!.positionKm;
+      errors.push(Math.hypot(a[0] - b[0], a[1] - b[1], a[2] - b[2]) * 1000);
+    }
+    const stats = errorStats(errors);
+    console.log(`Hermite interpolation vs SGP4: rms=${stats.rms.toFixed(2)} m max=${stats.max.toFixed(2)} m`);
+    expect(stats.max).toBeLessThan(20);
   });
 });

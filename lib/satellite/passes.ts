@@ -20,10 +20,10 @@
  * - *Freshness*: each pass carries the age of its elements at the pass; a pass more than
  *   `MAX_ELEMENT_AGE_DAYS` from the elements' epoch is refused (`stale-elements`).
  *
- * Search (all through `lib/search.ts`): per night, a coarse scan for the satellite coming within
- * 20° below the horizon (step 1/12 of the orbital period, so no pass can slip between samples),
- * then within each such approach the highest point and the crossings of the skyline, then the
- * shadow and visibility crossings inside the pass.
+ * Search (all through `lib/search.ts`), per night on a track of SGP4 states two minutes apart
+ * (`StateTrack`): the satellite's highest points (zero crossings of its altitude rate), then
+ * around each the crossings of the skyline, then the shadow and visibility crossings inside the
+ * pass. Passes that never reach the site's minimum altitude are not reported.
  */
 import * as Astronomy from 'astronomy-engine';
 import { compass, type CompassPoint } from '../describe.ts';
@@ -38,7 +38,7 @@ import { addDays, localMidnight, nightOf } from '../time.ts';
 import { dateFromUt, NightFrame, separationDeg } from '../track.ts';
 import type { ElementSet } from './elements.ts';
 import { satelliteMagnitude } from './magnitude.ts';
-import { epochUt, SatelliteObserver, stateAt, type LookAngles, type Vec3 } from './propagate.ts';
+import { epochUt, SatelliteObserver, StateTrack, type LookAngles, type Vec3 } from './propagate.ts';
 import { sunlitFraction } from './shadow.ts';
 
 /**
@@ -139,12 +139,14 @@ const SHADOW_HALF = 0.5;
 const MIN_RECOMMENDED_DAYS = 60 / 86_400;
 /** Lit fractions below this count as the umbra for magnitudes (keeps margins finite for the root finder). */
 const MIN_LIT = 1e-6;
-const COARSE_BELOW_DEG = 20;
-const APPROACH_STEP_DAYS = 2 / 1440;
-/** Approaches need no precision: their edges only bound the finer searches. */
-const COARSE_TOLERANCE_DAYS = 30 / 86_400;
-const FINE_STEP_DAYS = 1 / 1440;
-const PASS_STEP_DAYS = 20 / 86_400;
+/** Spacing of the SGP4 nodes that passes are interpolated between (see `StateTrack`). */
+const NODE_DAYS = 2 / 1440;
+/** The highest point of a pass, to 0.01 s: near the zenith the altitude changes by up to 1°/s. */
+const PEAK_TOLERANCE_DAYS = 0.01 / 86_400;
+/** Sampling step inside a pass: shadow and visibility crossings closer together than this may merge. */
+const PASS_STEP_DAYS = 30 / 86_400;
+/** Sampling step for the skyline crossings around a highest point. */
+const EDGE_STEP_DAYS = 1 / 1440;
 
 /** One site-night's sky for satellites: Sun, Moon and the site's visibility constants. */
 class SatelliteNight {
@@ -188,26 +190,35 @@ interface Sample {
 class SatelliteTrack {
   readonly satellite: Satellite;
   readonly night: SatelliteNight;
+  readonly states: StateTrack;
   constructor(satellite: Satellite, night: SatelliteNight) {
     this.satellite = satellite;
     this.night = night;
+    this.states = new StateTrack(satellite.elements, { baseUt: night.frame.ut0, nodeDays: NODE_DAYS });
   }
 
   look(ut: number): LookAngles | null {
-    const state = stateAt(this.satellite.elements, ut);
+    const state = this.states.at(ut);
     return state ? this.night.observer.look(state.positionKm, ut) : null;
   }
 
+  /** Rate of the sine of the altitude (positive while climbing); NaN where SGP4 fails. */
+  rate(ut: number): number {
+    const state = this.states.at(ut);
+    return state ? this.night.observer.altitudeRate(state, ut) : NaN;
+  }
+
+  /** Samples of the pass being described, by time: its searches share one grid of instants. */
+  readonly #samples = new Map<number, Sample | null>();
+
   sample(ut: number): Sample | null {
-    const look = this.look(ut);
-    if (!look) return null;
-    const sun = this.night.frame.sun.vectorAt(ut);
-    return {
-      ut,
-      look,
-      lit: sunlitFraction(look.positionKm, sun),
-      clearanceDeg: this.clearanceDeg(look),
-    };
+    let s = this.#samples.get(ut);
+    if (s === undefined) {
+      const look = this.look(ut);
+      s = look ? { ut, look, lit: sunlitFraction(look.positionKm, this.night.frame.sun.vectorAt(ut)), clearanceDeg: this.clearanceDeg(look) } : null;
+      this.#samples.set(ut, s);
+    }
+    return s;
   }
 
   /** Apparent altitude above the site's skyline and minimum altitude in the satellite's direction, degrees. */
@@ -265,34 +276,52 @@ class SatelliteTrack {
     };
   }
 
-  /** The passes of this satellite inside a dark span. */
+  /**
+   * The passes of this satellite inside a dark span. The satellite's highest points are the
+   * falling zero crossings of its altitude rate, sampled at a sixth of the orbital period (the
+   * rate changes sign twice per orbit, so no highest point can slip between samples) on the
+   * track's nodes; around each one that clears the minimum altitude, the crossings of the skyline
+   * within the longest possible time above the horizon bound the pass.
+   */
   passes(span: { ut0: number; ut1: number }): SatellitePass[] {
-    const periodDays = 1 / this.satellite.elements.meanMotionRevPerDay;
-    // Above 20° below the horizon, even a pass that only grazes the horizon lasts over a fifth of
-    // a low orbit's period (22 min at 350 km, longer higher up): a step of a sixth cannot miss it.
-    const coarseStep = Math.min(20 / 1440, periodDays / 6);
-    const near = (ut: number): number => (this.look(ut)?.geometricAltitudeDeg ?? NaN) + COARSE_BELOW_DEG;
-    const approaches = intervalsAbove(near, span.ut0, span.ut1, { stepDays: coarseStep, toleranceDays: COARSE_TOLERANCE_DAYS });
-    const out: SatellitePass[] = [];
+    const el = this.satellite.elements;
+    const periodDays = 1 / el.meanMotionRevPerDay;
+    const step = Math.max(1, Math.floor(periodDays / 6 / NODE_DAYS)) * NODE_DAYS;
+    const base = this.night.frame.ut0;
+    const a = base + Math.floor((span.ut0 - base) / NODE_DAYS) * NODE_DAYS;
+    const b = a + Math.max(1, Math.ceil((span.ut1 - a) / step)) * step;
+    const rate = (ut: number): number => this.rate(ut);
+    const peaks = findCrossings(rate, a, b, { stepDays: step, toleranceDays: PEAK_TOLERANCE_DAYS, accept: (fa, fb) => fa > 0 && fb <= 0 })
+      .map((c) => c.ut)
+      .filter((ut) => ut > span.ut0 && ut < span.ut1);
+    // A pass already under way at dusk, or still climbing at dawn.
+    if (rate(span.ut0) < 0) peaks.unshift(span.ut0);
+    if (rate(span.ut1) > 0) peaks.push(span.ut1);
+    const halfWindow = longestHalfPassDays(el);
     const clearance = (ut: number): number => {
       const look = this.look(ut);
       return look ? this.clearanceDeg(look) : NaN;
     };
-    for (const [a, b] of approaches) {
-      // The altitude rises and falls once per approach: its highest point decides whether there is a pass.
-      const top = findMaximum(clearance, a, b, { stepDays: APPROACH_STEP_DAYS, toleranceDays: COARSE_TOLERANCE_DAYS / 6 });
-      if (!top || !(top.value > 0)) continue;
-      for (const [start, end] of intervalsAbove(clearance, a, b, { stepDays: FINE_STEP_DAYS })) {
-        out.push(this.describe(start, end));
+    const out: SatellitePass[] = [];
+    let lastEnd = -Infinity;
+    for (const peak of peaks) {
+      const top = this.look(peak);
+      if (!top || top.altitudeDeg < this.night.site.minAltitudeDeg) continue;
+      const w0 = Math.max(span.ut0, peak - halfWindow, lastEnd);
+      const w1 = Math.min(span.ut1, peak + halfWindow);
+      for (const [start, end] of intervalsAbove(clearance, w0, w1, { stepDays: EDGE_STEP_DAYS })) {
+        out.push(this.describe(start, end, peak >= start && peak <= end ? peak : null));
+        lastEnd = end;
       }
     }
     return out;
   }
 
-  describe(ut0: number, ut1: number): SatellitePass {
+  describe(ut0: number, ut1: number, peak: number | null): SatellitePass {
+    this.#samples.clear();
     const sat = this.satellite;
     // Near the zenith a low satellite's altitude peaks sharply (up to 1°/s): refine to 0.05 s.
-    const culminationUt = findMaximum((ut) => this.look(ut)?.altitudeDeg ?? NaN, ut0, ut1, { stepDays: PASS_STEP_DAYS, toleranceDays: 0.05 / 86_400 })?.ut ?? (ut0 + ut1) / 2;
+    const culminationUt = peak ?? findMaximum((ut) => this.look(ut)?.altitudeDeg ?? NaN, ut0, ut1, { stepDays: PASS_STEP_DAYS, toleranceDays: 0.05 / 86_400 })?.ut ?? (ut0 + ut1) / 2;
     const start = this.point(ut0);
     const culmination = this.point(culminationUt);
     const end = this.point(ut1);
@@ -340,6 +369,22 @@ class SatelliteTrack {
     return { ...base, visible: null, verdict: 'not-visible', reason, recommended: false, sky: skyAt(culminationUt, naked) };
   }
 }
+
+/**
+ * An upper bound for the time from a satellite's highest point to its setting, days: the time to
+ * cover the Earth-central angle between the site and the horizon seen from apogee,
+ * arccos(R / r_apogee), at the mean motion, plus a minute.
+ */
+function longestHalfPassDays(elements: ElementSet): number {
+  const n = (elements.meanMotionRevPerDay * 2 * Math.PI) / 86_400;
+  const a = Math.cbrt(EARTH_GM_KM3_S2 / (n * n));
+  const apogee = a * (1 + elements.eccentricity);
+  return (Math.acos(Math.min(1, EARTH_RADIUS_KM / apogee)) / (2 * Math.PI)) / elements.meanMotionRevPerDay + 1 / 1440;
+}
+
+/** WGS-72 values, as SGP4 (Vallado et al. 2006). */
+const EARTH_GM_KM3_S2 = 398_600.8;
+const EARTH_RADIUS_KM = 6378.135;
 
 /** The intervals of [ut0, ut1] where `f` > 0, found with `findCrossings`. */
 function intervalsAbove(f: (ut: number) => number, ut0: number, ut1: number, options: { stepDays: number; toleranceDays?: number }): [number, number][] {

@@ -55,6 +55,68 @@ export function stateAt(set: ElementSet, ut: number): TemeState | null {
   return stateAtMinutes(set, (ut - epochUt(set)) * 1440);
 }
 
+/**
+ * A satellite's SGP4 states on a fixed grid of nodes (computed when first needed, then kept),
+ * with cubic Hermite interpolation of the position and velocity in between. With nodes two
+ * minutes apart the interpolation error of a low orbit is about |r⁗| h⁴/384 ≈ ω⁴ a h⁴/384 ≈ 6 m
+ * (0.001 s of along-track time); `test/satellite-passes.test.ts` checks it against SGP4 itself.
+ */
+export class StateTrack {
+  readonly elements: ElementSet;
+  readonly #base: number;
+  readonly #nodeDays: number;
+  readonly #nodeSeconds: number;
+  readonly #nodes = new Map<number, TemeState | null>();
+
+  /** Nodes at `baseUt` + k · `nodeDays` (UT days). */
+  constructor(elements: ElementSet, options: { baseUt: number; nodeDays: number }) {
+    this.elements = elements;
+    this.#base = options.baseUt;
+    this.#nodeDays = options.nodeDays;
+    this.#nodeSeconds = options.nodeDays * 86_400;
+  }
+
+  #node(k: number): TemeState | null {
+    let state = this.#nodes.get(k);
+    if (state === undefined) {
+      state = stateAt(this.elements, this.#base + k * this.#nodeDays);
+      this.#nodes.set(k, state);
+    }
+    return state;
+  }
+
+  /** Interpolated TEME state at `ut`; null when SGP4 fails at a neighbouring node. */
+  at(ut: number): TemeState | null {
+    const u = (ut - this.#base) / this.#nodeDays;
+    let k = Math.floor(u);
+    const s = u - k;
+    // At (or within rounding of) a node, that node's exact state.
+    if (s < 1e-9 || s > 1 - 1e-9) {
+      k = Math.round(u);
+      return this.#node(k);
+    }
+    const a = this.#node(k);
+    const b = this.#node(k + 1);
+    if (!a || !b) return null;
+    const h = this.#nodeSeconds;
+    const s2 = s * s;
+    const s3 = s2 * s;
+    const h00 = 2 * s3 - 3 * s2 + 1, h10 = s3 - 2 * s2 + s, h01 = -2 * s3 + 3 * s2, h11 = s3 - s2;
+    const d00 = (6 * s2 - 6 * s) / h, d10 = 3 * s2 - 4 * s + 1, d01 = (-6 * s2 + 6 * s) / h, d11 = 3 * s2 - 2 * s;
+    const p: Vec3 = [0, 0, 0];
+    const v: Vec3 = [0, 0, 0];
+    for (let i = 0; i < 3; i++) {
+      const p0 = a.positionKm[i]!, p1 = b.positionKm[i]!, v0 = a.velocityKmS[i]!, v1 = b.velocityKmS[i]!;
+      p[i] = h00 * p0 + h10 * h * v0 + h01 * p1 + h11 * h * v1;
+      v[i] = d00 * p0 + d10 * v0 + d01 * p1 + d11 * v1;
+    }
+    return { positionKm: p, velocityKmS: v };
+  }
+}
+
+/** Earth's rotation rate, rad/s (IERS Conventions 2010, ω = 7.292115 × 10⁻⁵). */
+const EARTH_ROTATION_RAD_S = 7.292115e-5;
+
 /** A satellite seen from the site at one instant. */
 export interface LookAngles {
   /** Geometric (airless) altitude, degrees. */
@@ -97,6 +159,25 @@ export class SatelliteObserver {
   positionKm(ut: number): Vec3 {
     const o = ecfToEci(this.#ecf, this.gmstRad(ut));
     return [o.x, o.y, o.z];
+  }
+
+  /**
+   * Rate of change of the sine of the satellite's geometric altitude at `ut`, 1/s: positive while
+   * it climbs, zero at its highest point. From the TEME state and the site's motion with the
+   * Earth's rotation (about the TEME z axis).
+   */
+  altitudeRate(state: TemeState, ut: number): number {
+    const o = this.positionKm(ut);
+    const theta = this.gmstRad(ut) + this.#longitudeRad;
+    const u: Vec3 = [this.#cosLat * Math.cos(theta), this.#cosLat * Math.sin(theta), this.#sinLat];
+    const w = EARTH_ROTATION_RAD_S;
+    const r: Vec3 = [state.positionKm[0] - o[0], state.positionKm[1] - o[1], state.positionKm[2] - o[2]];
+    const rd: Vec3 = [state.velocityKmS[0] + w * o[1], state.velocityKmS[1] - w * o[0], state.velocityKmS[2]];
+    const ud: Vec3 = [-w * u[1], w * u[0], 0];
+    const range = Math.hypot(r[0], r[1], r[2]);
+    const ru = r[0] * u[0] + r[1] * u[1] + r[2] * u[2];
+    const rrd = r[0] * rd[0] + r[1] * rd[1] + r[2] * rd[2];
+    return (rd[0] * u[0] + rd[1] * u[1] + rd[2] * u[2] + r[0] * ud[0] + r[1] * ud[1]) / range - (ru * rrd) / range ** 3;
   }
 
   /**
