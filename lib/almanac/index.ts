@@ -22,6 +22,8 @@ import { interestScore } from './score.ts';
 import { seasonEvents } from './seasons.ts';
 import { showerEvents } from './showers.ts';
 import { smallBodyEvents } from './small-bodies.ts';
+import { satellitePassEvents } from '../satellite/events.ts';
+import type { Satellite } from '../satellite/passes.ts';
 import { EVENT_TYPES, type AlmanacEvent, type AlmanacEventType, type FindEventsOptions } from './types.ts';
 
 export * from './types.ts';
@@ -46,6 +48,8 @@ export interface FindEventsInput {
   options?: FindEventsOptions;
   /** Night frames already built for this site (e.g. a bulletin week's), reused instead of built again. */
   frames?: Iterable<NightFrame>;
+  /** Satellites for `satellite-pass` events (lib/satellite; default none). */
+  satellites?: readonly Satellite[];
 }
 
 function smallBodiesOf(registry: BodyRegistry | undefined): Body[] {
@@ -103,6 +107,7 @@ export function findEvents(input: FindEventsInput): AlmanacEvent[] {
   if (want('lunar-eclipse')) events.push(...lunarEclipseEvents(ctx, from, to));
   if (want('solar-eclipse')) events.push(...solarEclipseEvents(ctx, from, to));
   if (want('perihelion', 'closest-approach-to-earth', 'peak-brightness')) events.push(...smallBodyEvents(ctx, from, to, small));
+  if (want('satellite-pass') && input.satellites) events.push(...satellitePassEvents({ site, satellites: input.satellites, from, to }));
   const kept = events.filter((e) => wanted.has(e.type) && e.time >= from && e.time < to);
   for (const e of kept) e.score = interestScore(e);
   const typeOrder = (t: AlmanacEventType): number => EVENT_TYPES.indexOf(t);

@@ -68,6 +68,12 @@ export function interestScore(event: AlmanacEvent): number {
       s = (event.type === 'peak-brightness' ? 50 : 40) + (mag <= 5 ? 25 : mag <= 8 ? 10 : 0);
       break;
     }
+    case 'satellite-pass': {
+      // Only naked-eye passes are events; the bright ones are the ones people remember.
+      const mag = Number(event.data?.magnitude ?? 4);
+      s = 30 + (mag <= -1 ? 15 : mag <= 1 ? 8 : 0);
+      break;
+    }
     default:
       break;
   }

@@ -26,6 +26,7 @@ export const EVENT_TYPES = [
   'perihelion',
   'closest-approach-to-earth',
   'peak-brightness',
+  'satellite-pass',
 ] as const;
 
 export type AlmanacEventType = (typeof EVENT_TYPES)[number];
@@ -103,7 +104,7 @@ export interface AlmanacEvent {
   time: Date;
   /** End of a lasting event (an eclipse's last contact), when there is one. */
   end?: Date;
-  /** Ids of the bodies involved: body ids (`moon`, `jupiter`, `comet-lumen`), `star:<HIP>` for stars, `shower:<code>` for showers. */
+  /** Ids of the bodies involved: body ids (`moon`, `jupiter`, `comet-lumen`), `star:<HIP>` for stars, `shower:<code>` for showers, `satellite:<id>` for satellites. */
   bodies: string[];
   /** Display names, in the order of `bodies`. */
   names: string[];

@@ -510,7 +510,8 @@ const DEFINITIONS: PlaceholderSpec[] = [
     summary: "one event of the week (or around a one-off's date), found by type (and body), or the event of an enclosing :::every-event: its time, date, separation, sentence or title",
     slot: true,
     attributes: {
-      type: { type: { kind: 'choice', values: EVENT_TYPES }, required: true, bound: 'event', doc: 'the event type' },
+      // Bulletin weeks carry no satellites yet: satellite passes are in `gloaming events` and the calendar feed.
+      type: { type: { kind: 'choice', values: EVENT_TYPES.filter((t) => t !== 'satellite-pass') }, required: true, bound: 'event', doc: 'the event type' },
       body: { ...BODY, required: false, doc: 'a body the event must involve' },
       show: { type: { kind: 'choice', values: ['time', 'date', 'separation', 'sentence', 'title'] }, default: 'time', doc: 'what to show' },
       clock: CLOCK,

@@ -11,6 +11,7 @@ import { argumentError, joinNegativeNumbers, siteFromFlags } from './args.ts';
 import { addDays, formatInstant, parseInstant, parseLocalDate, roundInstant, zonedTime } from '../time.ts';
 import { EVENT_TYPES, eventsToICalendar, findEvents, type AlmanacEvent, type AlmanacEventType } from '../almanac/index.ts';
 import { round } from './format.ts';
+import { loadSatellites } from '../satellite/catalogue.ts';
 
 export const EVENTS_HELP = `gloaming events — the sky's events for a site: Moon phases, close approaches, oppositions,
 elongations, meteor showers, eclipses, equinoxes and solstices, comet events
@@ -29,7 +30,8 @@ Usage: gloaming events (--site <id> | --lat <deg> --lon <deg> [--elevation <m>] 
   --order <how>       time (default) or interest (most interesting first)
   --type <id>         repeatable; only these event types:
                       ${EVENT_TYPES.join(', ')}
-  --content <dir>     content folder (default ./content); comets and asteroids come from its objects/
+  --content <dir>     content folder (default ./content); comets and asteroids come from its objects/,
+                      satellites (naked-eye passes only) from its satellites/
   --json              print { events: [{ type, time, bodies, separation?, visible, description, … }] }
   --ics               print an iCalendar (RFC 5545) feed instead
   --now <instant>     build instant for the feed's DTSTAMP (default: 00:00 UTC of --from)
@@ -118,7 +120,8 @@ export function runEvents(args: string[], out: (s: string) => void): void {
   if (values.json && values.ics) throw argumentError('--ics', '--json and --ics exclude each other', 'one output format');
   const contentDir = resolve(String(values.content ?? 'content'));
   const bodies: BodyRegistry = loadBodies(resolve(contentDir, 'objects'));
-  const events = findEvents({ site, from, to, bodies, options: { order, ...(types ? { types } : {}) } });
+  const satellites = loadSatellites(resolve(contentDir, 'satellites'));
+  const events = findEvents({ site, from, to, bodies, satellites, options: { order, ...(types ? { types } : {}) } });
   const zone = site.timeZone;
   if (values.ics) {
     // DTSTAMP: --now, or 00:00 UTC of --from, so the same command writes the same feed (lib never reads the clock).

@@ -7,7 +7,9 @@ import { resolve } from 'node:path';
 import { didYouMean, GloamingError } from '../errors.ts';
 import { loadSatellites } from '../satellite/catalogue.ts';
 import { findPasses, PASS_REASON_TEXT, type PassPoint, type SatellitePass } from '../satellite/passes.ts';
-import { addDays, formatClock, formatInstant, parseLocalDate } from '../time.ts';
+import { addDays, formatClock, formatInstant, parseInstant, parseLocalDate } from '../time.ts';
+import { eventsToICalendar } from '../almanac/ical.ts';
+import { passEvent } from '../satellite/events.ts';
 import { argumentError, joinNegativeNumbers, requireFlag, siteFromFlags } from './args.ts';
 import { round } from './format.ts';
 
@@ -27,6 +29,8 @@ Usage: gloaming passes (--site <id> | --lat <deg> --lon <deg> [--elevation <m>] 
   --all                also list passes that cannot be seen (in the Earth's shadow, too faint …)
   --content <dir>      content folder (default ./content); satellites come from its satellites/
   --json               print { passes: [{ satellite, start, culmination, end, visible, verdict, … }] }
+  --ics                print an iCalendar (RFC 5545) feed of the naked-eye passes instead
+  --now <instant>      build instant for the feed's DTSTAMP (default: 00:00 UTC of --from)
 
 Only passes a member of the public can see with the naked eye are listed unless --all is given.
 Element sets more than 14 days from a pass are refused: refresh them first.`;
@@ -44,6 +48,8 @@ const OPTIONS = {
   all: { type: 'boolean' },
   content: { type: 'string' },
   json: { type: 'boolean' },
+  ics: { type: 'boolean' },
+  now: { type: 'string' },
   help: { type: 'boolean', short: 'h' },
 } as const;
 
@@ -108,6 +114,13 @@ export function runPasses(args: string[], out: (s: string) => void): void {
   const zone = site.timeZone;
   const all = findPasses({ site, satellites, from, to });
   const passes = values.all ? all : all.filter((p) => p.recommended);
+  if (values.json && values.ics) throw argumentError('--ics', '--json and --ics exclude each other', 'one output format');
+  if (values.ics) {
+    // DTSTAMP: --now, or 00:00 UTC of --from, so the same command writes the same feed (lib never reads the clock).
+    const now = values.now !== undefined ? parseInstant(values.now, '--now') : new Date(`${from}T00:00:00Z`);
+    const events = all.filter((p) => p.recommended).map((p) => passEvent(p, site));
+    return out(eventsToICalendar(events, { site, prodId: '-//gloaming//satellite passes//EN', now, name: `Satellite passes · ${site.name}` }).replace(/\r\n$/, ''));
+  }
   if (values.json) {
     return out(
       JSON.stringify(

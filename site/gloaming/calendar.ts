@@ -1,10 +1,12 @@
 /**
  * The iCalendar (RFC 5545) feed of a site: the sky's events (lib/almanac) from the Monday of the
  * build week for 13 weeks, in UTC, so phones can subscribe. Deterministic: DTSTAMP is the build
- * date and UIDs come from each event and the site. Computed in the content layer with the site.
+ * date and UIDs come from each event and the site. Satellite passes appear for the weeks the
+ * element sets in content/satellites/ are good for (lib/satellite/events.ts). Computed in the content layer with the site.
  */
 import { eventsToICalendar, findEvents } from '../../lib/almanac/index.ts';
 import type { BodyRegistry } from '../../lib/body.ts';
+import type { Satellite } from '../../lib/satellite/passes.ts';
 import type { Site } from '../../lib/site.ts';
 import { addDays, isoWeekOf, zonedTime } from '../../lib/time.ts';
 import { CENTRE } from './centre.ts';
@@ -12,13 +14,14 @@ import { CENTRE } from './centre.ts';
 /** Weeks of events in each feed. */
 export const CALENDAR_WEEKS = 13;
 
-export function siteCalendar(site: Site, bodies: BodyRegistry, today: string): string {
+export function siteCalendar(site: Site, bodies: BodyRegistry, today: string, satellites: readonly Satellite[] = []): string {
   const monday = isoWeekOf(today).days[0]!;
   const events = findEvents({
     site,
     from: zonedTime(monday, 0, 0, site.timeZone),
     to: zonedTime(addDays(monday, 7 * CALENDAR_WEEKS), 0, 0, site.timeZone),
     bodies,
+    satellites,
   });
   return eventsToICalendar(events, {
     site,

@@ -114,7 +114,7 @@ export function sitesLoader(): Loader {
           built,
           currentWeek,
           nights: built ? nextNights(s, project.today, NIGHTS_SHOWN) : [],
-          calendar: built ? siteCalendar(s, project.bodies, project.today) : '',
+          calendar: built ? siteCalendar(s, project.bodies, project.today, project.satellites) : '',
         };
         store.set({ id, data: data as unknown as Record<string, unknown>, digest });
         computed++;

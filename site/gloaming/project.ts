@@ -11,12 +11,14 @@ import type { BulletinTemplate, PageSpec } from '../../lib/bulletin/types.ts';
 import { findSite, parseSite, yamlFiles } from '../../lib/content.ts';
 import { GloamingError } from '../../lib/errors.ts';
 import { loadObjects } from '../../lib/orbit/body.ts';
+import { loadSatellites } from '../../lib/satellite/catalogue.ts';
+import type { Satellite } from '../../lib/satellite/passes.ts';
 import type { Site } from '../../lib/site.ts';
 import { codeDigest, filesUnder, hashFiles, sha256 } from './digest.ts';
 import type { SiteBuildOptions } from './options.ts';
 
 /** Where content lives inside the content folder. */
-export const CONTENT_DIRS = { sites: 'sites', bulletins: 'bulletins', objects: 'objects' } as const;
+export const CONTENT_DIRS = { sites: 'sites', bulletins: 'bulletins', objects: 'objects', satellites: 'satellites' } as const;
 
 export interface SiteSource {
   site: Site;
@@ -39,6 +41,8 @@ export interface Project {
   /** SHA-256 of each template's text, by template file. */
   templateDigests: Map<string, string>;
   bodies: BodyRegistry;
+  /** Satellites followed (content/satellites/), for the calendar feed's passes. */
+  satellites: Satellite[];
   /** Hash of every object file. */
   objectsDigest: string;
   /** Hash of the computing code (see `codeDigest`). */
@@ -106,6 +110,9 @@ export function loadProject(root: string, options: SiteBuildOptions): Project {
   });
   throwErrors(errors);
   const objectFiles = filesUnder(join(content, CONTENT_DIRS.objects), content);
+  // Satellites (optional): their files join the objects' digest, as both feed the same pages.
+  const satellites = loadSatellites(shown(content, CONTENT_DIRS.satellites));
+  const satelliteFiles = filesUnder(join(content, CONTENT_DIRS.satellites), content);
 
   const wanted = new Set(selected.map((s) => s.site.id));
   const pages = pagesFor(templates, { sites: siteMap, today: options.today }).filter((p) => wanted.has(p.site.id));
@@ -117,7 +124,8 @@ export function loadProject(root: string, options: SiteBuildOptions): Project {
     templates,
     templateDigests,
     bodies,
-    objectsDigest: hashFiles(content, objectFiles),
+    satellites,
+    objectsDigest: hashFiles(content, [...objectFiles, ...satelliteFiles]),
     codeDigest: codeDigest(root),
     pages,
   };
