@@ -137,6 +137,9 @@ export async function removeStaleWork(out: string): Promise<string[]> {
   return removed;
 }
 
+/** Swaps made by this process, part of each published folder's name. */
+let swapCount = 0;
+
 /** Where a published build lives when `out` is a link to it: `.<name>-<stamp>` beside `out`. */
 function versionFolder(out: string, stamp: string): string {
   return join(dirname(out), `.${basename(out)}-${stamp}`);
@@ -173,7 +176,8 @@ export async function swapInto(fresh: string, out: string, options: { links?: bo
     if (had) await rm(old, { recursive: true, force: true });
     return;
   }
-  const stamp = `${Date.now().toString(36)}-${process.pid}`;
+  // The clock alone can repeat within a millisecond (two swaps in a row): a per-process count keeps names apart.
+  const stamp = `${Date.now().toString(36)}${(swapCount++).toString(36).padStart(3, '0')}-${process.pid}`;
   const target = versionFolder(out, stamp);
   await rename(fresh, target);
   const previous = isLink ? join(parent, await readlink(out)) : null;
