@@ -88,3 +88,23 @@ export function siteFromFlags(values: Record<string, unknown>, options: { needZo
     ...(typeof values.sky === 'string' ? { sky: parseSkyArgument(values.sky) } : {}),
   });
 }
+
+/**
+ * The flags of the commands that list what happens at a site over a date range (`events`,
+ * `passes`): the site (by id or coordinates), the range, the content folder and the output form.
+ */
+export const SITE_RANGE_OPTIONS = {
+  site: { type: 'string' },
+  lat: { type: 'string' },
+  lon: { type: 'string' },
+  elevation: { type: 'string' },
+  tz: { type: 'string' },
+  sky: { type: 'string' },
+  from: { type: 'string' },
+  to: { type: 'string' },
+  content: { type: 'string' },
+  json: { type: 'boolean' },
+  ics: { type: 'boolean' },
+  now: { type: 'string' },
+  help: { type: 'boolean', short: 'h' },
+} as const;

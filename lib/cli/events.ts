@@ -7,7 +7,7 @@ import { resolve } from 'node:path';
 import { BodyRegistry } from '../body.ts';
 import { loadBodies } from '../content.ts';
 import { GloamingError } from '../errors.ts';
-import { argumentError, joinNegativeNumbers, siteFromFlags } from './args.ts';
+import { argumentError, joinNegativeNumbers, siteFromFlags, SITE_RANGE_OPTIONS } from './args.ts';
 import { addDays, formatInstant, parseInstant, parseLocalDate, roundInstant, zonedTime } from '../time.ts';
 import { EVENT_TYPES, eventsToICalendar, findEvents, type AlmanacEvent, type AlmanacEventType } from '../almanac/index.ts';
 import { round } from './format.ts';
@@ -40,22 +40,10 @@ Times are ISO 8601 with the site's UTC offset. Events that cannot be seen from t
 listed with visible: false and the reason; solar eclipses always carry the eye-safety caution.`;
 
 const OPTIONS = {
-  site: { type: 'string' },
-  lat: { type: 'string' },
-  lon: { type: 'string' },
-  elevation: { type: 'string' },
-  tz: { type: 'string' },
-  sky: { type: 'string' },
-  from: { type: 'string' },
-  to: { type: 'string' },
+  ...SITE_RANGE_OPTIONS,
   order: { type: 'string' },
   type: { type: 'string', multiple: true },
-  content: { type: 'string' },
-  json: { type: 'boolean' },
-  ics: { type: 'boolean' },
-  now: { type: 'string' },
   prodid: { type: 'string' },
-  help: { type: 'boolean', short: 'h' },
 } as const;
 
 /** One event as the command's JSON (a public shape: keep these names). */

@@ -10,7 +10,7 @@ import { findPasses, PASS_REASON_TEXT, type PassPoint, type SatellitePass } from
 import { addDays, formatClock, formatInstant, parseInstant, parseLocalDate } from '../time.ts';
 import { eventsToICalendar } from '../almanac/ical.ts';
 import { passEvent } from '../satellite/events.ts';
-import { argumentError, joinNegativeNumbers, requireFlag, siteFromFlags } from './args.ts';
+import { argumentError, joinNegativeNumbers, requireFlag, siteFromFlags, SITE_RANGE_OPTIONS } from './args.ts';
 import { round } from './format.ts';
 
 export const PASSES_HELP = `gloaming passes — satellite passes over a site: when, where, how bright, visible or not
@@ -36,21 +36,9 @@ Only passes a member of the public can see with the naked eye are listed unless 
 Element sets more than 14 days from a pass are refused: refresh them first.`;
 
 const OPTIONS = {
-  site: { type: 'string' },
-  lat: { type: 'string' },
-  lon: { type: 'string' },
-  elevation: { type: 'string' },
-  tz: { type: 'string' },
-  sky: { type: 'string' },
-  from: { type: 'string' },
-  to: { type: 'string' },
+  ...SITE_RANGE_OPTIONS,
   satellite: { type: 'string', multiple: true },
   all: { type: 'boolean' },
-  content: { type: 'string' },
-  json: { type: 'boolean' },
-  ics: { type: 'boolean' },
-  now: { type: 'string' },
-  help: { type: 'boolean', short: 'h' },
 } as const;
 
 function pointJson(p: PassPoint, zone: string): Record<string, unknown> {
