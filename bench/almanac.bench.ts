@@ -3,8 +3,8 @@
  * demo comet from content/objects/ (budget 2 s).
  */
 import { fileURLToPath } from 'node:url';
-import { findEvents } from '../lib/almanac/index.ts';
-import { loadBodies, loadSites } from '../lib/content.ts';
+import { findEvents } from '../lib/outputs/almanac/index.ts';
+import { loadBodies, loadSites } from '../lib/models/content.ts';
 import { measure, report, type BenchRow } from './harness.ts';
 
 const content = fileURLToPath(new URL('../content/', import.meta.url));

@@ -7,10 +7,10 @@
  *   node bench/bulletin.bench.ts        (or `npm run bench -- bulletin`)
  */
 import { readFileSync } from 'node:fs';
-import { BodyRegistry } from '../lib/body.ts';
-import { loadSites } from '../lib/content.ts';
-import { addDays, isoWeekOf } from '../lib/time.ts';
-import { WeekCache, parseBulletin, renderBulletin } from '../lib/bulletin/index.ts';
+import { BodyRegistry } from '../lib/core/body.ts';
+import { loadSites } from '../lib/models/content.ts';
+import { addDays, isoWeekOf } from '../lib/core/time.ts';
+import { WeekCache, parseBulletin, renderBulletin } from '../lib/outputs/bulletin/index.ts';
 import { measure, report, type BenchRow } from './harness.ts';
 
 const root = new URL('..', import.meta.url).pathname;

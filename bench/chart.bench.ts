@@ -9,9 +9,9 @@
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { builtInBody } from '../lib/body.ts';
-import { ChartCache, drawChart, rasterizeChart, type ChartRequest } from '../lib/chart/index.ts';
-import { loadBodies, loadSites } from '../lib/content.ts';
+import { builtInBody } from '../lib/core/body.ts';
+import { ChartCache, drawChart, rasterizeChart, type ChartRequest } from '../lib/outputs/chart/index.ts';
+import { loadBodies, loadSites } from '../lib/models/content.ts';
 import { measure, report, type BenchRow } from './harness.ts';
 
 const sites = loadSites('content/sites');

@@ -3,10 +3,10 @@
  * (positions at hourly nodes, rise/transit/set, the Sun's twilights, Moon phase) and a year of
  * consecutive nights for one site; and (issue #4) the best time, window and verdict of one body-night.
  */
-import { builtInBody, PLANET_IDS } from '../lib/body.ts';
-import { defineSite } from '../lib/site.ts';
-import { computeNight } from '../lib/night.ts';
-import { addDays } from '../lib/time.ts';
+import { builtInBody, PLANET_IDS } from '../lib/core/body.ts';
+import { defineSite } from '../lib/core/site.ts';
+import { computeNight } from '../lib/models/night.ts';
+import { addDays } from '../lib/core/time.ts';
 import { measure, report, type BenchRow } from './harness.ts';
 
 const site = defineSite({ id: 'bench', latitude: 51.48, longitude: -0.0, timeZone: 'Europe/London' });

@@ -4,9 +4,9 @@
  * phase, magnitude), and the bare two-body solution of a near-parabolic orbit.
  */
 import * as Astronomy from 'astronomy-engine';
-import { smallBody } from '../lib/orbit/body.ts';
-import { loadObjectFile } from '../lib/orbit/elements.ts';
-import { conicPosition } from '../lib/orbit/kepler.ts';
+import { smallBody } from '../lib/models/orbit/body.ts';
+import { loadObjectFile } from '../lib/models/orbit/elements.ts';
+import { conicPosition } from '../lib/models/orbit/kepler.ts';
 import { measure, report, type BenchRow } from './harness.ts';
 
 const comet = smallBody(loadObjectFile(new URL('../content/objects/comet-lumen.yaml', import.meta.url).pathname));

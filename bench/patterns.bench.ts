@@ -6,7 +6,7 @@
  *   node bench/patterns.bench.ts        (or `npm run bench -- patterns`)
  */
 import { Body, Equator, MakeTime, Observer } from 'astronomy-engine';
-import { describeMotion, guideTarget } from '../lib/stars/guide.ts';
+import { describeMotion, guideTarget } from '../lib/models/stars/guide.ts';
 import { measure, report, type BenchRow } from './harness.ts';
 
 const observer = { latitudeDeg: 51.48, longitudeDeg: 0, elevationM: 20 };

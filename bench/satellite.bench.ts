@@ -5,11 +5,11 @@
  * The 50 satellites are synthetic low-orbit element sets spread in inclination (28°–99°), height
  * (about 350–900 km) and node, with epochs on the demo's build date, like a bright-satellite list.
  */
-import { readOmmJson } from '../lib/satellite/elements.ts';
-import { findPasses, type Satellite } from '../lib/satellite/passes.ts';
-import { SatelliteObserver, stateAt } from '../lib/satellite/propagate.ts';
-import { defineSite } from '../lib/site.ts';
-import { utDays } from '../lib/track.ts';
+import { readOmmJson } from '../lib/models/satellite/elements.ts';
+import { findPasses, type Satellite } from '../lib/models/satellite/passes.ts';
+import { SatelliteObserver, stateAt } from '../lib/models/satellite/propagate.ts';
+import { defineSite } from '../lib/core/site.ts';
+import { utDays } from '../lib/core/track.ts';
 import { measure, report, type BenchRow } from './harness.ts';
 
 const site = defineSite({ id: 'bench', latitude: 50.45, longitude: -1.55, elevation: 28, timeZone: 'Europe/London', sky: { bortle: 7 }, minAltitude: 10 });

@@ -4,7 +4,7 @@
  * instruments — and a batch of 1000 such evaluations with varying inputs, which is the scale of
  * one body-night search (the issue's budget for a whole body-night is 2 ms).
  */
-import { DEFAULT_INSTRUMENTS, skyBrightness, visibilityMargin, type SkyBrightnessInput } from '../lib/sky/index.ts';
+import { DEFAULT_INSTRUMENTS, skyBrightness, visibilityMargin, type SkyBrightnessInput } from '../lib/models/sky/index.ts';
 import { measure, report, type BenchRow } from './harness.ts';
 
 const instruments = [DEFAULT_INSTRUMENTS['naked-eye'], DEFAULT_INSTRUMENTS.binoculars, DEFAULT_INSTRUMENTS.telescope];

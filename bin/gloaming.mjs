@@ -10,7 +10,7 @@ if (major < 22 || (major === 22 && minor < 18)) {
   );
   process.exit(1);
 }
-const { main } = await import('../lib/cli/main.ts');
+const { main } = await import('../lib/outputs/cli/main.ts');
 // The edge of the command line reads the clock (for `check`'s default span); lib/ never does.
 const today = process.env.GLOAMING_TODAY || new Date().toISOString().slice(0, 10);
 process.exitCode = main(process.argv.slice(2), console.log, console.error, { today });

@@ -1,5 +1,5 @@
 /**
- * Builds lib/stars/catalogue.json, the compact bright-star table, from the star data of the
+ * Builds lib/models/stars/catalogue.json, the compact bright-star table, from the star data of the
  * `d3-celestial` npm package (devDependency; BSD-3-Clause, notice in LICENSES/d3-celestial-data.txt).
  * Only its star data files are read: none of its code, line figures, asterisms or styles.
  *
@@ -13,7 +13,7 @@
  * - `starnames.json`: keyed by Hipparcos number; fields `name` (proper name; the package documents it
  *   as the official IAU name), `bayer` (Greek letter or Latin letter, with a digit for components,
  *   e.g. `α1`), `flam` (Flamsteed number), `c` (IAU constellation abbreviation). All fields optional.
- * - `lib/stars/patterns.yaml`: every star a pattern uses is kept even when fainter than the limit.
+ * - `lib/models/stars/patterns.yaml`: every star a pattern uses is kept even when fainter than the limit.
  *
  * Output rows: [hip, raDeg, decDeg, vMag, bv | null, bayer, flamsteed, name, con, designationCon];
  * empty string when a designation or name is missing. `con` is the IAU constellation that holds
@@ -30,8 +30,8 @@ import { parse } from 'yaml';
 
 const root = fileURLToPath(new URL('..', import.meta.url));
 const dataDir = `${root}node_modules/d3-celestial/data/`;
-const patternsFile = `${root}lib/stars/patterns.yaml`;
-const outFile = `${root}lib/stars/catalogue.json`;
+const patternsFile = `${root}lib/models/stars/patterns.yaml`;
+const outFile = `${root}lib/models/stars/catalogue.json`;
 
 /** Every star to this V magnitude is kept. */
 const MAG_LIMIT = 5.5;

@@ -21,17 +21,17 @@
  * folder and writes one sitemap index for all of them.
  *
  * Errors are printed as `error: file:line:column: message` without a stack trace. Exit codes are
- * the command line's (`EXIT_CODES` in lib/errors.ts): 2 for input and output problems, 1 for
+ * the command line's (`EXIT_CODES` in lib/core/errors.ts): 2 for input and output problems, 1 for
  * anything unexpected (with the stack).
  */
 import { cp, mkdir, readdir, readFile, rm, writeFile } from 'node:fs/promises';
 import { dirname, join, relative, resolve, sep } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { parseArgs } from 'node:util';
-import { ProblemList, assertPublishable, checkPages, errorsOf, formatProblem } from '../lib/bulletin/index.ts';
-import { ChartCache } from '../lib/chart/cache.ts';
-import { ERROR_CODES, EXIT_CODES, GloamingError, type ErrorCode, type Place } from '../lib/errors.ts';
-import { parseLocalDate } from '../lib/time.ts';
+import { ProblemList, assertPublishable, checkPages, errorsOf, formatProblem } from '../lib/outputs/bulletin/index.ts';
+import { ChartCache } from '../lib/outputs/chart/cache.ts';
+import { ERROR_CODES, EXIT_CODES, GloamingError, type ErrorCode, type Place } from '../lib/core/errors.ts';
+import { parseLocalDate } from '../lib/core/time.ts';
 import { chartCacheDir, parseSiteList } from '../site/gloaming/options.ts';
 import { loadProject } from '../site/gloaming/project.ts';
 import { budgetMessage, checkLinkedFiles, pagesOverBudget } from './output-check.ts';

@@ -7,7 +7,7 @@
 import { readFile } from 'node:fs/promises';
 import { existsSync, statSync } from 'node:fs';
 import { join, posix } from 'node:path';
-import { GloamingError } from '../lib/errors.ts';
+import { GloamingError } from '../lib/core/errors.ts';
 
 /** An address a page links, with the page's path (relative to the output folder, `/` separators). */
 export interface Link {

@@ -14,9 +14,9 @@
 import { readFileSync, renameSync, writeFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { parseArgs } from 'node:util';
-import { GloamingError } from '../lib/errors.ts';
-import { CATALOGUE_FILE, parseCatalogue } from '../lib/satellite/catalogue.ts';
-import { readOmmJson } from '../lib/satellite/elements.ts';
+import { GloamingError } from '../lib/core/errors.ts';
+import { CATALOGUE_FILE, parseCatalogue } from '../lib/models/satellite/catalogue.ts';
+import { readOmmJson } from '../lib/models/satellite/elements.ts';
 
 const DEFAULT_SOURCE = 'https://celestrak.org/NORAD/elements/gp.php?CATNR={norad}&FORMAT=json';
 

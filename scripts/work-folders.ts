@@ -6,7 +6,7 @@
  */
 import { lstat, mkdir, open, readdir, readFile, readlink, rename, rm, stat, symlink } from 'node:fs/promises';
 import { basename, dirname, join } from 'node:path';
-import { GloamingError } from '../lib/errors.ts';
+import { GloamingError } from '../lib/core/errors.ts';
 
 /** Whether a process with this id is running on this machine. */
 export function processAlive(pid: number): boolean {

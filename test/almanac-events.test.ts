@@ -5,12 +5,12 @@
  * (Koschack & Rendtel 1990) and common practice, the Moon's interference, and the command.
  */
 import { describe, expect, it } from 'vitest';
-import { GloamingError } from '../lib/errors.ts';
-import { defineSite } from '../lib/site.ts';
-import { findEvents, hourlyRate, METEOR_SHOWERS, type AlmanacEvent } from '../lib/almanac/index.ts';
-import { eventJson, EVENTS_HELP, runEvents } from '../lib/cli/events.ts';
-import { observe } from '../lib/observe.ts';
-import { builtInBody } from '../lib/body.ts';
+import { GloamingError } from '../lib/core/errors.ts';
+import { defineSite } from '../lib/core/site.ts';
+import { findEvents, hourlyRate, METEOR_SHOWERS, type AlmanacEvent } from '../lib/outputs/almanac/index.ts';
+import { eventJson, EVENTS_HELP, runEvents } from '../lib/outputs/cli/events.ts';
+import { observe } from '../lib/core/observe.ts';
+import { builtInBody } from '../lib/core/body.ts';
 import { expectWithin, separationDeg } from './helpers/tolerance.ts';
 
 const london = defineSite({ id: 'london', name: 'London', latitude: 51.5, longitude: -0.12, timeZone: 'Europe/London', sky: { bortle: 6 } });
@@ -191,7 +191,7 @@ describe('gloaming events (runEvents)', () => {
 
 describe('week helpers for the bulletin placeholders', () => {
   it('eventsOfWeek covers Monday 00:00 to the next Monday 00:00 local time (week of 2023-03-01, UK winter time)', async () => {
-    const { eventsOfWeek, pickEvent } = await import('../lib/almanac/index.ts');
+    const { eventsOfWeek, pickEvent } = await import('../lib/outputs/almanac/index.ts');
     const week = eventsOfWeek({ site: london, date: '2023-03-01' });
     for (const e of week) {
       expect(e.time.getTime()).toBeGreaterThanOrEqual(Date.parse('2023-02-27T00:00:00Z'));
@@ -205,8 +205,8 @@ describe('week helpers for the bulletin placeholders', () => {
 
 describe('comets passing the stars of familiar patterns', () => {
   it('finds the invented comet passing stars of the Circlet of Pisces, at the separation of the two J2000 directions (Meeus eq. 17.1)', async () => {
-    const { loadBodies } = await import('../lib/content.ts');
-    const { starByHip } = await import('../lib/stars/catalogue.ts');
+    const { loadBodies } = await import('../lib/models/content.ts');
+    const { starByHip } = await import('../lib/models/stars/catalogue.ts');
     const bodies = loadBodies('content/objects');
     const events = findEvents({ site: london, from: new Date('2027-01-20T00:00:00Z'), to: new Date('2027-02-15T00:00:00Z'), bodies, options: { types: ['close-approach'] } });
     const passes = events.filter((e) => e.bodies[0] === 'comet-lumen' && e.bodies[1]!.startsWith('star:'));
@@ -225,11 +225,11 @@ describe('comets passing the stars of familiar patterns', () => {
 
 describe('comet and asteroid events speak for the site', () => {
   it("say what the site's own visibility verdict for that night says (not a magnitude rule), with its best time", async () => {
-    const { loadBodies } = await import('../lib/content.ts');
-    const { computeNight } = await import('../lib/night.ts');
-    const { nightDateOf } = await import('../lib/almanac/context.ts');
-    const { VERDICT_WORDS } = await import('../lib/visibility.ts');
-    const { formatClock } = await import('../lib/time.ts');
+    const { loadBodies } = await import('../lib/models/content.ts');
+    const { computeNight } = await import('../lib/models/night.ts');
+    const { nightDateOf } = await import('../lib/outputs/almanac/context.ts');
+    const { VERDICT_WORDS } = await import('../lib/models/visibility.ts');
+    const { formatClock } = await import('../lib/core/time.ts');
     const bodies = loadBodies('content/objects');
     const comet = bodies.get('comet-lumen');
     const city = defineSite({ id: 'city', name: 'City centre', latitude: 51.5, longitude: -0.12, timeZone: 'Europe/London', sky: { bortle: 9 } });

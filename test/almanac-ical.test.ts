@@ -6,9 +6,9 @@
  */
 import { describe, expect, it } from 'vitest';
 import ICAL from 'ical.js';
-import { defineSite } from '../lib/site.ts';
-import { eventsToICalendar, findEvents, type AlmanacEvent } from '../lib/almanac/index.ts';
-import { escapeText, foldLine } from '../lib/almanac/ical.ts';
+import { defineSite } from '../lib/core/site.ts';
+import { eventsToICalendar, findEvents, type AlmanacEvent } from '../lib/outputs/almanac/index.ts';
+import { escapeText, foldLine } from '../lib/outputs/almanac/ical.ts';
 
 const site = defineSite({ id: 'harbour', name: 'Harbour Roof, "Quayside"; level 5', latitude: 50.45, longitude: -1.55, timeZone: 'Europe/London', sky: { bortle: 7 } });
 const now = new Date('2026-07-01T08:00:00Z');

@@ -13,9 +13,9 @@ import * as apsis from 'astronomia/apsis';
 import { Planet } from 'astronomia/planetposition';
 import data from 'astronomia/data';
 import { apparentGeocentric } from './reference/core/astronomia-reference.ts';
-import { builtInBody } from '../lib/body.ts';
-import { defineSite } from '../lib/site.ts';
-import { closestApproaches, findEvents, METEOR_SHOWERS, type AlmanacEvent, type AlmanacEventType } from '../lib/almanac/index.ts';
+import { builtInBody } from '../lib/core/body.ts';
+import { defineSite } from '../lib/core/site.ts';
+import { closestApproaches, findEvents, METEOR_SHOWERS, type AlmanacEvent, type AlmanacEventType } from '../lib/outputs/almanac/index.ts';
 import { errorStats, expectWithin, MINUTE_MS } from './helpers/tolerance.ts';
 
 const RAD = Math.PI / 180;

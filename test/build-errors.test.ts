@@ -6,8 +6,8 @@
  */
 import { describe, expect, it } from 'vitest';
 import { asGloamingError, report } from '../scripts/build.ts';
-import { main } from '../lib/cli/main.ts';
-import { EXIT_CODES, GloamingError } from '../lib/errors.ts';
+import { main } from '../lib/outputs/cli/main.ts';
+import { EXIT_CODES, GloamingError } from '../lib/core/errors.ts';
 
 /** A GloamingError as another module instance makes it: same shape, different class. */
 function foreign(error: GloamingError): Error {

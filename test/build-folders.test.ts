@@ -8,7 +8,7 @@ import { existsSync, lstatSync, mkdirSync, mkdtempSync, readdirSync, readFileSyn
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
-import { GloamingError } from '../lib/errors.ts';
+import { GloamingError } from '../lib/core/errors.ts';
 import { checkOutput, readOptions } from '../scripts/build.ts';
 import { checkLinkedFiles } from '../scripts/output-check.ts';
 import { acquireBuildLock, removeStaleWork, swapInto, workFolder } from '../scripts/work-folders.ts';

@@ -5,18 +5,18 @@
  * (the default front matter is lines 1–5, the body starts on line 6).
  */
 import { describe, expect, it } from 'vitest';
-import { BodyRegistry } from '../lib/body.ts';
-import { loadSites } from '../lib/content.ts';
-import { GloamingError } from '../lib/errors.ts';
-import { isoWeekOf } from '../lib/time.ts';
-import { parseBulletin, pagesFor, renderBulletinSync } from '../lib/bulletin/index.ts';
+import { BodyRegistry } from '../lib/core/body.ts';
+import { loadSites } from '../lib/models/content.ts';
+import { GloamingError } from '../lib/core/errors.ts';
+import { isoWeekOf } from '../lib/core/time.ts';
+import { parseBulletin, pagesFor, renderBulletinSync } from '../lib/outputs/bulletin/index.ts';
 import { CASE_INPUTS } from './bulletin-errors.cases.ts';
 
 const sites = loadSites('content/sites');
 
 const EXPECTED: Record<string, [string, string]> = {
-  "unknown placeholder with suggestion": ["unknown-placeholder", "content/bulletins/bad.md:6:5: unknown placeholder ':sunsett'; expected a placeholder listed in lib/bulletin/PLACEHOLDERS.md — did you mean 'sunset'?"],
-  "unknown placeholder without suggestion": ["unknown-placeholder", "content/bulletins/bad.md:6:3: unknown placeholder ':frobnicate'; expected a placeholder listed in lib/bulletin/PLACEHOLDERS.md — write \\: to keep a literal colon before a word"],
+  "unknown placeholder with suggestion": ["unknown-placeholder", "content/bulletins/bad.md:6:5: unknown placeholder ':sunsett'; expected a placeholder listed in lib/outputs/bulletin/PLACEHOLDERS.md — did you mean 'sunset'?"],
+  "unknown placeholder without suggestion": ["unknown-placeholder", "content/bulletins/bad.md:6:3: unknown placeholder ':frobnicate'; expected a placeholder listed in lib/outputs/bulletin/PLACEHOLDERS.md — write \\: to keep a literal colon before a word"],
   "unknown attribute": ["invalid-placeholder", "content/bulletins/bad.md:6:1 field 'nigth': unknown attribute 'nigth' on ':rise'; expected one of body, night, clock, precision — did you mean 'night'?"],
   "unknown body": ["unknown-body", "content/bulletins/bad.md:6:7 field 'body': unknown body 'jupyter'; expected one of sun, moon, mercury, venus, mars, jupiter, saturn, uranus, neptune — did you mean 'jupiter'?"],
   "missing body": ["invalid-placeholder", "content/bulletins/bad.md:6:1 field 'body': ':rise' needs the attribute 'body' (or sit inside :::every-target); expected the body or object — e.g. :rise{body=jupiter}"],

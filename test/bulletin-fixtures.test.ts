@@ -8,11 +8,11 @@ import { existsSync, readFileSync, readdirSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import * as Astronomy from 'astronomy-engine';
 import { describe, expect, it } from 'vitest';
-import { BodyRegistry } from '../lib/body.ts';
-import { loadSites, parseSite } from '../lib/content.ts';
-import { GloamingError } from '../lib/errors.ts';
-import { isoWeekOf } from '../lib/time.ts';
-import { ECLIPSE_CAUTION, WeekCache, assertPublishable, formatProblem, pagesFor, parseBulletin, placeholderTable, renderBulletin } from '../lib/bulletin/index.ts';
+import { BodyRegistry } from '../lib/core/body.ts';
+import { loadSites, parseSite } from '../lib/models/content.ts';
+import { GloamingError } from '../lib/core/errors.ts';
+import { isoWeekOf } from '../lib/core/time.ts';
+import { ECLIPSE_CAUTION, WeekCache, assertPublishable, formatProblem, pagesFor, parseBulletin, placeholderTable, renderBulletin } from '../lib/outputs/bulletin/index.ts';
 
 const ROOT = 'test/fixtures';
 const UPDATE = process.env.UPDATE_FIXTURES === '1';
@@ -138,8 +138,8 @@ describe('assertPublishable', () => {
 });
 
 describe('docs', () => {
-  it('lib/bulletin/PLACEHOLDERS.md equals the table generated from the registry (UPDATE_FIXTURES=1 rewrites it)', () => {
-    const file = 'lib/bulletin/PLACEHOLDERS.md';
+  it('lib/outputs/bulletin/PLACEHOLDERS.md equals the table generated from the registry (UPDATE_FIXTURES=1 rewrites it)', () => {
+    const file = 'lib/outputs/bulletin/PLACEHOLDERS.md';
     const table = placeholderTable();
     if (UPDATE) writeFileSync(file, table);
     expect(readFileSync(file, 'utf8')).toBe(table);

@@ -3,9 +3,9 @@
  * an error placed at the line and column where the limit is crossed; one just under it is read.
  */
 import { describe, expect, it } from 'vitest';
-import { parseBulletin } from '../lib/bulletin/index.ts';
-import { MAX_TEMPLATE_BYTES } from '../lib/bulletin/limits.ts';
-import { GloamingError } from '../lib/errors.ts';
+import { parseBulletin } from '../lib/outputs/bulletin/index.ts';
+import { MAX_TEMPLATE_BYTES } from '../lib/outputs/bulletin/limits.ts';
+import { GloamingError } from '../lib/core/errors.ts';
 
 const FRONT = '---\ntitle: T\nsites: all\nschedule: { every: week }\n---\n'; // 5 lines
 const LINE = 'The Moon and Jupiter are close tonight — look south-east after dark. ✨\n';

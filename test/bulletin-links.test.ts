@@ -5,12 +5,12 @@
  * newline removed); Markdown parsing of entities and autolinks: CommonMark 0.31 §2.5, §6.5.
  */
 import { describe, expect, it } from 'vitest';
-import { BodyRegistry } from '../lib/body.ts';
-import { parseBulletin, renderBulletinSync } from '../lib/bulletin/index.ts';
-import { isSafeUrl } from '../lib/bulletin/links.ts';
-import { loadSites } from '../lib/content.ts';
-import { GloamingError } from '../lib/errors.ts';
-import { isoWeekOf } from '../lib/time.ts';
+import { BodyRegistry } from '../lib/core/body.ts';
+import { parseBulletin, renderBulletinSync } from '../lib/outputs/bulletin/index.ts';
+import { isSafeUrl } from '../lib/outputs/bulletin/links.ts';
+import { loadSites } from '../lib/models/content.ts';
+import { GloamingError } from '../lib/core/errors.ts';
+import { isoWeekOf } from '../lib/core/time.ts';
 
 const site = [...loadSites('content/sites').values()][0]!;
 const week = isoWeekOf('2026-12-02');

@@ -1,20 +1,20 @@
 /**
  * Every placeholder renders for a grid of sites and weeks, and its value equals what the library
- * computes for that site and night (lib/night.ts, lib/observe.ts, lib/visibility.ts called
+ * computes for that site and night (lib/models/night.ts, lib/core/observe.ts, lib/models/visibility.ts called
  * directly). A few values are cross-checked against astronomy-engine's own searches
  * (SearchRiseSet, SearchAltitude) as an outside reference.
  */
 import * as Astronomy from 'astronomy-engine';
 import { describe, expect, it } from 'vitest';
-import { eventsOfWeek } from '../lib/almanac/index.ts';
-import { BodyRegistry, builtInBody } from '../lib/body.ts';
-import { loadSites } from '../lib/content.ts';
-import { compass } from '../lib/describe.ts';
-import { computeNight } from '../lib/night.ts';
-import { observe } from '../lib/observe.ts';
-import type { Site } from '../lib/site.ts';
-import { formatInstant, isoWeekOf, localMidnight, nightOf, type IsoWeek } from '../lib/time.ts';
-import { PLACEHOLDERS, WeekCache, parseBulletin, renderBulletinSync } from '../lib/bulletin/index.ts';
+import { eventsOfWeek } from '../lib/outputs/almanac/index.ts';
+import { BodyRegistry, builtInBody } from '../lib/core/body.ts';
+import { loadSites } from '../lib/models/content.ts';
+import { compass } from '../lib/core/describe.ts';
+import { computeNight } from '../lib/models/night.ts';
+import { observe } from '../lib/core/observe.ts';
+import type { Site } from '../lib/core/site.ts';
+import { formatInstant, isoWeekOf, localMidnight, nightOf, type IsoWeek } from '../lib/core/time.ts';
+import { PLACEHOLDERS, WeekCache, parseBulletin, renderBulletinSync } from '../lib/outputs/bulletin/index.ts';
 import { MINUTE_MS, expectWithin } from './helpers/tolerance.ts';
 
 const sites = loadSites('content/sites');
@@ -125,7 +125,7 @@ describe.each(SITE_IDS)('site %s', (siteId) => {
 
     it('magnitude over the week spans the values at each local midnight (astronomy-engine Illumination)', () => {
       const e = element(render(site, week, ':magnitude{body=jupiter precision=2}'), 'magnitude');
-      // Outside reference: astronomy-engine's Illumination().mag at each night's local midnight (lib/body.ts
+      // Outside reference: astronomy-engine's Illumination().mag at each night's local midnight (lib/core/body.ts
       // uses it for Jupiter; Saturn has its own ring formula there, so Jupiter is the planet checked).
       const mags = week.days.map((d) => Astronomy.Illumination(Astronomy.Body.Jupiter, Astronomy.MakeTime(localMidnight(nightOf(d, site.timeZone)))).mag);
       expectWithin(Number(e.attrs['data-magnitude-min']), Math.min(...mags), 0.006, 'min magnitude');
@@ -150,7 +150,7 @@ describe.each(SITE_IDS)('site %s', (siteId) => {
       if (sunsetFri.time) expect(html).toContain(`datetime="${formatInstant(sunsetFri.time, site.timeZone)}"`);
     });
 
-    it('guide phrase equals the guide pattern of lib/night.ts', () => {
+    it('guide phrase equals the guide pattern of lib/models/night.ts', () => {
       const g = night.bodies[0]!.guide;
       const e = element(render(site, week, ':guide{body=jupiter night=fri}'), 'guide');
       if (g) {
@@ -162,14 +162,14 @@ describe.each(SITE_IDS)('site %s', (siteId) => {
       }
     });
 
-    it('chart: the view at the best time of lib/night.ts, or an honest sentence with the reason', () => {
+    it('chart: the view at the best time of lib/models/night.ts, or an honest sentence with the reason', () => {
       const v = night.bodies[0]!.visibility;
       const html = render(site, week, '::chart{body=jupiter night=fri}');
       if (v.best) {
         const e = element(html, 'chart');
         expect(e.tag).toBe('figure');
         const alt = /alt="([^"]*)"/.exec(html)![1]!;
-        // The alt text names the compass direction and the altitude of the best moment (lib/describe.ts words).
+        // The alt text names the compass direction and the altitude of the best moment (lib/core/describe.ts words).
         expect(alt.toLowerCase()).toContain(`looking ${compass(v.best.azimuthDeg).word}`);
         expect(alt).toContain(`Jupiter ${Math.round(v.best.altitudeDeg)}° up`);
         expect(html).toMatch(/<img src="\/charts\/[0-9a-f]+\.svg" width="\d+" height="\d+" loading="lazy" decoding="async"/);
@@ -180,7 +180,7 @@ describe.each(SITE_IDS)('site %s', (siteId) => {
       }
     });
 
-    it('events: the week of lib/almanac (eventsOfWeek), one item per event with its local time; :event picks by type', () => {
+    it('events: the week of lib/outputs/almanac (eventsOfWeek), one item per event with its local time; :event picks by type', () => {
       const events = eventsOfWeek({ site, date: week.days[0]!, bodies });
       const html = render(site, week, '::events');
       const times = [...html.matchAll(/<li data-type="([a-z-]+)"[^>]*><time datetime="([^"]+)"/g)].map((m) => [m[1], m[2]]);
@@ -205,7 +205,7 @@ describe.each(SITE_IDS)('site %s', (siteId) => {
 });
 
 describe('outside reference: astronomy-engine searches', () => {
-  // astronomy-engine 2.1 SearchRiseSet / SearchAltitude (independent of lib/search.ts), within a minute.
+  // astronomy-engine 2.1 SearchRiseSet / SearchAltitude (independent of lib/core/search.ts), within a minute.
   const cases = SITE_IDS.flatMap((id) => ['2026-03-11', '2026-12-02'].map((d) => [id, d] as const));
   it.each(cases)('%s, week of %s: sunset, jupiter rise and astronomical dark', (siteId, date) => {
     const site = sites.get(siteId)!;
@@ -228,7 +228,7 @@ describe('outside reference: astronomy-engine searches', () => {
 describe('eye safety', () => {
   it('a week with a solar eclipse visible from the site carries the eclipse caution without being marked as an eclipse bulletin', () => {
     // The solar eclipse of 2026 August 12 (total in Spain, partial over the British Isles; date from
-    // memory, found here by astronomy-engine's local solar eclipse search through lib/almanac).
+    // memory, found here by astronomy-engine's local solar eclipse search through lib/outputs/almanac).
     const site = sites.get('harbour-roof')!;
     const template = parseBulletin('---\ntitle: T\nsites: all\nschedule: { every: week }\n---\nHello.\n', 'plain.md');
     const week = isoWeekOf('2026-08-12');

@@ -2,20 +2,20 @@
  * Sections (`:::provided`, `:::every-target`, `:::every-event`), value slots with no value, the
  * one-off date rule, and several problems reported in one run. Each decision is compared with an
  * outside reference where one exists (astronomy-engine's own searches and positions), otherwise
- * with the library's values computed directly (lib/night.ts, lib/almanac), never with the
+ * with the library's values computed directly (lib/models/night.ts, lib/outputs/almanac), never with the
  * section's own output.
  */
 import * as Astronomy from 'astronomy-engine';
 import { describe, expect, it } from 'vitest';
-import { eventsOfWeek, findEvents } from '../lib/almanac/index.ts';
-import { BodyRegistry, builtInBody } from '../lib/body.ts';
-import { loadSites } from '../lib/content.ts';
-import { GloamingError } from '../lib/errors.ts';
-import { computeNight } from '../lib/night.ts';
-import { defineSite, type Site } from '../lib/site.ts';
-import { formatInstant, isoWeekOf, localMidnight, nightOf, zonedTime, type IsoWeek } from '../lib/time.ts';
-import { computeWeek } from '../lib/week.ts';
-import { FALLBACK_MARK, TemplateErrors, WeekCache, formatProblem, parseBulletin, renderBulletinSync, type RenderedBulletin } from '../lib/bulletin/index.ts';
+import { eventsOfWeek, findEvents } from '../lib/outputs/almanac/index.ts';
+import { BodyRegistry, builtInBody } from '../lib/core/body.ts';
+import { loadSites } from '../lib/models/content.ts';
+import { GloamingError } from '../lib/core/errors.ts';
+import { computeNight } from '../lib/models/night.ts';
+import { defineSite, type Site } from '../lib/core/site.ts';
+import { formatInstant, isoWeekOf, localMidnight, nightOf, zonedTime, type IsoWeek } from '../lib/core/time.ts';
+import { computeWeek } from '../lib/models/week.ts';
+import { FALLBACK_MARK, TemplateErrors, WeekCache, formatProblem, parseBulletin, renderBulletinSync, type RenderedBulletin } from '../lib/outputs/bulletin/index.ts';
 import { MINUTE_MS, expectWithin } from './helpers/tolerance.ts';
 
 const sites = loadSites('content/sites');
@@ -49,7 +49,7 @@ describe.each(GRID)(':::provided at %s, %s', (_s, _w, site, week) => {
   const planets = (['venus', 'mars', 'jupiter', 'saturn'] as const).map((id) => builtInBody(id));
   const night = computeNight(site, fri, planets);
 
-  it('seen=naked-eye|binoculars|either follows the verdict of the visibility model (lib/visibility.ts via computeNight)', () => {
+  it('seen=naked-eye|binoculars|either follows the verdict of the visibility model (lib/models/visibility.ts via computeNight)', () => {
     for (const b of night.bodies) {
       const v = b.visibility.verdict;
       expect(shown(render(site, week, either(`seen=naked-eye body=${b.body.id} night=fri`)))).toBe(v === 'naked-eye');
@@ -118,7 +118,7 @@ describe(':::every-target and :::every-event', () => {
   const site = sites.get('harbour-roof')!;
   const week = isoWeekOf('2026-12-02');
 
-  it('repeats for each naked-eye planet of the night, by best time, with the body bound (lib/night.ts verdicts)', () => {
+  it('repeats for each naked-eye planet of the night, by best time, with the body bound (lib/models/night.ts verdicts)', () => {
     const night = computeNight(site, week.days[2]!, (['mercury', 'venus', 'mars', 'jupiter', 'saturn', 'uranus', 'neptune'] as const).map((id) => builtInBody(id)));
     const expected = night.bodies
       .filter((b) => b.visibility.verdict === 'naked-eye')
@@ -150,7 +150,7 @@ describe(':::every-target and :::every-event', () => {
     ]);
   });
 
-  it('repeats for each event of the week (lib/almanac eventsOfWeek), with the event bound: :event without a type is that event', () => {
+  it('repeats for each event of the week (lib/outputs/almanac eventsOfWeek), with the event bound: :event without a type is that event', () => {
     const events = eventsOfWeek({ site, date: week.days[0]!, bodies });
     expect(events.length).toBeGreaterThan(1);
     const r = render(site, week, ':::every-event\n- :name{}: :event{show=date}, :event\n:::');
@@ -251,7 +251,7 @@ describe('several problems in one run', () => {
     expect(error).toBeInstanceOf(TemplateErrors);
     const lines = (error as GloamingError).message.split('\n');
     expect(lines).toEqual([
-      `${FILE}:6:8: unknown placeholder ':sunsett'; expected a placeholder listed in lib/bulletin/PLACEHOLDERS.md — did you mean 'sunset'?`,
+      `${FILE}:6:8: unknown placeholder ':sunsett'; expected a placeholder listed in lib/outputs/bulletin/PLACEHOLDERS.md — did you mean 'sunset'?`,
       `${FILE}:8:1 field 'seen': 'sometimes' is not a value of 'seen' (got 'sometimes'); expected naked-eye | binoculars | either`,
       `${FILE}:12:1: unknown section ':::every-planet'; expected one of :::provided, :::every-target, :::every-event — did you mean 'every-target'?`,
       `${FILE}:13:1 field 'body': unknown body 'jupyter'; expected one of sun, moon, mercury, venus, mars, jupiter, saturn, uranus, neptune — did you mean 'jupiter'?`,

@@ -11,18 +11,18 @@
  * test/guide.test.ts); the boxes are the placer's estimates of the text extents.
  */
 import { describe, expect, it } from 'vitest';
-import { BUILT_IN_IDS, builtInBody, type Body } from '../lib/body.ts';
-import { horizonAltText, horizonChart, wholeSkyAltText, wholeSkyChart, eveningMoment, type HorizonChart, type WholeSkyChart } from '../lib/chart/index.ts';
-import { chartLabel } from '../lib/chart/words.ts';
-import { FAINT_STAR_MAG } from '../lib/chart/style.ts';
-import type { PlacedLabel } from '../lib/chart/svg.ts';
-import { loadBodies, loadSites } from '../lib/content.ts';
-import { computeNight } from '../lib/night.ts';
-import { defineSite, type Site } from '../lib/site.ts';
-import { addDays, isoWeekOf } from '../lib/time.ts';
+import { BUILT_IN_IDS, builtInBody, type Body } from '../lib/core/body.ts';
+import { horizonAltText, horizonChart, wholeSkyAltText, wholeSkyChart, eveningMoment, type HorizonChart, type WholeSkyChart } from '../lib/outputs/chart/index.ts';
+import { chartLabel } from '../lib/outputs/chart/words.ts';
+import { FAINT_STAR_MAG } from '../lib/outputs/chart/style.ts';
+import type { PlacedLabel } from '../lib/outputs/chart/svg.ts';
+import { loadBodies, loadSites } from '../lib/models/content.ts';
+import { computeNight } from '../lib/models/night.ts';
+import { defineSite, type Site } from '../lib/core/site.ts';
+import { addDays, isoWeekOf } from '../lib/core/time.ts';
 import { seededRandom } from './helpers/random.ts';
-import { starByHip } from '../lib/stars/catalogue.ts';
-import { patternById } from '../lib/stars/patterns.ts';
+import { starByHip } from '../lib/models/stars/catalogue.ts';
+import { patternById } from '../lib/models/stars/patterns.ts';
 
 const bodies = loadBodies('content/objects');
 const demoSites = [...loadSites('content/sites').values()];
@@ -63,7 +63,7 @@ function checkChart(chart: HorizonChart | WholeSkyChart, what: string): string[]
     }
   }
   // A pattern's name sits by its figure and on none of its stars, the stars the words name, or any
-  // star brighter than V 3 (fainter ones are avoided where there is room; lib/chart/svg.ts).
+  // star brighter than V 3 (fainter ones are avoided where there is room; lib/outputs/chart/svg.ts).
   const guidePattern = chart.guide?.pattern ? patternById(chart.guide.pattern.id) : null;
   const keep = new Set([...(guidePattern?.stars ?? []), ...(chart.guide?.names ?? []).flatMap((x) => (x.kind === 'star' ? [x.hip] : []))]);
   for (const l of labels.filter((x) => x.role === 'pattern')) {

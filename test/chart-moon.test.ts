@@ -5,8 +5,8 @@
  * circle; k = 0.5 is a straight line).
  */
 import { describe, expect, it } from 'vitest';
-import { makeLayout } from '../lib/chart/projection.ts';
-import { brightLimbAngle, moonMarkup } from '../lib/chart/moon.ts';
+import { makeLayout } from '../lib/outputs/chart/projection.ts';
+import { brightLimbAngle, moonMarkup } from '../lib/outputs/chart/moon.ts';
 
 const RAD = Math.PI / 180;
 // Facing south, centred on the horizon: east is on the left, west on the right (as on the charts).

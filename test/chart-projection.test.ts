@@ -8,7 +8,7 @@
  */
 import * as Astronomy from 'astronomy-engine';
 import { describe, expect, it } from 'vitest';
-import { stereographic } from '../lib/chart/projection.ts';
+import { stereographic } from '../lib/outputs/chart/projection.ts';
 import { expectWithin } from './helpers/tolerance.ts';
 import { seededRandom } from './helpers/random.ts';
 

@@ -9,10 +9,10 @@
 import { existsSync, readFileSync, writeFileSync } from 'node:fs';
 import { Resvg } from '@resvg/resvg-js';
 import { describe, expect, it } from 'vitest';
-import { builtInBody } from '../lib/body.ts';
-import { eveningMoment, horizonChart, wholeSkyChart } from '../lib/chart/index.ts';
-import { loadBodies, loadSites } from '../lib/content.ts';
-import { computeNight } from '../lib/night.ts';
+import { builtInBody } from '../lib/core/body.ts';
+import { eveningMoment, horizonChart, wholeSkyChart } from '../lib/outputs/chart/index.ts';
+import { loadBodies, loadSites } from '../lib/models/content.ts';
+import { computeNight } from '../lib/models/night.ts';
 
 const DIR = 'test/reference/charts';
 const FONT_DIR = new URL('../node_modules/dejavu-fonts-ttf/ttf/', import.meta.url).pathname;

@@ -7,7 +7,7 @@ import { cpSync, mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
-import { main } from '../lib/cli/main.ts';
+import { main } from '../lib/outputs/cli/main.ts';
 
 function run(argv: string[]): { code: number; out: string; err: string } {
   let out = '';

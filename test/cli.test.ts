@@ -7,7 +7,7 @@
 import { execFileSync } from 'node:child_process';
 import { describe, expect, it } from 'vitest';
 import { Body, Equator, Horizon, MakeTime, Observer } from 'astronomy-engine';
-import { main } from '../lib/cli/main.ts';
+import { main } from '../lib/outputs/cli/main.ts';
 import { ARCMIN, separationDeg } from './helpers/tolerance.ts';
 import { apparentTopocentric, jdUtOf, referenceEvents } from './reference/core/astronomia-reference.ts';
 
@@ -201,7 +201,7 @@ describe('honest text on the command line (issue #13)', () => {
     expect(text.length).toBe(json.events.length);
     let rounded = 0;
     json.events.forEach((e, i) => {
-      // Round half up to the minute, from the ISO time with its offset (independent of lib/time.ts).
+      // Round half up to the minute, from the ISO time with its offset (independent of lib/core/time.ts).
       const ms = Date.parse(e.time);
       const local = new Date(Math.round(ms / 60_000) * 60_000 + (Number(e.time.slice(-6, -3)) * 60 + Number(e.time.slice(-2)) * Math.sign(Number(e.time.slice(-6, -3)) || 1)) * 60_000);
       const expected = local.toISOString().slice(0, 16).replace('T', ' ');

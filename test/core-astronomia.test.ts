@@ -11,12 +11,12 @@
  * magnitudes within 0.15.
  */
 import { describe, expect, it } from 'vitest';
-import { builtInBody, PLANET_IDS } from '../lib/body.ts';
-import { computeNight } from '../lib/night.ts';
-import { observe } from '../lib/observe.ts';
-import { defineSite, type Site } from '../lib/site.ts';
-import { nightOf, formatLocalDate } from '../lib/time.ts';
-import type { EventTime } from '../lib/events.ts';
+import { builtInBody, PLANET_IDS } from '../lib/core/body.ts';
+import { computeNight } from '../lib/models/night.ts';
+import { observe } from '../lib/core/observe.ts';
+import { defineSite, type Site } from '../lib/core/site.ts';
+import { nightOf, formatLocalDate } from '../lib/core/time.ts';
+import type { EventTime } from '../lib/core/events.ts';
 import { ARCMIN, errorStats, separationDeg } from './helpers/tolerance.ts';
 import { seededRandom } from './helpers/random.ts';
 import {

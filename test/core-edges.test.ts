@@ -7,10 +7,10 @@
  * `astronomia` positions where a body must be chosen.
  */
 import { describe, expect, it } from 'vitest';
-import { builtInBody } from '../lib/body.ts';
-import { computeNight } from '../lib/night.ts';
-import { defineSite } from '../lib/site.ts';
-import { formatInstant, isoWeekOf, nightOf, offsetMinutes, zonedTime } from '../lib/time.ts';
+import { builtInBody } from '../lib/core/body.ts';
+import { computeNight } from '../lib/models/night.ts';
+import { defineSite } from '../lib/core/site.ts';
+import { formatInstant, isoWeekOf, nightOf, offsetMinutes, zonedTime } from '../lib/core/time.ts';
 import { apparentGeocentric, jdUtOf } from './reference/core/astronomia-reference.ts';
 
 const tromso = defineSite({ latitude: 69.65, longitude: 18.96, timeZone: 'Europe/Oslo' });

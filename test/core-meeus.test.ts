@@ -4,13 +4,13 @@
  */
 import * as Astronomy from 'astronomy-engine';
 import { describe, expect, it } from 'vitest';
-import { builtInBody } from '../lib/body.ts';
-import { riseTransitSet } from '../lib/events.ts';
-import { moonPhase } from '../lib/moon.ts';
-import { horizontal, observe, vectorToRaDec } from '../lib/observe.ts';
-import { defineSite } from '../lib/site.ts';
-import { nightOf } from '../lib/time.ts';
-import { NightFrame, utDays } from '../lib/track.ts';
+import { builtInBody } from '../lib/core/body.ts';
+import { riseTransitSet } from '../lib/core/events.ts';
+import { moonPhase } from '../lib/core/moon.ts';
+import { horizontal, observe, vectorToRaDec } from '../lib/core/observe.ts';
+import { defineSite } from '../lib/core/site.ts';
+import { nightOf } from '../lib/core/time.ts';
+import { NightFrame, utDays } from '../lib/core/track.ts';
 import { ARCSEC, MINUTE_MS, expectWithin, separationDeg } from './helpers/tolerance.ts';
 
 const SECOND_OF_TIME_H = 1 / 3600;

@@ -1,11 +1,11 @@
 /**
  * Site validation (issue #2 §2): a bad value is a `GloamingError` naming the field, the value and
  * the allowed range. The ranges are the physical ones (latitude ±90°, longitude ±180°, Bortle
- * classes 1–9 after Bortle 2001, Sky & Telescope) or the documented limits of `lib/site.ts`.
+ * classes 1–9 after Bortle 2001, Sky & Telescope) or the documented limits of `lib/core/site.ts`.
  */
 import { describe, expect, it } from 'vitest';
-import { GloamingError } from '../lib/errors.ts';
-import { defineSite } from '../lib/site.ts';
+import { GloamingError } from '../lib/core/errors.ts';
+import { defineSite } from '../lib/core/site.ts';
 
 const GOOD = { latitude: 50.9, longitude: -1.4, timeZone: 'Europe/London' };
 

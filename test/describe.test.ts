@@ -4,7 +4,7 @@
  * finger ≈ 2°) are common practice.
  */
 import { describe, expect, it } from 'vitest';
-import { compass, describeAltitude, fists, handMeasure } from '../lib/describe.ts';
+import { compass, describeAltitude, fists, handMeasure } from '../lib/core/describe.ts';
 
 describe('compass', () => {
   it('names the 16 points at their centres and switches half-way between them', () => {

@@ -19,14 +19,14 @@
  * prints the case, so it can be replayed.
  */
 import { describe, expect, it } from 'vitest';
-import { builtInBody, type BUILT_IN_IDS, type Body } from '../lib/body.ts';
-import { nightJson } from '../lib/cli/format.ts';
-import { computeNight } from '../lib/night.ts';
-import { smallBody } from '../lib/orbit/body.ts';
-import { parseObject } from '../lib/orbit/elements.ts';
-import { GloamingError } from '../lib/errors.ts';
-import { defineSite } from '../lib/site.ts';
-import { addDays, formatLocalDate } from '../lib/time.ts';
+import { builtInBody, type BUILT_IN_IDS, type Body } from '../lib/core/body.ts';
+import { nightJson } from '../lib/outputs/cli/format.ts';
+import { computeNight } from '../lib/models/night.ts';
+import { smallBody } from '../lib/models/orbit/body.ts';
+import { parseObject } from '../lib/models/orbit/elements.ts';
+import { GloamingError } from '../lib/core/errors.ts';
+import { defineSite } from '../lib/core/site.ts';
+import { addDays, formatLocalDate } from '../lib/core/time.ts';
 import { seededRandom } from './helpers/random.ts';
 
 const CASES = Number(process.env.FUZZ_CASES ?? 2000);

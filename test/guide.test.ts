@@ -1,19 +1,19 @@
 /**
- * The guide phrase of lib/guide.ts on real skies, including three situations held out from
+ * The guide phrase of lib/models/guide.ts on real skies, including three situations held out from
  * development (issue #13): a comet 25° from Markab, Mars inside Gemini seen from 33° S, and
  * Saturn 5° up in twilight from 33.9° S. Positions to compare with come from astronomy-engine
  * (`Equator`, `Horizon`, `SearchRiseSet`), an independent path from gloaming's own frame.
  */
 import { Body, DefineStar, Equator, Horizon, MakeTime, SearchRiseSet } from 'astronomy-engine';
 import { describe, expect, it } from 'vitest';
-import { builtInBody } from '../lib/body.ts';
-import { loadBodies } from '../lib/content.ts';
-import { compass, handMeasure } from '../lib/describe.ts';
-import { guideFor } from '../lib/guide.ts';
-import { computeNight } from '../lib/night.ts';
-import { defineSite } from '../lib/site.ts';
-import { starByName } from '../lib/stars/catalogue.ts';
-import { NEAR_STAR_DEG } from '../lib/stars/guide.ts';
+import { builtInBody } from '../lib/core/body.ts';
+import { loadBodies } from '../lib/models/content.ts';
+import { compass, handMeasure } from '../lib/core/describe.ts';
+import { guideFor } from '../lib/models/guide.ts';
+import { computeNight } from '../lib/models/night.ts';
+import { defineSite } from '../lib/core/site.ts';
+import { starByName } from '../lib/models/stars/catalogue.ts';
+import { NEAR_STAR_DEG } from '../lib/models/stars/guide.ts';
 import { angleDiffDeg, expectWithin } from './helpers/tolerance.ts';
 
 const R = Math.PI / 180;

@@ -8,11 +8,11 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import ICAL from 'ical.js';
 import { afterAll, describe, expect, it } from 'vitest';
-import { main } from '../lib/cli/main.ts';
-import { EXIT_CODES, MAX_ECHO_CHARS } from '../lib/errors.ts';
-import { formatInstant, zonedTime } from '../lib/time.ts';
-import { eventsToICalendar, findEvents } from '../lib/almanac/index.ts';
-import { defineSite } from '../lib/site.ts';
+import { main } from '../lib/outputs/cli/main.ts';
+import { EXIT_CODES, MAX_ECHO_CHARS } from '../lib/core/errors.ts';
+import { formatInstant, zonedTime } from '../lib/core/time.ts';
+import { eventsToICalendar, findEvents } from '../lib/outputs/almanac/index.ts';
+import { defineSite } from '../lib/core/site.ts';
 
 function run(...argv: string[]): { code: number; out: string; err: string[] } {
   const out: string[] = [];

@@ -3,10 +3,10 @@
  * system only inside its domain, and a magnitude that cannot be computed is an error naming the object file.
  */
 import { describe, expect, it } from 'vitest';
-import { mercuryMagnitude, venusMagnitude } from '../lib/body.ts';
-import { GloamingError } from '../lib/errors.ts';
-import { parseObject } from '../lib/orbit/elements.ts';
-import { expectedMagnitude } from '../lib/orbit/magnitude.ts';
+import { mercuryMagnitude, venusMagnitude } from '../lib/core/body.ts';
+import { GloamingError } from '../lib/core/errors.ts';
+import { parseObject } from '../lib/models/orbit/elements.ts';
+import { expectedMagnitude } from '../lib/models/orbit/magnitude.ts';
 import { expectWithin } from './helpers/tolerance.ts';
 
 describe('Mallama & Hilton 2018 (Astronomy and Computing 25:10): their test data, as quoted in a third-party library\'s tests, to 0.001 mag', () => {

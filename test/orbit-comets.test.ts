@@ -6,8 +6,8 @@
 import * as Astronomy from 'astronomy-engine';
 import { describe, expect, it } from 'vitest';
 import { ARCSEC, expectWithin, separationDeg } from './helpers/tolerance.ts';
-import { loadObjects, smallBody, tailPointGeoVector, tailPositionAngleDeg, type SmallBody } from '../lib/orbit/body.ts';
-import { parseObject, toConicElements } from '../lib/orbit/elements.ts';
+import { loadObjects, smallBody, tailPointGeoVector, tailPositionAngleDeg, type SmallBody } from '../lib/models/orbit/body.ts';
+import { parseObject, toConicElements } from '../lib/models/orbit/elements.ts';
 
 const DEG = Math.PI / 180;
 const JD_J2000 = 2451545.0;

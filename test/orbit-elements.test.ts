@@ -7,9 +7,9 @@ import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { GloamingError } from '../lib/errors.ts';
-import { loadObjects } from '../lib/orbit/body.ts';
-import { loadObjectFile, parseObject, parseTtInstant, toConicElements } from '../lib/orbit/elements.ts';
+import { GloamingError } from '../lib/core/errors.ts';
+import { loadObjects } from '../lib/models/orbit/body.ts';
+import { loadObjectFile, parseObject, parseTtInstant, toConicElements } from '../lib/models/orbit/elements.ts';
 
 const GOOD = `id: example-comet
 name: Comet Example
@@ -104,7 +104,7 @@ describe('object files that are right', () => {
 });
 
 describe('bad object files give positioned errors (file:line:column and field)', () => {
-  // [what, text, code, field, line, column]; lib/yaml.ts places a field at its value (for a missing
+  // [what, text, code, field, line, column]; lib/core/yaml.ts places a field at its value (for a missing
   // field: at the parent mapping's first value).
   const cases: Array<[string, string, string, string, number, number]> = [
     ['negative eccentricity', withLine(GOOD, 6, '  eccentricity: -0.2'), 'invalid-value', 'elements.eccentricity', 6, 17],

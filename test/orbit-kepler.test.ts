@@ -7,9 +7,9 @@
 import * as Astronomy from 'astronomy-engine';
 import { describe, expect, it } from 'vitest';
 import { ARCMIN, ARCSEC, angleDiffDeg, errorStats, expectWithin, separationDeg } from './helpers/tolerance.ts';
-import { conicPosition, GAUSSIAN_K, makeOrbit, type ConicElements, type Xyz } from '../lib/orbit/kepler.ts';
-import { smallBody } from '../lib/orbit/body.ts';
-import { validateObject } from '../lib/orbit/elements.ts';
+import { conicPosition, GAUSSIAN_K, makeOrbit, type ConicElements, type Xyz } from '../lib/models/orbit/kepler.ts';
+import { smallBody } from '../lib/models/orbit/body.ts';
+import { validateObject } from '../lib/models/orbit/elements.ts';
 
 // astronomia ships no type declarations: load it untyped and describe only what the tests use.
 interface AnomalyDistance {

@@ -4,7 +4,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { expectWithin } from './helpers/tolerance.ts';
-import { cometMagnitude, expectedMagnitude, hgMagnitude } from '../lib/orbit/magnitude.ts';
+import { cometMagnitude, expectedMagnitude, hgMagnitude } from '../lib/models/orbit/magnitude.ts';
 
 describe('IAU H–G system (Bowell et al. 1989, Asteroids II pp. 524–556)', () => {
   it('matches sbpy’s published test values for Ceres (H 3.34, G 0.12) at α = 0…160° (third-party test data)', () => {

@@ -7,10 +7,10 @@
  */
 import * as Astronomy from 'astronomy-engine';
 import { describe, expect, it } from 'vitest';
-import { loadBodies } from '../lib/content.ts';
-import { defineSite } from '../lib/site.ts';
-import { isSmallBody, tailInSky } from '../lib/orbit/tail.ts';
-import { tailPointGeoVector } from '../lib/orbit/body.ts';
+import { loadBodies } from '../lib/models/content.ts';
+import { defineSite } from '../lib/core/site.ts';
+import { isSmallBody, tailInSky } from '../lib/models/orbit/tail.ts';
+import { tailPointGeoVector } from '../lib/models/orbit/body.ts';
 import { angleDiffDeg } from './helpers/tolerance.ts';
 
 const RAD = Math.PI / 180;

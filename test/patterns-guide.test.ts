@@ -23,10 +23,10 @@ import {
   Spherical,
   type AstroTime,
 } from 'astronomy-engine';
-import { describeMotion, distanceWords, guideTarget, IN_PATTERN_DEG, NEAR_BODY_DEG, NEAR_STAR_DEG, offsetInSky, type OffsetDirection } from '../lib/stars/guide.ts';
-import { starByHip, starByName } from '../lib/stars/catalogue.ts';
-import { patternById } from '../lib/stars/patterns.ts';
-import { GloamingError } from '../lib/errors.ts';
+import { describeMotion, distanceWords, guideTarget, IN_PATTERN_DEG, NEAR_BODY_DEG, NEAR_STAR_DEG, offsetInSky, type OffsetDirection } from '../lib/models/stars/guide.ts';
+import { starByHip, starByName } from '../lib/models/stars/catalogue.ts';
+import { patternById } from '../lib/models/stars/patterns.ts';
+import { GloamingError } from '../lib/core/errors.ts';
 import { angleDiffDeg, expectWithin, separationDeg } from './helpers/tolerance.ts';
 import { seededRandom } from './helpers/random.ts';
 

@@ -6,10 +6,10 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { Constellation } from 'astronomy-engine';
-import { checkPatterns, patternById, patterns, PATTERNS_FILE } from '../lib/stars/patterns.ts';
-import { starByHip } from '../lib/stars/catalogue.ts';
-import { loadYaml } from '../lib/yaml.ts';
-import { GloamingError } from '../lib/errors.ts';
+import { checkPatterns, patternById, patterns, PATTERNS_FILE } from '../lib/models/stars/patterns.ts';
+import { starByHip } from '../lib/models/stars/catalogue.ts';
+import { loadYaml } from '../lib/core/yaml.ts';
+import { GloamingError } from '../lib/core/errors.ts';
 
 describe('patterns file: schema', () => {
   it('the bundled file validates with no errors and holds at least 40 patterns', () => {

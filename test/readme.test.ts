@@ -4,8 +4,8 @@
  */
 import { readFileSync, writeFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { main } from '../lib/cli/main.ts';
-import { parseSite } from '../lib/content.ts';
+import { main } from '../lib/outputs/cli/main.ts';
+import { parseSite } from '../lib/models/content.ts';
 
 const readme = readFileSync(new URL('../README.md', import.meta.url), 'utf8');
 
@@ -84,7 +84,7 @@ describe('README', () => {
 
 describe('README placeholder table', () => {
   it('equals the table generated from the placeholder registry (UPDATE_FIXTURES=1 rewrites it)', async () => {
-    const { placeholderTable } = await import('../lib/bulletin/docs.ts');
+    const { placeholderTable } = await import('../lib/outputs/bulletin/docs.ts');
     const markers = /(<!-- placeholders:start -->\n)([\s\S]*?)(<!-- placeholders:end -->)/;
     const block = markers.exec(readme)?.[2];
     expect(block, 'README has the placeholder table between its markers').toBeDefined();
@@ -99,10 +99,10 @@ describe('README placeholder table', () => {
 
 describe('README: writing a template that lasts', () => {
   it('the worked example renders for every demo site and every week of a year without a problem', async () => {
-    const { BodyRegistry } = await import('../lib/body.ts');
-    const { loadSites } = await import('../lib/content.ts');
-    const { checkPages, formatProblem, parseBulletin, ProblemList, WeekCache } = await import('../lib/bulletin/index.ts');
-    const { addDays, isoWeekOf } = await import('../lib/time.ts');
+    const { BodyRegistry } = await import('../lib/core/body.ts');
+    const { loadSites } = await import('../lib/models/content.ts');
+    const { checkPages, formatProblem, parseBulletin, ProblemList, WeekCache } = await import('../lib/outputs/bulletin/index.ts');
+    const { addDays, isoWeekOf } = await import('../lib/core/time.ts');
     const example = /\*\*A worked example\.\*\*[^\n]*\n\n```markdown\n([\s\S]*?)```/.exec(readme)?.[1];
     expect(example, 'README has the worked example').toBeDefined();
     const template = parseBulletin(`---\ntitle: Example\nsites: all\nschedule: { every: week }\n---\n${example}`, 'readme-example.md');

@@ -4,7 +4,7 @@
  */
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { main } from '../lib/cli/main.ts';
+import { main } from '../lib/outputs/cli/main.ts';
 
 function run(...argv: string[]): { code: number; out: string; err: string } {
   const out: string[] = [];

@@ -4,10 +4,10 @@
  * AIAA 2006-6753, SGP4-VER.TLE, case 06251); malformed input must name file, line and column.
  */
 import { describe, expect, it } from 'vitest';
-import { GloamingError } from '../lib/errors.ts';
-import { readElementFile, readOmmJson, readOmmXml, readTle, tleChecksum } from '../lib/satellite/elements.ts';
-import { stateAt } from '../lib/satellite/propagate.ts';
-import { utDays } from '../lib/track.ts';
+import { GloamingError } from '../lib/core/errors.ts';
+import { readElementFile, readOmmJson, readOmmXml, readTle, tleChecksum } from '../lib/models/satellite/elements.ts';
+import { stateAt } from '../lib/models/satellite/propagate.ts';
+import { utDays } from '../lib/core/track.ts';
 import { expectWithin } from './helpers/tolerance.ts';
 
 // Case 06251 of SGP4-VER.TLE (Vallado et al. 2006), columns 1–69.

@@ -5,12 +5,12 @@
  */
 import ICAL from 'ical.js';
 import { describe, expect, it } from 'vitest';
-import { findEvents } from '../lib/almanac/index.ts';
-import { main } from '../lib/cli/main.ts';
-import { loadSites } from '../lib/content.ts';
-import { loadSatellites } from '../lib/satellite/catalogue.ts';
-import { findPasses } from '../lib/satellite/passes.ts';
-import { zonedTime } from '../lib/time.ts';
+import { findEvents } from '../lib/outputs/almanac/index.ts';
+import { main } from '../lib/outputs/cli/main.ts';
+import { loadSites } from '../lib/models/content.ts';
+import { loadSatellites } from '../lib/models/satellite/catalogue.ts';
+import { findPasses } from '../lib/models/satellite/passes.ts';
+import { zonedTime } from '../lib/core/time.ts';
 import { expectWithin, SECOND_MS } from './helpers/tolerance.ts';
 
 const content = new URL('../content/', import.meta.url).pathname;

@@ -1,7 +1,7 @@
 /**
  * Satellite passes against independent computations: the satellite's altitude from SGP4
  * positions with the site, Earth rotation and refraction of astronomy-engine (not the
- * sidereal-time path of lib/satellite), the Earth's shadow as the cylinder of the Earth's radius
+ * sidereal-time path of lib/models/satellite), the Earth's shadow as the cylinder of the Earth's radius
  * along astronomy-engine's Sun direction, and the Lambert-sphere phase law's published phase
  * integral.
  */
@@ -9,14 +9,14 @@ import { readFileSync } from 'node:fs';
 import * as Astronomy from 'astronomy-engine';
 import { propagate } from 'satellite.js';
 import { describe, expect, it } from 'vitest';
-import { GloamingError } from '../lib/errors.ts';
-import { defineSite } from '../lib/site.ts';
-import { loadSatellites } from '../lib/satellite/catalogue.ts';
-import { readTle } from '../lib/satellite/elements.ts';
-import { lambertPhaseFunction, satelliteMagnitude } from '../lib/satellite/magnitude.ts';
-import { findPasses, MAX_ELEMENT_AGE_DAYS, type Satellite } from '../lib/satellite/passes.ts';
-import { stateAt, StateTrack } from '../lib/satellite/propagate.ts';
-import { utDays } from '../lib/track.ts';
+import { GloamingError } from '../lib/core/errors.ts';
+import { defineSite } from '../lib/core/site.ts';
+import { loadSatellites } from '../lib/models/satellite/catalogue.ts';
+import { readTle } from '../lib/models/satellite/elements.ts';
+import { lambertPhaseFunction, satelliteMagnitude } from '../lib/models/satellite/magnitude.ts';
+import { findPasses, MAX_ELEMENT_AGE_DAYS, type Satellite } from '../lib/models/satellite/passes.ts';
+import { stateAt, StateTrack } from '../lib/models/satellite/propagate.ts';
+import { utDays } from '../lib/core/track.ts';
 import { errorStats, expectWithin, SECOND_MS } from './helpers/tolerance.ts';
 
 const KM_PER_AU = 149_597_870.7;

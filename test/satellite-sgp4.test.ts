@@ -1,12 +1,12 @@
 /**
- * SGP4/SDP4 through lib/satellite against the published verification vectors of Vallado,
+ * SGP4/SDP4 through lib/models/satellite against the published verification vectors of Vallado,
  * Crawford, Hujsak & Kelso (2006, AIAA 2006-6753): the expected TEME states of the reference
  * C++ code (tcppver.out) for a subset of SGP4-VER.TLE (test/reference/sgp4-verification/).
  */
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { readTle } from '../lib/satellite/elements.ts';
-import { stateAtMinutes } from '../lib/satellite/propagate.ts';
+import { readTle } from '../lib/models/satellite/elements.ts';
+import { stateAtMinutes } from '../lib/models/satellite/propagate.ts';
 import { errorStats, expectWithin } from './helpers/tolerance.ts';
 
 const DIR = new URL('./reference/sgp4-verification/', import.meta.url);

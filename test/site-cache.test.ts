@@ -54,8 +54,8 @@ describe('page digest covers every input', () => {
   });
 
   const edits: [string, string][] = [
-    ['a computing module under lib/', 'lib/moon.ts'],
-    ['a data file under lib/', 'lib/stars/patterns.yaml'],
+    ['a computing module under lib/', 'lib/core/moon.ts'],
+    ['a data file under lib/', 'lib/models/stars/patterns.yaml'],
     ['the site-side computation', 'site/gloaming/nights.ts'],
     ['the lockfile (dependency versions)', 'package-lock.json'],
     ["the page's site file", 'content/sites/harbour-roof.yaml'],
@@ -99,7 +99,7 @@ describe('page digest covers every input', () => {
     const before = siteDigest(p, source, true);
     expect(siteDigest(project('2026-12-05'), project('2026-12-05').sites.get('harbour-roof')!, true)).not.toBe(before);
     expect(siteDigest(p, source, false)).not.toBe(before);
-    const file = join(copy, 'lib/night.ts');
+    const file = join(copy, 'lib/models/night.ts');
     const original = readFileSync(file);
     try {
       appendFileSync(file, '\n// edited\n');
@@ -135,7 +135,7 @@ describe('warm builds', () => {
     expect(warm.stdout).toMatch(/sites: 0 computed, 3 unchanged/);
 
     // The edit that Astro's own cache does not see: a label inside the computing library.
-    const file = join(copy, 'lib/moon.ts');
+    const file = join(copy, 'lib/core/moon.ts');
     writeFileSync(file, readFileSync(file, 'utf8').replace("'waning-crescent': 'Waning crescent'", "'waning-crescent': 'Waning sliver'"));
     const edited = build();
     expect(edited.status, edited.stderr).toBe(0);

@@ -5,9 +5,9 @@
  */
 import * as Astronomy from 'astronomy-engine';
 import { describe, expect, it } from 'vitest';
-import { loadSites } from '../lib/content.ts';
-import { computeNight } from '../lib/night.ts';
-import { addDays, zonedTime } from '../lib/time.ts';
+import { loadSites } from '../lib/models/content.ts';
+import { computeNight } from '../lib/models/night.ts';
+import { addDays, zonedTime } from '../lib/core/time.ts';
 import { moonUpAt, nextNights } from '../site/gloaming/nights.ts';
 
 const sites = loadSites(new URL('../content/sites', import.meta.url).pathname);

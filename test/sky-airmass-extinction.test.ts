@@ -5,13 +5,13 @@
  */
 import { describe, expect, it } from 'vitest';
 import { expectWithin } from './helpers/tolerance.ts';
-import { airmassKastenYoung, airmassRozenberg, airmassScattering } from '../lib/sky/airmass.ts';
+import { airmassKastenYoung, airmassRozenberg, airmassScattering } from '../lib/models/sky/airmass.ts';
 import {
   extinctionCoefficientGreen,
   extinctionCoefficientSchaefer,
   extinctionMag,
   extinctionMagSchaefer,
-} from '../lib/sky/extinction.ts';
+} from '../lib/models/sky/extinction.ts';
 
 describe('airmass', () => {
   it('Kasten & Young 1989: 0.9997 at the zenith and 37.92 at the horizon', () => {
@@ -124,7 +124,7 @@ describe('extinction', () => {
   });
 
   it('rejects impossible site inputs with a GloamingError', async () => {
-    const { GloamingError } = await import('../lib/errors.ts');
+    const { GloamingError } = await import('../lib/core/errors.ts');
     expect(() => extinctionCoefficientGreen(Number.NaN)).toThrow(GloamingError);
     expect(() => extinctionCoefficientSchaefer({ elevationM: 0, latitudeDeg: 30, relativeHumidityPct: 120 })).toThrow(GloamingError);
     expect(() => extinctionCoefficientSchaefer({ elevationM: 0, latitudeDeg: 30, month: 13 })).toThrow(GloamingError);

@@ -17,8 +17,8 @@ import {
   twilightNl,
   twilightNlSchaefer,
   type SkyBrightnessInput,
-} from '../lib/sky/brightness.ts';
-import { darkSkyFromQuality, magPerArcsec2ToNl, nlToMagPerArcsec2 } from '../lib/sky/quality.ts';
+} from '../lib/models/sky/brightness.ts';
+import { darkSkyFromQuality, magPerArcsec2ToNl, nlToMagPerArcsec2 } from '../lib/models/sky/quality.ts';
 
 const moonKs = (rhoDeg: number, zDeg: number, alphaDeg = 30, zMoonDeg = 60, k = 0.172): number =>
   moonlightNl({

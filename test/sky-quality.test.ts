@@ -4,7 +4,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { expectWithin } from './helpers/tolerance.ts';
-import { GloamingError } from '../lib/errors.ts';
+import { GloamingError } from '../lib/core/errors.ts';
 import {
   BORTLE_CLASSES,
   DARKEST_NATURAL_SKY_MAG,
@@ -14,7 +14,7 @@ import {
   nlToMagPerArcsec2,
   skyBrightnessFromNelm,
   skyQualityFromBrightness,
-} from '../lib/sky/quality.ts';
+} from '../lib/models/sky/quality.ts';
 
 /** The widely used closed forms, as printed (constants rounded to 3 decimals), not our code. */
 const widelyUsedNelm = (b: number): number => 7.93 - 5 * Math.log10(Math.pow(10, 4.316 - b / 5) + 1);

@@ -7,7 +7,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { expectWithin } from './helpers/tolerance.ts';
-import { GloamingError } from '../lib/errors.ts';
+import { GloamingError } from '../lib/core/errors.ts';
 import {
   BINOCULARS_10X50,
   BINOCULARS_7X50,
@@ -26,7 +26,7 @@ import {
   visibilityMargin,
   type Instrument,
   type SkyBrightnessInput,
-} from '../lib/sky/index.ts';
+} from '../lib/models/sky/index.ts';
 
 describe('threshold (Hecht 1947 form, Schaefer constants)', () => {
   it('night constants C = 10^−9.8, K = 10^−1.9 below ~1650 nL; day C = 10^−8.35, K = 10^−5.9 above (Schaefer 1998 VISLIMIT; switch at 1650 nL in Schaefer\'s 1987 EXTINC listing)', () => {

@@ -6,8 +6,8 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { Body, Constellation, GeoVector, AngleBetween, MakeTime, Search } from 'astronomy-engine';
-import { catalogueInfo, starByHip, starByName, stars } from '../lib/stars/catalogue.ts';
-import { GloamingError } from '../lib/errors.ts';
+import { catalogueInfo, starByHip, starByName, stars } from '../lib/models/stars/catalogue.ts';
+import { GloamingError } from '../lib/core/errors.ts';
 import { ARCMIN, ARCSEC, errorStats, expectWithin, separationDeg } from './helpers/tolerance.ts';
 
 const hms = (h: number, m: number, s: number): number => (h + m / 60 + s / 3600) * 15;

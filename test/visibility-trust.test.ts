@@ -6,17 +6,17 @@
  */
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { builtInBody } from '../lib/body.ts';
-import { computeNight, type NightReport } from '../lib/night.ts';
-import { defineSite } from '../lib/site.ts';
-import { parseSite } from '../lib/content.ts';
-import { utDays } from '../lib/track.ts';
-import { GloamingError } from '../lib/errors.ts';
-import { OPTICS_SUN_DEPRESSION_DEG, OPTICS_SUN_MINUTES, viewingSpan } from '../lib/visibility.ts';
-import { skyBrightness } from '../lib/sky/brightness.ts';
-import { darkSkyFromQuality, magPerArcsec2ToNl } from '../lib/sky/quality.ts';
-import { extinctionCoefficientGreen, extinctionMag } from '../lib/sky/extinction.ts';
-import { limitingMagnitude, NAKED_EYE } from '../lib/sky/threshold.ts';
+import { builtInBody } from '../lib/core/body.ts';
+import { computeNight, type NightReport } from '../lib/models/night.ts';
+import { defineSite } from '../lib/core/site.ts';
+import { parseSite } from '../lib/models/content.ts';
+import { utDays } from '../lib/core/track.ts';
+import { GloamingError } from '../lib/core/errors.ts';
+import { OPTICS_SUN_DEPRESSION_DEG, OPTICS_SUN_MINUTES, viewingSpan } from '../lib/models/visibility.ts';
+import { skyBrightness } from '../lib/models/sky/brightness.ts';
+import { darkSkyFromQuality, magPerArcsec2ToNl } from '../lib/models/sky/quality.ts';
+import { extinctionCoefficientGreen, extinctionMag } from '../lib/models/sky/extinction.ts';
+import { limitingMagnitude, NAKED_EYE } from '../lib/models/sky/threshold.ts';
 import { expectWithin, errorStats, MINUTE_MS } from './helpers/tolerance.ts';
 
 /** The Sun's geometric altitude at an instant of a night, degrees. */
@@ -288,7 +288,7 @@ describe('the measured cases of issue #11', () => {
       expect(error).toBeInstanceOf(GloamingError);
       expect((error as GloamingError).place?.field).toBe('timeZone');
     }
-    // In a site file the error carries file, line and column of the timeZone field (lib/yaml.ts).
+    // In a site file the error carries file, line and column of the timeZone field (lib/core/yaml.ts).
     try {
       parseSite('name: Desert\nlatitude: -23.46\nlongitude: -68.23\ntimeZone: Asia/Tokyo\n', 'content/sites/desert.yaml');
       expect.unreachable();

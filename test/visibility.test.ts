@@ -5,11 +5,11 @@
  */
 import * as Astronomy from 'astronomy-engine';
 import { describe, expect, it } from 'vitest';
-import { builtInBody } from '../lib/body.ts';
-import { computeNight } from '../lib/night.ts';
-import { defineSite, skylineAltitudeDeg } from '../lib/site.ts';
-import { utDays } from '../lib/track.ts';
-import { DEFAULT_INSTRUMENTS } from '../lib/sky/threshold.ts';
+import { builtInBody } from '../lib/core/body.ts';
+import { computeNight } from '../lib/models/night.ts';
+import { defineSite, skylineAltitudeDeg } from '../lib/core/site.ts';
+import { utDays } from '../lib/core/track.ts';
+import { DEFAULT_INSTRUMENTS } from '../lib/models/sky/threshold.ts';
 import { fixedBody, offsetFrom } from './helpers/fixed-body.ts';
 
 const city = (extra: Record<string, unknown> = {}) =>

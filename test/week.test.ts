@@ -5,10 +5,10 @@
  * quotes "about 50 minutes"), and the ISO week's nights run Monday to Sunday.
  */
 import { describe, expect, it } from 'vitest';
-import { builtInBody } from '../lib/body.ts';
-import { main } from '../lib/cli/main.ts';
-import { defineSite } from '../lib/site.ts';
-import { computeWeek, weekdayName } from '../lib/week.ts';
+import { builtInBody } from '../lib/core/body.ts';
+import { main } from '../lib/outputs/cli/main.ts';
+import { defineSite } from '../lib/core/site.ts';
+import { computeWeek, weekdayName } from '../lib/models/week.ts';
 
 const site = defineSite({ id: 'mid', latitude: 45, longitude: 7.7, timeZone: 'Europe/Rome', sky: { bortle: 4 } });
 

@@ -1,14 +1,14 @@
 /**
- * The iCalendar (RFC 5545) feed of a site: the sky's events (lib/almanac) from the Monday of the
+ * The iCalendar (RFC 5545) feed of a site: the sky's events (lib/outputs/almanac) from the Monday of the
  * build week for 13 weeks, in UTC, so phones can subscribe. Deterministic: DTSTAMP is the build
  * date and UIDs come from each event and the site. Satellite passes appear for the weeks the
- * element sets in content/satellites/ are good for (lib/satellite/events.ts). Computed in the content layer with the site.
+ * element sets in content/satellites/ are good for (lib/outputs/almanac/satellite-passes.ts). Computed in the content layer with the site.
  */
-import { eventsToICalendar, findEvents } from '../../lib/almanac/index.ts';
-import type { BodyRegistry } from '../../lib/body.ts';
-import type { Satellite } from '../../lib/satellite/passes.ts';
-import type { Site } from '../../lib/site.ts';
-import { addDays, isoWeekOf, zonedTime } from '../../lib/time.ts';
+import { eventsToICalendar, findEvents } from '../../lib/outputs/almanac/index.ts';
+import type { BodyRegistry } from '../../lib/core/body.ts';
+import type { Satellite } from '../../lib/models/satellite/passes.ts';
+import type { Site } from '../../lib/core/site.ts';
+import { addDays, isoWeekOf, zonedTime } from '../../lib/core/time.ts';
 import { CENTRE } from './centre.ts';
 
 /** Weeks of events in each feed. */

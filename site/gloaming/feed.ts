@@ -8,7 +8,7 @@
  * reader then shows `<svg onload=…>` in a site's name as those characters, never as markup.
  */
 import type { RSSOptions } from '@astrojs/rss';
-import { escapeXml } from '../../lib/chart/svg.ts';
+import { escapeXml } from '../../lib/outputs/chart/svg.ts';
 
 /** What one feed item needs from a bulletin page. */
 export interface FeedPage {

@@ -1,17 +1,17 @@
 /**
  * Content-layer loaders: the thin Astro edge of the build. `sitesLoader` stores each site with
  * its next nights; `pagesLoader` renders every bulletin page of the build date through
- * `lib/bulletin`. Each entry's digest covers everything its values depend on (see `digest.ts`),
+ * `lib/outputs/bulletin`. Each entry's digest covers everything its values depend on (see `digest.ts`),
  * and an entry whose digest is unchanged is not computed again.
  */
 import { fileURLToPath } from 'node:url';
 import type { Loader } from 'astro/loaders';
-import { renderBulletin, WeekCache } from '../../lib/bulletin/index.ts';
-import { ChartCache, type ChartProgress } from '../../lib/chart/cache.ts';
+import { renderBulletin, WeekCache } from '../../lib/outputs/bulletin/index.ts';
+import { ChartCache, type ChartProgress } from '../../lib/outputs/chart/cache.ts';
 import { siteCalendar } from './calendar.ts';
 import { chartCacheDir } from './options.ts';
-import type { PageSpec } from '../../lib/bulletin/types.ts';
-import { isoWeekOf } from '../../lib/time.ts';
+import type { PageSpec } from '../../lib/outputs/bulletin/types.ts';
+import { isoWeekOf } from '../../lib/core/time.ts';
 import { entryDigest } from './digest.ts';
 import { nextNights, type NightRow } from './nights.ts';
 import { optionsFromEnv } from './options.ts';

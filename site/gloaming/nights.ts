@@ -3,11 +3,11 @@
  * plain serialisable rows (the content layer stores them). Values come from `computeNight`; this
  * module only chooses which events to show and words them for a reader outside.
  */
-import { computeNight, type NightReport } from '../../lib/night.ts';
-import type { EventTime } from '../../lib/events.ts';
-import type { Site } from '../../lib/site.ts';
-import { PHASE_LABEL } from '../../lib/moon.ts';
-import { addDays, formatClock, formatInstant, zonedTime } from '../../lib/time.ts';
+import { computeNight, type NightReport } from '../../lib/models/night.ts';
+import type { EventTime } from '../../lib/core/events.ts';
+import type { Site } from '../../lib/core/site.ts';
+import { PHASE_LABEL } from '../../lib/core/moon.ts';
+import { addDays, formatClock, formatInstant, zonedTime } from '../../lib/core/time.ts';
 
 /** One shown time: machine-readable instant (ISO 8601 with offset) and the local clock text. */
 export interface ShownTime {

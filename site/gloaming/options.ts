@@ -3,8 +3,8 @@
  * `scripts/build.ts` (the only place that reads the clock). Nothing here reads the clock: a build
  * without `GLOAMING_TODAY` stops with a message saying how to give the date.
  */
-import { GloamingError } from '../../lib/errors.ts';
-import { parseLocalDate } from '../../lib/time.ts';
+import { GloamingError } from '../../lib/core/errors.ts';
+import { parseLocalDate } from '../../lib/core/time.ts';
 
 export interface SiteBuildOptions {
   /** The build date, YYYY-MM-DD; its ISO week is "this week". */

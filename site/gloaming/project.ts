@@ -5,15 +5,15 @@
  */
 import { readFileSync } from 'node:fs';
 import { join, relative, resolve } from 'node:path';
-import { BodyRegistry } from '../../lib/body.ts';
-import { errorsOf, pagesFor, parseBulletin, throwErrors } from '../../lib/bulletin/index.ts';
-import type { BulletinTemplate, PageSpec } from '../../lib/bulletin/types.ts';
-import { findSite, parseSite, yamlFiles } from '../../lib/content.ts';
-import { GloamingError } from '../../lib/errors.ts';
-import { loadObjects } from '../../lib/orbit/body.ts';
-import { loadSatellites } from '../../lib/satellite/catalogue.ts';
-import type { Satellite } from '../../lib/satellite/passes.ts';
-import type { Site } from '../../lib/site.ts';
+import { BodyRegistry } from '../../lib/core/body.ts';
+import { errorsOf, pagesFor, parseBulletin, throwErrors } from '../../lib/outputs/bulletin/index.ts';
+import type { BulletinTemplate, PageSpec } from '../../lib/outputs/bulletin/types.ts';
+import { findSite, parseSite, yamlFiles } from '../../lib/models/content.ts';
+import { GloamingError } from '../../lib/core/errors.ts';
+import { loadObjects } from '../../lib/models/orbit/body.ts';
+import { loadSatellites } from '../../lib/models/satellite/catalogue.ts';
+import type { Satellite } from '../../lib/models/satellite/passes.ts';
+import type { Site } from '../../lib/core/site.ts';
 import { codeDigest, filesUnder, hashFiles, sha256 } from './digest.ts';
 import type { SiteBuildOptions } from './options.ts';
 

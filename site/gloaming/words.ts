@@ -1,6 +1,6 @@
 /** Short wordings the site uses around the computed values. */
-import type { SkyQuality } from '../../lib/site.ts';
-import type { IsoWeek } from '../../lib/time.ts';
+import type { SkyQuality } from '../../lib/core/site.ts';
+import type { IsoWeek } from '../../lib/core/time.ts';
 
 /** "Bortle 7", "SQM 20.4", "naked-eye limit 5.5". */
 export function skyLabel(sky: SkyQuality): string {

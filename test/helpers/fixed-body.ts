@@ -4,7 +4,7 @@
  * not reference data: the checks it serves compare against common practice, not its output.
  */
 import * as Astronomy from 'astronomy-engine';
-import type { Body } from '../../lib/body.ts';
+import type { Body } from '../../lib/core/body.ts';
 
 export function fixedBody(options: { id?: string; raHours: number; decDeg: number; magnitude: number; comaDiameterArcmin?: number }): Body {
   const r = Math.PI / 180;

@@ -1,0 +1,219 @@
+/**
+ * Bodies: the things gloaming can observe. The Sun, the Moon and the planets come from
+ * `astronomy-engine` (VSOP87 for planets, a truncated ELP for the Moon); comets and asteroids
+ * defined by orbital elements implement the same `Body` interface in `lib/models/orbit/`, so every
+ * later step (observe, events, visibility, description) treats them alike.
+ */
+import * as Astronomy from 'astronomy-engine';
+import { GloamingError, didYouMean } from './errors.ts';
+import { localMidnight, type Night } from './time.ts';
+
+export type BodyKind = 'sun' | 'moon' | 'planet' | 'comet' | 'asteroid';
+
+/** An expected visual magnitude, possibly as a range when the model is uncertain (comets). */
+export interface MagnitudeEstimate {
+  /** Best estimate, V magnitude. */
+  value: number;
+  /** Brightest plausible value (smaller number), when the source gives a band. */
+  brightest?: number;
+  /** Faintest plausible value (larger number), when the source gives a band. */
+  faintest?: number;
+}
+
+/** Geometry of a body against the Sun and the Earth at one moment (all geocentric). */
+export interface Illumination {
+  /** Distance Sun–body, AU (r). */
+  heliocentricDistanceAu: number;
+  /** Distance Earth centre–body, AU (Δ). */
+  geocentricDistanceAu: number;
+  /** Sun–body–Earth angle, degrees (α). */
+  phaseAngleDeg: number;
+  /** Fraction of the disc lit as seen from Earth, 0–1. */
+  illuminatedFraction: number;
+  magnitude: MagnitudeEstimate;
+}
+
+export interface Body {
+  /** Stable lower-case id used on the command line and in placeholders (`jupiter`, `example-comet`). */
+  readonly id: string;
+  /** Display name ("Jupiter", "Comet Example"). */
+  readonly name: string;
+  readonly kind: BodyKind;
+  /** Mean equatorial radius, km; 0 for bodies treated as points. Gives the semidiameter for rise and set. */
+  readonly radiusKm: number;
+  /** Apparent coma diameter of a diffuse comet, arcminutes; absent for point-like bodies. */
+  readonly comaDiameterArcmin?: number;
+  /**
+   * Geocentric position, J2000 mean equator (EQJ), AU, at observation time `time`, corrected for
+   * light travel time τ: the body is taken where it was when the light left it (t − τ). With
+   * `aberration: true` the Earth is also taken at t − τ, so the Earth's motion during τ shifts the
+   * direction by the annual aberration (the apparent direction); with `false` the Earth is taken
+   * at t (the astrometric direction). This is the convention of `astronomy-engine`'s `GeoVector`
+   * and `BackdatePosition`, which planets use directly.
+   */
+  geoVector(time: Astronomy.AstroTime, options: { aberration: boolean }): Astronomy.Vector;
+  /** Distances, phase and expected magnitude at `time` (geocentric). */
+  illumination(time: Astronomy.AstroTime): Illumination;
+}
+
+const PLANETS = {
+  sun: { body: Astronomy.Body.Sun, name: 'Sun', kind: 'sun', radiusKm: 695_700 },
+  moon: { body: Astronomy.Body.Moon, name: 'Moon', kind: 'moon', radiusKm: 1737.4 },
+  mercury: { body: Astronomy.Body.Mercury, name: 'Mercury', kind: 'planet', radiusKm: 2439.7 },
+  venus: { body: Astronomy.Body.Venus, name: 'Venus', kind: 'planet', radiusKm: 6051.8 },
+  mars: { body: Astronomy.Body.Mars, name: 'Mars', kind: 'planet', radiusKm: 3396.2 },
+  jupiter: { body: Astronomy.Body.Jupiter, name: 'Jupiter', kind: 'planet', radiusKm: 71_492 },
+  saturn: { body: Astronomy.Body.Saturn, name: 'Saturn', kind: 'planet', radiusKm: 60_268 },
+  uranus: { body: Astronomy.Body.Uranus, name: 'Uranus', kind: 'planet', radiusKm: 25_559 },
+  neptune: { body: Astronomy.Body.Neptune, name: 'Neptune', kind: 'planet', radiusKm: 24_764 },
+} as const satisfies Record<string, { body: Astronomy.Body; name: string; kind: BodyKind; radiusKm: number }>;
+
+/** Ids of the built-in bodies, in the order bulletins list them. */
+export const BUILT_IN_IDS = Object.keys(PLANETS) as (keyof typeof PLANETS)[];
+/** The planets Mercury–Neptune. */
+export const PLANET_IDS = BUILT_IN_IDS.filter((id) => PLANETS[id].kind === 'planet');
+
+/** A body computed by `astronomy-engine`. Exposes the engine's enum for callers that need it. */
+export interface EngineBody extends Body {
+  readonly engineBody: Astronomy.Body;
+}
+
+function engineBody(id: keyof typeof PLANETS): EngineBody {
+  const spec = PLANETS[id];
+  return {
+    id,
+    name: spec.name,
+    kind: spec.kind,
+    radiusKm: spec.radiusKm,
+    engineBody: spec.body,
+    geoVector: (time, { aberration }) => Astronomy.GeoVector(spec.body, time, aberration),
+    illumination(time) {
+      if (spec.body === Astronomy.Body.Sun) {
+        const geo = Astronomy.GeoVector(Astronomy.Body.Sun, time, true).Length();
+        // Apparent V magnitude of the Sun, −26.74 at 1 AU (Allen's Astrophysical Quantities, 4th ed.).
+        return {
+          heliocentricDistanceAu: 0,
+          geocentricDistanceAu: geo,
+          phaseAngleDeg: 0,
+          illuminatedFraction: 1,
+          magnitude: { value: -26.74 + 5 * Math.log10(geo) },
+        };
+      }
+      const info = Astronomy.Illumination(spec.body, time);
+      const mag =
+        spec.body === Astronomy.Body.Saturn
+          ? saturnMagnitude(time, info.helio_dist, info.geo_dist, info.phase_angle)
+          : spec.body === Astronomy.Body.Mercury
+            ? mercuryMagnitude(info.helio_dist, info.geo_dist, info.phase_angle)
+            : spec.body === Astronomy.Body.Venus
+              ? venusMagnitude(info.helio_dist, info.geo_dist, info.phase_angle)
+              : info.mag;
+      return {
+        heliocentricDistanceAu: info.helio_dist,
+        geocentricDistanceAu: info.geo_dist,
+        phaseAngleDeg: info.phase_angle,
+        illuminatedFraction: info.phase_fraction,
+        magnitude: { value: mag },
+      };
+    },
+  };
+}
+
+/**
+ * Saturn's visual magnitude with its rings, Mallama & Hilton (2018), "Computing apparent planetary
+ * magnitudes for The Astronomical Almanac", Astronomy and Computing 25:10, for phase angles
+ * α ≤ 6.5° (all that the Earth sees):
+ *   V = 5 log10(r Δ) − 8.914 − 1.825 sin β + 0.026 α − 0.378 sin β · e^(−2.25 α),
+ * β = √(B · B′), the geometric mean of the Saturnicentric latitudes of the Earth (B) and the Sun (B′)
+ * on the ring plane, 0 when they differ in sign (the lit face is turned away). Coefficients as
+ * transcribed in the project's methods digest from a third-party implementation; the ring plane is
+ * Saturn's equator, its pole from astronomy-engine's `RotationAxis` (IAU WGCCRE).
+ * astronomy-engine's own Saturn formula is 0.03–0.19 mag brighter.
+ */
+function saturnMagnitude(time: Astronomy.AstroTime, r: number, delta: number, phaseAngleDeg: number): number {
+  const pole = Astronomy.RotationAxis(Astronomy.Body.Saturn, time).north;
+  const saturn = Astronomy.HelioVector(Astronomy.Body.Saturn, time);
+  const earth = Astronomy.HelioVector(Astronomy.Body.Earth, time);
+  const latitude = (x: number, y: number, z: number): number => Math.asin((x * pole.x + y * pole.y + z * pole.z) / Math.hypot(x, y, z)) * (180 / Math.PI);
+  const bEarth = latitude(earth.x - saturn.x, earth.y - saturn.y, earth.z - saturn.z);
+  const bSun = latitude(-saturn.x, -saturn.y, -saturn.z);
+  const beta = bEarth * bSun > 0 ? Math.sqrt(bEarth * bSun) : 0;
+  const sinBeta = Math.sin(beta * (Math.PI / 180));
+  const a = phaseAngleDeg;
+  return 5 * Math.log10(r * delta) - 8.914 - 1.825 * sinBeta + 0.026 * a - 0.378 * sinBeta * Math.exp(-2.25 * a);
+}
+
+/**
+ * Mercury's visual magnitude, Mallama & Hilton (2018), "Computing apparent planetary magnitudes for The
+ * Astronomical Almanac", Astronomy and Computing 25:10, valid for the phase angles the Earth sees (to about 170°):
+ *   V = 5 log10(r Δ) − 0.613 + 6.3280·10⁻² α − 1.6336·10⁻³ α² + 3.3644·10⁻⁵ α³ − 3.4265·10⁻⁷ α⁴ + 1.6893·10⁻⁹ α⁵ − 3.0334·10⁻¹² α⁶,
+ * α in degrees, r and Δ in AU. Coefficients as transcribed in the project's methods digest from a third-party
+ * implementation. astronomy-engine's own law (Hilton 2005) is 0.17 mag fainter at α = 142°, a thin crescent.
+ */
+export function mercuryMagnitude(r: number, delta: number, phaseAngleDeg: number): number {
+  const a = phaseAngleDeg;
+  return 5 * Math.log10(r * delta) - 0.613 + a * (6.328e-2 + a * (-1.6336e-3 + a * (3.3644e-5 + a * (-3.4265e-7 + a * (1.6893e-9 + a * -3.0334e-12)))));
+}
+
+/**
+ * Venus's visual magnitude, Mallama & Hilton (2018, as for Mercury): for α < 163.7°
+ *   V = 5 log10(r Δ) − 4.384 − 1.044·10⁻³ α + 3.687·10⁻⁴ α² − 2.814·10⁻⁶ α³ + 8.938·10⁻⁹ α⁴,
+ * and beyond (the forward-scattering brightening of the thinnest crescents) V = 5 log10(r Δ) + 236.05828 − 2.81914 α + 8.39034·10⁻³ α².
+ * Coefficients as transcribed in the project's methods digest from a third-party implementation.
+ */
+export function venusMagnitude(r: number, delta: number, phaseAngleDeg: number): number {
+  const a = phaseAngleDeg;
+  const law = a < 163.7 ? -4.384 + a * (-1.044e-3 + a * (3.687e-4 + a * (-2.814e-6 + a * 8.938e-9))) : 236.05828 + a * (-2.81914 + a * 8.39034e-3);
+  return 5 * Math.log10(r * delta) + law;
+}
+
+const BUILT_IN = new Map<string, EngineBody>(BUILT_IN_IDS.map((id) => [id, engineBody(id)]));
+
+/** A registry of bodies: the built-in ones plus any objects loaded from `content/objects/`. */
+export class BodyRegistry {
+  readonly #extra = new Map<string, Body>();
+
+  /** Adds an object; its id must not clash with a built-in body or another object. */
+  add(body: Body): this {
+    if (BUILT_IN.has(body.id) || this.#extra.has(body.id)) {
+      throw new GloamingError('invalid-value', `body id '${body.id}' is already taken`, {
+        place: { field: 'id' },
+        actual: body.id,
+        expected: 'an id not used by a built-in body or another object',
+      });
+    }
+    this.#extra.set(body.id, body);
+    return this;
+  }
+
+  /** All known ids: built-in first, then objects in the order they were added. */
+  ids(): string[] {
+    return [...BUILT_IN.keys(), ...this.#extra.keys()];
+  }
+
+  /** Looks up a body by id (case-insensitive); unknown ids raise `unknown-body` with a suggestion. */
+  get(id: string, place?: { field?: string }): Body {
+    const key = id.trim().toLowerCase();
+    const found = BUILT_IN.get(key) ?? this.#extra.get(key);
+    if (found) return found;
+    const hint = didYouMean(key, this.ids());
+    throw new GloamingError('unknown-body', `unknown body '${id}'`, {
+      ...(place ? { place } : {}),
+      expected: `one of ${this.ids().join(', ')}`,
+      ...(hint ? { hint } : {}),
+    });
+  }
+}
+
+/** The built-in body with this id (sun, moon, mercury … neptune). */
+export function builtInBody(id: (typeof BUILT_IN_IDS)[number]): EngineBody {
+  return BUILT_IN.get(id)!;
+}
+
+/**
+ * A body's expected magnitude for a night: at local midnight, the one moment every page, chart,
+ * verdict and week summary uses (a fast comet changes by a few hundredths over a night).
+ */
+export function nightMagnitude(night: Night, body: Body): MagnitudeEstimate {
+  return body.illumination(Astronomy.MakeTime(localMidnight(night))).magnitude;
+}

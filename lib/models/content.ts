@@ -1,0 +1,54 @@
+/**
+ * Content loading: sites from `content/sites/*.yaml`. Each file is parsed with positions, so a
+ * bad value is reported as `file:line:column field '…': what is wrong; what is expected`.
+ */
+import { readFileSync } from 'node:fs';
+import { basename } from 'node:path';
+import { BodyRegistry } from '../core/body.ts';
+import { GloamingError, didYouMean } from '../core/errors.ts';
+import { loadObjects } from './orbit/body.ts';
+import { defineSite, type Site } from '../core/site.ts';
+import { loadYaml, validateYaml, yamlFiles } from '../core/yaml.ts';
+
+export { yamlFiles };
+
+/** Parses one site file. The id defaults to the file name without `.yaml`. */
+export function parseSite(text: string, file: string): Site {
+  const source = loadYaml(text, file);
+  return validateYaml(source, (data) => {
+    const withId = data && typeof data === 'object' && !Array.isArray(data) && !('id' in data) ? { id: basename(file).replace(/\.ya?ml$/, ''), ...data } : data;
+    return defineSite(withId);
+  });
+}
+
+/** Loads all sites of `content/sites/` (or another folder), checking that ids are unique. */
+export function loadSites(dir: string): Map<string, Site> {
+  const sites = new Map<string, Site>();
+  for (const file of yamlFiles(dir)) {
+    const site = parseSite(readFileSync(file, 'utf8'), file);
+    if (sites.has(site.id)) {
+      throw new GloamingError('invalid-value', `site id '${site.id}' is used twice`, { place: { file, field: 'id' }, expected: 'a unique id per site' });
+    }
+    sites.set(site.id, site);
+  }
+  return sites;
+}
+
+/** The site with `id`, or an `unknown-site` error with a suggestion. */
+export function findSite(sites: Map<string, Site>, id: string, place?: { field?: string }): Site {
+  const site = sites.get(id);
+  if (site) return site;
+  const hint = didYouMean(id, sites.keys());
+  throw new GloamingError('unknown-site', `unknown site '${id}'`, {
+    ...(place ? { place } : {}),
+    expected: sites.size ? `one of ${[...sites.keys()].join(', ')}` : 'a site defined in content/sites/',
+    ...(hint ? { hint } : {}),
+  });
+}
+
+/** The built-in bodies plus every object of `content/objects/` (or another folder). */
+export function loadBodies(objectsDir: string): BodyRegistry {
+  const registry = new BodyRegistry();
+  for (const body of loadObjects(objectsDir)) registry.add(body);
+  return registry;
+}

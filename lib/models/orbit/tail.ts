@@ -1,0 +1,65 @@
+/**
+ * A comet's tail as a reader sees it: the anti-solar direction at the comet, both as a position
+ * angle on the sky (from north through east) and as a direction in the observer's own sky at a
+ * given moment ("the tail points to the upper left"). The tail of a real comet curves and lags
+ * the anti-solar line (the dust tail especially); this is the usual first indication.
+ */
+import * as Astronomy from 'astronomy-engine';
+import type { Body } from '../../core/body.ts';
+import { astroTime, type Instant } from '../../core/observe.ts';
+import type { Site } from '../../core/site.ts';
+import { offsetInSky, type OffsetDirection } from '../stars/guide.ts';
+import { tailPointGeoVector, tailPositionAngleDeg, type SmallBody } from './body.ts';
+
+export interface TailInSky {
+  /** Position angle of the anti-solar direction, degrees from north through east (J2000 equator). */
+  positionAngleDeg: number;
+  /**
+   * Direction of the tail in the observer's sky, degrees clockwise from "up" (towards the zenith)
+   * for an observer facing the comet: 0 up, 90 to the right, 180 down, 270 to the left.
+   */
+  skyAngleDeg: number;
+  /** The same as a word: 'above', 'upper right', … ('above' reads "points up"). */
+  direction: OffsetDirection;
+  /** "points up and to the left". */
+  words: string;
+}
+
+const WORDS: Record<OffsetDirection, string> = {
+  above: 'points straight up',
+  'upper right': 'points up and to the right',
+  right: 'points to the right',
+  'lower right': 'points down and to the right',
+  below: 'points down',
+  'lower left': 'points down and to the left',
+  left: 'points to the left',
+  'upper left': 'points up and to the left',
+};
+
+/** Whether a body is a small body with an orbit (and so a tail helper applies). */
+export function isSmallBody(body: Body): body is SmallBody {
+  return typeof (body as Partial<SmallBody>).sighting === 'function';
+}
+
+/** Horizontal coordinates of a geocentric EQJ vector for a site (parallax applied, refraction too). */
+function altAz(site: Site, time: Astronomy.AstroTime, geo: Astronomy.Vector): { altitudeDeg: number; azimuthDeg: number } {
+  const obs = Astronomy.ObserverVector(time, site.observer, false);
+  const topo = new Astronomy.Vector(geo.x - obs.x, geo.y - obs.y, geo.z - obs.z, time);
+  const eq = Astronomy.EquatorFromVector(Astronomy.RotateVector(Astronomy.Rotation_EQJ_EQD(time), topo));
+  const hor = Astronomy.Horizon(time, site.observer, eq.ra, eq.dec, 'normal');
+  return { altitudeDeg: hor.altitude, azimuthDeg: hor.azimuth };
+}
+
+/** The tail direction of `body` for `site` at `instant`. */
+export function tailInSky(site: Site, body: SmallBody, instant: Instant): TailInSky {
+  const time = astroTime(instant);
+  const head = altAz(site, time, body.geoVector(time, { aberration: true }));
+  const tip = altAz(site, time, tailPointGeoVector(body, time));
+  const off = offsetInSky({ fromAltitudeDeg: head.altitudeDeg, fromAzimuthDeg: head.azimuthDeg, toAltitudeDeg: tip.altitudeDeg, toAzimuthDeg: tip.azimuthDeg });
+  return {
+    positionAngleDeg: tailPositionAngleDeg(body, time),
+    skyAngleDeg: off.positionAngleDeg,
+    direction: off.offsetDirection,
+    words: WORDS[off.offsetDirection],
+  };
+}

@@ -1,0 +1,209 @@
+/**
+ * Close approaches ("conjunctions" in the everyday sense): local minima of the geocentric angular
+ * separation of two bodies, or of a body and a bright star, below a limit. `astronomy-engine` has
+ * no search for these, so they are zero crossings (from − to +) of the separation's rate of
+ * change, found by lib/core/search.ts `findCrossings`.
+ *
+ * Frame: geocentric astrometric directions on the J2000 equator (`Body.geoVector` with
+ * `aberration: false`, the frame of the star catalogue); the minimum separation and its instant
+ * are what almanacs tabulate. The description then gives the placement seen from the site at
+ * the moment it can be seen (topocentric, so the Moon's parallax of up to 1° is included).
+ */
+import * as Astronomy from 'astronomy-engine';
+import type { Body } from '../../core/body.ts';
+import { builtInBody } from '../../core/body.ts';
+import { compass } from '../../core/describe.ts';
+import { findCrossings } from '../../core/search.ts';
+import { distanceWords, offsetInSky, type OffsetDirection } from '../../models/stars/guide.ts';
+import { starByHip, stars, type Star } from '../../models/stars/catalogue.ts';
+import { patterns } from '../../models/stars/patterns.ts';
+import { dateFromUt, utDays } from '../../core/track.ts';
+import type { AlmanacContext } from './context.ts';
+import { starBody } from './context.ts';
+import { OBLIQUITY_J2000_DEG } from './planets.ts';
+import { apparentPlace, eventVisibility } from './visibility.ts';
+import type { AlmanacEvent, ApproachLimits } from './types.ts';
+
+const RAD = Math.PI / 180;
+/** Sampling step, days. The fastest pair (the Moon and a star) turns from approach to recession every ~13.7 days. */
+const STEP_DAYS = 0.5;
+/** Half-width of the central difference for the separation rate, days (1 minute). */
+const DELTA_DAYS = 1 / 1440;
+
+export const DEFAULT_APPROACH_LIMITS: Required<ApproachLimits> = { moonPlanetDeg: 4, moonStarDeg: 2, planetPlanetDeg: 3, planetStarDeg: 1.5 };
+
+type Vec = [number, number, number];
+
+/** Unit direction vectors of one body, memoised by UT day (the sampling grid is shared by every pair). */
+class Directions {
+  readonly body: Body;
+  readonly #fixed: Vec | null;
+  readonly #memo = new Map<number, Vec>();
+
+  constructor(body: Body, fixed: Vec | null = null) {
+    this.body = body;
+    this.#fixed = fixed;
+  }
+
+  at(ut: number): Vec {
+    if (this.#fixed) return this.#fixed;
+    let v = this.#memo.get(ut);
+    if (!v) {
+      const g = this.body.geoVector(Astronomy.MakeTime(dateFromUt(ut)), { aberration: false });
+      const r = Math.hypot(g.x, g.y, g.z);
+      v = [g.x / r, g.y / r, g.z / r];
+      this.#memo.set(ut, v);
+    }
+    return v;
+  }
+}
+
+/** Angle between two unit vectors, degrees (atan2 form: accurate for small angles). */
+function angleDeg(a: Vec, b: Vec): number {
+  const dot = a[0] * b[0] + a[1] * b[1] + a[2] * b[2];
+  const cross = Math.hypot(a[1] * b[2] - a[2] * b[1], a[2] * b[0] - a[0] * b[2], a[0] * b[1] - a[1] * b[0]);
+  return Math.atan2(cross, dot) / RAD;
+}
+
+/** Local minima of the separation of `a` and `b` in [ut0, ut1] that are at most `limitDeg`. */
+export function separationMinima(a: Directions, b: Directions, ut0: number, ut1: number, limitDeg: number): { ut: number; separationDeg: number }[] {
+  const sep = (ut: number): number => angleDeg(a.at(ut), b.at(ut));
+  const rate = (ut: number): number => sep(ut + DELTA_DAYS) - sep(ut - DELTA_DAYS);
+  return findCrossings(rate, ut0, ut1, { stepDays: STEP_DAYS, toleranceDays: 10 / 86_400 })
+    .filter((c) => c.direction === 1)
+    .map((c) => ({ ut: c.ut, separationDeg: sep(c.ut) }))
+    .filter((m) => m.separationDeg <= limitDeg);
+}
+
+/** Minimum geocentric separation of two bodies in [from, to) (for tests and single-pair questions). */
+export function closestApproaches(a: Body, b: Body, from: Date, to: Date, limitDeg = 180): { time: Date; separationDeg: number }[] {
+  return separationMinima(new Directions(a), new Directions(b), utDays(from), utDays(to), limitDeg).map((m) => ({ time: dateFromUt(m.ut), separationDeg: m.separationDeg }));
+}
+
+/** Ecliptic latitude (J2000 mean ecliptic) of a star, degrees. */
+function eclipticLatitudeDeg(star: Star): number {
+  const a = star.raDeg * RAD;
+  const d = star.decDeg * RAD;
+  const y = Math.cos(d) * Math.sin(a);
+  const z = Math.sin(d);
+  const e = OBLIQUITY_J2000_DEG * RAD;
+  return Math.asin(z * Math.cos(e) - y * Math.sin(e)) / RAD;
+}
+
+function starDirections(star: Star): Directions {
+  const a = star.raDeg * RAD;
+  const d = star.decDeg * RAD;
+  return new Directions(starBody(star), [Math.cos(d) * Math.cos(a), Math.cos(d) * Math.sin(a), Math.sin(d)]);
+}
+
+function relation(direction: OffsetDirection, what: string): string {
+  return direction === 'above' || direction === 'below' ? `${direction} ${what}` : `to the ${direction} of ${what}`;
+}
+
+export interface ApproachOptions {
+  limits?: ApproachLimits;
+  /** Planets taking part (default Mercury–Saturn). */
+  planets?: readonly string[];
+  /** Comets and asteroids taking part. */
+  smallBodies?: readonly Body[];
+  starMagnitudeLimit?: number;
+  starEclipticLatitudeDeg?: number;
+  /** Include the Moon (default true). */
+  moon?: boolean;
+}
+
+/** Close approaches with minima in [from, to): Moon–planet, Moon–star, planet–planet, planet–star, comet–star (bright stars and every pattern star). */
+export function approachEvents(ctx: AlmanacContext, from: Date, to: Date, options: ApproachOptions = {}): AlmanacEvent[] {
+  const limits = { ...DEFAULT_APPROACH_LIMITS, ...options.limits };
+  const planetIds = options.planets ?? ['mercury', 'venus', 'mars', 'jupiter', 'saturn'];
+  const magLimit = options.starMagnitudeLimit ?? 1.6;
+  const latLimit = options.starEclipticLatitudeDeg ?? 10;
+  const bright = stars().filter((s) => s.vMag <= magLimit);
+  const eclipticStars = bright.filter((s) => Math.abs(eclipticLatitudeDeg(s)) <= latLimit).map(starDirections);
+  const allStars = bright.map(starDirections);
+  const moon = new Directions(builtInBody('moon'));
+  const planets = planetIds.map((id) => new Directions(builtInBody(id as 'mercury')));
+  const small = (options.smallBodies ?? []).map((b) => new Directions(b));
+  const ut0 = utDays(from);
+  const ut1 = utDays(to);
+  const pairs: { a: Directions; b: Directions; limit: number }[] = [];
+  if (options.moon !== false) {
+    for (const p of [...planets, ...small]) pairs.push({ a: moon, b: p, limit: limits.moonPlanetDeg });
+    for (const s of eclipticStars) pairs.push({ a: moon, b: s, limit: limits.moonStarDeg });
+  }
+  const movers = [...planets, ...small];
+  for (let i = 0; i < movers.length; i++) {
+    for (let j = i + 1; j < movers.length; j++) pairs.push({ a: movers[i]!, b: movers[j]!, limit: limits.planetPlanetDeg });
+  }
+  for (const p of planets) for (const s of eclipticStars) pairs.push({ a: p, b: s, limit: limits.planetStarDeg });
+  // Comets and asteroids also against every star of a pattern: a comet passing a familiar figure
+  // is news even when the star is faint.
+  const brightHips = new Set(bright.map((s) => s.hip));
+  const patternStars = [...PATTERN_OF_STAR.keys()].filter((hip) => !brightHips.has(hip)).map((hip) => starDirections(starByHip(hip)!));
+  for (const c of small) for (const s of [...allStars, ...patternStars]) pairs.push({ a: c, b: s, limit: limits.planetStarDeg });
+
+  const out: AlmanacEvent[] = [];
+  for (const { a, b, limit } of pairs) {
+    for (const m of separationMinima(a, b, ut0, ut1, limit)) out.push(describeApproach(ctx, a.body, b.body, dateFromUt(m.ut), m.separationDeg));
+  }
+  return out;
+}
+
+/** Star id (`star:<HIP>`) → how its pattern reads in a sentence (the first pattern that uses the star). */
+const PATTERN_OF_STAR = new Map<number, string>();
+for (const pattern of patterns()) for (const hip of pattern.stars) if (!PATTERN_OF_STAR.has(hip)) PATTERN_OF_STAR.set(hip, pattern.sentenceName);
+
+/** ", in the Great Square of Pegasus" for a pattern star, else nothing. */
+function patternWords(body: Body): string {
+  const hip = /^star:(\d+)$/.exec(body.id)?.[1];
+  const pattern = hip ? PATTERN_OF_STAR.get(Number(hip)) : undefined;
+  return pattern ? `, in ${pattern}` : '';
+}
+
+function magnitudeOf(body: Body, time: Date): number {
+  return body.illumination(Astronomy.MakeTime(time)).magnitude.value;
+}
+
+/** The event for one minimum: visibility from the site and a sentence with the placement seen from there. */
+export function describeApproach(ctx: AlmanacContext, first: Body, second: Body, time: Date, separationDeg: number): AlmanacEvent {
+  // Lead with the Moon, else with the body that moves (a planet or comet before a star), else the brighter.
+  let a = first;
+  let b = second;
+  const isStar = (x: Body): boolean => x.id.startsWith('star:');
+  const lead = (x: Body, y: Body): boolean => x.kind === 'moon' || (y.kind !== 'moon' && (isStar(y) !== isStar(x) ? isStar(y) : magnitudeOf(x, time) <= magnitudeOf(y, time)));
+  if (!lead(a, b)) [a, b] = [b, a];
+  const visibility = eventVisibility(ctx, [a, b], time, { preferNear: true });
+  const day = ctx.day(time);
+  const geo = separationDeg < 1 ? separationDeg.toFixed(1) : String(Math.round(separationDeg));
+  let description: string;
+  if (visibility.visible && visibility.time) {
+    const frame = ctx.frameAt(visibility.time);
+    const ut = utDays(visibility.time);
+    const pa = apparentPlace(frame, a, ut);
+    const pb = apparentPlace(frame, b, ut);
+    const off = offsetInSky({ fromAltitudeDeg: pb.altitudeDeg, fromAzimuthDeg: pb.azimuthDeg, toAltitudeDeg: pa.altitudeDeg, toAzimuthDeg: pa.azimuthDeg });
+    const look = `look ${compass(pb.azimuthDeg).word} at ${ctx.clock(visibility.time)}${visibility.moment === 'night' && ctx.day(visibility.time) !== day ? ` (${ctx.day(visibility.time)})` : ''}`;
+    description =
+      a.kind === 'moon'
+        ? `The Moon passes ${distanceWords(off.separationDeg)} ${relation(off.offsetDirection, b.name)} on ${day}; ${look}.`
+        : `${a.name} and ${b.name} are only ${distanceWords(off.separationDeg)} apart on ${day}, ${a.name} ${relation(off.offsetDirection, b.name)}${patternWords(b)}; ${look}.`;
+  } else {
+    const why = visibility.reason === 'too-close-to-sun' ? 'too close to the Sun to be seen' : 'not up together in a dark sky from here';
+    description = a.kind === 'moon' ? `The Moon passes ${geo}° from ${b.name} on ${day}, but the pair is ${why}.` : `${a.name} and ${b.name}${patternWords(b)} pass ${geo}° apart on ${day}, but the pair is ${why}.`;
+  }
+  return {
+    type: 'close-approach',
+    time,
+    bodies: [a.id, b.id],
+    names: [a.name, b.name],
+    separationDeg,
+    visible: visibility.visible,
+    visibility,
+    title: `${a.name} near ${b.name}`,
+    description,
+    score: 0,
+    data: { magnitudeA: Math.round(magnitudeOf(a, time) * 10) / 10, magnitudeB: Math.round(magnitudeOf(b, time) * 10) / 10 },
+  };
+}
+
+export { Directions };

@@ -1,0 +1,91 @@
+/**
+ * Shared state of one `findEvents` call: the site, the night frames already built (so events of
+ * the same night share their tracks), star pseudo-bodies, and local-time wording.
+ */
+import * as Astronomy from 'astronomy-engine';
+import type { Body } from '../../core/body.ts';
+import type { Site } from '../../core/site.ts';
+import type { Star } from '../../models/stars/catalogue.ts';
+import { addDays, formatClock, localDateOf, nightOf, roundInstant, zonedParts } from '../../core/time.ts';
+import { NightFrame } from '../../core/track.ts';
+
+const RAD = Math.PI / 180;
+/** Distance given to a star pseudo-body, AU: far enough that the observer's offset is < 0.001″. */
+const STAR_DISTANCE_AU = 1e9;
+
+/**
+ * A fixed point of the sky as a `Body`: J2000 right ascension and declination in degrees, a V
+ * magnitude, no proper motion and no annual aberration (both under 1′ for the stars used here,
+ * see lib/models/stars/catalogue.ts; 20″ for aberration). Used for bright stars and meteor radiants.
+ */
+export function fixedPointBody(options: { id: string; name: string; raDeg: number; decDeg: number; vMag: number }): Body {
+  const a = options.raDeg * RAD;
+  const d = options.decDeg * RAD;
+  const x = STAR_DISTANCE_AU * Math.cos(d) * Math.cos(a);
+  const y = STAR_DISTANCE_AU * Math.cos(d) * Math.sin(a);
+  const z = STAR_DISTANCE_AU * Math.sin(d);
+  const magnitude = { value: options.vMag };
+  return {
+    id: options.id,
+    name: options.name,
+    kind: 'asteroid',
+    radiusKm: 0,
+    geoVector: (time) => new Astronomy.Vector(x, y, z, time),
+    illumination: () => ({ heliocentricDistanceAu: STAR_DISTANCE_AU, geocentricDistanceAu: STAR_DISTANCE_AU, phaseAngleDeg: 0, illuminatedFraction: 1, magnitude }),
+  };
+}
+
+/** A bright star of the catalogue as a `Body` with id `star:<HIP>` (cannot clash with a body id). */
+export function starBody(star: Star): Body {
+  return fixedPointBody({ id: `star:${star.hip}`, name: star.label, raDeg: star.raDeg, decDeg: star.decDeg, vMag: star.vMag });
+}
+
+/** The local date of the night (local noon to next local noon) that contains `instant`. */
+export function nightDateOf(instant: Date, zone: string): string {
+  const date = localDateOf(instant, zone);
+  return zonedParts(instant, zone).hour < 12 ? addDays(date, -1) : date;
+}
+
+export class AlmanacContext {
+  readonly site: Site;
+  readonly darkSunAltitudeDeg: number;
+  readonly #frames = new Map<string, NightFrame>();
+  readonly #day: Intl.DateTimeFormat;
+
+  constructor(site: Site, options: { darkSunAltitudeDeg?: number; frames?: Iterable<NightFrame> } = {}) {
+    this.site = site;
+    this.darkSunAltitudeDeg = options.darkSunAltitudeDeg ?? -6;
+    this.#day = new Intl.DateTimeFormat(site.locale, { timeZone: site.timeZone, weekday: 'short', day: 'numeric', month: 'short' });
+    for (const frame of options.frames ?? []) if (frame.site === site) this.#frames.set(frame.night.date, frame);
+  }
+
+  /** The night frame (tracks, sidereal time) of the night whose evening is `date`, built once. */
+  frame(date: string): NightFrame {
+    let f = this.#frames.get(date);
+    if (!f) {
+      f = new NightFrame(this.site, nightOf(date, this.site.timeZone));
+      this.#frames.set(date, f);
+    }
+    return f;
+  }
+
+  /** The night frame of the night containing `instant`. */
+  frameAt(instant: Date): NightFrame {
+    return this.frame(nightDateOf(instant, this.site.timeZone));
+  }
+
+  /** Local clock time in the site's locale and zone, rounded to the minute as pages show it: "21:05" (en-GB), "9:05 PM" (en-US). */
+  clock(instant: Date): string {
+    return formatClock(instant, this.site);
+  }
+
+  /** Local day in the site's locale and zone of the minute `instant` rounds to, e.g. "Wed 1 Mar". */
+  day(instant: Date): string {
+    return this.#day.format(roundInstant(instant, 'minute'));
+  }
+
+  /** "Wed 1 Mar at 21:05". */
+  when(instant: Date): string {
+    return `${this.day(instant)} at ${this.clock(instant)}`;
+  }
+}

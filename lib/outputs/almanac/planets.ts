@@ -1,0 +1,203 @@
+/**
+ * The planets' events: oppositions and conjunctions with the Sun (`astronomy-engine`
+ * `SearchRelativeLongitude`: heliocentric ecliptic longitudes of Earth and planet equal (0°) or
+ * opposite (180°)), greatest elongations of Mercury and Venus (`SearchMaxElongation`), Venus at
+ * greatest brilliancy (`SearchPeakMagnitude`), and stationary points (the geocentric ecliptic
+ * longitude stops changing; found with lib/core/search.ts, since the engine has no search for it).
+ */
+import * as Astronomy from 'astronomy-engine';
+import { builtInBody, type EngineBody } from '../../core/body.ts';
+import { compass } from '../../core/describe.ts';
+import { findCrossings } from '../../core/search.ts';
+import { dateFromUt, utDays } from '../../core/track.ts';
+import type { AlmanacContext } from './context.ts';
+import { eventVisibility, hidden } from './visibility.ts';
+import type { AlmanacEvent } from './types.ts';
+
+const RAD = Math.PI / 180;
+/** Mean obliquity of the ecliptic at J2000.0, 23°26′21.448″ (IAU 1976; Meeus 2nd ed. eq. 22.2 at T = 0). */
+export const OBLIQUITY_J2000_DEG = 23.4392911;
+const COS_E = Math.cos(OBLIQUITY_J2000_DEG * RAD);
+const SIN_E = Math.sin(OBLIQUITY_J2000_DEG * RAD);
+
+/** Ecliptic longitude on the J2000 mean ecliptic and equinox of an EQJ vector, degrees 0–360. */
+export function eclipticLongitudeJ2000Deg(v: { x: number; y: number; z: number }): number {
+  const lon = Math.atan2(v.y * COS_E + v.z * SIN_E, v.x) / RAD;
+  return lon < 0 ? lon + 360 : lon;
+}
+
+/** Wraps an angle difference to (−180°, 180°]. */
+export function wrap180(deg: number): number {
+  const d = ((deg % 360) + 360) % 360;
+  return d > 180 ? d - 360 : d;
+}
+
+const SUPERIOR = ['mars', 'jupiter', 'saturn', 'uranus', 'neptune'] as const;
+const INFERIOR = ['mercury', 'venus'] as const;
+const ALL = [...INFERIOR, ...SUPERIOR] as const;
+
+/** Repeats an engine search from `from` (restarting a day after each hit) while its result is before `to`. */
+function repeat<T>(from: Date, to: Date, search: (start: Astronomy.AstroTime) => T, timeOf: (result: T) => Astronomy.AstroTime): T[] {
+  const out: T[] = [];
+  let start = Astronomy.MakeTime(from);
+  for (let i = 0; i < 1000; i++) {
+    const r = search(start);
+    const t = timeOf(r);
+    if (t.date >= to) break;
+    if (t.date >= from) out.push(r);
+    start = t.AddDays(1);
+  }
+  return out;
+}
+
+function magnitudeAt(body: EngineBody, time: Astronomy.AstroTime): number {
+  return Math.round(Astronomy.Illumination(body.engineBody, time).mag * 10) / 10;
+}
+
+function lookWords(ctx: AlmanacContext, v: { azimuthDeg: number | null; time: Date | null }): string | null {
+  return v.azimuthDeg !== null && v.time ? `look ${compass(v.azimuthDeg).word} at ${ctx.clock(v.time)}` : null;
+}
+
+/** Oppositions of Mars–Neptune and conjunctions of every planet with the Sun, instants in [from, to). */
+export function oppositionAndConjunctionEvents(ctx: AlmanacContext, from: Date, to: Date, ids: readonly string[] = ALL): AlmanacEvent[] {
+  const out: AlmanacEvent[] = [];
+  for (const id of ALL) {
+    if (!ids.includes(id)) continue;
+    const body = builtInBody(id);
+    const inferior = (INFERIOR as readonly string[]).includes(id);
+    const targets: { relLon: number; kind: 'opposition' | 'superior' | 'inferior' }[] = inferior
+      ? [{ relLon: 0, kind: 'inferior' }, { relLon: 180, kind: 'superior' }]
+      : [{ relLon: 0, kind: 'opposition' }, { relLon: 180, kind: 'superior' }];
+    for (const target of targets) {
+      for (const t of repeat(from, to, (s) => Astronomy.SearchRelativeLongitude(body.engineBody, target.relLon, s), (r) => r)) {
+        const time = t.date;
+        const mag = magnitudeAt(body, t);
+        if (target.kind === 'opposition') {
+          const visibility = eventVisibility(ctx, [body], time);
+          const look = lookWords(ctx, visibility);
+          out.push({
+            type: 'opposition',
+            time,
+            bodies: [id],
+            names: [body.name],
+            visible: visibility.visible,
+            visibility,
+            title: `${body.name} at opposition`,
+            description: `${body.name} is at opposition on ${ctx.day(time)}: opposite the Sun, it rises at sunset, stays up all night and is at its brightest this year (magnitude ${mag})${look ? `; ${look}` : ', but from here it stays too low to see'}.`,
+            score: 0,
+            data: { magnitude: mag },
+          });
+        } else {
+          const where = inferior
+            ? target.kind === 'inferior'
+              ? 'passes between the Earth and the Sun (inferior conjunction) and moves from the evening to the morning sky'
+              : 'passes behind the Sun (superior conjunction) and moves from the morning to the evening sky'
+            : 'passes behind the Sun and moves from the evening to the morning sky';
+          out.push({
+            type: 'conjunction',
+            time,
+            bodies: [id, 'sun'],
+            names: [body.name, 'Sun'],
+            visible: false,
+            visibility: hidden(ctx, 'too-close-to-sun'),
+            title: `${body.name} in conjunction with the Sun`,
+            description: `${body.name} ${where} on ${ctx.day(time)}; it is lost in the Sun's glare for a while and leaves these pages until it reappears.`,
+            score: 0,
+            data: { kind: target.kind, magnitude: mag },
+          });
+        }
+      }
+    }
+  }
+  return out;
+}
+
+/** Greatest elongations of Mercury and Venus, instants in [from, to). */
+export function elongationEvents(ctx: AlmanacContext, from: Date, to: Date, ids: readonly string[] = INFERIOR): AlmanacEvent[] {
+  const out: AlmanacEvent[] = [];
+  for (const id of INFERIOR) {
+    if (!ids.includes(id)) continue;
+    const body = builtInBody(id);
+    for (const e of repeat(from, to, (s) => Astronomy.SearchMaxElongation(body.engineBody, s), (r) => r.time)) {
+      const time = e.time.date;
+      const evening = e.visibility === 'evening';
+      const visibility = eventVisibility(ctx, [body], time);
+      const look = lookWords(ctx, visibility);
+      const elongation = Math.round(e.elongation * 10) / 10;
+      out.push({
+        type: 'greatest-elongation',
+        time,
+        bodies: [id],
+        names: [body.name],
+        separationDeg: e.elongation,
+        visible: visibility.visible,
+        visibility,
+        title: `${body.name} at greatest ${evening ? 'eastern' : 'western'} elongation`,
+        description: `${body.name} is at its greatest distance ${evening ? 'east' : 'west'} of the Sun (${elongation}°) on ${ctx.day(time)}, the best time to find it in the ${evening ? 'evening' : 'morning'} sky${look ? `: ${look}` : ', though from here it stays too low in the twilight'}.`,
+        score: 0,
+        data: { elongationDeg: elongation, side: evening ? 'evening' : 'morning', magnitude: magnitudeAt(body, e.time) },
+      });
+    }
+  }
+  return out;
+}
+
+/** Venus at greatest brilliancy (peak magnitude), instants in [from, to). */
+export function brilliancyEvents(ctx: AlmanacContext, from: Date, to: Date): AlmanacEvent[] {
+  const venus = builtInBody('venus');
+  return repeat(from, to, (s) => Astronomy.SearchPeakMagnitude(Astronomy.Body.Venus, s), (r) => r.time).map((info) => {
+    const time = info.time.date;
+    const visibility = eventVisibility(ctx, [venus], time);
+    const look = lookWords(ctx, visibility);
+    const mag = Math.round(info.mag * 10) / 10;
+    const evening = Astronomy.Elongation(Astronomy.Body.Venus, info.time).visibility === 'evening';
+    return {
+      type: 'greatest-brilliancy' as const,
+      time,
+      bodies: ['venus'],
+      names: ['Venus'],
+      visible: visibility.visible,
+      visibility,
+      title: 'Venus at its brightest',
+      description: `Venus is at its brightest (magnitude ${mag}) on ${ctx.day(time)}, outshining everything but the Sun and Moon in the ${evening ? 'evening' : 'morning'} sky${look ? `: ${look}` : ', though from here it stays too low to see'}.`,
+      score: 0,
+      data: { magnitude: mag, side: evening ? 'evening' : 'morning' },
+    };
+  });
+}
+
+/**
+ * Stationary points: zero crossings of the rate of change of the planet's apparent geocentric
+ * ecliptic longitude (J2000 mean ecliptic; precession moves the instant by well under a minute),
+ * rate by a central difference of ±1 h, sampled daily and refined to 1 minute.
+ */
+export function stationEvents(ctx: AlmanacContext, from: Date, to: Date, ids: readonly string[] = ALL): AlmanacEvent[] {
+  const out: AlmanacEvent[] = [];
+  const delta = 1 / 24;
+  for (const id of ALL) {
+    if (!ids.includes(id)) continue;
+    const body = builtInBody(id);
+    const lon = (ut: number): number => eclipticLongitudeJ2000Deg(Astronomy.GeoVector(body.engineBody, Astronomy.MakeTime(dateFromUt(ut)), true));
+    const rate = (ut: number): number => wrap180(lon(ut + delta) - lon(ut - delta)) / (2 * delta);
+    for (const c of findCrossings(rate, utDays(from), utDays(to), { stepDays: 1, toleranceDays: 1 / 1440 })) {
+      const time = dateFromUt(c.ut);
+      const retrograde = c.direction === -1;
+      const visibility = eventVisibility(ctx, [body], time);
+      out.push({
+        type: 'stationary',
+        time,
+        bodies: [id],
+        names: [body.name],
+        visible: visibility.visible,
+        visibility,
+        title: `${body.name} stationary`,
+        description: retrograde
+          ? `${body.name} stands still against the stars on ${ctx.day(time)} and then drifts westward (retrograde) for some weeks, a slow loop you can follow night by night.`
+          : `${body.name} stands still against the stars on ${ctx.day(time)} and then resumes its usual eastward drift.`,
+        score: 0,
+        data: { motion: retrograde ? 'retrograde' : 'direct' },
+      });
+    }
+  }
+  return out;
+}

@@ -1,0 +1,79 @@
+/**
+ * Satellite passes as almanac events (`satellite-pass`), for `gloaming events` and the calendar
+ * feed. Only passes to recommend become events (seen with the naked eye for at least a minute);
+ * the others are not events anyone could act on. Nights whose passes would be more than
+ * `MAX_ELEMENT_AGE_DAYS` from the element sets' epochs are left out rather than refused, so a
+ * feed covering many weeks simply shows passes for the weeks the elements are good for.
+ */
+import type { AlmanacEvent } from './types.ts';
+import { compass } from '../../core/describe.ts';
+import type { Site } from '../../core/site.ts';
+import { addDays, formatClock, localDateOf } from '../../core/time.ts';
+import { epochUt } from '../../models/satellite/propagate.ts';
+import { findPasses, MAX_ELEMENT_AGE_DAYS, type PassPoint, type Satellite, type SatellitePass } from '../../models/satellite/passes.ts';
+
+const DAY_MS = 86_400_000;
+const UT0_MS = Date.UTC(2000, 0, 1, 12);
+
+/** One recommended pass as an event: from the moment it can be seen to the moment it cannot. */
+export function passEvent(pass: SatellitePass, site: Site): AlmanacEvent {
+  const seen = pass.visible!;
+  const clock = (p: PassPoint): string => formatClock(p.time, site);
+  const where = (p: PassPoint): string => `${Math.round(p.altitudeDeg)}° up in the ${compass(p.azimuthDeg).word}`;
+  const name = pass.satellite.name;
+  // What starts and ends the sighting: the skyline, the Earth's shadow (its penumbra dims the
+  // satellite for some seconds around the crossing), or distance and twilight.
+  const near = (a: PassPoint, b: PassPoint, seconds: number): boolean => Math.abs(a.time.getTime() - b.time.getTime()) <= seconds * 1000;
+  const appears = near(seen.start, pass.start, 1) ? 'rises over the skyline' : pass.shadow.some((s) => s.kind === 'leaves-shadow' && near(s.point, seen.start, 30)) ? "comes out of the Earth's shadow" : 'appears';
+  const leaves = near(seen.end, pass.end, 1) ? 'sinks below the skyline' : pass.shadow.some((s) => s.kind === 'enters-shadow' && near(s.point, seen.end, 30)) ? "fades into the Earth's shadow" : 'fades from view';
+  const magnitude = seen.best.magnitude!;
+  return {
+    type: 'satellite-pass',
+    time: seen.start.time,
+    end: seen.end.time,
+    bodies: [`satellite:${pass.satellite.id}`],
+    names: [name],
+    visible: true,
+    visibility: {
+      visible: true,
+      moment: 'event',
+      time: seen.best.time,
+      altitudeDeg: seen.best.altitudeDeg,
+      azimuthDeg: seen.best.azimuthDeg,
+      reason: null,
+      note: `Visible from ${clock(seen.start)} to ${clock(seen.end)}, best at ${clock(seen.best)}, ${where(seen.best)}.`,
+    },
+    title: `${name} passes over`,
+    description:
+      `${name} ${appears} at ${clock(seen.start)}, ${where(seen.start)}; ` +
+      `it climbs to ${Math.round(pass.culmination.altitudeDeg)}° in the ${compass(pass.culmination.azimuthDeg).word} ` +
+      `and ${leaves} at ${clock(seen.end)}, ${where(seen.end)}. Magnitude ${magnitude.toFixed(1).replace('-', '−')} at its brightest.`,
+    score: 0,
+    data: {
+      magnitude: Math.round(magnitude * 10) / 10,
+      culminationAltitudeDeg: Math.round(pass.culmination.altitudeDeg * 10) / 10,
+      elementAgeDays: Math.round(pass.elements.ageDays * 100) / 100,
+      norad: pass.satellite.noradId,
+    },
+  };
+}
+
+/**
+ * The recommended passes of `satellites` over the site with their visible start in [from, to),
+ * as events; nights too far from the element sets' epochs are skipped.
+ */
+export function satellitePassEvents(input: { site: Site; satellites: readonly Satellite[]; from: Date; to: Date }): AlmanacEvent[] {
+  const { site, satellites } = input;
+  if (satellites.length === 0) return [];
+  // Only the nights some element set is good for.
+  const epochs = satellites.map((s) => UT0_MS + epochUt(s.elements) * DAY_MS);
+  const fresh0 = Math.max(input.from.getTime(), Math.min(...epochs) - MAX_ELEMENT_AGE_DAYS * DAY_MS);
+  const fresh1 = Math.min(input.to.getTime(), Math.max(...epochs) + MAX_ELEMENT_AGE_DAYS * DAY_MS);
+  if (fresh1 <= fresh0) return [];
+  // Nights run from local noon: the night holding `from` began on the evening before its date.
+  const from = addDays(localDateOf(new Date(fresh0), site.timeZone), -1);
+  const to = localDateOf(new Date(fresh1), site.timeZone);
+  return findPasses({ site, satellites, from, to, skipStale: true })
+    .filter((p) => p.recommended && p.visible!.start.time >= input.from && p.visible!.start.time < input.to)
+    .map((p) => passEvent(p, site));
+}

@@ -1,0 +1,131 @@
+/**
+ * Can an event be seen from the site? An event counts as visible when every body taking part
+ * stands above the site's skyline and minimum altitude while the sky is dark (the Sun's apparent
+ * altitude at or below the darkness limit, default −6°: the end of civil twilight, enough for the
+ * Moon, planets and first-magnitude stars). If that is not so at the event's own instant, the
+ * best moment of the same night (local noon to local noon) is searched: the moment when the
+ * lowest of the bodies stands highest above its limit (`findMaximum` of lib/core/search.ts).
+ */
+import type { Body } from '../../core/body.ts';
+import { compass } from '../../core/describe.ts';
+import { findMaximum } from '../../core/search.ts';
+import { skylineAltitudeDeg } from '../../core/site.ts';
+import { dateFromUt, separationDeg, utDays, type NightFrame } from '../../core/track.ts';
+import type { AlmanacContext } from './context.ts';
+import type { EventHiddenReason, EventVisibility } from './types.ts';
+
+/** Below this elongation a body is reported as lost in the Sun's glare, degrees (common practice). */
+export const GLARE_ELONGATION_DEG = 10;
+/** Sampling step of the best-moment search, days (10 minutes; refined to 1 s). */
+const STEP_DAYS = 10 / 1440;
+
+export const HIDDEN_REASON_TEXT: Record<EventHiddenReason, string> = {
+  'below-horizon': 'below the horizon while the sky is dark',
+  daylight: 'it happens in daylight',
+  'too-close-to-sun': 'too close to the Sun, lost in its glare',
+  'no-darkness': 'the sky does not get dark that night',
+  'radiant-below-horizon': 'the radiant stays below the horizon during the dark hours',
+  'sun-below-horizon': 'the Sun is below the horizon for the whole eclipse',
+  'too-faint': 'too faint to see from here that night',
+};
+
+/** Apparent (refracted) altitude and azimuth of a body on a night's track, degrees. */
+export function apparentPlace(frame: NightFrame, body: Body, ut: number): { altitudeDeg: number; azimuthDeg: number } {
+  const track = frame.track(body);
+  return { altitudeDeg: track.apparentAltitudeDeg(ut), azimuthDeg: track.at(ut).azimuthDeg };
+}
+
+/** Lowest margin (apparent altitude − max(skyline, minimum altitude)) of the bodies at `ut`, degrees. */
+function lowestMargin(ctx: AlmanacContext, frame: NightFrame, bodies: readonly Body[], ut: number): number {
+  let lowest = Infinity;
+  for (const body of bodies) {
+    const p = apparentPlace(frame, body, ut);
+    const limit = Math.max(ctx.site.minAltitudeDeg, skylineAltitudeDeg(ctx.site, p.azimuthDeg));
+    lowest = Math.min(lowest, p.altitudeDeg - limit);
+  }
+  return lowest;
+}
+
+function isDark(ctx: AlmanacContext, frame: NightFrame, ut: number): boolean {
+  return apparentPlace(frame, frame.sun.body, ut).altitudeDeg <= ctx.darkSunAltitudeDeg;
+}
+
+/** Geocentric angle between a body and the Sun at `ut`, degrees. */
+export function elongationDeg(frame: NightFrame, body: Body, ut: number): number {
+  return separationDeg(frame.track(body).vectorAt(ut), frame.sun.vectorAt(ut));
+}
+
+/** The note for a moment: "21:10, 25° up in the south-west". */
+function placeWords(ctx: AlmanacContext, time: Date, altitudeDeg: number, azimuthDeg: number): string {
+  return `${ctx.clock(time)}, ${Math.round(altitudeDeg)}° up in the ${compass(azimuthDeg).word}`;
+}
+
+/** Cap on the altitude margin that still improves a moment near the event, degrees. */
+const NEAR_MARGIN_CAP_DEG = 15;
+/** Cost of moving away from the event's instant, degrees of margin per hour. */
+const NEAR_COST_DEG_PER_HOUR = 1;
+
+export interface EventVisibilityOptions {
+  /**
+   * Prefer moments near the event (for close approaches, whose separation changes by the hour):
+   * the best moment maximises min(margin, 15°) − 1° per hour away from the event, over the
+   * night containing the event and the neighbouring night on the event's side. Otherwise the
+   * best moment is the one where the lowest body stands highest, within the night containing it.
+   */
+  preferNear?: boolean;
+}
+
+/** Whether `bodies` can be seen together in a dark sky at `time`, or else at the best moment of that night. */
+export function eventVisibility(ctx: AlmanacContext, bodies: readonly Body[], time: Date, options: EventVisibilityOptions = {}): EventVisibility {
+  const frame = ctx.frameAt(time);
+  const first = bodies[0]!;
+  const ut = utDays(time);
+  if (isDark(ctx, frame, ut) && lowestMargin(ctx, frame, bodies, ut) >= 0) {
+    const p = apparentPlace(frame, first, ut);
+    return { visible: true, moment: 'event', time, altitudeDeg: p.altitudeDeg, azimuthDeg: p.azimuthDeg, reason: null, note: `Visible at the time: ${placeWords(ctx, time, p.altitudeDeg, p.azimuthDeg)}.` };
+  }
+  let anyDark = false;
+  const frames = [frame];
+  if (options.preferNear) {
+    // The neighbouring night whose dark hours may be nearer: the next one for a late-morning event,
+    // the previous one for an early-afternoon event.
+    const hour = (ut - frame.ut0) * 24;
+    if (hour < 6) frames.push(ctx.frameAt(dateFromUt(ut - 0.5)));
+    else if (hour > 18) frames.push(ctx.frameAt(dateFromUt(ut + 0.5)));
+  }
+  let best: { ut: number; value: number; frame: NightFrame } | null = null;
+  for (const f of frames) {
+    const objective = (u: number): number => {
+      if (!isDark(ctx, f, u)) return NaN;
+      anyDark = true;
+      const margin = lowestMargin(ctx, f, bodies, u);
+      if (!options.preferNear) return margin;
+      return margin < 0 ? NaN : Math.min(margin, NEAR_MARGIN_CAP_DEG) - NEAR_COST_DEG_PER_HOUR * 24 * Math.abs(u - ut);
+    };
+    const m = findMaximum(objective, f.ut0, f.ut1, { stepDays: STEP_DAYS });
+    if (m && (!best || m.value > best.value)) best = { ...m, frame: f };
+  }
+  if (best && (options.preferNear || best.value >= 0)) {
+    const at = dateFromUt(best.ut);
+    const p = apparentPlace(best.frame, first, best.ut);
+    const day = ctx.day(at) === ctx.day(time) ? '' : ` (${ctx.day(at)})`;
+    return {
+      visible: true,
+      moment: 'night',
+      time: at,
+      altitudeDeg: p.altitudeDeg,
+      azimuthDeg: p.azimuthDeg,
+      reason: null,
+      note: `Not in a dark sky at that moment; best seen at ${placeWords(ctx, at, p.altitudeDeg, p.azimuthDeg)}${day}.`,
+    };
+  }
+  let reason: EventHiddenReason = 'below-horizon';
+  if (!anyDark) reason = 'no-darkness';
+  else if (bodies.some((b) => b.kind !== 'sun' && elongationDeg(frame, b, ut) < GLARE_ELONGATION_DEG)) reason = 'too-close-to-sun';
+  return hidden(ctx, reason);
+}
+
+/** A not-visible verdict with its note. */
+export function hidden(ctx: AlmanacContext, reason: EventHiddenReason): EventVisibility {
+  return { visible: false, moment: 'none', time: null, altitudeDeg: null, azimuthDeg: null, reason, note: `Not visible from ${ctx.site.name}: ${HIDDEN_REASON_TEXT[reason]}.` };
+}

@@ -1,0 +1,105 @@
+/**
+ * Checking templates over many weeks without publishing anything: every template is rendered for
+ * every site and week asked for, and every problem is collected as a positioned message with its
+ * site and week — errors (a template that cannot render), value placeholders with no value,
+ * repeated sections with nothing to repeat, and pages over the size budget. `gloaming check` and
+ * the build both use it; the build for the weeks it publishes, `check` for a span of weeks.
+ */
+import type { BodyRegistry } from '../../core/body.ts';
+import { GloamingError } from '../../core/errors.ts';
+import type { Site } from '../../core/site.ts';
+import { addDays, isoWeekOf, type IsoWeek } from '../../core/time.ts';
+import { sitesFor } from './pages.ts';
+import { ProblemList, errorsOf, problemOfError } from './problems.ts';
+import { renderBulletinSync } from './render.ts';
+import type { BulletinTemplate, ChartOutput, PageSpec } from './types.ts';
+import { WeekCache } from './week.ts';
+
+/** The page budget: HTML with its inline CSS, bytes (40 KB). */
+export const PAGE_BUDGET_BYTES = 40 * 1024;
+
+/**
+ * What a published page adds around the bulletin's own HTML: the layout, navigation, cautions
+ * box and the inline stylesheet, bytes. Measured on the demo build for 2026-12-04: a bulletin
+ * page is 9.1–9.5 KB more than its bulletin HTML; 10 KB leaves room for the cautions box. The
+ * check counts the bulletin plus this.
+ */
+export const LAYOUT_BYTES = 10 * 1024;
+
+export interface CheckOptions {
+  bodies: BodyRegistry;
+  /** Finder chart output for `::chart` (default: the library's default chart cache). */
+  charts?: ChartOutput;
+  /** Shared week data (pass the build's own). */
+  cache?: WeekCache;
+  /** Where problems go (default: a new list with the default limit). */
+  problems?: ProblemList;
+  /** Bytes the layout adds to each page (default `LAYOUT_BYTES`). */
+  layoutBytes?: number;
+}
+
+/** How a problem names a page's week: its ISO week, or a one-off's date. */
+function weekLabel(page: Pick<PageSpec, 'template' | 'week'>): string {
+  const date = page.template.frontMatter.date;
+  return date !== undefined && isoWeekOf(date).id === page.week.id ? date : page.week.id;
+}
+
+/**
+ * Renders each page and collects its problems; stops early only when the list is full. Returns
+ * the list (errors and warnings, in page order).
+ */
+export function checkPages(pages: readonly Pick<PageSpec, 'template' | 'site' | 'week'>[], options: CheckOptions): ProblemList {
+  const problems = options.problems ?? new ProblemList();
+  const cache = options.cache ?? new WeekCache();
+  const layout = options.layoutBytes ?? LAYOUT_BYTES;
+  for (const page of pages) {
+    if (problems.full) {
+      problems.dropped++;
+      continue;
+    }
+    const context = { site: page.site.id, week: weekLabel(page) };
+    try {
+      const r = renderBulletinSync(page.template, { site: page.site, week: page.week, bodies: options.bodies, ...(options.charts ? { charts: options.charts } : {}) }, cache);
+      for (const p of r.problems) problems.add(p);
+      const bytes = Buffer.byteLength(r.html) + layout;
+      if (bytes > PAGE_BUDGET_BYTES) {
+        problems.add({
+          kind: 'page-size',
+          severity: 'warning',
+          message: `the page would be about ${Math.round(bytes / 1024)} KB of HTML and CSS, over the ${PAGE_BUDGET_BYTES / 1024} KB budget (the bulletin itself is ${Math.round(Buffer.byteLength(r.html) / 1024)} KB) — shorten the template or split it`,
+          place: { file: page.template.file },
+          ...context,
+        });
+      }
+    } catch (error) {
+      if (!(error instanceof GloamingError)) throw error;
+      for (const e of errorsOf(error)) problems.add(problemOfError(e, e.code === 'unsafe-output' || e.place?.line === undefined ? context : {}));
+    }
+  }
+  return problems;
+}
+
+/**
+ * The pages `gloaming check` renders: for a standing template, every site and each of `weeks`
+ * ISO weeks starting with the week of `today`; for a one-off, every site for its date. Unknown
+ * sites in a template's front matter go to `problems` (the template's other sites are still checked).
+ */
+export function pagesToCheck(templates: readonly BulletinTemplate[], options: { sites: Map<string, Site>; today: string; weeks: number; problems: ProblemList }): Pick<PageSpec, 'template' | 'site' | 'week'>[] {
+  const first = isoWeekOf(options.today);
+  const span: IsoWeek[] = Array.from({ length: options.weeks }, (_, k) => isoWeekOf(addDays(first.days[0]!, 7 * k)));
+  const pages: Pick<PageSpec, 'template' | 'site' | 'week'>[] = [];
+  for (const template of templates) {
+    let sites: Site[];
+    try {
+      sites = sitesFor(template, options.sites);
+    } catch (error) {
+      if (!(error instanceof GloamingError)) throw error;
+      options.problems.add(problemOfError(error));
+      continue;
+    }
+    const date = template.frontMatter.date;
+    const weeks = date !== undefined ? [isoWeekOf(date)] : span;
+    for (const site of sites) for (const week of weeks) pages.push({ template, site, week });
+  }
+  return pages;
+}

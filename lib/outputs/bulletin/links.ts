@@ -1,0 +1,57 @@
+/**
+ * `remarkSafeLinks`: a remark plugin that lets a bulletin link only to addresses a reader can
+ * follow safely — `http:`, `https:`, `mailto:` and relative addresses (`/harbour-roof/`,
+ * `../archive/`, `#tonight`). Any other scheme (`javascript:`, `data:`, `vbscript:`, `file:` …) in
+ * a link, an image or a link reference definition stops the build with the place of the link.
+ *
+ * The scheme is read the way browsers read it (WHATWG URL Standard, "scheme state"): leading and
+ * trailing C0 controls and spaces are ignored and tabs and line breaks inside are removed, so
+ * `java\tscript:` or ` javascript:` cannot slip through; character references were already decoded
+ * by the Markdown parser (`jav&#x61;script:` arrives as `javascript:`).
+ */
+import type { Nodes, Root } from 'mdast';
+import type { VFile } from 'vfile';
+import { GloamingError, quoteValue } from '../../core/errors.ts';
+
+/** Schemes a bulletin may link to. */
+export const SAFE_URL_SCHEMES = ['http', 'https', 'mailto'] as const;
+
+/** The scheme of `url` in lower case, or null for a relative address. */
+export function urlScheme(url: string): string | null {
+  // eslint-disable-next-line no-control-regex
+  const cleaned = url.replace(/^[\u0000-\u0020]+|[\u0000-\u0020]+$/g, '').replace(/[\t\n\r]/g, '');
+  const m = /^([a-zA-Z][a-zA-Z0-9+.-]*):/.exec(cleaned);
+  return m ? m[1]!.toLowerCase() : null;
+}
+
+/** Whether a bulletin may publish `url`. */
+export function isSafeUrl(url: string): boolean {
+  const scheme = urlScheme(url);
+  return scheme === null || (SAFE_URL_SCHEMES as readonly string[]).includes(scheme);
+}
+
+export interface SafeLinksOptions {
+  /** File name and line offset for error places (default: the vfile's path, no offset). */
+  place?: (file: VFile) => { file?: string | undefined; lineOffset?: number | undefined };
+}
+
+/** The remark plugin: throws `invalid-value` at the first unsafe link, image or definition. */
+export function remarkSafeLinks(options: SafeLinksOptions = {}) {
+  return (tree: Root, file: VFile): void => {
+    const where = options.place?.(file) ?? {};
+    const check = (node: Nodes): void => {
+      if ((node.type === 'link' || node.type === 'image' || node.type === 'definition') && !isSafeUrl(node.url)) {
+        const start = node.position?.start;
+        throw new GloamingError('invalid-value', `the ${node.type === 'image' ? 'image' : 'link'} address ${quoteValue(node.url)} uses the scheme '${urlScheme(node.url)}:', which a bulletin may not publish`, {
+          place: {
+            ...((where.file ?? file.path) ? { file: where.file ?? file.path } : {}),
+            ...(start ? { line: start.line + (where.lineOffset ?? 0), column: start.column } : {}),
+          },
+          expected: 'an http:, https: or mailto: address, or a relative one such as /harbour-roof/',
+        });
+      }
+      if ('children' in node) for (const child of node.children) check(child as Nodes);
+    };
+    check(tree);
+  };
+}

@@ -1,0 +1,559 @@
+/**
+ * `remarkPlaceholders`: the remark plugin that turns placeholder directives (parsed by
+ * `remark-directive`) into semantic HTML nodes for `remark-rehype`, and decides the sections
+ * (`:::provided`, `:::every-target`, `:::every-event`, see `sections.ts`). It only reads the syntax
+ * tree and the week data; it knows nothing of Astro, files or the clock, so any unified pipeline
+ * can use it:
+ *
+ * ```ts
+ * unified().use(remarkParse).use(remarkDirective)
+ *   .use(remarkPlaceholders, { scope: () => ({ site, week, bodies }) })
+ *   .use(remarkRehype).use(rehypeStringify)
+ * ```
+ *
+ * Every directive of a document is checked before any is computed, and every problem found is
+ * reported at once: one `GloamingError` placed at its directive (`file:line:column`, with the
+ * template's body offset added), or a `TemplateErrors` listing several. Problems that depend on
+ * the site and week (a value placeholder with no value, a repeated section with nothing to
+ * repeat) are warnings, left in `file.data.placeholders.problems`.
+ */
+import type { ElementContent } from 'hast';
+import type { List, Nodes, Parent, Root, RootContent, Text } from 'mdast';
+import type { ContainerDirective, LeafDirective, TextDirective } from 'mdast-util-directive';
+import type { VFile } from 'vfile';
+import type { Body, BodyRegistry } from '../../core/body.ts';
+import type { AlmanacEvent } from '../almanac/index.ts';
+import { GloamingError, didYouMean, type Place } from '../../core/errors.ts';
+import type { Site } from '../../core/site.ts';
+import { addDays, type IsoWeek } from '../../core/time.ts';
+import { readAttribute, type AttributeSpec, type AttributeValue, type ReadContext } from './attributes.ts';
+import { defaultClock, formatDay, type Clock } from './format.ts';
+import { PLACEHOLDERS, type PlaceholderCall, type PlaceholderSpec } from './placeholders.ts';
+import { throwErrors, type Problem } from './problems.ts';
+import { OTHERWISE, SECTIONS, type Binding, type SectionSpec } from './sections.ts';
+import { WeekCache, type WeekData } from './week.ts';
+import type { ChartOutput } from './types.ts';
+
+/** What the placeholders of one document are about. */
+export interface PlaceholderScope {
+  site: Site;
+  week: IsoWeek;
+  bodies: BodyRegistry;
+  /** Local date (inside `week`) of the default night; Monday of the week when absent. */
+  defaultNight?: string;
+  /**
+   * The nights whose events the page is about (local dates of the first and last evening); the
+   * seven nights of `week` when absent. A one-off bulletin looks ±3 nights around its date.
+   */
+  eventNights?: { first: string; last: string };
+  /** Shared week data; a private cache is used when absent. */
+  cache?: WeekCache;
+  /** File name for error places (default: the vfile's path). */
+  file?: string;
+  /** Added to directive line numbers, e.g. the number of front matter lines (`bodyLine − 1`). */
+  lineOffset?: number;
+  /** Finder charts for `::chart` (see `ChartOutput`). */
+  charts?: ChartOutput;
+  /** How problems name the page's week (default: the ISO week id; a one-off passes its date). */
+  weekLabel?: string;
+}
+
+export interface RemarkPlaceholdersOptions {
+  /** Gives the site, week and bodies of the document being processed. */
+  scope: (file: VFile) => PlaceholderScope;
+}
+
+/** What the plugin leaves in `file.data.placeholders`. */
+export interface PlaceholderReport {
+  /** Number of placeholders rendered. */
+  count: number;
+  /** Bodies a placeholder showed while they were within `NEAR_SUN_DEG` of the Sun. */
+  nearSun: Body[];
+  /** Warnings for this site and week: value placeholders with no value, empty repeated sections. */
+  problems: Problem[];
+}
+
+declare module 'vfile' {
+  interface DataMap {
+    placeholders: PlaceholderReport;
+  }
+}
+
+type Directive = TextDirective | LeafDirective | ContainerDirective;
+
+const DIRECTIVE_TYPES = new Set(['textDirective', 'leafDirective', 'containerDirective']);
+/** Directive-looking text that the directive parser did not accept (e.g. an unclosed `{`). */
+const LEFTOVER_RE = /(^|[^\\:\w]):{1,3}([a-zA-Z][\w-]*)(\{|\[)/;
+/** A placeholder name directly followed by a colon (`:name:`), which the directive parser leaves as text. */
+const COLON_AFTER_RE = /(^|[^\\:\w]):([a-zA-Z][\w-]*):/g;
+/** A block placeholder written inside a paragraph. */
+const INLINE_BLOCK_RE = /(^|\s)::([a-zA-Z][\w-]*)/;
+
+function isDirective(node: Nodes): node is Directive {
+  return DIRECTIVE_TYPES.has(node.type);
+}
+
+/** Directives followed directly by a `{` or `[` the parser could not read (unclosed brace, stray quote). */
+const malformed = new WeakSet<Directive>();
+
+/**
+ * Prepares the tree: a text directive whose name starts with a digit is prose that happens to
+ * contain a colon (`21:00`, `1:2`) and is turned back into its literal text; directives followed
+ * by an unreadable `{` are marked; text nodes are gathered for the leftover check.
+ */
+function normalize(node: Nodes, texts: Text[]): void {
+  if (node.type === 'text') texts.push(node);
+  if (!('children' in node)) return;
+  const children = node.children as Nodes[];
+  for (let i = 0; i < children.length; i++) {
+    const child = children[i]!;
+    if (child.type === 'textDirective' && /^\d/.test(child.name) && Object.keys(child.attributes ?? {}).length === 0 && child.children.length === 0) {
+      const literal: Text = { type: 'text', value: `:${child.name}`, ...(child.position ? { position: child.position } : {}) };
+      children[i] = literal;
+      texts.push(literal);
+      continue;
+    }
+    const next = children[i + 1];
+    if (isDirective(child) && next?.type === 'text' && /^[{[]/.test(next.value)) malformed.add(child);
+    normalize(child, texts);
+  }
+}
+
+function colons(node: Directive): string {
+  return node.type === 'textDirective' ? ':' : node.type === 'leafDirective' ? '::' : ':::';
+}
+
+function written(node: Directive): string {
+  return `${colons(node)}${node.name}`;
+}
+
+/** The directive as written, with its attributes, for messages (`:best-time{body=jupiter}`). */
+function asWritten(node: Directive): string {
+  const attrs = Object.entries(node.attributes ?? {}).map(([k, v]) => `${k}=${v ?? ''}`);
+  return `${written(node)}${attrs.length ? `{${attrs.join(' ')}}` : ''}`;
+}
+
+/** What sections around a directive bind, as far as checking knows (whether, not which). */
+interface Bound {
+  body: boolean;
+  event: boolean;
+}
+
+interface Defaults {
+  night: number;
+  clock: Clock;
+  binding: Binding;
+}
+
+/**
+ * Reads a directive's attributes against `specs`: unknown, unreadable and missing ones are
+ * `invalid-placeholder` errors (without a place); defaults are filled in, and a missing `body` or
+ * event comes from the enclosing section's binding. Returns the values and the names written.
+ */
+function readAttributes(node: Directive, specs: Readonly<Record<string, AttributeSpec>>, example: string, read: ReadContext, defaults: Defaults, bound: Bound): { attrs: Map<string, AttributeValue>; given: Set<string> } {
+  const attrs = new Map<string, AttributeValue>();
+  const given = new Set<string>();
+  for (const [name, raw] of Object.entries(node.attributes ?? {})) {
+    const attr = specs[name];
+    if (!attr) {
+      const names = Object.keys(specs);
+      const hint = didYouMean(name, names);
+      throw new GloamingError('invalid-placeholder', `unknown attribute '${name}' on '${written(node)}'`, {
+        place: { field: name },
+        expected: names.length ? `one of ${names.join(', ')}` : 'no attributes',
+        ...(hint ? { hint } : {}),
+      });
+    }
+    try {
+      attrs.set(name, readAttribute(name, raw ?? '', attr.type, read));
+    } catch (error) {
+      if (error instanceof GloamingError) throw error.at({ field: name });
+      throw error;
+    }
+    given.add(name);
+  }
+  for (const [name, attr] of Object.entries(specs)) {
+    if (attrs.has(name)) continue;
+    if (attr.bound === 'body' && defaults.binding.body) {
+      attrs.set(name, defaults.binding.body);
+      continue;
+    }
+    if (attr.required && !(attr.bound && bound[attr.bound])) {
+      const inside = attr.bound === 'body' ? ' (or sit inside :::every-target)' : attr.bound === 'event' ? ' (or sit inside :::every-event)' : '';
+      throw new GloamingError('invalid-placeholder', `'${written(node)}' needs the attribute '${name}'${inside}`, {
+        place: { field: name },
+        expected: attr.doc,
+        hint: `e.g. ${example}`,
+      });
+    }
+    if (attr.type.kind === 'night') attrs.set(name, defaults.night);
+    else if (attr.type.kind === 'clock') attrs.set(name, defaults.clock);
+    else if (attr.default !== undefined && !attr.bound) attrs.set(name, readAttribute(name, attr.default, attr.type, read));
+  }
+  return { attrs, given };
+}
+
+interface CheckedPlaceholder {
+  spec: PlaceholderSpec;
+  attrs: Map<string, AttributeValue>;
+  given: Set<string>;
+}
+
+/** Checks one placeholder directive against the table and reads its attributes; errors carry no place yet. */
+function checkPlaceholder(node: Directive, read: ReadContext, defaults: Defaults, bound: Bound): CheckedPlaceholder {
+  const spec = PLACEHOLDERS.get(node.name);
+  if (malformed.has(node)) {
+    throw new GloamingError('invalid-placeholder', `the attributes of '${written(node)}' cannot be read`, {
+      expected: `name=value pairs separated by spaces inside { }, e.g. ${spec?.example ?? SECTIONS.get(node.name)?.example ?? ':rise{body=jupiter night=fri}'}`,
+      hint: 'check for a missing } or an unbalanced quote',
+    });
+  }
+  if (!spec) {
+    const hint = didYouMean(node.name, PLACEHOLDERS.keys());
+    throw new GloamingError('unknown-placeholder', `unknown placeholder '${written(node)}'`, {
+      expected: 'a placeholder listed in lib/outputs/bulletin/PLACEHOLDERS.md',
+      ...(hint ? { hint } : { hint: 'write \\: to keep a literal colon before a word' }),
+    });
+  }
+  if (node.type === 'containerDirective') {
+    throw new GloamingError('invalid-placeholder', `'${written(node)}' is written as a container, which no placeholder is`, {
+      hint: spec.form === 'block' ? `write ::${spec.name} on a line of its own` : `write :${spec.name} inside a sentence`,
+    });
+  }
+  if (spec.form === 'block' && node.type === 'textDirective') {
+    throw new GloamingError('invalid-placeholder', `':${spec.name}' is a block placeholder`, { hint: `write ::${spec.name} on a line of its own` });
+  }
+  if (spec.form === 'inline' && node.type === 'leafDirective') {
+    throw new GloamingError('invalid-placeholder', `'::${spec.name}' is an inline placeholder`, { hint: `write :${spec.name} inside a sentence` });
+  }
+  if (node.children.length > 0) {
+    throw new GloamingError('invalid-placeholder', `'${written(node)}' takes no [label]`, { hint: `attributes go in braces, e.g. ${spec.example}` });
+  }
+  const { attrs, given } = readAttributes(node, spec.attributes, spec.example, read, defaults, bound);
+  spec.validate?.(attrs, bound);
+  return { spec, attrs, given };
+}
+
+interface CheckedSection {
+  spec: SectionSpec;
+  attrs: Map<string, AttributeValue>;
+  /** The block, and the alternative after `::otherwise` (null when there is none). */
+  body: RootContent[];
+  otherwise: RootContent[] | null;
+}
+
+/** Checks a section directive and splits its children at `::otherwise`; errors carry no place yet (except a misplaced second `::otherwise`). */
+function checkSection(node: ContainerDirective, spec: SectionSpec, read: ReadContext, defaults: Defaults, bound: Bound, placeOf: (n: Nodes) => Place): CheckedSection {
+  if (malformed.has(node)) {
+    throw new GloamingError('invalid-placeholder', `the attributes of '${written(node)}' cannot be read`, {
+      expected: `name=value pairs separated by spaces inside { }, e.g. ${spec.example}`,
+      hint: 'check for a missing } or an unbalanced quote',
+    });
+  }
+  const label = node.children[0];
+  if (label?.type === 'paragraph' && (label.data as { directiveLabel?: boolean } | undefined)?.directiveLabel) {
+    throw new GloamingError('invalid-placeholder', `'${written(node)}' takes no [label]`, { hint: `attributes go in braces, e.g. ${spec.example}` });
+  }
+  const { attrs } = readAttributes(node, spec.attributesFor(node.attributes ?? {}), spec.example, read, defaults, bound);
+  const splits = node.children.map((c, i) => (c.type === 'leafDirective' && c.name === OTHERWISE ? i : -1)).filter((i) => i >= 0);
+  if (splits.length > 1) {
+    throw new GloamingError('invalid-placeholder', `'${written(node)}' has more than one ::otherwise`, { place: placeOf(node.children[splits[1]!]!), hint: 'a section has one block and at most one alternative' });
+  }
+  const split = splits[0];
+  return {
+    spec,
+    attrs,
+    body: split === undefined ? node.children : node.children.slice(0, split),
+    otherwise: split === undefined ? null : node.children.slice(split + 1),
+  };
+}
+
+function textPlace(node: Text, index: number): { line?: number; column?: number } {
+  const start = node.position?.start;
+  if (!start) return {};
+  const before = node.value.slice(0, index);
+  const lines = before.split('\n');
+  return lines.length === 1 ? { line: start.line, column: start.column + index } : { line: start.line + lines.length - 1, column: lines[lines.length - 1]!.length + 1 };
+}
+
+/** Text that looks like a placeholder but was not parsed as one: one error per text node. */
+function leftovers(texts: Text[], placeAt: (p: { line?: number; column?: number }) => Place): GloamingError[] {
+  const errors: GloamingError[] = [];
+  for (const node of texts) {
+    const block = INLINE_BLOCK_RE.exec(node.value);
+    if (block && (PLACEHOLDERS.has(block[2]!) || block[2] === OTHERWISE)) {
+      const index = block.index + block[1]!.length;
+      errors.push(
+        new GloamingError('invalid-placeholder', `'::${block[2]}' must stand on a line of its own`, {
+          place: placeAt(textPlace(node, index)),
+          hint: PLACEHOLDERS.get(block[2]!)?.form === 'inline' ? `inside a sentence write :${block[2]}` : 'put it on its own line, with blank lines around it',
+        }),
+      );
+      continue;
+    }
+    const colon = [...node.value.matchAll(COLON_AFTER_RE)].find((c) => PLACEHOLDERS.has(c[2]!));
+    if (colon) {
+      errors.push(
+        new GloamingError('invalid-placeholder', `':${colon[2]}' followed directly by ':' is read as plain text`, {
+          place: placeAt(textPlace(node, colon.index + colon[1]!.length)),
+          hint: `write :${colon[2]}{}: to end the placeholder before the colon`,
+        }),
+      );
+      continue;
+    }
+    const m = LEFTOVER_RE.exec(node.value);
+    if (m && node.value.slice(m.index + m[1]!.length).startsWith(':::') && SECTIONS.has(m[2]!)) {
+      errors.push(
+        new GloamingError('invalid-placeholder', `':::${m[2]}' must start a line of its own`, {
+          place: placeAt(textPlace(node, m.index + m[1]!.length)),
+          hint: `write :::${m[2]}{…} on its own line, the block below it, and ::: on a line to close it`,
+        }),
+      );
+    } else if (m) {
+      const index = m.index + m[1]!.length;
+      errors.push(
+        new GloamingError('invalid-placeholder', `malformed placeholder '${node.value.slice(index, index + 40).split('\n')[0]}'`, {
+          place: placeAt(textPlace(node, index)),
+          expected: 'attributes in braces as name=value pairs separated by spaces, e.g. :rise{body=jupiter night=fri}',
+          hint: 'check for a missing } or a stray quote; write \\: for a literal colon',
+        }),
+      );
+    }
+  }
+  return errors;
+}
+
+/** Sets a directive node's output: `remark-rehype` turns it into the rendered element. */
+function replaceWith(node: Directive, output: ElementContent): void {
+  if (output.type === 'element') {
+    node.data = { hName: output.tagName, hProperties: output.properties, hChildren: output.children };
+  } else {
+    node.data = { hName: 'span', hProperties: {}, hChildren: [output] };
+  }
+}
+
+/** Copies of a repeated block, each a single list, become one list (one item per target or event). */
+function joinLists(copies: RootContent[][]): RootContent[] {
+  const lists = copies.map((c) => (c.length === 1 && c[0]!.type === 'list' ? (c[0] as List) : null));
+  if (copies.length < 2 || lists.some((l) => !l || l.ordered !== lists[0]!.ordered)) return copies.flat();
+  return [{ ...lists[0]!, children: lists.flatMap((l) => l!.children) }];
+}
+
+/** Everything one document's pass needs. */
+class Pass {
+  readonly scope: PlaceholderScope;
+  readonly file: string;
+  readonly read: ReadContext;
+  readonly clock: Clock;
+  readonly defaultNight: number;
+  readonly nearSun = new Map<string, Body>();
+  readonly problems: Problem[] = [];
+  count = 0;
+  #week: WeekData | undefined;
+  #events: AlmanacEvent[] | undefined;
+
+  constructor(scope: PlaceholderScope, file: string, defaultNight: number) {
+    this.scope = scope;
+    this.file = file;
+    this.read = { bodies: scope.bodies, days: scope.week.days };
+    this.clock = defaultClock(scope.site.locale);
+    this.defaultNight = defaultNight;
+  }
+
+  placeAt(p: { line?: number; column?: number }): Place {
+    return { file: this.file, ...(p.line !== undefined ? { line: p.line + (this.scope.lineOffset ?? 0) } : {}), ...(p.column !== undefined ? { column: p.column } : {}) };
+  }
+
+  placeOf(node: Nodes): Place {
+    const start = node.position?.start;
+    return this.placeAt(start ? { line: start.line, column: start.column } : {});
+  }
+
+  get week(): WeekData {
+    this.#week ??= (this.scope.cache ?? new WeekCache()).get(this.scope.site, this.scope.week, this.scope.bodies);
+    return this.#week;
+  }
+
+  events(): AlmanacEvent[] {
+    const span = this.scope.eventNights;
+    const days = this.scope.week.days;
+    this.#events ??= this.week.eventsBetween(span?.first ?? days[0]!, span?.last ?? days[6]!);
+    return this.#events;
+  }
+
+  get eventSpan(): string {
+    return this.scope.eventNights ? 'around this date' : 'this week';
+  }
+
+  defaults(binding: Binding): Defaults {
+    return { night: binding.night ?? this.defaultNight, clock: this.clock, binding };
+  }
+
+  warn(kind: Problem['kind'], node: Nodes, message: string): void {
+    this.problems.push({ kind, severity: 'warning', message, place: this.placeOf(node), site: this.scope.site.id, week: this.scope.weekLabel ?? this.scope.week.id });
+  }
+
+  // --- Checking: every directive, with what its sections bind; all errors collected.
+
+  check(parent: Parent, bound: Bound, errors: GloamingError[], inSection: boolean): void {
+    for (const child of parent.children as Nodes[]) {
+      if (child.type === 'containerDirective' && SECTIONS.has(child.name)) {
+        const spec = SECTIONS.get(child.name)!;
+        let inner = bound;
+        try {
+          checkSection(child, spec, this.read, this.defaults({}), bound, (n) => this.placeOf(n));
+        } catch (error) {
+          if (!(error instanceof GloamingError)) throw error;
+          errors.push(error.at(this.placeOf(child)));
+        }
+        if (spec.binds) inner = { ...bound, [spec.binds]: true };
+        this.check(child, inner, errors, true);
+        continue;
+      }
+      if (child.type === 'leafDirective' && child.name === OTHERWISE) {
+        if (!inSection || !(parent.type === 'containerDirective' && SECTIONS.has((parent as ContainerDirective).name))) {
+          errors.push(new GloamingError('invalid-placeholder', "'::otherwise' stands only directly inside a section", { place: this.placeOf(child), hint: 'put it between :::provided{…} (or :::every-target, :::every-event) and its closing :::' }));
+        }
+        continue;
+      }
+      if (child.type === 'containerDirective' && !PLACEHOLDERS.has(child.name)) {
+        const hint = didYouMean(child.name, SECTIONS.keys());
+        errors.push(
+          new GloamingError('unknown-placeholder', `unknown section '${written(child)}'`, {
+            place: this.placeOf(child),
+            expected: `one of ${[...SECTIONS.keys()].map((n) => `:::${n}`).join(', ')}`,
+            ...(hint ? { hint } : {}),
+          }),
+        );
+        this.check(child, bound, errors, true);
+        continue;
+      }
+      if (isDirective(child)) {
+        try {
+          checkPlaceholder(child, this.read, this.defaults({}), bound);
+        } catch (error) {
+          if (!(error instanceof GloamingError)) throw error;
+          errors.push(error.at(this.placeOf(child)));
+        }
+      }
+      if ('children' in child) this.check(child as Parent, bound, errors, false);
+    }
+  }
+
+  // --- Rendering: sections decided and expanded in place, placeholders replaced by their values.
+
+  render(parent: Parent, binding: Binding): void {
+    const children = parent.children as RootContent[];
+    for (let i = 0; i < children.length; i++) {
+      const child = children[i]!;
+      if (child.type === 'containerDirective' && SECTIONS.has(child.name)) {
+        const out = this.section(child, binding);
+        children.splice(i, 1, ...out);
+        i += out.length - 1;
+        continue;
+      }
+      if (isDirective(child)) this.placeholder(child, binding);
+      if ('children' in child) this.render(child as Parent, binding);
+    }
+  }
+
+  /** The nodes a section leaves in its place (already rendered). */
+  section(node: ContainerDirective, binding: Binding): RootContent[] {
+    const spec = SECTIONS.get(node.name)!;
+    const bound = { body: !!binding.body, event: !!binding.event };
+    const c = checkSection(node, spec, this.read, this.defaults(binding), bound, (n) => this.placeOf(n));
+    const night = (c.attrs.get('night') as number | undefined) ?? binding.night ?? this.defaultNight;
+    const decision = spec.decide({
+      name: spec.name,
+      week: this.week,
+      night,
+      attrs: c.attrs,
+      bound: binding,
+      events: () => this.events(),
+      hasValue: (placeholder, attrs) => {
+        let missing = false;
+        placeholder.render(this.call(placeholder, attrs, new Set(attrs.keys()), binding, { fallback: () => (missing = true), nearSun: () => undefined }));
+        return !missing;
+      },
+    });
+    const renderBlock = (nodes: RootContent[], inner: Binding): RootContent[] => {
+      const root: Root = { type: 'root', children: structuredClone(nodes) };
+      this.render(root, inner);
+      return root.children;
+    };
+    if (decision.kind === 'choose') {
+      const chosen = decision.show ? c.body : (c.otherwise ?? []);
+      return renderBlock(chosen, binding);
+    }
+    if (decision.items.length === 0) {
+      if (c.otherwise) return renderBlock(c.otherwise, binding);
+      const when = spec.binds === 'event' ? this.eventSpan : `on ${formatDay(this.scope.week.days[night]!, this.scope.site, { weekday: 'long' })}`;
+      this.warn('empty-section', node, `'${asWritten(node)}' has nothing to repeat ${when} and no ::otherwise, so it prints nothing — add ::otherwise with a sentence for such ${spec.binds === 'event' ? 'weeks' : 'nights'}`);
+      return [];
+    }
+    return joinLists(decision.items.map((item) => renderBlock(c.body, { ...binding, ...item, night: item.night ?? night })));
+  }
+
+  call(spec: PlaceholderSpec, attrs: ReadonlyMap<string, AttributeValue>, given: ReadonlySet<string>, binding: Binding, hooks: Pick<PlaceholderCall, 'fallback' | 'nearSun'>): PlaceholderCall {
+    return {
+      name: spec.name,
+      site: this.scope.site,
+      week: this.week,
+      night: (attrs.get('night') as number | undefined) ?? binding.night ?? this.defaultNight,
+      clock: (attrs.get('clock') as Clock | undefined) ?? this.clock,
+      attrs,
+      given,
+      events: () => this.events(),
+      eventSpan: this.eventSpan,
+      ...(binding.event ? { event: binding.event } : {}),
+      ...(this.scope.charts ? { charts: this.scope.charts } : {}),
+      ...hooks,
+    };
+  }
+
+  placeholder(node: Directive, binding: Binding): void {
+    const c = checkPlaceholder(node, this.read, this.defaults(binding), { body: !!binding.body, event: !!binding.event });
+    const call = this.call(c.spec, c.attrs, c.given, binding, {
+      nearSun: (body) => this.nearSun.set(body.id, body),
+      fallback: (honest, condition) => {
+        const written = Object.entries(node.attributes ?? {}).map(([k, v]) => ` ${k}=${v ?? ''}`).join('');
+        const guard = `:::provided{${condition ?? `has=${c.spec.name}${written}`}}`;
+        const date = formatDay(this.scope.week.days[call.night]!, this.scope.site, { weekday: 'long' });
+        this.warn('fallback', node, `'${asWritten(node)}' has no value on ${date} (${honest}), so it prints '–' — put it inside ${guard} with ::otherwise, or use :verdict for the honest sentence`);
+      },
+    });
+    replaceWith(node, c.spec.render(call));
+    this.count++;
+  }
+}
+
+/**
+ * The remark plugin. Decides every section and replaces every placeholder directive in the tree
+ * by its rendered value for the scope's site and week, and leaves `file.data.placeholders`
+ * ({ count, nearSun, problems }).
+ */
+export function remarkPlaceholders(options: RemarkPlaceholdersOptions) {
+  return (tree: Root, file: VFile): undefined => {
+    const scope = options.scope(file);
+    const fileName = scope.file ?? file.path ?? '<markdown>';
+    const days = scope.week.days;
+    const defaultNight = scope.defaultNight === undefined ? 0 : days.indexOf(scope.defaultNight);
+    if (defaultNight < 0) {
+      throw new GloamingError('invalid-date', `the default night ${scope.defaultNight} is not in the week ${scope.week.id}`, { place: { file: fileName } });
+    }
+    if (scope.eventNights && scope.eventNights.first > scope.eventNights.last) {
+      throw new GloamingError('invalid-date', `the event nights run backwards (${scope.eventNights.first} to ${scope.eventNights.last})`, { place: { file: fileName }, expected: `a first night on or before the last, e.g. ${addDays(days[0]!, -3)} to ${addDays(days[0]!, 3)}` });
+    }
+    const pass = new Pass(scope, fileName, defaultNight);
+    const texts: Text[] = [];
+    normalize(tree, texts);
+    const errors: GloamingError[] = [];
+    pass.check(tree, { body: false, event: false }, errors, false);
+    errors.push(...leftovers(texts, (p) => pass.placeAt(p)));
+    errors.sort((a, b) => (a.place?.line ?? 0) - (b.place?.line ?? 0) || (a.place?.column ?? 0) - (b.place?.column ?? 0));
+    throwErrors(errors);
+    pass.render(tree, {});
+    file.data.placeholders = { count: pass.count, nearSun: [...pass.nearSun.values()], problems: pass.problems };
+    return undefined;
+  };
+}

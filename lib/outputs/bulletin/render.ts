@@ -1,0 +1,130 @@
+/**
+ * Rendering one bulletin page: the template's Markdown through one unified pipeline
+ * (remark-parse → remark-directive → remarkPlaceholders → remark-rehype → rehype-stringify),
+ * then the eye-safety cautions and the final publishability check.
+ */
+import rehypeStringify from 'rehype-stringify';
+import remarkDirective from 'remark-directive';
+import remarkParse from 'remark-parse';
+import remarkRehype from 'remark-rehype';
+import { unified } from 'unified';
+import type { Body } from '../../core/body.ts';
+import { GloamingError } from '../../core/errors.ts';
+import type { AlmanacEvent } from '../almanac/index.ts';
+import { addDays, isoWeekOf, type IsoWeek } from '../../core/time.ts';
+import { fieldPlace } from './frontmatter.ts';
+import { NEAR_SUN_DEG } from './placeholders.ts';
+import { remarkSafeLinks } from './links.ts';
+import { remarkPlaceholders, type PlaceholderScope } from './plugin.ts';
+import { ECLIPSE_CAUTION, assertPublishable, nearSunCaution } from './safety.ts';
+import type { BulletinTemplate, RenderContext, RenderedBulletin } from './types.ts';
+import { WeekCache, type WeekData } from './week.ts';
+
+declare module 'vfile' {
+  interface DataMap {
+    /** The scope a page is rendered for, handed to `remarkPlaceholders` by `renderBulletin`. */
+    gloamingScope: PlaceholderScope;
+  }
+}
+
+/** One processor for every page; the page's scope travels in the file's data. */
+const processor = unified()
+  .use(remarkParse)
+  .use(remarkDirective)
+  .use(remarkPlaceholders, {
+    scope: (file) => {
+      const scope = file.data.gloamingScope;
+      if (!scope) throw new GloamingError('invalid-argument', 'renderBulletin: no placeholder scope was given');
+      return scope;
+    },
+  })
+  // Links, images and definitions may use only http:, https:, mailto: or relative addresses.
+  .use(remarkSafeLinks, { place: (file) => ({ file: file.data.gloamingScope?.file, lineOffset: file.data.gloamingScope?.lineOffset }) })
+  .use(remarkRehype)
+  .use(rehypeStringify)
+  .freeze();
+
+/** Front matter bodies, resolved; unknown ids are positioned errors with a suggestion. */
+function frontMatterBodies(template: BulletinTemplate, context: RenderContext): Body[] {
+  return (template.frontMatter.bodies ?? []).map((id, i) => {
+    try {
+      return context.bodies.get(id, { field: `bodies.${i}` });
+    } catch (error) {
+      if (error instanceof GloamingError) throw error.at(fieldPlace(template, `bodies.${i}`));
+      throw error;
+    }
+  });
+}
+
+/** Cautions for a page: near-Sun targets (front matter bodies on any night, placeholder bodies on their night) and eclipses among the page's events. */
+function cautionsFor(template: BulletinTemplate, week: WeekData, events: AlmanacEvent[], listed: Body[], shown: Body[]): string[] {
+  const near = new Map<string, Body>();
+  for (const body of listed) {
+    if (body.kind === 'sun' || week.nights.some((_, i) => week.elongationDeg(i, body) < NEAR_SUN_DEG)) near.set(body.id, body);
+  }
+  for (const body of shown) near.set(body.id, body);
+  const names = [...near.values()].filter((b) => b.kind !== 'sun').map((b) => (b.kind === 'moon' ? 'the Moon' : b.name));
+  const cautions: string[] = [];
+  if (near.size > 0) cautions.push(nearSunCaution(names));
+  // Every page of a week with a solar eclipse visible from the site carries the eclipse caution.
+  if (template.frontMatter.eclipse || events.some((e) => e.type === 'solar-eclipse' && e.visible)) cautions.push(ECLIPSE_CAUTION);
+  return cautions;
+}
+
+/** A one-off bulletin's events are looked up this many nights either side of its date. */
+export const ONE_OFF_EVENT_NIGHTS = 3;
+
+/**
+ * The nights a page is about. A standing bulletin: Monday of its ISO week by default, events of
+ * the week's seven nights. A one-off: its date's night, and events from local noon
+ * `ONE_OFF_EVENT_NIGHTS` evenings before its date to local noon after the evening
+ * `ONE_OFF_EVENT_NIGHTS` after it — so a meteor shower peaking at 10:49 on a Monday morning (which
+ * belongs to Sunday's night, and so to the previous ISO week) is found by a one-off dated Monday.
+ */
+export function pageNights(template: BulletinTemplate, week: IsoWeek): { defaultNight?: string; eventNights?: { first: string; last: string } } {
+  const date = template.frontMatter.date;
+  if (date === undefined || isoWeekOf(date).id !== week.id) return {};
+  return { defaultNight: date, eventNights: { first: addDays(date, -ONE_OFF_EVENT_NIGHTS), last: addDays(date, ONE_OFF_EVENT_NIGHTS) } };
+}
+
+/**
+ * Renders `template` for `context.site` and `context.week`. Pass one `WeekCache` to every call of
+ * a build so each site-week is computed once. The default night is Monday of the week, or the
+ * one-off bulletin's date (see `pageNights`). Throws `GloamingError` for any problem in the
+ * template (placed at `file:line:column`; several at once as `TemplateErrors`) and `unsafe-output`
+ * if the HTML is not publishable. Problems that depend on the site and week are in `problems`.
+ */
+export async function renderBulletin(template: BulletinTemplate, context: RenderContext, cache: WeekCache = new WeekCache()): Promise<RenderedBulletin> {
+  return renderBulletinSync(template, context, cache);
+}
+
+/** The synchronous form of `renderBulletin` (same result). */
+export function renderBulletinSync(template: BulletinTemplate, context: RenderContext, cache: WeekCache = new WeekCache()): RenderedBulletin {
+  const listed = frontMatterBodies(template, context);
+  const nights = pageNights(template, context.week);
+  const scope: PlaceholderScope = {
+    site: context.site,
+    week: context.week,
+    bodies: context.bodies,
+    cache,
+    file: template.file,
+    lineOffset: template.bodyLine - 1,
+    ...(context.charts ? { charts: context.charts } : {}),
+    ...nights,
+    ...(nights.defaultNight ? { weekLabel: nights.defaultNight } : {}),
+  };
+  const file = processor.processSync({ value: template.body, path: template.file, data: { gloamingScope: scope } });
+  const html = String(file);
+  assertPublishable(html, template.file);
+  const shown = file.data.placeholders?.nearSun ?? [];
+  const week = cache.get(context.site, context.week, context.bodies);
+  const days = context.week.days;
+  const events = week.eventsBetween(nights.eventNights?.first ?? days[0]!, nights.eventNights?.last ?? days[6]!);
+  return {
+    html,
+    title: template.frontMatter.title,
+    description: template.frontMatter.description ?? '',
+    cautions: cautionsFor(template, week, events, listed, shown),
+    problems: file.data.placeholders?.problems ?? [],
+  };
+}

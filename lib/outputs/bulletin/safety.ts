@@ -1,0 +1,51 @@
+/**
+ * Safety of output and of readers. `assertPublishable` is the last check before a page is written:
+ * a value that failed silently (NaN, `undefined`, an invalid date, an empty placeholder) must
+ * never reach a reader. The eye-safety cautions are plain sentences a page shows verbatim.
+ */
+import { GloamingError } from '../../core/errors.ts';
+
+/** Shown when a bulletin's target is close to the Sun in the sky. Our own wording. */
+export function nearSunCaution(names: readonly string[]): string {
+  const list = names.length <= 1 ? (names[0] ?? 'A target') : `${names.slice(0, -1).join(', ')} and ${names[names.length - 1]}`;
+  const verb = names.length > 1 ? 'are' : 'is';
+  return (
+    `${list.charAt(0).toUpperCase()}${list.slice(1)} ${verb} close to the Sun in the sky this week. Never point binoculars or a telescope at or near the Sun: ` +
+    'search only after the Sun has fully set, stop well before it rises, and follow the advice of your local observatory or astronomy society.'
+  );
+}
+
+/** Shown on every eclipse bulletin. Our own wording. */
+export const ECLIPSE_CAUTION =
+  'Never look at the Sun without protection made for it, even when most of it is covered. ' +
+  'Only solar viewers certified to ISO 12312-2, or a telescope with a certified solar filter fitted over its front, are safe for the partial phases; ' +
+  'sunglasses, smoked glass and exposed film are not. Follow the guidance of your local observatory or health authority.';
+
+const FORBIDDEN: { pattern: RegExp; what: string }[] = [
+  { pattern: /\bNaN\b/, what: 'NaN' },
+  { pattern: /\bundefined\b/, what: "'undefined'" },
+  { pattern: /Invalid Date/, what: "'Invalid Date'" },
+  { pattern: /<([a-z]+)\b[^>]*\bclass="gl(?: [^"]*)?"[^>]*>\s*<\/\1>/, what: 'an empty placeholder element' },
+];
+
+function lineColumn(text: string, index: number): { line: number; column: number } {
+  const before = text.slice(0, index).split('\n');
+  return { line: before.length, column: before[before.length - 1]!.length + 1 };
+}
+
+/**
+ * Refuses HTML that contains `NaN`, `undefined`, `Invalid Date` or an empty placeholder element
+ * (class `gl …` with no content): throws `unsafe-output` with the place in the HTML.
+ */
+export function assertPublishable(html: string, file: string): void {
+  for (const { pattern, what } of FORBIDDEN) {
+    const m = pattern.exec(html);
+    if (m) {
+      throw new GloamingError('unsafe-output', `the page contains ${what} and will not be published`, {
+        place: { file, ...lineColumn(html, m.index) },
+        actual: html.slice(Math.max(0, m.index - 30), m.index + m[0].length + 30),
+        hint: 'a value failed to compute; fix the template or report the bug',
+      });
+    }
+  }
+}

@@ -1,0 +1,91 @@
+/**
+ * Finder charts (issue #7): the sky as the reader will see it, drawn as SVG text.
+ *
+ * - `horizonChart({ site, body, time, options })` — the view facing a target (lib/outputs/chart/horizon.ts).
+ * - `wholeSkyChart({ site, time, body?, options })` — the whole sky as a disc (lib/outputs/chart/whole-sky.ts);
+ *   `eveningMoment(report)` picks the end of nautical twilight.
+ * - `horizonAltText(chart)`, `wholeSkyAltText(chart)` — alt text from the computed values.
+ * - `ChartCache` — content-hash cache folder with progress reports; `chartImg` — the `<img>` markup.
+ * - `placeholderChart(...)` — everything the `::chart{body night view}` placeholder needs.
+ * - `stereographic(centre)` — the projection, with its inverse.
+ */
+import type { Body } from '../../core/body.ts';
+import type { NightReport } from '../../models/night.ts';
+import type { Site } from '../../core/site.ts';
+import { REASON_TEXT, type Visibility } from '../../models/visibility.ts';
+import { ChartCache, chartImg, type ChartRequest, type DeliveredChart } from './cache.ts';
+import { eveningMoment } from './whole-sky.ts';
+
+export { stereographic, stereographicRadius, angleFromRadius, makeLayout, type AltAz, type PlanePoint, type Stereographic } from './projection.ts';
+export { horizonChart, SIDEREAL_DAY_DAYS, type HorizonChart, type HorizonChartOptions, type ChartMark, type ChartLayout } from './horizon.ts';
+export { wholeSkyChart, eveningMoment, type WholeSkyChart, type WholeSkyChartOptions } from './whole-sky.ts';
+export { horizonAltText, wholeSkyAltText } from './alt.ts';
+export {
+  ChartCache,
+  chartImg,
+  chartKey,
+  codeFingerprint,
+  drawChart,
+  rasterizeChart,
+  CHART_BUDGET_BYTES,
+  CHART_FORMAT_VERSION,
+  type ChartCacheOptions,
+  type ChartProgress,
+  type ChartRequest,
+  type DeliveredChart,
+} from './cache.ts';
+export { chartMagnitudeLimit, COLOURS, OKABE_ITO, CHART_WIDTH, MIN_FONT } from './style.ts';
+export { formatChartTime, formatChartDate, formatMagnitude, chartLabel } from './words.ts';
+
+/** What the `::chart` placeholder renders: a figure with the chart, or an honest sentence. */
+export type PlaceholderChart =
+  | { kind: 'chart'; chart: DeliveredChart; html: string }
+  | { kind: 'not-visible'; html: string; reason: string };
+
+/**
+ * The chart for a `::chart{body=… night=… view=horizon|sky}` placeholder.
+ *
+ * - `view: 'horizon'` (default): the view facing `body` at its best time of the night
+ *   (`visibility.best.time`), with its track over the week (`nightIndex` 0–6 of the week, so the
+ *   dots cover the week's other nights). A body with no best time gets an honest sentence.
+ * - `view: 'sky'`: the whole sky at the end of nautical twilight (`eveningMoment(report)`),
+ *   with `body` highlighted.
+ *
+ * `url(file)` maps a cache file name to its public URL; the caller copies the cache files it
+ * used (`chart.files`) into the published folder. Returned `html` is a `<figure class="gl
+ * gl-chart">` holding the `<img>` (width, height, lazy loading, async decoding, alt text) and a
+ * caption repeating the alt text's first sentence for sighted readers.
+ */
+export function placeholderChart(input: {
+  site: Site;
+  body: Body;
+  report: NightReport;
+  visibility: Visibility;
+  nightIndex: number;
+  view?: 'horizon' | 'sky';
+  cache: ChartCache;
+  url: (file: string) => string;
+  raster?: boolean;
+}): PlaceholderChart {
+  const view = input.view ?? 'horizon';
+  let request: ChartRequest;
+  if (view === 'sky') {
+    request = { kind: 'sky', site: input.site, time: eveningMoment(input.report), body: input.body };
+  } else {
+    const best = input.visibility.best;
+    if (!best) {
+      const reason = input.visibility.reason ? REASON_TEXT[input.visibility.reason] : 'not visible';
+      return { kind: 'not-visible', reason, html: `<p class="gl gl-chart gl-none">No finder chart for ${escapeHtml(input.body.name)} this night: ${escapeHtml(reason)}.</p>` };
+    }
+    const trackDays = [0, 1, 2, 3, 4, 5, 6].map((i) => i - input.nightIndex).filter((d) => d !== 0);
+    request = { kind: 'horizon', site: input.site, body: input.body, time: best.time, options: { trackDays } };
+  }
+  const chart = input.cache.get(request);
+  const img = chartImg(chart, { url: input.url, ...(input.raster ? { raster: true } : {}) });
+  const caption = chart.alt.split(/(?<=\.)\s/)[0] ?? chart.alt;
+  return { kind: 'chart', chart, html: `<figure class="gl gl-chart" data-chart="${chart.key}">${img}<figcaption>${escapeHtml(caption)}</figcaption></figure>` };
+}
+
+function escapeHtml(text: string): string {
+  return text.replace(/[&<>"]/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;' })[c]!);
+}
