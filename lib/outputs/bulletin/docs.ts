@@ -9,7 +9,7 @@ import { defineSite, type Site } from '../../core/site.ts';
 import { isoWeekOf, type IsoWeek } from '../../core/time.ts';
 import { describeType, type AttributeSpec } from './attributes.ts';
 import { SECTIONS } from './sections.ts';
-import { PLACEHOLDERS } from './placeholders.ts';
+import { PLACEHOLDERS } from './placeholders/registry.ts';
 import { renderBulletinSync } from './render.ts';
 import { WeekCache } from './week.ts';
 
@@ -40,7 +40,7 @@ function outputOf(example: string, cache: WeekCache): string {
 export function placeholderTable(): string {
   const cache = new WeekCache();
   const lines = [
-    '<!-- Generated from lib/outputs/bulletin/placeholders.ts by placeholderTable(); test/bulletin-fixtures.test.ts keeps it in step (UPDATE_FIXTURES=1 rewrites it). -->',
+    '<!-- Generated from lib/outputs/bulletin/placeholders/ (the registry) by placeholderTable(); test/bulletin-fixtures.test.ts keeps it in step (UPDATE_FIXTURES=1 rewrites it). -->',
     '',
     `Example outputs are for an invented example site at 52° N, 5° E (Europe/Amsterdam, en-GB) in the week ${EXAMPLE_WEEK.id}, Monday night unless the example says otherwise.`,
     '',

@@ -12,6 +12,7 @@
 import type { Nodes, Root } from 'mdast';
 import type { VFile } from 'vfile';
 import { GloamingError, quoteValue } from '../../core/errors.ts';
+import { errorsOnFile, reportError, throwErrors } from './problems.ts';
 
 /** Schemes a bulletin may link to. */
 export const SAFE_URL_SCHEMES = ['http', 'https', 'mailto'] as const;
@@ -30,25 +31,19 @@ export function isSafeUrl(url: string): boolean {
   return scheme === null || (SAFE_URL_SCHEMES as readonly string[]).includes(scheme);
 }
 
-export interface SafeLinksOptions {
-  /** File name and line offset for error places (default: the vfile's path, no offset). */
-  place?: (file: VFile) => { file?: string | undefined; lineOffset?: number | undefined };
-}
-
-/** The remark plugin: throws `invalid-value` at the first unsafe link, image or definition. */
-export function remarkSafeLinks(options: SafeLinksOptions = {}) {
+/**
+ * The remark plugin: reports `invalid-value` on the file at the first unsafe link, image or
+ * definition, and throws it there (`file:line:column` of the node).
+ */
+export function remarkSafeLinks() {
   return (tree: Root, file: VFile): void => {
-    const where = options.place?.(file) ?? {};
     const check = (node: Nodes): void => {
       if ((node.type === 'link' || node.type === 'image' || node.type === 'definition') && !isSafeUrl(node.url)) {
-        const start = node.position?.start;
-        throw new GloamingError('invalid-value', `the ${node.type === 'image' ? 'image' : 'link'} address ${quoteValue(node.url)} uses the scheme '${urlScheme(node.url)}:', which a bulletin may not publish`, {
-          place: {
-            ...((where.file ?? file.path) ? { file: where.file ?? file.path } : {}),
-            ...(start ? { line: start.line + (where.lineOffset ?? 0), column: start.column } : {}),
-          },
+        const error = new GloamingError('invalid-value', `the ${node.type === 'image' ? 'image' : 'link'} address ${quoteValue(node.url)} uses the scheme '${urlScheme(node.url)}:', which a bulletin may not publish`, {
           expected: 'an http:, https: or mailto: address, or a relative one such as /harbour-roof/',
         });
+        reportError(file, error, node);
+        throwErrors(errorsOnFile(file));
       }
       if ('children' in node) for (const child of node.children) check(child as Nodes);
     };

@@ -11,25 +11,29 @@
  *   .use(remarkRehype).use(rehypeStringify)
  * ```
  *
- * Every directive of a document is checked before any is computed, and every problem found is
- * reported at once: one `GloamingError` placed at its directive (`file:line:column`, with the
- * template's body offset added), or a `TemplateErrors` listing several. Problems that depend on
- * the site and week (a value placeholder with no value, a repeated section with nothing to
- * repeat) are warnings, left in `file.data.placeholders.problems`.
+ * Every directive of a document is checked before any is computed. Each problem is a message on
+ * the file at its directive's node (`file.message`, see `reportError` and `reportWarning` in
+ * `problems.ts`): after checking, the errors are thrown at once (one `GloamingError` placed at
+ * `file:line:column`, or a `TemplateErrors` listing several). Problems that depend on the site
+ * and week (a value placeholder with no value, a repeated section with nothing to repeat) stay on
+ * the file as warnings (`warningsOnFile`). Lines are the file's own: a caller that parses only a
+ * template's body gives the file its front matter as blank lines (see `render.ts`).
  */
 import type { ElementContent } from 'hast';
 import type { List, Nodes, Parent, Root, RootContent, Text } from 'mdast';
 import type { ContainerDirective, LeafDirective, TextDirective } from 'mdast-util-directive';
 import type { VFile } from 'vfile';
-import type { Body, BodyRegistry } from '../../core/body.ts';
+import type { BodyRegistry } from '../../core/body.ts';
 import type { AlmanacEvent } from '../almanac/index.ts';
-import { GloamingError, didYouMean, type Place } from '../../core/errors.ts';
+import { ChartCache } from '../chart/cache.ts';
+import { GloamingError, didYouMean } from '../../core/errors.ts';
 import type { Site } from '../../core/site.ts';
 import { addDays, type IsoWeek } from '../../core/time.ts';
 import { readAttribute, type AttributeSpec, type AttributeValue, type ReadContext } from './attributes.ts';
 import { defaultClock, formatDay, type Clock } from './format.ts';
-import { PLACEHOLDERS, type PlaceholderCall, type PlaceholderSpec } from './placeholders.ts';
-import { throwErrors, type Problem } from './problems.ts';
+import { PLACEHOLDERS, type PlaceholderCall, type PlaceholderSpec } from './placeholders/registry.ts';
+import { errorsOnFile, reportError, reportWarning, throwErrors, type ProblemKind } from './problems.ts';
+import type { ShownBody } from './safety.ts';
 import { OTHERWISE, SECTIONS, type Binding, type SectionSpec } from './sections.ts';
 import { WeekCache, type WeekData } from './week.ts';
 import type { ChartOutput } from './types.ts';
@@ -48,14 +52,8 @@ export interface PlaceholderScope {
   eventNights?: { first: string; last: string };
   /** Shared week data; a private cache is used when absent. */
   cache?: WeekCache;
-  /** File name for error places (default: the vfile's path). */
-  file?: string;
-  /** Added to directive line numbers, e.g. the number of front matter lines (`bodyLine − 1`). */
-  lineOffset?: number;
-  /** Finder charts for `::chart` (see `ChartOutput`). */
+  /** Finder charts for `::chart` (see `ChartOutput`); when absent, kept in memory for this document and linked as `/charts/<file>`. */
   charts?: ChartOutput;
-  /** How problems name the page's week (default: the ISO week id; a one-off passes its date). */
-  weekLabel?: string;
 }
 
 export interface RemarkPlaceholdersOptions {
@@ -63,14 +61,12 @@ export interface RemarkPlaceholdersOptions {
   scope: (file: VFile) => PlaceholderScope;
 }
 
-/** What the plugin leaves in `file.data.placeholders`. */
+/** What the plugin leaves in `file.data.placeholders` (its warnings are messages on the file). */
 export interface PlaceholderReport {
   /** Number of placeholders rendered. */
   count: number;
-  /** Bodies a placeholder showed while they were within `NEAR_SUN_DEG` of the Sun. */
-  nearSun: Body[];
-  /** Warnings for this site and week: value placeholders with no value, empty repeated sections. */
-  problems: Problem[];
+  /** Every body a placeholder showed, with its night, in document order (for the eye-safety pass, `nearSunBodies`). */
+  shown: ShownBody[];
 }
 
 declare module 'vfile' {
@@ -93,15 +89,12 @@ function isDirective(node: Nodes): node is Directive {
   return DIRECTIVE_TYPES.has(node.type);
 }
 
-/** Directives followed directly by a `{` or `[` the parser could not read (unclosed brace, stray quote). */
-const malformed = new WeakSet<Directive>();
-
 /**
  * Prepares the tree: a text directive whose name starts with a digit is prose that happens to
  * contain a colon (`21:00`, `1:2`) and is turned back into its literal text; directives followed
- * by an unreadable `{` are marked; text nodes are gathered for the leftover check.
+ * by an unreadable `{` are put in `malformed`; text nodes are gathered for the leftover check.
  */
-function normalize(node: Nodes, texts: Text[]): void {
+function normalize(node: Nodes, texts: Text[], malformed: Set<Directive>): void {
   if (node.type === 'text') texts.push(node);
   if (!('children' in node)) return;
   const children = node.children as Nodes[];
@@ -115,7 +108,7 @@ function normalize(node: Nodes, texts: Text[]): void {
     }
     const next = children[i + 1];
     if (isDirective(child) && next?.type === 'text' && /^[{[]/.test(next.value)) malformed.add(child);
-    normalize(child, texts);
+    normalize(child, texts, malformed);
   }
 }
 
@@ -199,10 +192,10 @@ interface CheckedPlaceholder {
   given: Set<string>;
 }
 
-/** Checks one placeholder directive against the table and reads its attributes; errors carry no place yet. */
-function checkPlaceholder(node: Directive, read: ReadContext, defaults: Defaults, bound: Bound): CheckedPlaceholder {
+/** Checks one placeholder directive against the table and reads its attributes; errors carry no place (they are reported at the directive). */
+function checkPlaceholder(node: Directive, read: ReadContext, defaults: Defaults, bound: Bound, malformed: boolean): CheckedPlaceholder {
   const spec = PLACEHOLDERS.get(node.name);
-  if (malformed.has(node)) {
+  if (malformed) {
     throw new GloamingError('invalid-placeholder', `the attributes of '${written(node)}' cannot be read`, {
       expected: `name=value pairs separated by spaces inside { }, e.g. ${spec?.example ?? SECTIONS.get(node.name)?.example ?? ':rise{body=jupiter night=fri}'}`,
       hint: 'check for a missing } or an unbalanced quote',
@@ -240,11 +233,13 @@ interface CheckedSection {
   /** The block, and the alternative after `::otherwise` (null when there is none). */
   body: RootContent[];
   otherwise: RootContent[] | null;
+  /** A second `::otherwise`, which a section may not have (the check reports it there). */
+  extraOtherwise: RootContent | null;
 }
 
-/** Checks a section directive and splits its children at `::otherwise`; errors carry no place yet (except a misplaced second `::otherwise`). */
-function checkSection(node: ContainerDirective, spec: SectionSpec, read: ReadContext, defaults: Defaults, bound: Bound, placeOf: (n: Nodes) => Place): CheckedSection {
-  if (malformed.has(node)) {
+/** Checks a section directive and splits its children at `::otherwise`; errors carry no place (they are reported at the section). */
+function checkSection(node: ContainerDirective, spec: SectionSpec, read: ReadContext, defaults: Defaults, bound: Bound, malformed: boolean): CheckedSection {
+  if (malformed) {
     throw new GloamingError('invalid-placeholder', `the attributes of '${written(node)}' cannot be read`, {
       expected: `name=value pairs separated by spaces inside { }, e.g. ${spec.example}`,
       hint: 'check for a missing } or an unbalanced quote',
@@ -256,68 +251,67 @@ function checkSection(node: ContainerDirective, spec: SectionSpec, read: ReadCon
   }
   const { attrs } = readAttributes(node, spec.attributesFor(node.attributes ?? {}), spec.example, read, defaults, bound);
   const splits = node.children.map((c, i) => (c.type === 'leafDirective' && c.name === OTHERWISE ? i : -1)).filter((i) => i >= 0);
-  if (splits.length > 1) {
-    throw new GloamingError('invalid-placeholder', `'${written(node)}' has more than one ::otherwise`, { place: placeOf(node.children[splits[1]!]!), hint: 'a section has one block and at most one alternative' });
-  }
   const split = splits[0];
   return {
     spec,
     attrs,
     body: split === undefined ? node.children : node.children.slice(0, split),
     otherwise: split === undefined ? null : node.children.slice(split + 1),
+    extraOtherwise: splits.length > 1 ? node.children[splits[1]!]! : null,
   };
 }
 
-function textPlace(node: Text, index: number): { line?: number; column?: number } {
+/** The point of the character at `index` of a text node's value (continuation lines counted from column 1). */
+function textPoint(node: Text, index: number): { line: number; column: number } | undefined {
   const start = node.position?.start;
-  if (!start) return {};
+  if (!start) return undefined;
   const before = node.value.slice(0, index);
   const lines = before.split('\n');
   return lines.length === 1 ? { line: start.line, column: start.column + index } : { line: start.line + lines.length - 1, column: lines[lines.length - 1]!.length + 1 };
 }
 
-/** Text that looks like a placeholder but was not parsed as one: one error per text node. */
-function leftovers(texts: Text[], placeAt: (p: { line?: number; column?: number }) => Place): GloamingError[] {
-  const errors: GloamingError[] = [];
+/** Text that looks like a placeholder but was not parsed as one: one error per text node, with the point inside the text where it starts. */
+function leftovers(texts: Text[]): { error: GloamingError; at: { line: number; column: number } | undefined }[] {
+  const errors: { error: GloamingError; at: { line: number; column: number } | undefined }[] = [];
   for (const node of texts) {
     const block = INLINE_BLOCK_RE.exec(node.value);
     if (block && (PLACEHOLDERS.has(block[2]!) || block[2] === OTHERWISE)) {
       const index = block.index + block[1]!.length;
-      errors.push(
-        new GloamingError('invalid-placeholder', `'::${block[2]}' must stand on a line of its own`, {
-          place: placeAt(textPlace(node, index)),
+      errors.push({
+        at: textPoint(node, index),
+        error: new GloamingError('invalid-placeholder', `'::${block[2]}' must stand on a line of its own`, {
           hint: PLACEHOLDERS.get(block[2]!)?.form === 'inline' ? `inside a sentence write :${block[2]}` : 'put it on its own line, with blank lines around it',
         }),
-      );
+      });
       continue;
     }
     const colon = [...node.value.matchAll(COLON_AFTER_RE)].find((c) => PLACEHOLDERS.has(c[2]!));
     if (colon) {
-      errors.push(
-        new GloamingError('invalid-placeholder', `':${colon[2]}' followed directly by ':' is read as plain text`, {
-          place: placeAt(textPlace(node, colon.index + colon[1]!.length)),
+      errors.push({
+        at: textPoint(node, colon.index + colon[1]!.length),
+        error: new GloamingError('invalid-placeholder', `':${colon[2]}' followed directly by ':' is read as plain text`, {
           hint: `write :${colon[2]}{}: to end the placeholder before the colon`,
         }),
-      );
+      });
       continue;
     }
     const m = LEFTOVER_RE.exec(node.value);
     if (m && node.value.slice(m.index + m[1]!.length).startsWith(':::') && SECTIONS.has(m[2]!)) {
-      errors.push(
-        new GloamingError('invalid-placeholder', `':::${m[2]}' must start a line of its own`, {
-          place: placeAt(textPlace(node, m.index + m[1]!.length)),
+      errors.push({
+        at: textPoint(node, m.index + m[1]!.length),
+        error: new GloamingError('invalid-placeholder', `':::${m[2]}' must start a line of its own`, {
           hint: `write :::${m[2]}{…} on its own line, the block below it, and ::: on a line to close it`,
         }),
-      );
+      });
     } else if (m) {
       const index = m.index + m[1]!.length;
-      errors.push(
-        new GloamingError('invalid-placeholder', `malformed placeholder '${node.value.slice(index, index + 40).split('\n')[0]}'`, {
-          place: placeAt(textPlace(node, index)),
+      errors.push({
+        at: textPoint(node, index),
+        error: new GloamingError('invalid-placeholder', `malformed placeholder '${node.value.slice(index, index + 40).split('\n')[0]}'`, {
           expected: 'attributes in braces as name=value pairs separated by spaces, e.g. :rise{body=jupiter night=fri}',
           hint: 'check for a missing } or a stray quote; write \\: for a literal colon',
         }),
-      );
+      });
     }
   }
   return errors;
@@ -342,31 +336,25 @@ function joinLists(copies: RootContent[][]): RootContent[] {
 /** Everything one document's pass needs. */
 class Pass {
   readonly scope: PlaceholderScope;
-  readonly file: string;
+  readonly file: VFile;
   readonly read: ReadContext;
   readonly clock: Clock;
   readonly defaultNight: number;
-  readonly nearSun = new Map<string, Body>();
-  readonly problems: Problem[] = [];
+  readonly charts: ChartOutput;
+  /** Directives followed directly by a `{` or `[` the parser could not read (unclosed brace, stray quote). */
+  readonly malformed = new Set<Directive>();
+  readonly shown: ShownBody[] = [];
   count = 0;
   #week: WeekData | undefined;
   #events: AlmanacEvent[] | undefined;
 
-  constructor(scope: PlaceholderScope, file: string, defaultNight: number) {
+  constructor(scope: PlaceholderScope, file: VFile, defaultNight: number) {
     this.scope = scope;
     this.file = file;
     this.read = { bodies: scope.bodies, days: scope.week.days };
     this.clock = defaultClock(scope.site.locale);
     this.defaultNight = defaultNight;
-  }
-
-  placeAt(p: { line?: number; column?: number }): Place {
-    return { file: this.file, ...(p.line !== undefined ? { line: p.line + (this.scope.lineOffset ?? 0) } : {}), ...(p.column !== undefined ? { column: p.column } : {}) };
-  }
-
-  placeOf(node: Nodes): Place {
-    const start = node.position?.start;
-    return this.placeAt(start ? { line: start.line, column: start.column } : {});
+    this.charts = scope.charts ?? { cache: new ChartCache(), url: (name) => `/charts/${name}` };
   }
 
   get week(): WeekData {
@@ -389,54 +377,59 @@ class Pass {
     return { night: binding.night ?? this.defaultNight, clock: this.clock, binding };
   }
 
-  warn(kind: Problem['kind'], node: Nodes, message: string): void {
-    this.problems.push({ kind, severity: 'warning', message, place: this.placeOf(node), site: this.scope.site.id, week: this.scope.weekLabel ?? this.scope.week.id });
+  /** Reports an error at a node (or a point inside a text); a `GloamingError` is a problem of the template, anything else a bug. */
+  fail(error: unknown, at: Nodes | { line: number; column: number } | undefined): void {
+    if (!(error instanceof GloamingError)) throw error;
+    reportError(this.file, error, at);
   }
 
-  // --- Checking: every directive, with what its sections bind; all errors collected.
+  warn(kind: ProblemKind, node: Nodes, message: string): void {
+    reportWarning(this.file, kind, node, message);
+  }
 
-  check(parent: Parent, bound: Bound, errors: GloamingError[], inSection: boolean): void {
+  // --- Checking: every directive, with what its sections bind; every error reported on the file.
+
+  check(parent: Parent, bound: Bound, inSection: boolean): void {
     for (const child of parent.children as Nodes[]) {
       if (child.type === 'containerDirective' && SECTIONS.has(child.name)) {
         const spec = SECTIONS.get(child.name)!;
         let inner = bound;
         try {
-          checkSection(child, spec, this.read, this.defaults({}), bound, (n) => this.placeOf(n));
+          const c = checkSection(child, spec, this.read, this.defaults({}), bound, this.malformed.has(child));
+          if (c.extraOtherwise) this.fail(new GloamingError('invalid-placeholder', `'${written(child)}' has more than one ::otherwise`, { hint: 'a section has one block and at most one alternative' }), c.extraOtherwise);
         } catch (error) {
-          if (!(error instanceof GloamingError)) throw error;
-          errors.push(error.at(this.placeOf(child)));
+          this.fail(error, child);
         }
         if (spec.binds) inner = { ...bound, [spec.binds]: true };
-        this.check(child, inner, errors, true);
+        this.check(child, inner, true);
         continue;
       }
       if (child.type === 'leafDirective' && child.name === OTHERWISE) {
         if (!inSection || !(parent.type === 'containerDirective' && SECTIONS.has((parent as ContainerDirective).name))) {
-          errors.push(new GloamingError('invalid-placeholder', "'::otherwise' stands only directly inside a section", { place: this.placeOf(child), hint: 'put it between :::provided{…} (or :::every-target, :::every-event) and its closing :::' }));
+          this.fail(new GloamingError('invalid-placeholder', "'::otherwise' stands only directly inside a section", { hint: 'put it between :::provided{…} (or :::every-target, :::every-event) and its closing :::' }), child);
         }
         continue;
       }
       if (child.type === 'containerDirective' && !PLACEHOLDERS.has(child.name)) {
         const hint = didYouMean(child.name, SECTIONS.keys());
-        errors.push(
+        this.fail(
           new GloamingError('unknown-placeholder', `unknown section '${written(child)}'`, {
-            place: this.placeOf(child),
             expected: `one of ${[...SECTIONS.keys()].map((n) => `:::${n}`).join(', ')}`,
             ...(hint ? { hint } : {}),
           }),
+          child,
         );
-        this.check(child, bound, errors, true);
+        this.check(child, bound, true);
         continue;
       }
       if (isDirective(child)) {
         try {
-          checkPlaceholder(child, this.read, this.defaults({}), bound);
+          checkPlaceholder(child, this.read, this.defaults({}), bound, this.malformed.has(child));
         } catch (error) {
-          if (!(error instanceof GloamingError)) throw error;
-          errors.push(error.at(this.placeOf(child)));
+          this.fail(error, child);
         }
       }
-      if ('children' in child) this.check(child as Parent, bound, errors, false);
+      if ('children' in child) this.check(child as Parent, bound, false);
     }
   }
 
@@ -461,7 +454,7 @@ class Pass {
   section(node: ContainerDirective, binding: Binding): RootContent[] {
     const spec = SECTIONS.get(node.name)!;
     const bound = { body: !!binding.body, event: !!binding.event };
-    const c = checkSection(node, spec, this.read, this.defaults(binding), bound, (n) => this.placeOf(n));
+    const c = checkSection(node, spec, this.read, this.defaults(binding), bound, this.malformed.has(node));
     const night = (c.attrs.get('night') as number | undefined) ?? binding.night ?? this.defaultNight;
     const decision = spec.decide({
       name: spec.name,
@@ -472,7 +465,7 @@ class Pass {
       events: () => this.events(),
       hasValue: (placeholder, attrs) => {
         let missing = false;
-        placeholder.render(this.call(placeholder, attrs, new Set(attrs.keys()), binding, { fallback: () => (missing = true), nearSun: () => undefined }));
+        placeholder.render(this.call(placeholder, attrs, new Set(attrs.keys()), binding, { fallback: () => (missing = true) }));
         return !missing;
       },
     });
@@ -494,7 +487,7 @@ class Pass {
     return joinLists(decision.items.map((item) => renderBlock(c.body, { ...binding, ...item, night: item.night ?? night })));
   }
 
-  call(spec: PlaceholderSpec, attrs: ReadonlyMap<string, AttributeValue>, given: ReadonlySet<string>, binding: Binding, hooks: Pick<PlaceholderCall, 'fallback' | 'nearSun'>): PlaceholderCall {
+  call(spec: PlaceholderSpec, attrs: ReadonlyMap<string, AttributeValue>, given: ReadonlySet<string>, binding: Binding, hooks: Pick<PlaceholderCall, 'fallback'>): PlaceholderCall {
     return {
       name: spec.name,
       site: this.scope.site,
@@ -506,15 +499,14 @@ class Pass {
       events: () => this.events(),
       eventSpan: this.eventSpan,
       ...(binding.event ? { event: binding.event } : {}),
-      ...(this.scope.charts ? { charts: this.scope.charts } : {}),
+      charts: this.charts,
       ...hooks,
     };
   }
 
   placeholder(node: Directive, binding: Binding): void {
-    const c = checkPlaceholder(node, this.read, this.defaults(binding), { body: !!binding.body, event: !!binding.event });
+    const c = checkPlaceholder(node, this.read, this.defaults(binding), { body: !!binding.body, event: !!binding.event }, this.malformed.has(node));
     const call = this.call(c.spec, c.attrs, c.given, binding, {
-      nearSun: (body) => this.nearSun.set(body.id, body),
       fallback: (honest, condition) => {
         const written = Object.entries(node.attributes ?? {}).map(([k, v]) => ` ${k}=${v ?? ''}`).join('');
         const guard = `:::provided{${condition ?? `has=${c.spec.name}${written}`}}`;
@@ -523,6 +515,7 @@ class Pass {
       },
     });
     replaceWith(node, c.spec.render(call));
+    for (const body of c.spec.shows?.(call) ?? []) this.shown.push({ body, night: call.night });
     this.count++;
   }
 }
@@ -530,12 +523,12 @@ class Pass {
 /**
  * The remark plugin. Decides every section and replaces every placeholder directive in the tree
  * by its rendered value for the scope's site and week, and leaves `file.data.placeholders`
- * ({ count, nearSun, problems }).
+ * ({ count, shown }); every problem is a message on the file (errors are thrown after checking).
  */
 export function remarkPlaceholders(options: RemarkPlaceholdersOptions) {
   return (tree: Root, file: VFile): undefined => {
     const scope = options.scope(file);
-    const fileName = scope.file ?? file.path ?? '<markdown>';
+    const fileName = file.path ?? '<markdown>';
     const days = scope.week.days;
     const defaultNight = scope.defaultNight === undefined ? 0 : days.indexOf(scope.defaultNight);
     if (defaultNight < 0) {
@@ -544,16 +537,14 @@ export function remarkPlaceholders(options: RemarkPlaceholdersOptions) {
     if (scope.eventNights && scope.eventNights.first > scope.eventNights.last) {
       throw new GloamingError('invalid-date', `the event nights run backwards (${scope.eventNights.first} to ${scope.eventNights.last})`, { place: { file: fileName }, expected: `a first night on or before the last, e.g. ${addDays(days[0]!, -3)} to ${addDays(days[0]!, 3)}` });
     }
-    const pass = new Pass(scope, fileName, defaultNight);
+    const pass = new Pass(scope, file, defaultNight);
     const texts: Text[] = [];
-    normalize(tree, texts);
-    const errors: GloamingError[] = [];
-    pass.check(tree, { body: false, event: false }, errors, false);
-    errors.push(...leftovers(texts, (p) => pass.placeAt(p)));
-    errors.sort((a, b) => (a.place?.line ?? 0) - (b.place?.line ?? 0) || (a.place?.column ?? 0) - (b.place?.column ?? 0));
-    throwErrors(errors);
+    normalize(tree, texts, pass.malformed);
+    pass.check(tree, { body: false, event: false }, false);
+    for (const { error, at } of leftovers(texts)) pass.fail(error, at);
+    throwErrors(errorsOnFile(file));
     pass.render(tree, {});
-    file.data.placeholders = { count: pass.count, nearSun: [...pass.nearSun.values()], problems: pass.problems };
+    file.data.placeholders = { count: pass.count, shown: pass.shown };
     return undefined;
   };
 }

@@ -4,6 +4,8 @@
  * budget, and errors. Each is a positioned message (`file:line:column`) with the site and week it
  * appeared for, so `gloaming check` and the build can list every one of them at once.
  */
+import type { Nodes } from 'mdast';
+import type { VFile } from 'vfile';
 import { GloamingError, formatPlace, type ErrorCode, type Place } from '../../core/errors.ts';
 
 /** What kind of problem: the names `gloaming check --json` prints. */
@@ -65,6 +67,42 @@ export class TemplateErrors extends GloamingError {
 export function throwErrors(errors: readonly GloamingError[]): void {
   if (errors.length === 1) throw errors[0]!;
   if (errors.length > 1) throw new TemplateErrors(errors);
+}
+
+/** Source of the messages gloaming leaves on a file. */
+const SOURCE = 'gloaming';
+
+/**
+ * Reports `error` on `file` as a fatal message at the node (its start) or point it is about, the
+ * unified way (`file.message`); `errorsOnFile` turns such messages back into placed errors.
+ */
+export function reportError(file: VFile, error: GloamingError, at: Nodes | { line: number; column: number } | undefined): void {
+  const message = file.message(error.detail, { ...(at ? { place: 'type' in at ? at.position : at } : {}), ruleId: error.code, source: SOURCE, cause: error });
+  message.fatal = true;
+}
+
+/** Reports a warning of `kind` on `file` at `node`. */
+export function reportWarning(file: VFile, kind: ProblemKind, node: Nodes, text: string): void {
+  file.message(text, { ...(node.position ? { place: node.position } : {}), ruleId: kind, source: SOURCE });
+}
+
+function placeOnFile(file: VFile, line: number | undefined, column: number | undefined): Place {
+  return { file: file.path ?? '<markdown>', ...(line !== undefined ? { line } : {}), ...(column !== undefined ? { column } : {}) };
+}
+
+/** The errors reported on `file` by `reportError`, each placed at `file:line:column`, in order of place. */
+export function errorsOnFile(file: VFile): GloamingError[] {
+  return file.messages
+    .filter((m) => m.fatal === true && m.source === SOURCE && m.cause instanceof GloamingError)
+    .map((m) => (m.cause as GloamingError).at(placeOnFile(file, m.line, m.column)))
+    .sort((a, b) => (a.place?.line ?? 0) - (b.place?.line ?? 0) || (a.place?.column ?? 0) - (b.place?.column ?? 0));
+}
+
+/** The warnings reported on `file` by `reportWarning`, as problems of the site and week the file was rendered for. */
+export function warningsOnFile(file: VFile, context: { site?: string; week?: string } = {}): Problem[] {
+  return file.messages
+    .filter((m) => m.fatal === false && m.source === SOURCE)
+    .map((m) => ({ kind: m.ruleId as ProblemKind, severity: 'warning' as const, message: m.reason, place: placeOnFile(file, m.line, m.column), ...context }));
 }
 
 /** The separate errors inside an error (one, or each of a `TemplateErrors`). */

@@ -1,7 +1,9 @@
 /**
  * Rendering one bulletin page: the template's Markdown through one unified pipeline
- * (remark-parse → remark-directive → remarkPlaceholders → remark-rehype → rehype-stringify),
- * then the eye-safety cautions and the final publishability check.
+ * (remark-parse → remark-directive → remarkPlaceholders → remarkSafeLinks → remark-rehype →
+ * rehype-stringify), then the eye-safety pass over what the page shows and the final
+ * publishability check. Problems are messages on the page's file, at the template's own lines
+ * (the file holds the front matter as blank lines, so positions need no offset).
  */
 import rehypeStringify from 'rehype-stringify';
 import remarkDirective from 'remark-directive';
@@ -13,10 +15,10 @@ import { GloamingError } from '../../core/errors.ts';
 import type { AlmanacEvent } from '../almanac/index.ts';
 import { addDays, isoWeekOf, type IsoWeek } from '../../core/time.ts';
 import { fieldPlace } from './frontmatter.ts';
-import { NEAR_SUN_DEG } from './placeholders.ts';
 import { remarkSafeLinks } from './links.ts';
 import { remarkPlaceholders, type PlaceholderScope } from './plugin.ts';
-import { ECLIPSE_CAUTION, assertPublishable, nearSunCaution } from './safety.ts';
+import { warningsOnFile } from './problems.ts';
+import { ECLIPSE_CAUTION, assertPublishable, nearSunBodies, nearSunCaution, type ShownBody } from './safety.ts';
 import type { BulletinTemplate, RenderContext, RenderedBulletin } from './types.ts';
 import { WeekCache, type WeekData } from './week.ts';
 
@@ -39,7 +41,7 @@ const processor = unified()
     },
   })
   // Links, images and definitions may use only http:, https:, mailto: or relative addresses.
-  .use(remarkSafeLinks, { place: (file) => ({ file: file.data.gloamingScope?.file, lineOffset: file.data.gloamingScope?.lineOffset }) })
+  .use(remarkSafeLinks)
   .use(remarkRehype)
   .use(rehypeStringify)
   .freeze();
@@ -56,16 +58,12 @@ function frontMatterBodies(template: BulletinTemplate, context: RenderContext): 
   });
 }
 
-/** Cautions for a page: near-Sun targets (front matter bodies on any night, placeholder bodies on their night) and eclipses among the page's events. */
-function cautionsFor(template: BulletinTemplate, week: WeekData, events: AlmanacEvent[], listed: Body[], shown: Body[]): string[] {
-  const near = new Map<string, Body>();
-  for (const body of listed) {
-    if (body.kind === 'sun' || week.nights.some((_, i) => week.elongationDeg(i, body) < NEAR_SUN_DEG)) near.set(body.id, body);
-  }
-  for (const body of shown) near.set(body.id, body);
-  const names = [...near.values()].filter((b) => b.kind !== 'sun').map((b) => (b.kind === 'moon' ? 'the Moon' : b.name));
+/** Cautions for a page: near-Sun targets (front matter bodies on any night, bodies the page shows on their night; see `nearSunBodies`) and eclipses among the page's events. */
+function cautionsFor(template: BulletinTemplate, week: WeekData, events: AlmanacEvent[], listed: Body[], shown: ShownBody[]): string[] {
+  const near = nearSunBodies(week, { listed, shown });
+  const names = near.filter((b) => b.kind !== 'sun').map((b) => (b.kind === 'moon' ? 'the Moon' : b.name));
   const cautions: string[] = [];
-  if (near.size > 0) cautions.push(nearSunCaution(names));
+  if (near.length > 0) cautions.push(nearSunCaution(names));
   // Every page of a week with a solar eclipse visible from the site carries the eclipse caution.
   if (template.frontMatter.eclipse || events.some((e) => e.type === 'solar-eclipse' && e.visible)) cautions.push(ECLIPSE_CAUTION);
   return cautions;
@@ -107,16 +105,15 @@ export function renderBulletinSync(template: BulletinTemplate, context: RenderCo
     week: context.week,
     bodies: context.bodies,
     cache,
-    file: template.file,
-    lineOffset: template.bodyLine - 1,
     ...(context.charts ? { charts: context.charts } : {}),
     ...nights,
-    ...(nights.defaultNight ? { weekLabel: nights.defaultNight } : {}),
   };
-  const file = processor.processSync({ value: template.body, path: template.file, data: { gloamingScope: scope } });
+  // The front matter's lines stay in the file as blank lines, so every position is the template's own.
+  const value = '\n'.repeat(template.bodyLine - 1) + template.body;
+  const file = processor.processSync({ value, path: template.file, data: { gloamingScope: scope } });
   const html = String(file);
   assertPublishable(html, template.file);
-  const shown = file.data.placeholders?.nearSun ?? [];
+  const shown = file.data.placeholders?.shown ?? [];
   const week = cache.get(context.site, context.week, context.bodies);
   const days = context.week.days;
   const events = week.eventsBetween(nights.eventNights?.first ?? days[0]!, nights.eventNights?.last ?? days[6]!);
@@ -125,6 +122,7 @@ export function renderBulletinSync(template: BulletinTemplate, context: RenderCo
     title: template.frontMatter.title,
     description: template.frontMatter.description ?? '',
     cautions: cautionsFor(template, week, events, listed, shown),
-    problems: file.data.placeholders?.problems ?? [],
+    // A one-off's problems name its date rather than its ISO week.
+    problems: warningsOnFile(file, { site: context.site.id, week: nights.defaultNight ?? context.week.id }),
   };
 }

@@ -3,7 +3,35 @@
  * a value that failed silently (NaN, `undefined`, an invalid date, an empty placeholder) must
  * never reach a reader. The eye-safety cautions are plain sentences a page shows verbatim.
  */
+import type { Body } from '../../core/body.ts';
 import { GloamingError } from '../../core/errors.ts';
+import type { WeekData } from './week.ts';
+
+/** A target within this angle of the Sun (geocentric, at local midnight of the night) triggers the eye-safety caution. */
+export const NEAR_SUN_DEG = 15;
+
+/** A body a page shows, and the night (0–6 of the week) it shows it for. */
+export interface ShownBody {
+  body: Body;
+  night: number;
+}
+
+/**
+ * The eye-safety pass over a rendered page: the bodies that bring the near-Sun caution, in the
+ * order first met. A body the front matter lists counts when it is within `NEAR_SUN_DEG` of the
+ * Sun on any night of the week (the Sun itself always); a body a placeholder shows counts when it
+ * is that near on the night shown.
+ */
+export function nearSunBodies(week: WeekData, input: { listed: readonly Body[]; shown: readonly ShownBody[] }): Body[] {
+  const near = new Map<string, Body>();
+  for (const body of input.listed) {
+    if (body.kind === 'sun' || week.nights.some((_, i) => week.elongationDeg(i, body) < NEAR_SUN_DEG)) near.set(body.id, body);
+  }
+  for (const { body, night } of input.shown) {
+    if (body.kind !== 'sun' && week.elongationDeg(night, body) < NEAR_SUN_DEG) near.set(body.id, body);
+  }
+  return [...near.values()];
+}
 
 /** Shown when a bulletin's target is close to the Sun in the sky. Our own wording. */
 export function nearSunCaution(names: readonly string[]): string {

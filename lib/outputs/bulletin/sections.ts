@@ -27,7 +27,7 @@ import { viewingSpan } from '../../models/visibility.ts';
 import { moonInterferes } from '../../models/week.ts';
 import { addDays, formatLocalDate, zonedParts, zonedTime } from '../../core/time.ts';
 import type { AttributeSpec, AttributeValue, ClockTime } from './attributes.ts';
-import { PLACEHOLDERS, type PlaceholderSpec } from './placeholders.ts';
+import { PLACEHOLDERS, type PlaceholderSpec } from './placeholders/registry.ts';
 import type { WeekData } from './week.ts';
 
 /** What an enclosing section binds for the placeholders inside it. */

@@ -78,6 +78,9 @@ export interface RenderContext {
   site: Site;
   week: IsoWeek;
   bodies: BodyRegistry;
-  /** Finder charts (`::chart`); default: a cache in `.cache/charts`, linked as `/charts/<file>`. */
+  /**
+   * Finder charts (`::chart`): the build's chart cache and links. Default: charts kept in memory for
+   * this one render (nothing is written), linked as `/charts/<file>`.
+   */
   charts?: ChartOutput;
 }

@@ -5,8 +5,9 @@
  * the code (every source file under lib/, so a change to any computation invalidates every chart).
  * An unchanged chart is read back from the cache folder instead of being drawn again.
  *
- * Files per chart, in the cache folder (default `.cache/charts/`): `<key>.svg`, `<key>.json`
- * (alt text, size, kind) and, when rasters are asked for, `<key>.png` (1×) and `<key>@2x.png`.
+ * Files per chart, in the cache folder: `<key>.svg`, `<key>.json` (alt text, size, kind) and, when
+ * rasters are asked for, `<key>.png` (1×) and `<key>@2x.png`. A cache without a folder keeps its
+ * charts in memory for its own lifetime (checks, tests, the docs): nothing is written anywhere.
  *
  * Delivery (measured, see the README of test/reference/charts/): SVG files are smaller and
  * sharper on a phone than PNG, so the default is an `<img>` of the SVG file; rasters are
@@ -61,7 +62,7 @@ export interface ChartProgress {
 }
 
 export interface ChartCacheOptions {
-  /** Cache folder (default `.cache/charts`, relative to the working directory). */
+  /** Cache folder; without one the charts are kept in memory only. */
   dir?: string;
   /** Also write 1× and 2× PNG rasters (default false). */
   raster?: boolean;
@@ -155,7 +156,6 @@ export function rasterizeChart(svg: string, options: { widthPx: number; fontFile
   return resvg.render().asPng();
 }
 
-/** Charts drawn once per distinct input and kept in a folder. */
 /**
  * Writes a cache file so that no reader ever sees it half written (builds may share a cache):
  * write beside it, then rename, which replaces the file in one step. The meta file is written
@@ -167,8 +167,17 @@ function writeAtomically(path: string, data: string | Uint8Array): void {
   renameSync(tmp, path);
 }
 
+/** A cache entry: the chart's metadata and SVG. */
+interface StoredChart {
+  meta: { width: number; height: number; alt: string; kind: 'horizon' | 'sky' };
+  svg: string;
+}
+
+/** Charts drawn once per distinct input and kept in a folder (or, without one, in memory). */
 export class ChartCache {
-  readonly dir: string;
+  /** The cache folder, or null when the charts are kept in memory. */
+  readonly dir: string | null;
+  readonly #memory = new Map<string, StoredChart>();
   readonly #options: ChartCacheOptions;
   readonly #clock: () => number;
   readonly #start: number;
@@ -180,10 +189,33 @@ export class ChartCache {
 
   constructor(options: ChartCacheOptions = {}) {
     this.#options = options;
-    this.dir = options.dir ?? '.cache/charts';
+    this.dir = options.dir ?? null;
     this.#clock = options.clock ?? (() => 0);
     this.#start = this.#clock();
-    mkdirSync(this.dir, { recursive: true });
+    if (this.dir !== null) mkdirSync(this.dir, { recursive: true });
+  }
+
+  /** A stored entry with every file asked for, or null. */
+  #read(key: string, files: DeliveredChart['files']): StoredChart | null {
+    if (this.dir === null) return this.#memory.get(key) ?? null;
+    const metaPath = join(this.dir, `${key}.json`);
+    if (!existsSync(metaPath) || (files.png && !existsSync(join(this.dir, files.png)))) return null;
+    return { meta: JSON.parse(readFileSync(metaPath, 'utf8')) as StoredChart['meta'], svg: readFileSync(join(this.dir, files.svg), 'utf8') };
+  }
+
+  /** Stores a drawn chart: in memory, or its files in the folder (the metadata last: its presence marks a complete entry). */
+  #write(key: string, files: DeliveredChart['files'], stored: StoredChart): void {
+    if (this.dir === null) {
+      this.#memory.set(key, stored);
+      return;
+    }
+    writeAtomically(join(this.dir, files.svg), stored.svg);
+    if (files.png && files.png2x) {
+      const fonts = { ...(this.#options.fontFiles ? { fontFiles: this.#options.fontFiles } : {}), ...(this.#options.systemFonts !== undefined ? { systemFonts: this.#options.systemFonts } : {}) };
+      writeAtomically(join(this.dir, files.png), rasterizeChart(stored.svg, { widthPx: stored.meta.width, ...fonts }));
+      writeAtomically(join(this.dir, files.png2x), rasterizeChart(stored.svg, { widthPx: stored.meta.width * 2, ...fonts }));
+    }
+    writeAtomically(join(this.dir, `${key}.json`), JSON.stringify(stored.meta));
   }
 
   /** The chart of `request`, from the cache when its inputs were drawn before, else drawn and stored. */
@@ -191,23 +223,15 @@ export class ChartCache {
     const key = chartKey(request, this.#options.codeVersion !== undefined ? { codeVersion: this.#options.codeVersion } : {});
     const raster = this.#options.raster ?? false;
     const files = { svg: `${key}.svg`, ...(raster ? { png: `${key}.png`, png2x: `${key}@2x.png` } : {}) };
-    const metaPath = join(this.dir, `${key}.json`);
     const began = this.#clock();
     let delivered: DeliveredChart;
-    if (existsSync(metaPath) && (!raster || existsSync(join(this.dir, files.png!)))) {
-      const meta = JSON.parse(readFileSync(metaPath, 'utf8')) as { width: number; height: number; alt: string; kind: 'horizon' | 'sky' };
-      delivered = { key, kind: meta.kind, files, svg: readFileSync(join(this.dir, files.svg), 'utf8'), width: meta.width, height: meta.height, alt: meta.alt, hit: true };
+    const stored = this.#read(key, files);
+    if (stored) {
+      delivered = { key, kind: stored.meta.kind, files, svg: stored.svg, width: stored.meta.width, height: stored.meta.height, alt: stored.meta.alt, hit: true };
       this.hits++;
     } else {
       const drawn = drawChart(request);
-      writeAtomically(join(this.dir, files.svg), drawn.svg);
-      if (raster) {
-        const fonts = { ...(this.#options.fontFiles ? { fontFiles: this.#options.fontFiles } : {}), ...(this.#options.systemFonts !== undefined ? { systemFonts: this.#options.systemFonts } : {}) };
-        writeAtomically(join(this.dir, files.png!), rasterizeChart(drawn.svg, { widthPx: drawn.width, ...fonts }));
-        writeAtomically(join(this.dir, files.png2x!), rasterizeChart(drawn.svg, { widthPx: drawn.width * 2, ...fonts }));
-      }
-      // The metadata is written last: its presence marks a complete entry.
-      writeAtomically(metaPath, JSON.stringify({ kind: request.kind, width: drawn.width, height: drawn.height, alt: drawn.alt }));
+      this.#write(key, files, { meta: { kind: request.kind, width: drawn.width, height: drawn.height, alt: drawn.alt }, svg: drawn.svg });
       delivered = { key, kind: request.kind, files, ...drawn, hit: false };
       this.rendered++;
     }

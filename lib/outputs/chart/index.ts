@@ -13,7 +13,7 @@ import type { Body } from '../../core/body.ts';
 import type { NightReport } from '../../models/night.ts';
 import type { Site } from '../../core/site.ts';
 import { REASON_TEXT, type Visibility } from '../../models/visibility.ts';
-import { ChartCache, chartImg, type ChartRequest, type DeliveredChart } from './cache.ts';
+import type { ChartCache, ChartRequest, DeliveredChart } from './cache.ts';
 import { eveningMoment } from './whole-sky.ts';
 
 export { stereographic, stereographicRadius, angleFromRadius, makeLayout, type AltAz, type PlanePoint, type Stereographic } from './projection.ts';
@@ -37,10 +37,8 @@ export {
 export { chartMagnitudeLimit, COLOURS, OKABE_ITO, CHART_WIDTH, MIN_FONT } from './style.ts';
 export { formatChartTime, formatChartDate, formatMagnitude, chartLabel } from './words.ts';
 
-/** What the `::chart` placeholder renders: a figure with the chart, or an honest sentence. */
-export type PlaceholderChart =
-  | { kind: 'chart'; chart: DeliveredChart; html: string }
-  | { kind: 'not-visible'; html: string; reason: string };
+/** What the `::chart` placeholder shows: the delivered chart, or why there is none. */
+export type PlaceholderChart = { kind: 'chart'; chart: DeliveredChart } | { kind: 'not-visible'; reason: string };
 
 /**
  * The chart for a `::chart{body=… night=… view=horizon|sky}` placeholder.
@@ -51,10 +49,8 @@ export type PlaceholderChart =
  * - `view: 'sky'`: the whole sky at the end of nautical twilight (`eveningMoment(report)`),
  *   with `body` highlighted.
  *
- * `url(file)` maps a cache file name to its public URL; the caller copies the cache files it
- * used (`chart.files`) into the published folder. Returned `html` is a `<figure class="gl
- * gl-chart">` holding the `<img>` (width, height, lazy loading, async decoding, alt text) and a
- * caption repeating the alt text's first sentence for sighted readers.
+ * The caller copies the cache files it used (`chart.files`) into the published folder; the
+ * placeholder (lib/outputs/bulletin/placeholders/charts.ts) writes the one markup of a chart on a page.
  */
 export function placeholderChart(input: {
   site: Site;
@@ -64,8 +60,6 @@ export function placeholderChart(input: {
   nightIndex: number;
   view?: 'horizon' | 'sky';
   cache: ChartCache;
-  url: (file: string) => string;
-  raster?: boolean;
 }): PlaceholderChart {
   const view = input.view ?? 'horizon';
   let request: ChartRequest;
@@ -75,17 +69,10 @@ export function placeholderChart(input: {
     const best = input.visibility.best;
     if (!best) {
       const reason = input.visibility.reason ? REASON_TEXT[input.visibility.reason] : 'not visible';
-      return { kind: 'not-visible', reason, html: `<p class="gl gl-chart gl-none">No finder chart for ${escapeHtml(input.body.name)} this night: ${escapeHtml(reason)}.</p>` };
+      return { kind: 'not-visible', reason };
     }
     const trackDays = [0, 1, 2, 3, 4, 5, 6].map((i) => i - input.nightIndex).filter((d) => d !== 0);
     request = { kind: 'horizon', site: input.site, body: input.body, time: best.time, options: { trackDays } };
   }
-  const chart = input.cache.get(request);
-  const img = chartImg(chart, { url: input.url, ...(input.raster ? { raster: true } : {}) });
-  const caption = chart.alt.split(/(?<=\.)\s/)[0] ?? chart.alt;
-  return { kind: 'chart', chart, html: `<figure class="gl gl-chart" data-chart="${chart.key}">${img}<figcaption>${escapeHtml(caption)}</figcaption></figure>` };
-}
-
-function escapeHtml(text: string): string {
-  return text.replace(/[&<>"]/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;' })[c]!);
+  return { kind: 'chart', chart: input.cache.get(request) };
 }

@@ -1,0 +1,148 @@
+/**
+ * What every placeholder family shares: the call a render function gets, the spec of a table
+ * entry, the attributes several placeholders take, and the small helpers that turn values into
+ * semantic HTML (`<time datetime>`, `<data value>`, `data-*` attributes, classes `gl gl-<name>`)
+ * or into the neutral mark of a value slot with no value.
+ */
+import type { ElementContent, Properties } from 'hast';
+import type { Body } from '../../../core/body.ts';
+import type { EventTime, MissingReason } from '../../../core/events.ts';
+import type { Site } from '../../../core/site.ts';
+import { formatInstant } from '../../../core/time.ts';
+import { reasonText, type Visibility } from '../../../models/visibility.ts';
+import type { AlmanacEvent } from '../../almanac/index.ts';
+import type { AttributeSpec, AttributeValue } from '../attributes.ts';
+import { el, formatClock, type Clock, type TimePrecision } from '../format.ts';
+import { FALLBACK_MARK } from '../problems.ts';
+import type { ChartOutput } from '../types.ts';
+import type { WeekData } from '../week.ts';
+
+/** What a render function gets: the placeholder's typed attributes and the shared week. */
+export interface PlaceholderCall {
+  name: string;
+  site: Site;
+  week: WeekData;
+  /** Night 0–6 of the week (0 = Monday evening) the placeholder is about. */
+  night: number;
+  clock: Clock;
+  /** Attribute values, defaults filled in. */
+  attrs: ReadonlyMap<string, AttributeValue>;
+  /** Names of the attributes the author wrote (as opposed to defaults). */
+  given: ReadonlySet<string>;
+  /** Where finder charts go (the build's chart output; see `ChartOutput`). */
+  charts: ChartOutput;
+  /** The page's events: the week's, or those around a one-off's date (see `WeekData.eventsBetween`). */
+  events(): AlmanacEvent[];
+  /** How the page's event span is named in sentences: `this week` or `around this date`. */
+  eventSpan: string;
+  /** The event bound by an enclosing `:::every-event` (used by `:event` without a type). */
+  event?: AlmanacEvent;
+  /**
+   * Records that a value placeholder had no value (it prints `FALLBACK_MARK`); `honest` is the
+   * sentence saying why, `guard` the `:::provided` condition that would have guarded it (default
+   * `has=<name> …`). The plugin turns it into a problem with the place, site and week.
+   */
+  fallback(honest: string, guard?: string): void;
+  /** Table cells: print the honest phrase instead of the mark (a cell has room for it). */
+  honest?: boolean;
+}
+
+export interface PlaceholderSpec {
+  name: string;
+  /** `inline` is written `:name{…}` inside a sentence; `block` is `::name{…}` on its own line. */
+  form: 'inline' | 'block';
+  /** One line for the placeholder table. */
+  summary: string;
+  attributes: Readonly<Record<string, AttributeSpec>>;
+  /** An example as written in a template. */
+  example: string;
+  /**
+   * A value slot: it can have no value (a body not visible, an event that does not happen), and
+   * then prints `FALLBACK_MARK` and reports a fallback. Only slots can be tested with `:::provided{has=…}`.
+   */
+  slot?: boolean;
+  /**
+   * The bodies the placeholder shows on its night, for the eye-safety pass over the rendered page
+   * (`nearSunBodies` in `../safety.ts`); none when absent.
+   */
+  shows?: (call: PlaceholderCall) => Body[];
+  /** Extra checks of the attributes against what an enclosing section binds (`bound`). */
+  validate?: (attrs: ReadonlyMap<string, AttributeValue>, bound: Readonly<{ body: boolean; event: boolean }>) => void;
+  render: (call: PlaceholderCall) => ElementContent;
+}
+
+// ---------------------------------------------------------------------------------------------
+// Shared attributes
+
+export const NIGHT: AttributeSpec = { type: { kind: 'night' }, default: 'Monday, or the one-off date', doc: 'which night of the week' };
+export const CLOCK: AttributeSpec = { type: { kind: 'clock' }, default: "the site's locale", doc: '12- or 24-hour clock' };
+export const TIME_PRECISION: AttributeSpec = { type: { kind: 'time-precision' }, default: 'minute', doc: 'times are rounded to this' };
+export const BODY: AttributeSpec = { type: { kind: 'body' }, required: true, bound: 'body', doc: 'the body or object' };
+export const TWILIGHT: AttributeSpec = { type: { kind: 'choice', values: ['civil', 'nautical', 'astronomical'] }, default: 'astronomical', doc: 'which twilight' };
+export const DIGITS = (fallback: number, doc = 'decimals shown'): AttributeSpec => ({ type: { kind: 'integer', min: 0, max: 2 }, default: String(fallback), doc });
+
+export const TIME_ATTRS = { night: NIGHT, clock: CLOCK, precision: TIME_PRECISION };
+
+// ---------------------------------------------------------------------------------------------
+// Helpers
+
+
+export function classes(call: PlaceholderCall, ...extra: string[]): Properties {
+  return { className: ['gl', `gl-${call.name}`, ...extra] };
+}
+
+export function nightDate(call: PlaceholderCall): string {
+  return call.week.week.days[call.night]!;
+}
+
+export function precisionOf(call: PlaceholderCall): TimePrecision {
+  return (call.attrs.get('precision') as TimePrecision | undefined) ?? 'minute';
+}
+
+export function digitsOf(call: PlaceholderCall, fallback: number): number {
+  return (call.attrs.get('precision') as number | undefined) ?? fallback;
+}
+
+/** The body a placeholder is about (its `body` attribute, or the one an enclosing section binds). */
+export function bodyOf(call: PlaceholderCall): Body {
+  return call.attrs.get('body') as Body;
+}
+
+/** `shows` of a placeholder about one body: that body. */
+export function showsBody(call: PlaceholderCall): Body[] {
+  return [bodyOf(call)];
+}
+
+/** An instant as `<time datetime="…">16:29</time>`. */
+export function timeElement(call: PlaceholderCall, instant: Date, data: Properties = {}): ElementContent {
+  return el(
+    'time',
+    { ...classes(call), dateTime: formatInstant(instant, call.site.timeZone), dataNight: nightDate(call), ...data },
+    formatClock(instant, call.site, { clock: call.clock, precision: precisionOf(call) }),
+  );
+}
+
+/**
+ * A value slot with no value: the neutral mark `–` (the honest sentence in its title and in the
+ * problem report), or the sentence itself in a table cell. Says why in `data-reason`.
+ */
+export function noValue(call: PlaceholderCall, honest: string, data: Properties = {}, guard?: string): ElementContent {
+  if (call.honest) return el('span', { ...classes(call, 'gl-none'), dataNight: nightDate(call), ...data }, honest);
+  call.fallback(honest, guard);
+  return el('span', { ...classes(call, 'gl-none'), dataNight: nightDate(call), title: honest, ...data }, FALLBACK_MARK);
+}
+
+/** An event that does not happen this night. */
+export function missingElement(call: PlaceholderCall, reason: MissingReason, phrase: string, data: Properties = {}): ElementContent {
+  return noValue(call, phrase, { dataReason: reason, ...data });
+}
+
+export function eventElement(call: PlaceholderCall, event: EventTime, phrases: Record<MissingReason, string>, data: Properties = {}): ElementContent {
+  return event.time ? timeElement(call, event.time, data) : missingElement(call, event.reason, phrases[event.reason], data);
+}
+
+/** The honest phrase for a body with no best moment this night. */
+export function notVisible(call: PlaceholderCall, body: Body, v: Visibility, data: Properties = {}): ElementContent {
+  const reason = v.reason ?? 'too-faint';
+  return noValue(call, `${body.name} is not visible this night: ${reasonText(reason, call.site)}`, { dataBody: body.id, dataVerdict: v.verdict, dataReason: reason, ...data }, `seen=either body=${body.id}`);
+}

@@ -1,0 +1,101 @@
+/** What a reader can see: best time, viewing window, verdict, where to look, and the night's targets. */
+import type { ElementContent, Properties } from 'hast';
+import { compass, handMeasure } from '../../../core/describe.ts';
+import { formatInstant } from '../../../core/time.ts';
+import type { BodyNight } from '../../../models/night.ts';
+import { reasonText, VERDICT_WORDS, WINDOW_END_TEXT, type Visibility } from '../../../models/visibility.ts';
+import { el, exact, formatClock, formatNumber } from '../format.ts';
+import { BODY, NIGHT, TIME_ATTRS, bodyOf, classes, nightDate, noValue, notVisible, precisionOf, showsBody, timeElement, type PlaceholderCall, type PlaceholderSpec } from './call.ts';
+
+function visibilityData(v: Visibility): Properties {
+  return {
+    dataVerdict: v.verdict,
+    ...(v.best ? { dataMargin: exact(v.best.margin, 2), dataRequiredMargin: exact(v.best.requiredMargin, 2), dataAltitudeDeg: exact(v.best.altitudeDeg, 3), dataAzimuthDeg: exact(v.best.azimuthDeg, 3) } : {}),
+    ...(v.outsideViewingHours ? { dataOutsideViewingHours: 'true' } : {}),
+  };
+}
+
+function bestTime(call: PlaceholderCall): ElementContent {
+  const body = bodyOf(call);
+  const v = call.week.bodyNight(call.night, body).visibility;
+  if (!v.best) return notVisible(call, body, v);
+  const time = timeElement(call, v.best.time, { dataBody: body.id, ...visibilityData(v) });
+  // A morning object: say so, so a reader does not plan on it during the evening viewing hours.
+  if (!v.outsideViewingHours) return time;
+  return el('span', { className: ['gl-after-hours'] }, [time, { type: 'text', value: ' (after the viewing hours)' }]);
+}
+
+function viewingWindow(call: PlaceholderCall): ElementContent {
+  const body = bodyOf(call);
+  const v = call.week.bodyNight(call.night, body).visibility;
+  if (!v.window) return notVisible(call, body, v);
+  const zone = call.site.timeZone;
+  const format = { clock: call.clock, precision: precisionOf(call) };
+  // An optics window cut short for safety says so, so nobody keeps sweeping towards the rising Sun.
+  const why: ElementContent[] = v.window.endReason === 'optics-safety' ? [{ type: 'text', value: `, when ${WINDOW_END_TEXT['optics-safety']}` }] : [];
+  return el('span', { ...classes(call), dataNight: nightDate(call), dataBody: body.id, dataEndReason: v.window.endReason, ...visibilityData(v) }, [
+    el('time', { dateTime: formatInstant(v.window.start, zone) }, formatClock(v.window.start, call.site, format)),
+    { type: 'text', value: '\u2013' },
+    el('time', { dateTime: formatInstant(v.window.end, zone) }, formatClock(v.window.end, call.site, format)),
+    ...why,
+  ]);
+}
+
+function verdict(call: PlaceholderCall): ElementContent {
+  const body = bodyOf(call);
+  const v = call.week.bodyNight(call.night, body).visibility;
+  const words = v.verdict === 'not-visible' ? `not visible this night: ${reasonText(v.reason ?? 'too-faint', call.site)}` : VERDICT_WORDS[v.verdict];
+  return el('data', { ...classes(call), value: v.verdict, dataNight: nightDate(call), dataBody: body.id, ...(v.reason ? { dataReason: v.reason } : {}), ...visibilityData(v) }, words);
+}
+
+function guide(call: PlaceholderCall): ElementContent {
+  const body = bodyOf(call);
+  const g = call.week.bodyNight(call.night, body).guide;
+  if (!g) return noValue(call, `${body.name} is below the horizon at that time`, { dataBody: body.id });
+  return el(
+    'span',
+    { ...classes(call), dataNight: nightDate(call), dataBody: body.id, dataGuide: g.kind, ...(g.pattern ? { dataPattern: g.pattern.id } : {}), ...(g.separationDeg !== null ? { dataSeparationDeg: exact(g.separationDeg, 2) } : {}), ...(g.offsetDirection ? { dataOffset: g.offsetDirection } : {}), ...(g.nearestStar ? { dataNearestStar: g.nearestStar.name } : {}) },
+    g.phrase,
+  );
+}
+
+/** The naked-eye and binocular targets of the night, by best time. Bodies come from the week's registry. */
+function targetNights(call: PlaceholderCall): BodyNight[] {
+  return call.week.bodies
+    .ids()
+    .filter((id) => id !== 'sun')
+    .map((id) => call.week.bodyNight(call.night, call.week.bodies.get(id)))
+    .filter((bn) => bn.visibility.best && (bn.visibility.verdict === 'naked-eye' || bn.visibility.verdict === 'binoculars'))
+    .sort((a, b) => a.visibility.best!.time.getTime() - b.visibility.best!.time.getTime() || (a.body.id < b.body.id ? -1 : 1));
+}
+
+/** Every naked-eye or binocular target of the night, by best time. */
+function targets(call: PlaceholderCall): ElementContent {
+  const zone = call.site.timeZone;
+  const format = { clock: call.clock, precision: precisionOf(call) };
+  const rows = targetNights(call);
+  if (rows.length === 0) {
+    return el('p', { ...classes(call, 'gl-none'), dataNight: nightDate(call) }, 'No naked-eye or binocular targets this night.');
+  }
+  const items = rows.map((bn) => {
+    const v = bn.visibility;
+    const best = v.best!;
+    return el('li', { dataBody: bn.body.id, ...visibilityData(v) }, [
+      el('strong', {}, bn.body.name),
+      { type: 'text', value: ': best at ' },
+      el('time', { dateTime: formatInstant(best.time, zone) }, formatClock(best.time, call.site, format)),
+      { type: 'text', value: `, ${compass(best.azimuthDeg).word}, ${formatNumber(best.altitudeDeg, 0)}° (${handMeasure(best.altitudeDeg)}) up, magnitude ` },
+      el('data', { value: exact(best.magnitude, 2) }, formatNumber(best.magnitude, 1)),
+      { type: 'text', value: `${bn.guide ? `, ${bn.guide.phrase}` : ''} \u2014 ${VERDICT_WORDS[v.verdict as keyof typeof VERDICT_WORDS]}${v.outsideViewingHours ? ' (outside the viewing hours)' : ''}` },
+    ]);
+  });
+  return el('ul', { ...classes(call), dataNight: nightDate(call) }, items);
+}
+
+export const VISIBILITY_PLACEHOLDERS: PlaceholderSpec[] = [
+  { name: 'best-time', form: 'inline', slot: true, summary: 'best viewing time: largest visibility margin within the viewing hours (lib/models/visibility.ts)', attributes: { body: BODY, ...TIME_ATTRS }, example: ':best-time{body=jupiter}', shows: showsBody, render: bestTime },
+  { name: 'window', form: 'inline', slot: true, summary: 'viewing window: the span around the best time where the body stays visible', attributes: { body: BODY, ...TIME_ATTRS }, example: ':window{body=jupiter}', shows: showsBody, render: viewingWindow },
+  { name: 'verdict', form: 'inline', summary: 'naked eye, binoculars, telescope or not visible, with the reason', attributes: { body: BODY, night: NIGHT }, example: ':verdict{body=saturn}', shows: showsBody, render: verdict },
+  { name: 'guide', form: 'inline', slot: true, summary: 'where to look, at the best time (or transit): from a nearby star pattern, a bright star, the Moon or a bright planet, or else the horizon and where the Sun set', attributes: { body: BODY, night: NIGHT }, example: ':guide{body=jupiter}', shows: showsBody, render: guide },
+  { name: 'targets', form: 'block', summary: 'every naked-eye or binocular target of the night, by best time, with direction, altitude, magnitude and nearby pattern', attributes: { ...TIME_ATTRS }, example: '::targets{night=fri}', shows: (call) => targetNights(call).map((bn) => bn.body), render: targets },
+];
