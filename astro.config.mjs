@@ -3,15 +3,28 @@
 // folder, checks every page and then swaps the result into place.
 //
 // Environment (all optional except when noted):
-//   GLOAMING_SITE_URL   public origin of the published site (default https://sky.example.org)
+//   GLOAMING_SITE_URL   overrides the public address of content/centre.yaml (`url`), e.g. for a staging host;
+//                       with neither, the build is a preview whose absolute links point to http://localhost:4321/
 //   GLOAMING_TODAY      the build date, YYYY-MM-DD (scripts/build.ts always sets it)
 //   GLOAMING_SITES      comma-separated site ids to build (a CI shard); default: all
 //   GLOAMING_CACHE_DIR  where Astro keeps its content-layer store between builds
 import { defineConfig } from 'astro/config';
 import { createHash } from 'node:crypto';
+import { dirname, resolve } from 'node:path';
+import { fileURLToPath } from 'node:url';
 import sitemap from '@astrojs/sitemap';
+import { loadCentre, publicOrigin } from './lib/outputs/centre.ts';
 
-const siteUrl = process.env.GLOAMING_SITE_URL || 'https://sky.example.org';
+const root = dirname(fileURLToPath(import.meta.url));
+/** The centre's public address; a broken centre.yaml is reported with its place by the content loaders. */
+function centreOrNull() {
+  try {
+    return loadCentre(resolve(root, process.env.GLOAMING_CONTENT || 'content'));
+  } catch {
+    return null;
+  }
+}
+const siteUrl = publicOrigin(centreOrNull(), process.env).url;
 const shard = (process.env.GLOAMING_SITES || '')
   .split(',')
   .map((s) => s.trim())

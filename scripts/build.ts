@@ -30,6 +30,7 @@ import { fileURLToPath } from 'node:url';
 import { parseArgs } from 'node:util';
 import { ProblemList, assertPublishable, checkPages, errorsOf, formatProblem } from '../lib/outputs/bulletin/index.ts';
 import { ChartCache } from '../lib/outputs/chart/cache.ts';
+import { publicOrigin } from '../lib/outputs/centre.ts';
 import { ERROR_CODES, EXIT_CODES, GloamingError, type ErrorCode, type Place } from '../lib/core/errors.ts';
 import { parseLocalDate } from '../lib/core/time.ts';
 import { chartCacheDir, parseSiteList } from '../site/gloaming/options.ts';
@@ -63,6 +64,8 @@ export interface BuildResult {
   totalMs: number;
   /** The warnings found (errors stop the build). Later checks of the output add theirs here. */
   problems: ProblemList;
+  /** The origin feeds, the sitemap and cards link to; `preview` when content/centre.yaml has no `url`. */
+  origin: { url: string; preview: boolean };
 }
 
 /**
@@ -127,7 +130,8 @@ export function readOptions(argv: string[], env: Record<string, string | undefin
     today,
     sites: parseSiteList((values.sites as string | undefined) ?? env.GLOAMING_SITES),
     out: resolve((values.out as string | undefined) ?? 'dist'),
-    content: (values.content as string | undefined) || env.GLOAMING_CONTENT || 'content',
+    // Relative to the working folder: `npx gloaming build` in a centre's own folder builds its content.
+    content: resolve((values.content as string | undefined) || env.GLOAMING_CONTENT || 'content'),
     logLevel: values.verbose ? 'info' : 'warn',
     strict: values.strict === true,
     merge: values.merge ? positionals.map((p) => resolve(p)) : null,
@@ -262,7 +266,16 @@ export async function buildSite(options: BuildOptions): Promise<BuildResult> {
     await rm(tmp, { recursive: true, force: true });
     const { build } = await import('astro');
     const t1 = performance.now();
-    await build({ root: ROOT, outDir: tmp, logLevel: options.logLevel, mode: 'production' });
+    // Astro writes its prerender chunks below the working folder when the output is there, and
+    // they import gloaming's packages: a centre's own folder (`npx gloaming build`) may not have
+    // them, so Astro runs from gloaming's folder (the output path is absolute).
+    const cwd = process.cwd();
+    process.chdir(ROOT);
+    try {
+      await build({ root: ROOT, outDir: tmp, logLevel: options.logLevel, mode: 'production' });
+    } finally {
+      process.chdir(cwd);
+    }
     const astroMs = performance.now() - t1;
     await copyLinkedCharts(tmp, process.env.GLOAMING_CHART_CACHE);
     // The output's own checks (the page budget) add their warnings to the same list; --strict decides once, here.
@@ -270,7 +283,7 @@ export async function buildSite(options: BuildOptions): Promise<BuildResult> {
     for (const w of warnings) problems.add({ kind: 'page-size', severity: 'warning', message: w, place: {} });
     stopOnProblems(problems, options.strict ?? false);
     await swapInto(tmp, options.out);
-    return { out: options.out, files, astroMs, totalMs: performance.now() - t0, problems };
+    return { out: options.out, files, astroMs, totalMs: performance.now() - t0, problems, origin: publicOrigin(project.centre, process.env) };
   } catch (error) {
     await rm(tmp, { recursive: true, force: true });
     throw asGloamingError(error) ?? error;
@@ -341,9 +354,10 @@ export function report(error: unknown, print: (line: string) => void = console.e
   return EXIT_CODES.unexpected;
 }
 
-async function main(): Promise<number> {
+/** The build as a command: `node scripts/build.ts …` and `npx gloaming build …`. Returns the exit code. */
+export async function main(argv: string[] = process.argv.slice(2)): Promise<number> {
   try {
-    const options = readOptions(process.argv.slice(2), process.env);
+    const options = readOptions(argv, process.env);
     if (options.merge) {
       const { files } = await mergeShards(options.merge, options.out);
       console.log(`merged ${options.merge.length} shard(s): ${files} files in ${relative(process.cwd(), options.out) || '.'}`);
@@ -354,7 +368,10 @@ async function main(): Promise<number> {
     const where = relative(process.cwd(), result.out) || '.';
     const which = options.sites ? options.sites.join(', ') : 'all sites';
     const warnings = result.problems.items.length + result.problems.dropped;
-    console.log(`built ${which} for ${options.today}: ${result.files} files in ${where} (${(result.totalMs / 1000).toFixed(1)} s)${warnings ? `, ${warnings} warning(s) above` : ''}`);
+    if (result.origin.preview) {
+      console.log(`preview: ${relative(process.cwd(), join(options.content, 'centre.yaml'))} has no url, so feeds, the sitemap and social cards link to ${result.origin.url} and pages are marked noindex; set url: to publish`);
+    }
+    console.log(`built ${which} for ${options.today}${result.origin.preview ? ' (a preview)' : ` for ${result.origin.url}`}: ${result.files} files in ${where} (${(result.totalMs / 1000).toFixed(1)} s)${warnings ? `, ${warnings} warning(s) above` : ''}`);
     return EXIT_CODES.ok;
   } catch (error) {
     return report(error);

@@ -4,9 +4,10 @@
  * every value through lib/; Astro only stores the results and renders the pages.
  */
 import { defineCollection } from 'astro:content';
-import { pagesLoader, sitesLoader } from './gloaming/loaders.ts';
+import { centreLoader, pagesLoader, sitesLoader } from './gloaming/loaders.ts';
 
 export const collections = {
+  centre: defineCollection({ loader: centreLoader() }),
   sites: defineCollection({ loader: sitesLoader() }),
   pages: defineCollection({ loader: pagesLoader() }),
 };

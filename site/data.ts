@@ -1,8 +1,15 @@
 /** Reading the content collections, and the site's URL scheme, in one place. */
-import { getCollection } from 'astro:content';
-import type { PageEntry, SiteEntry } from './gloaming/loaders.ts';
+import { getCollection, getEntry } from 'astro:content';
+import type { CentreEntry, PageEntry, SiteEntry } from './gloaming/loaders.ts';
 
-export type { PageEntry, SiteEntry };
+export type { CentreEntry, PageEntry, SiteEntry };
+
+/** The publishing centre (content/centre.yaml). */
+export async function centre(): Promise<CentreEntry> {
+  const entry = await getEntry('centre', 'centre');
+  if (!entry) throw new Error('the centre collection is empty: content/centre.yaml was not loaded');
+  return entry.data as unknown as CentreEntry;
+}
 
 /** Every site, by name. */
 export async function allSites(): Promise<SiteEntry[]> {

@@ -38,6 +38,7 @@ describe('gloaming check', () => {
     const content = join(dir, 'content');
     cpSync('content/sites', join(content, 'sites'), { recursive: true });
     cpSync('content/objects', join(content, 'objects'), { recursive: true });
+    for (const f of ['centre.yaml', 'logo.svg']) cpSync(join('content', f), join(content, f));
     const fm = (extra: string): string => `---\ntitle: T\nsites: [northern-outpost]\n${extra}\n---\n`;
     // Two errors in one file, a front matter error in another, and warnings in a third.
     const bulletins = join(content, 'bulletins');

@@ -2,9 +2,12 @@
  * Docs that run: the README's examples and field tables are checked against the code, so they
  * cannot drift. (The placeholder table is checked in the bulletin tests.)
  */
-import { readFileSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { main } from '../lib/outputs/cli/main.ts';
+import { parseCentre } from '../lib/outputs/centre.ts';
 import { parseSite } from '../lib/models/content.ts';
 
 const readme = readFileSync(new URL('../README.md', import.meta.url), 'utf8');
@@ -72,6 +75,23 @@ describe('README', () => {
     expect(site.sky).toEqual({ bortle: 7 });
     expect(site.horizon).toHaveLength(2);
     expect(site.viewingHours?.label).toBe('19:00–23:00');
+  });
+
+  it('the centre example is a valid centre file, and the accent message is what the check prints', () => {
+    const example = /`content\/centre\.yaml`\): every page[\s\S]*?```yaml\n([\s\S]*?)```/.exec(readme)?.[1];
+    expect(example).toBeDefined();
+    const dir = mkdtempSync(join(tmpdir(), 'gloaming-readme-'));
+    try {
+      writeFileSync(join(dir, 'logo.svg'), '<svg xmlns="http://www.w3.org/2000/svg"/>');
+      const centre = parseCentre(example!, 'centre.yaml', dir);
+      expect(centre.url).toBe('https://sky.example.net/');
+      expect(centre.links).toEqual([{ label: 'Contact', href: 'mailto:sky@example.net' }]);
+      const documented = /`(content\/centre\.yaml:5:9 field 'accent': [^`…]+)…`/.exec(readme)![1]!.trim();
+      const bad = example!.replace('accent: "#f3b962"', 'accent: "#2a3f7a"');
+      expect(() => parseCentre(bad, 'content/centre.yaml', dir)).toThrow(documented);
+    } finally {
+      rmSync(dir, { recursive: true, force: true });
+    }
   });
 
   it('the error example is what the command prints', () => {

@@ -12,12 +12,16 @@ import { loadYaml, validateYaml, yamlFiles } from '../core/yaml.ts';
 
 export { yamlFiles };
 
-/** Parses one site file. The id defaults to the file name without `.yaml`. */
-export function parseSite(text: string, file: string): Site {
+/**
+ * Parses one site file. The id defaults to the file name without `.yaml`, the locale to
+ * `defaultLocale` (the centre's, from content/centre.yaml) when given.
+ */
+export function parseSite(text: string, file: string, options: { defaultLocale?: string } = {}): Site {
   const source = loadYaml(text, file);
   return validateYaml(source, (data) => {
-    const withId = data && typeof data === 'object' && !Array.isArray(data) && !('id' in data) ? { id: basename(file).replace(/\.ya?ml$/, ''), ...data } : data;
-    return defineSite(withId);
+    if (!data || typeof data !== 'object' || Array.isArray(data)) return defineSite(data);
+    const defaults = { id: basename(file).replace(/\.ya?ml$/, ''), ...(options.defaultLocale ? { locale: options.defaultLocale } : {}) };
+    return defineSite({ ...defaults, ...data });
   });
 }
 

@@ -9,12 +9,13 @@ import type { BodyRegistry } from '../../lib/core/body.ts';
 import type { Satellite } from '../../lib/models/satellite/passes.ts';
 import type { Site } from '../../lib/core/site.ts';
 import { addDays, isoWeekOf, zonedTime } from '../../lib/core/time.ts';
-import { CENTRE } from './centre.ts';
 
 /** Weeks of events in each feed. */
 export const CALENDAR_WEEKS = 13;
 
-export function siteCalendar(site: Site, bodies: BodyRegistry, today: string, satellites: readonly Satellite[] = []): string {
+/** The calendar of `site`: `today` is the build date, `centreName` the publisher (content/centre.yaml) for the PRODID. */
+export function siteCalendar(site: Site, options: { bodies: BodyRegistry; today: string; satellites?: readonly Satellite[]; centreName: string }): string {
+  const { bodies, today, satellites = [] } = options;
   const monday = isoWeekOf(today).days[0]!;
   const events = findEvents({
     site,
@@ -25,7 +26,7 @@ export function siteCalendar(site: Site, bodies: BodyRegistry, today: string, sa
   });
   return eventsToICalendar(events, {
     site,
-    prodId: `-//${CENTRE.name}//gloaming night-sky diary//EN`,
+    prodId: `-//${options.centreName}//gloaming night-sky diary//EN`,
     now: new Date(`${today}T00:00:00Z`),
     name: `Night-sky diary · ${site.name}`,
   });

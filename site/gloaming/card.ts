@@ -7,6 +7,7 @@
 import { mkdirSync, readFileSync, renameSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { createRequire } from 'node:module';
+import { crc32 } from 'node:zlib';
 import { Resvg } from '@resvg/resvg-js';
 import satori from 'satori';
 import { entryDigest } from './digest.ts';
@@ -87,11 +88,33 @@ export async function cardSvg(input: CardInput): Promise<string> {
   return satori(tree as never, { width: CARD_WIDTH, height: CARD_HEIGHT, fonts: loadFonts() });
 }
 
+/** The words on the card, one line each (also stored in the PNG, see `withDescription`). */
+export function cardText(input: CardInput): string {
+  return [input.centre, input.title, `${input.siteName} · ${input.weekLabel}`, ...(input.caution ? ['Eye-safety notice inside'] : [])].join('\n');
+}
+
+/**
+ * The PNG with its words in an iTXt chunk, keyword `Description` (PNG specification, ISO/IEC
+ * 15948:2004 §11.3.4.5; UTF-8 text, uncompressed), placed before IEND: what the picture says
+ * stays readable by tools and by tests.
+ */
+export function withDescription(png: Uint8Array, text: string): Uint8Array {
+  const data = Buffer.concat([Buffer.from('Description\0\0\0\0\0', 'latin1'), Buffer.from(text, 'utf8')]);
+  const type = Buffer.from('iTXt', 'latin1');
+  const chunk = Buffer.alloc(12 + data.length);
+  chunk.writeUInt32BE(data.length, 0);
+  type.copy(chunk, 4);
+  data.copy(chunk, 8);
+  chunk.writeUInt32BE(crc32(Buffer.concat([type, data])), 8 + data.length);
+  const iend = png.length - 12; // IEND is the last chunk: length 0, type, CRC
+  return new Uint8Array(Buffer.concat([png.subarray(0, iend), chunk, png.subarray(iend)]));
+}
+
 /** The card as PNG bytes. */
 export async function renderCard(input: CardInput): Promise<Uint8Array> {
   const svg = await cardSvg(input);
   const png = new Resvg(svg, { fitTo: { mode: 'width', value: CARD_WIDTH }, font: { loadSystemFonts: false } }).render().asPng();
-  return new Uint8Array(png);
+  return withDescription(new Uint8Array(png), cardText(input));
 }
 
 /**

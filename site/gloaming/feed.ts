@@ -26,10 +26,19 @@ export interface FeedPage {
 const htmlText = escapeXml;
 
 /** Feed options for one site: its bulletins newest first, every text field escaped for HTML. */
-export function siteFeed(input: { siteName: string; centreName: string; note: string; origin: URL | string; pages: FeedPage[] }): RSSOptions {
+export function siteFeed(input: {
+  siteName: string;
+  centreName: string;
+  /** The invented-demo notice, or '' for a real centre. */
+  note: string;
+  /** BCP 47 language of the bulletins (the site's locale); default `en`. */
+  language?: string;
+  origin: URL | string;
+  pages: FeedPage[];
+}): RSSOptions {
   return {
     title: htmlText(`${input.siteName} · ${input.centreName}`),
-    description: htmlText(`Weekly night-sky bulletins for ${input.siteName}. ${input.note}`),
+    description: htmlText(`Weekly night-sky bulletins for ${input.siteName}.${input.note ? ` ${input.note}` : ''}`),
     site: input.origin,
     items: input.pages.map((p) => ({
       title: htmlText(`${p.title} (${p.weekLabel})`),
@@ -38,6 +47,6 @@ export function siteFeed(input: { siteName: string; centreName: string; note: st
       pubDate: new Date(`${p.weekStart}T00:00:00Z`),
       description: htmlText(p.description),
     })),
-    customData: '<language>en</language>',
+    customData: `<language>${htmlText(input.language ?? 'en')}</language>`,
   };
 }

@@ -8,6 +8,7 @@ import { fileURLToPath } from 'node:url';
 import type { Loader } from 'astro/loaders';
 import { renderBulletin, WeekCache } from '../../lib/outputs/bulletin/index.ts';
 import { ChartCache, type ChartProgress } from '../../lib/outputs/chart/cache.ts';
+import { demoNotice, publicOrigin } from '../../lib/outputs/centre.ts';
 import { siteCalendar } from './calendar.ts';
 import { chartCacheDir } from './options.ts';
 import type { PageSpec } from '../../lib/outputs/bulletin/types.ts';
@@ -77,9 +78,55 @@ export function pageDigest(project: Project, spec: PageSpec): string {
   });
 }
 
-/** The digest of one site entry: code, site file, build date and whether this shard builds it. */
+/** The digest of one site entry: code, centre (the calendar's PRODID), site file, build date and whether this shard builds it. */
 export function siteDigest(project: Project, source: SiteSource, built: boolean): string {
-  return entryDigest({ code: project.codeDigest, site: source.textDigest, objects: project.objectsDigest, today: project.today, built: String(built) });
+  return entryDigest({ code: project.codeDigest, centre: project.centreDigest, site: source.textDigest, objects: project.objectsDigest, today: project.today, built: String(built) });
+}
+
+/** The publishing centre as pages read it (content/centre.yaml, see lib/outputs/centre.ts). */
+export interface CentreEntry {
+  name: string;
+  shortName: string;
+  /** The logo's absolute path on disk and where pages load it from, or null. */
+  logoFile: string | null;
+  logoPath: string | null;
+  accentDark: string;
+  accentRed: string;
+  locale: string;
+  footerHtml: string;
+  links: { label: string; href: string }[];
+  /** The invented-demo notice, or null for a real centre. */
+  notice: string | null;
+  /** The origin absolute links use; `preview` when centre.yaml has no public address. */
+  origin: string;
+  preview: boolean;
+}
+
+/** The one entry of the `centre` collection. */
+export function centreLoader(): Loader {
+  return {
+    name: 'gloaming-centre',
+    async load({ store, config }) {
+      const project = loadProject(rootOf(config), optionsFromEnv());
+      const c = project.centre;
+      const { url, preview } = publicOrigin(c, process.env);
+      const data: CentreEntry = {
+        name: c.name,
+        shortName: c.shortName,
+        logoFile: c.logoFile,
+        logoPath: c.logoPath,
+        accentDark: c.accentDark,
+        accentRed: c.accentRed,
+        locale: c.locale,
+        footerHtml: c.footerHtml,
+        links: c.links,
+        notice: demoNotice(c, project.sites.size),
+        origin: url,
+        preview,
+      };
+      store.set({ id: 'centre', data: data as unknown as Record<string, unknown>, digest: entryDigest({ centre: project.centreDigest, sites: String(project.sites.size), origin: url, code: project.codeDigest }) });
+    },
+  };
 }
 
 function rootOf(config: { root: URL }): string {
@@ -114,7 +161,7 @@ export function sitesLoader(): Loader {
           built,
           currentWeek,
           nights: built ? nextNights(s, project.today, NIGHTS_SHOWN) : [],
-          calendar: built ? siteCalendar(s, project.bodies, project.today, project.satellites) : '',
+          calendar: built ? siteCalendar(s, { bodies: project.bodies, today: project.today, satellites: project.satellites, centreName: project.centre.name }) : '',
         };
         store.set({ id, data: data as unknown as Record<string, unknown>, digest });
         computed++;

@@ -8,6 +8,7 @@ import { join, relative, resolve } from 'node:path';
 import { BodyRegistry } from '../../lib/core/body.ts';
 import { errorsOf, pagesFor, parseBulletin, throwErrors } from '../../lib/outputs/bulletin/index.ts';
 import type { BulletinTemplate, PageSpec } from '../../lib/outputs/bulletin/types.ts';
+import { CENTRE_FILE, loadCentre, type Centre } from '../../lib/outputs/centre.ts';
 import { findSite, parseSite, yamlFiles } from '../../lib/models/content.ts';
 import { GloamingError } from '../../lib/core/errors.ts';
 import { loadObjects } from '../../lib/models/orbit/body.ts';
@@ -33,6 +34,10 @@ export interface SiteSource {
 export interface Project {
   root: string;
   today: string;
+  /** The publishing centre (content/centre.yaml). */
+  centre: Centre;
+  /** Hash of centre.yaml and its logo file. */
+  centreDigest: string;
   /** Every site, by id (the home page lists all of them, whatever the shard). */
   sites: Map<string, SiteSource>;
   /** The sites this build publishes pages for, in id order. */
@@ -76,10 +81,15 @@ export function loadProject(root: string, options: SiteBuildOptions): Project {
       errors.push(...errorsOf(error));
     }
   };
+  let centre: Centre | null = null;
+  each(() => {
+    centre = loadCentre(content, shown(content, '.'));
+  });
+  const defaultLocale = (centre as Centre | null)?.locale;
   for (const file of yamlFiles(shown(content, CONTENT_DIRS.sites))) {
     each(() => {
       const text = readFileSync(file, 'utf8');
-      const site = parseSite(text, file);
+      const site = parseSite(text, file, defaultLocale ? { defaultLocale } : {});
       if (sites.has(site.id)) {
         throw new GloamingError('invalid-value', `site id '${site.id}' is used twice`, {
           place: { file, field: 'id' },
@@ -116,9 +126,13 @@ export function loadProject(root: string, options: SiteBuildOptions): Project {
 
   const wanted = new Set(selected.map((s) => s.site.id));
   const pages = pagesFor(templates, { sites: siteMap, today: options.today }).filter((p) => wanted.has(p.site.id));
+  const theCentre = centre as unknown as Centre;
+  const centreFiles = [CENTRE_FILE, ...(theCentre.logoFile ? [relative(content, theCentre.logoFile)] : [])];
   return {
     root,
     today: options.today,
+    centre: theCentre,
+    centreDigest: hashFiles(content, centreFiles),
     sites,
     selected,
     templates,

@@ -9,6 +9,7 @@ import { readdirSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { parseArgs } from 'node:util';
 import { BodyRegistry } from '../../core/body.ts';
+import { loadCentre } from '../centre.ts';
 import { loadBodies, parseSite, yamlFiles } from '../../models/content.ts';
 import { GloamingError } from '../../core/errors.ts';
 import type { Site } from '../../core/site.ts';
@@ -50,8 +51,10 @@ function collect<T>(problems: ProblemList, load: () => T): T | null {
 /** Every site file and template of the content folder; each file's error is a problem, the others still load. */
 function loadContent(contentDir: string, problems: ProblemList): { sites: Map<string, Site>; templates: BulletinTemplate[]; bodies: BodyRegistry } {
   const sites = new Map<string, Site>();
+  // The centre (content/centre.yaml) stops a build when it is missing or wrong, so the check reports it too.
+  const centre = collect(problems, () => loadCentre(contentDir));
   for (const file of yamlFiles(join(contentDir, 'sites'))) {
-    const site = collect(problems, () => parseSite(readFileSync(file, 'utf8'), file));
+    const site = collect(problems, () => parseSite(readFileSync(file, 'utf8'), file, centre ? { defaultLocale: centre.locale } : {}));
     if (site) sites.set(site.id, site);
   }
   const bodies = collect(problems, () => loadBodies(join(contentDir, 'objects'))) ?? new BodyRegistry();

@@ -20,6 +20,8 @@ import { argumentError, fileFlag, joinNegativeNumbers, requireFlag, siteFromFlag
 import { EVENTS_HELP, runEvents } from './events.ts';
 import { CHECK_HELP, runCheck } from './check.ts';
 import { PASSES_HELP, runPasses } from './passes.ts';
+import { INIT_HELP, runInit } from './init.ts';
+import { runSites, SITES_HELP } from './sites.ts';
 import { computeWeek } from '../../models/week.ts';
 import { reasonText } from '../../models/visibility.ts';
 import { MISSING_REASON_TEXT, type EventTime } from '../../core/events.ts';
@@ -53,10 +55,21 @@ const COMMON = {
   help: { type: 'boolean', short: 'h' },
 } as const satisfies ParseArgsConfig['options'];
 
+/** `build` and `preview` start Astro, so bin/gloaming.mjs runs them (scripts/site-commands.ts). */
+export const SITE_COMMANDS_HELP = `gloaming build — build the site of a content folder (run as 'npx gloaming build')
+
+Usage: gloaming build [--today YYYY-MM-DD] [--sites a,b] [--out dist] [--content content] [--strict] [--verbose]
+       gloaming build --merge <shard folders…> --out dist
+       gloaming preview [--out dist] [--port 4321]
+
+Paths are relative to the working folder. The options are those of 'npm run build' (docs/deploy.md).`;
+
 const HELP: Record<string, string> = {
   events: EVENTS_HELP,
   check: CHECK_HELP,
   passes: PASSES_HELP,
+  init: INIT_HELP,
+  sites: SITES_HELP,
   main: `gloaming — computed night-sky bulletins
 
 Usage: gloaming <command> [options]
@@ -68,6 +81,10 @@ Commands:
   events     the sky's events for a site and date range (Moon phases, close approaches, showers, eclipses …); --ics for a calendar
   check      render every bulletin template for every site and week of a span and list every problem with its place
   passes     satellite passes over a site: when, where, how bright, and whether the public can see them
+  init       start a new centre in an empty folder: centre.yaml, a site, a weekly template, the CI workflow
+  sites      list the sites of the content folder (--shards <n>: groups for a CI matrix)
+  build      build the site of ./content into ./dist (the options of 'npm run build', see docs/deploy.md)
+  preview    serve ./dist on http://localhost:4321/ to look at a build
 
 Run 'gloaming <command> --help' for the options of a command.`,
   position: `gloaming position — where a body is at one instant
@@ -236,6 +253,11 @@ const COMMANDS: Record<string, (args: string[], out: (s: string) => void, contex
   events: (args, out) => void runEvents(args, out),
   check: runCheck,
   passes: (args, out) => void runPasses(args, out),
+  sites: (args, out) => void runSites(args, out),
+  init: (args, out) => runInit(args, out),
+  // Run by bin/gloaming.mjs (they start Astro, which lib/ never imports); here only their help.
+  build: (_args, out) => out(SITE_COMMANDS_HELP),
+  preview: (_args, out) => out(SITE_COMMANDS_HELP),
 };
 
 /**

@@ -1,8 +1,7 @@
 /** The social card of one bulletin page (1200×630 PNG), referenced by the page's og:image. */
 import type { APIRoute, GetStaticPaths } from 'astro';
-import { CENTRE } from '../../../../gloaming/centre.ts';
 import { renderCardCached } from '../../../../gloaming/card.ts';
-import { allPages, allSites, type PageEntry, type SiteEntry } from '../../../../data.ts';
+import { allPages, allSites, centre, type PageEntry, type SiteEntry } from '../../../../data.ts';
 
 export const getStaticPaths = (async () => {
   const sites = new Map((await allSites()).map((s) => [s.id, s]));
@@ -15,7 +14,7 @@ export const getStaticPaths = (async () => {
 export const GET: APIRoute = async ({ props }) => {
   const { page, site } = props as { page: PageEntry; site: SiteEntry };
   const png = await renderCardCached({
-    centre: CENTRE.name,
+    centre: (await centre()).name,
     title: page.title,
     siteName: site.name,
     weekLabel: page.when,
