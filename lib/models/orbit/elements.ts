@@ -38,6 +38,8 @@ export type SmallBodyKind = 'comet' | 'asteroid';
 /** Elements given with q and T (any conic): the conic's own elements (q, e, i, Ω, ω, T). */
 export interface PerihelionElements extends ConicElements {
   form: 'perihelion';
+  /** Epoch of osculation (when the orbit was fitted), days since J2000.0, TT; optional. Not used for positions. */
+  epochTt?: number;
 }
 
 /** Osculating elements with a, M and epoch (ellipses only). */
@@ -97,7 +99,7 @@ export interface SmallBodyObject {
 
 const TOP_FIELDS = ['id', 'name', 'kind', 'elements', 'magnitude', 'coma', 'source'];
 const ANGLE_FIELDS = ['inclination', 'ascendingNode', 'argumentOfPerihelion'];
-const PERIHELION_FIELDS = ['perihelionDistance', 'eccentricity', ...ANGLE_FIELDS, 'perihelionTime'];
+const PERIHELION_FIELDS = ['perihelionDistance', 'eccentricity', ...ANGLE_FIELDS, 'perihelionTime', 'epoch'];
 const OSCULATING_FIELDS = ['semiMajorAxis', 'eccentricity', ...ANGLE_FIELDS, 'meanAnomaly', 'epoch'];
 const COMET_MAGNITUDE_FIELDS = ['M1', 'K1', 'K1Alternative', 'uncertainty'];
 const HG_FIELDS = ['H', 'G'];
@@ -193,10 +195,11 @@ function angle(input: Record<string, unknown>, key: string, symbol: string): num
 function validateElements(value: unknown): OrbitalElements {
   if (value === undefined || value === null) missing('elements', 'orbital elements: perihelionDistance, eccentricity, inclination, ascendingNode, argumentOfPerihelion, perihelionTime');
   const input = record(value, 'elements', 'a mapping of orbital elements');
-  const osculating = ['semiMajorAxis', 'meanAnomaly', 'epoch'].some((k) => k in input);
+  // The epoch belongs to both forms (the perihelion form may give it: when the orbit was fitted).
   const perihelion = ['perihelionDistance', 'perihelionTime'].some((k) => k in input);
+  const osculating = ['semiMajorAxis', 'meanAnomaly', ...(perihelion ? [] : ['epoch'])].some((k) => k in input);
   if (osculating && perihelion) {
-    const key = ['semiMajorAxis', 'meanAnomaly', 'epoch'].find((k) => k in input)!;
+    const key = ['semiMajorAxis', 'meanAnomaly'].find((k) => k in input)!;
     throw new GloamingError('unknown-field', `elements mix the perihelion form (q, T) with the osculating form (a, M, epoch)`, {
       place: { field: `elements.${key}` },
       actual: key,
@@ -231,7 +234,8 @@ function validateElements(value: unknown): OrbitalElements {
     missing('elements.perihelionTime', 'T, the time of perihelion, an instant in TT', 'or give the osculating form: semiMajorAxis, meanAnomaly and epoch');
   }
   const perihelionTimeTt = parseTtInstant(input.perihelionTime, 'elements.perihelionTime');
-  return { form: 'perihelion', perihelionDistanceAu: q, eccentricity: e, inclinationDeg, ascendingNodeDeg, argumentOfPerihelionDeg, perihelionTimeTt };
+  const epoch = present(input, 'epoch') ? { epochTt: parseTtInstant(input.epoch, 'elements.epoch') } : {};
+  return { form: 'perihelion', perihelionDistanceAu: q, eccentricity: e, inclinationDeg, ascendingNodeDeg, argumentOfPerihelionDeg, perihelionTimeTt, ...epoch };
 }
 
 function validateMagnitude(value: unknown, kind: SmallBodyKind): MagnitudeModel {

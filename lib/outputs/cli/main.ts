@@ -22,6 +22,7 @@ import { CHECK_HELP, runCheck } from './check.ts';
 import { PASSES_HELP, runPasses } from './passes.ts';
 import { INIT_HELP, runInit } from './init.ts';
 import { runSites, SITES_HELP } from './sites.ts';
+import { OBJECTS_HELP, runObjects } from './objects.ts';
 import { computeWeek } from '../../models/week.ts';
 import { reasonText } from '../../models/visibility.ts';
 import { MISSING_REASON_TEXT, type EventTime } from '../../core/events.ts';
@@ -70,6 +71,7 @@ const HELP: Record<string, string> = {
   passes: PASSES_HELP,
   init: INIT_HELP,
   sites: SITES_HELP,
+  objects: OBJECTS_HELP,
   main: `gloaming — computed night-sky bulletins
 
 Usage: gloaming <command> [options]
@@ -83,6 +85,7 @@ Commands:
   passes     satellite passes over a site: when, where, how bright, and whether the public can see them
   init       start a new centre in an empty folder: centre.yaml, a site, a weekly template, the CI workflow
   sites      list the sites of the content folder (--shards <n>: groups for a CI matrix)
+  objects    'objects add': import a comet's or asteroid's elements (MPC one-line formats, JPL SBDB) into content/objects/
   build      build the site of ./content into ./dist (the options of 'npm run build', see docs/deploy.md)
   preview    serve ./dist on http://localhost:4321/ to look at a build
 
@@ -255,6 +258,7 @@ const COMMANDS: Record<string, (args: string[], out: (s: string) => void, contex
   passes: (args, out) => void runPasses(args, out),
   sites: (args, out) => void runSites(args, out),
   init: (args, out) => runInit(args, out),
+  objects: (args, out, context) => runObjects(args, out, context),
   // Run by bin/gloaming.mjs (they start Astro, which lib/ never imports); here only their help.
   build: (_args, out) => out(SITE_COMMANDS_HELP),
   preview: (_args, out) => out(SITE_COMMANDS_HELP),
