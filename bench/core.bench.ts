@@ -24,7 +24,7 @@ export async function run(): Promise<BenchRow[]> {
       () => {
         for (let d = 0; d < 365; d++) computeNight(site, addDays('2027-01-01', d), bodies);
       },
-      { targetMs: 1500, timeMs: 3000 },
+      { targetMs: 500, timeMs: 3000 },
     ),
   );
   // Issue #4: best time, window and verdict for one body-night, tracks already built for the night.

@@ -23,7 +23,8 @@ import {
   Spherical,
   type AstroTime,
 } from 'astronomy-engine';
-import { describeMotion, distanceWords, guideTarget, IN_PATTERN_DEG, NEAR_BODY_DEG, NEAR_STAR_DEG, offsetInSky, type OffsetDirection } from '../lib/models/stars/guide.ts';
+import { offsetInSky, type OffsetDirection } from '../lib/core/geometry.ts';
+import { describeMotion, distanceWords, guideTarget, IN_PATTERN_DEG, NEAR_BODY_DEG, NEAR_STAR_DEG } from '../lib/models/stars/guide.ts';
 import { starByHip, starByName } from '../lib/models/stars/catalogue.ts';
 import { patternById } from '../lib/models/stars/patterns.ts';
 import { GloamingError } from '../lib/core/errors.ts';

@@ -44,7 +44,10 @@ const SEARCH_STEP_DAYS = 10 / 1440;
 
 /** Geometric altitude of the centre minus the rise/set altitude −(34′ + semidiameter), degrees. */
 function horizonFunction(track: Track): (ut: number) => number {
-  return (ut) => track.at(ut).geometricAltitudeDeg + HORIZON_REFRACTION_DEG + track.semidiameterDeg(ut);
+  return (ut) => {
+    const p = track.at(ut);
+    return p.geometricAltitudeDeg + HORIZON_REFRACTION_DEG + track.semidiameterDeg(p.distance);
+  };
 }
 
 function first(crossings: Crossing[], direction: 1 | -1): Crossing | undefined {

@@ -62,19 +62,40 @@ export function phaseName(elongationDeg: number): PhaseName {
   return 'waning-crescent';
 }
 
+/** Mean synodic month, days (Meeus, Astronomical Algorithms, eq. 49.1). */
+const SYNODIC_MONTH_DAYS = 29.530588861;
+/** The mean new Moon of lunation 0 (Meeus eq. 49.1, k = 0: JDE 2451550.09766, 2000 January 6), days from J2000 (TT; UT differs by a minute). */
+const MEAN_NEW_MOON_UT = 5.09766;
+
+/**
+ * The new Moon of lunation `k` (counted from January 2000), UT days, or null: found once by
+ * astronomy-engine's search within three days of the mean new Moon (the true one differs from it by
+ * at most about 14 hours) and kept, since every night of a lunation asks for the same one.
+ */
+const newMoons = new Map<number, number | null>();
+function newMoonUt(k: number): number | null {
+  let ut = newMoons.get(k);
+  if (ut === undefined) {
+    ut = Astronomy.SearchMoonPhase(0, Astronomy.MakeTime(MEAN_NEW_MOON_UT + k * SYNODIC_MONTH_DAYS - 3), 6)?.ut ?? null;
+    newMoons.set(k, ut);
+  }
+  return ut;
+}
+
 /** The Moon's phase at `instant` (geocentric). */
 export function moonPhase(instant: Instant): MoonPhase {
   const time = astroTime(instant);
   const elongationDeg = Astronomy.MoonPhase(time);
   const illum = Astronomy.Illumination(Astronomy.Body.Moon, time);
-  // The previous new Moon lies about elongation / 12.19 days back (the mean daily gain on the Sun):
-  // search a 4-day window starting 2 days before that estimate.
-  const lastNew = Astronomy.SearchMoonPhase(0, time.AddDays(-(elongationDeg / 12.19) - 2), 4);
+  // The previous new Moon lies about elongation / 12.19 days back (the mean daily gain on the Sun).
+  const k = Math.round((time.ut - elongationDeg / 12.19 - MEAN_NEW_MOON_UT) / SYNODIC_MONTH_DAYS);
+  const found = newMoonUt(k);
+  const lastNew = found !== null && found > time.ut ? newMoonUt(k - 1) : found;
   return {
     name: phaseName(elongationDeg),
     elongationDeg,
     illuminatedFraction: illum.phase_fraction,
     phaseAngleDeg: illum.phase_angle,
-    ageDays: lastNew ? time.ut - lastNew.ut : (elongationDeg / 360) * 29.530589,
+    ageDays: lastNew !== null ? time.ut - lastNew : (elongationDeg / 360) * SYNODIC_MONTH_DAYS,
   };
 }

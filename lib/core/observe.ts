@@ -12,6 +12,7 @@
 import * as Astronomy from 'astronomy-engine';
 import type { Body, MagnitudeEstimate } from './body.ts';
 import { builtInBody } from './body.ts';
+import { Horizon, apparentAltitudeDeg, localSiderealHours, separationDeg, unitFromRaDec } from './geometry.ts';
 import type { Site } from './site.ts';
 
 const RAD = Math.PI / 180;
@@ -91,8 +92,7 @@ export function observe(site: Site, body: Body, instant: Instant): Observation {
   const eq = vectorToRaDec(topo.x, topo.y, topo.z);
   const astrometric = body.geoVector(time, { aberration: false });
   const j2000 = vectorToRaDec(astrometric.x, astrometric.y, astrometric.z);
-  const hor = Astronomy.Horizon(time, site.observer, eq.raHours, eq.decDeg, 'normal');
-  const geometric = Astronomy.Horizon(time, site.observer, eq.raHours, eq.decDeg);
+  const hor = new Horizon(site.latitudeDeg).ofDate(topo.x, topo.y, topo.z, localSiderealHours(time, site.longitudeDeg));
   const illum = body.illumination(time);
   const sun = body.kind === 'sun' ? null : builtInBody('sun').geoVector(time, { aberration: true });
   const apparent = body.geoVector(time, { aberration: true });
@@ -103,13 +103,13 @@ export function observe(site: Site, body: Body, instant: Instant): Observation {
     decDeg: eq.decDeg,
     raJ2000Hours: j2000.raHours,
     decJ2000Deg: j2000.decDeg,
-    altitudeDeg: hor.altitude,
-    geometricAltitudeDeg: geometric.altitude,
-    azimuthDeg: hor.azimuth,
+    altitudeDeg: apparentAltitudeDeg(hor.geometricAltitudeDeg),
+    geometricAltitudeDeg: hor.geometricAltitudeDeg,
+    azimuthDeg: hor.azimuthDeg,
     distanceAu: eq.length,
     geocentricDistanceAu: illum.geocentricDistanceAu,
     heliocentricDistanceAu: illum.heliocentricDistanceAu,
-    elongationDeg: sun ? Astronomy.AngleBetween(apparent, sun) : 0,
+    elongationDeg: sun ? separationDeg([apparent.x, apparent.y, apparent.z], [sun.x, sun.y, sun.z]) : 0,
     phaseAngleDeg: illum.phaseAngleDeg,
     illuminatedFraction: illum.illuminatedFraction,
     magnitude: illum.magnitude,
@@ -119,12 +119,11 @@ export function observe(site: Site, body: Body, instant: Instant): Observation {
 }
 
 /**
- * Horizontal coordinates from apparent equatorial coordinates of date, for a site at `time`.
- * Thin wrapper over `astronomy-engine`'s `Horizon` returning altitude rather than zenith distance.
+ * Horizontal coordinates from apparent equatorial coordinates of date, for a site at `time`
+ * (`Horizon` of geometry.ts at the local apparent sidereal time; standard refraction when asked).
  */
 export function horizontal(site: Site, time: Astronomy.AstroTime, raHours: number, decDeg: number, options: { refraction: boolean }): { altitudeDeg: number; azimuthDeg: number } {
-  const hor = options.refraction
-    ? Astronomy.Horizon(time, site.observer, raHours, decDeg, 'normal')
-    : Astronomy.Horizon(time, site.observer, raHours, decDeg);
-  return { altitudeDeg: hor.altitude, azimuthDeg: hor.azimuth };
+  const [x, y, z] = unitFromRaDec(raHours * 15, decDeg);
+  const hor = new Horizon(site.latitudeDeg).ofDate(x, y, z, localSiderealHours(time, site.longitudeDeg));
+  return { altitudeDeg: options.refraction ? apparentAltitudeDeg(hor.geometricAltitudeDeg) : hor.geometricAltitudeDeg, azimuthDeg: hor.azimuthDeg };
 }

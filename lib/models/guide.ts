@@ -6,6 +6,7 @@
  */
 import * as Astronomy from 'astronomy-engine';
 import { builtInBody, BUILT_IN_IDS, type Body } from '../core/body.ts';
+import { separationDeg } from '../core/geometry.ts';
 import { observe, topocentricOfDate, vectorToRaDec, type Instant } from '../core/observe.ts';
 import { skylineAltitudeDeg, type Site } from '../core/site.ts';
 import { guideTarget, NEAR_BODY_DEG, type GuideCompanion, type GuideResult } from './stars/guide.ts';
@@ -32,7 +33,7 @@ export function guideFor(input: { site: Site; body: Body; time: Instant }): Guid
     if (id === 'sun' || id === body.id) continue;
     const other = builtInBody(id);
     const p = placeOf(other);
-    if (Astronomy.AngleBetween(p.v, target) > NEAR_BODY_DEG + 1) continue;
+    if (separationDeg([p.v.x, p.v.y, p.v.z], [target.x, target.y, target.z]) > NEAR_BODY_DEG + 1) continue;
     const magnitude = other.kind === 'moon' ? -10 : other.illumination(o.time).magnitude.value;
     companions.push({ id, name: other.name, kind: other.kind === 'moon' ? 'moon' : 'planet', place: { raHours: p.raHours, decDeg: p.decDeg }, magnitude });
   }

@@ -33,8 +33,11 @@ import { darkSkyFromQuality } from './sky/quality.ts';
 import { extinctionCoefficientGreen, extinctionMag } from './sky/extinction.ts';
 import { skyBrightness, type SkyBrightness } from './sky/brightness.ts';
 import { limitingMagnitude, DEFAULT_INSTRUMENTS, type Instrument } from './sky/threshold.ts';
+import { visibilityMargin } from './sky/index.ts';
 import { findCrossings, findMaximum } from '../core/search.ts';
-import { dateFromUt, separationDeg, utDays, type NightFrame, type Track } from '../core/track.ts';
+import { separationDeg } from '../core/geometry.ts';
+import { OPTICS_SUN_DEPRESSION_DEG, OPTICS_SUN_MINUTES, TOO_CLOSE_TO_SUN_DEG } from './near-sun.ts';
+import { dateFromUt, utDays, type NightFrame, type Track } from '../core/track.ts';
 import { addDays, zonedTime, type Night } from '../core/time.ts';
 
 /**
@@ -49,16 +52,6 @@ export interface NightSky {
   moon: { phase: MoonPhase };
 }
 
-/** Below this elongation a body is reported as too close to the Sun, degrees (near conjunction). */
-export const TOO_CLOSE_TO_SUN_DEG = 8;
-/**
- * Optics safety: binoculars and telescopes are recommended only while the Sun's centre is at least this far below
- * the horizon (geometric altitude ≤ −4°) … This project's choice, on the common-practice advice not to sweep with
- * binoculars near the Sun until it has fully set (and to stop well before it rises).
- */
-export const OPTICS_SUN_DEPRESSION_DEG = 4;
-/** … and at least this many minutes after sunset and before sunrise, whichever is the later in the evening and the earlier in the morning. */
-export const OPTICS_SUN_MINUTES = 20;
 /** Default length of the viewing hours, hours from sunset (or from the start of the night's darkest part). */
 export const DEFAULT_VIEWING_HOURS = 4;
 /** Sampling step of the visibility search, days (5 minutes). */
@@ -276,8 +269,7 @@ export class NightVisibility {
       if (guarded && !this.opticsAllowed(ut)) return NaN;
       const s = this.state(track, ut, options.without);
       if (!s) return NaN;
-      const lim = limitingMagnitude({ skyNl: s.sky.totalNl, instrument, ...(coma ? { comaDiameterArcmin: coma } : {}) });
-      return lim - (magnitude + extinctionMag(this.kV, s.altitudeDeg)) - required;
+      return visibilityMargin({ magnitude, altitudeDeg: s.altitudeDeg, kV: this.kV, skyNl: s.sky.totalNl, instrument, ...(coma ? { comaDiameterArcmin: coma } : {}) }) - required;
     };
   }
 

@@ -6,9 +6,9 @@
  */
 import * as Astronomy from 'astronomy-engine';
 import type { Body } from '../../core/body.ts';
+import { SkyFrame, altitudeOfHor, apparentAltitudeDeg, azimuthOfHor, offsetInSky, type OffsetDirection } from '../../core/geometry.ts';
 import { astroTime, type Instant } from '../../core/observe.ts';
 import type { Site } from '../../core/site.ts';
-import { offsetInSky, type OffsetDirection } from '../stars/guide.ts';
 import { tailPointGeoVector, tailPositionAngleDeg, type SmallBody } from './body.ts';
 
 export interface TailInSky {
@@ -41,20 +41,19 @@ export function isSmallBody(body: Body): body is SmallBody {
   return typeof (body as Partial<SmallBody>).sighting === 'function';
 }
 
-/** Horizontal coordinates of a geocentric EQJ vector for a site (parallax applied, refraction too). */
-function altAz(site: Site, time: Astronomy.AstroTime, geo: Astronomy.Vector): { altitudeDeg: number; azimuthDeg: number } {
-  const obs = Astronomy.ObserverVector(time, site.observer, false);
-  const topo = new Astronomy.Vector(geo.x - obs.x, geo.y - obs.y, geo.z - obs.z, time);
-  const eq = Astronomy.EquatorFromVector(Astronomy.RotateVector(Astronomy.Rotation_EQJ_EQD(time), topo));
-  const hor = Astronomy.Horizon(time, site.observer, eq.ra, eq.dec, 'normal');
-  return { altitudeDeg: hor.altitude, azimuthDeg: hor.azimuth };
+/** Apparent altitude and azimuth of a geocentric J2000 position (AU) seen from a site: the observer's position subtracted (parallax), `SkyFrame`, standard refraction. */
+function altAz(site: Site, frame: SkyFrame, geo: Astronomy.Vector): { altitudeDeg: number; azimuthDeg: number } {
+  const obs = Astronomy.ObserverVector(frame.time, site.observer, false);
+  const hor = frame.horFromEqj(geo.x - obs.x, geo.y - obs.y, geo.z - obs.z);
+  return { altitudeDeg: apparentAltitudeDeg(altitudeOfHor(hor)), azimuthDeg: azimuthOfHor(hor) };
 }
 
-/** The tail direction of `body` for `site` at `instant`. */
+/** The tail direction of `body` for `site` at `instant`: where the tail's tip lies from the head in the site's sky (`offsetInSky`). */
 export function tailInSky(site: Site, body: SmallBody, instant: Instant): TailInSky {
   const time = astroTime(instant);
-  const head = altAz(site, time, body.geoVector(time, { aberration: true }));
-  const tip = altAz(site, time, tailPointGeoVector(body, time));
+  const frame = new SkyFrame(site, time);
+  const head = altAz(site, frame, body.geoVector(time, { aberration: true }));
+  const tip = altAz(site, frame, tailPointGeoVector(body, time));
   const off = offsetInSky({ fromAltitudeDeg: head.altitudeDeg, fromAzimuthDeg: head.azimuthDeg, toAltitudeDeg: tip.altitudeDeg, toAzimuthDeg: tip.azimuthDeg });
   return {
     positionAngleDeg: tailPositionAngleDeg(body, time),

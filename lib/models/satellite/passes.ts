@@ -35,7 +35,8 @@ import { extinctionCoefficientGreen, extinctionMag } from '../sky/extinction.ts'
 import { darkSkyFromQuality } from '../sky/quality.ts';
 import { DEFAULT_INSTRUMENTS, limitingMagnitude, type Instrument } from '../sky/threshold.ts';
 import { addDays, localMidnight, nightOf } from '../../core/time.ts';
-import { dateFromUt, NightFrame, separationDeg } from '../../core/track.ts';
+import { separationDeg } from '../../core/geometry.ts';
+import { dateFromUt, NightFrame } from '../../core/track.ts';
 import type { ElementSet } from './elements.ts';
 import { satelliteMagnitude } from './magnitude.ts';
 import { epochUt, SatelliteObserver, StateTrack, type LookAngles, type Vec3 } from './propagate.ts';

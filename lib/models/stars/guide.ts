@@ -5,25 +5,29 @@
  * right of Regulus"); and, over several nights, how the target moves against a pattern.
  *
  * Frames: stars are J2000 (lib/models/stars/catalogue.ts) and are turned into the observer's horizontal
- * frame with astronomy-engine's precession–nutation and Earth-rotation matrices
- * (`Rotation_EQJ_EQD`, `Rotation_EQD_HOR`); the target comes as apparent RA/Dec of date and uses
- * `Rotation_EQD_HOR`. Altitudes here are geometric (no refraction: it lifts two points at the
+ * frame by `SkyFrame` of lib/core/geometry.ts (precession–nutation, then the local sidereal time);
+ * the target comes as apparent RA/Dec of date. Altitudes here are geometric (no refraction: it lifts two points at the
  * same altitude alike and changes separations by well under 0.1° above 10° altitude). Stellar
  * aberration (≤ 20″) and proper motion since J2000 (≤ 2.6′) are ignored: they are far below the
  * degree scale of these phrases.
  *
  * Hand measures are common practice: a fist at arm's length ≈ 10°, a finger ≈ 2°.
  */
-import {
-  Observer,
-  Refraction,
-  Rotation_EQD_EQJ,
-  Rotation_EQD_HOR,
-  Rotation_EQJ_EQD,
-  type AstroTime,
-  type RotationMatrix,
-} from 'astronomy-engine';
+import { Rotation_EQD_EQJ, type AstroTime } from 'astronomy-engine';
 import { compass, handMeasure } from '../../core/describe.ts';
+import {
+  SkyFrame,
+  altitudeOfHor,
+  apparentAltitudeDeg,
+  azimuthOfHor,
+  cross,
+  dot,
+  normalize,
+  offsetOfHor,
+  separationDeg as angleDeg,
+  unitFromRaDec as fromRaDec,
+  type OffsetDirection,
+} from '../../core/geometry.ts';
 import { GloamingError } from '../../core/errors.ts';
 import { starByHip, stars, type Star } from './catalogue.ts';
 import { partPhrase, patternById, patterns, type StarPattern } from './patterns.ts';
@@ -40,11 +44,6 @@ export interface ApparentPlace {
   raHours: number;
   decDeg: number;
 }
-
-/** Eight directions in the observer's frame at the reference point: up = toward the zenith. */
-export type OffsetDirection = 'above' | 'upper right' | 'right' | 'lower right' | 'below' | 'lower left' | 'left' | 'upper left';
-
-const DIRECTIONS: readonly OffsetDirection[] = ['above', 'upper right', 'right', 'lower right', 'below', 'lower left', 'left', 'upper left'];
 
 export interface NearestStar {
   hip: number;
@@ -161,16 +160,6 @@ const MIN_BODY_SEPARATION_DEG = 0.2;
 /** Targets whose geometric altitude is lower than this are below the horizon even with refraction, degrees. */
 const BELOW_HORIZON_DEG = -1;
 
-function dot(a: Vec, b: Vec): number {
-  return a[0] * b[0] + a[1] * b[1] + a[2] * b[2];
-}
-function cross(a: Vec, b: Vec): Vec {
-  return [a[1] * b[2] - a[2] * b[1], a[2] * b[0] - a[0] * b[2], a[0] * b[1] - a[1] * b[0]];
-}
-function normalize(a: Vec): Vec {
-  const n = Math.hypot(a[0], a[1], a[2]);
-  return [a[0] / n, a[1] / n, a[2] / n];
-}
 function rotate(m: number[][], v: Vec): Vec {
   // astronomy-engine's RotationMatrix.rot is stored column-major: rot[j][i] is row i, column j.
   const c0 = m[0]!, c1 = m[1]!, c2 = m[2]!;
@@ -180,63 +169,6 @@ function rotate(m: number[][], v: Vec): Vec {
     c0[2]! * v[0] + c1[2]! * v[1] + c2[2]! * v[2],
   ];
 }
-/** Angle between two unit vectors, degrees (atan2 form, accurate at small and large angles). */
-function angleDeg(a: Vec, b: Vec): number {
-  const c = cross(a, b);
-  return Math.atan2(Math.hypot(c[0], c[1], c[2]), dot(a, b)) * DEG;
-}
-function fromRaDec(raDeg: number, decDeg: number): Vec {
-  const ra = raDeg / DEG, dec = decDeg / DEG;
-  return [Math.cos(dec) * Math.cos(ra), Math.cos(dec) * Math.sin(ra), Math.sin(dec)];
-}
-/** Horizontal unit vector (astronomy-engine HOR axes: x north, y west, z zenith) from altitude and azimuth (from north through east). */
-function fromAltAz(altitudeDeg: number, azimuthDeg: number): Vec {
-  const alt = altitudeDeg / DEG, az = azimuthDeg / DEG;
-  return [Math.cos(alt) * Math.cos(az), -Math.cos(alt) * Math.sin(az), Math.sin(alt)];
-}
-
-/**
- * Where `to` lies as seen from `from`, both unit vectors in the horizontal frame (x north, y west,
- * z zenith). "Up" at `from` is the direction toward the zenith along the vertical circle through
- * `from`; "right" is to the right of an observer facing `from` with the head toward the zenith
- * (the direction of increasing azimuth). Within 0.5° of the zenith the vertical is undefined and
- * every other point is below, so the answer is 'below'. Returns the position angle of `to`
- * measured from up through right, degrees 0–360, and the eight-way word (sectors of 45° centred
- * on each word).
- */
-function offsetVectors(from: Vec, to: Vec): { separationDeg: number; angleDeg: number; offsetDirection: OffsetDirection } {
-  const separationDeg = angleDeg(from, to);
-  const t = dot(to, from);
-  const d: Vec = [to[0] - t * from[0], to[1] - t * from[1], to[2] - t * from[2]];
-  const cosAlt = Math.hypot(from[0], from[1]);
-  let pa: number;
-  if (cosAlt < Math.sin(0.5 / DEG) || Math.hypot(d[0], d[1], d[2]) < 1e-12) {
-    pa = 180;
-  } else {
-    const up = normalize([-from[2] * from[0], -from[2] * from[1], 1 - from[2] * from[2]]);
-    const right = cross(from, up);
-    pa = (Math.atan2(dot(d, right), dot(d, up)) * DEG + 360) % 360;
-  }
-  const offsetDirection = DIRECTIONS[Math.round(pa / 45) % 8]!;
-  return { separationDeg, angleDeg: pa, offsetDirection };
-}
-
-/**
- * Where a point at (`toAltitudeDeg`, `toAzimuthDeg`) lies as seen from a point at
- * (`fromAltitudeDeg`, `fromAzimuthDeg`) in the observer's horizontal frame (azimuth from north
- * through east, degrees). Same conventions as the phrases: up toward the zenith along the
- * vertical through the `from` point, right = direction of increasing azimuth for an observer
- * facing it; 'below' within 0.5° of the zenith. Spherical geometry of the tangent plane at `from`.
- */
-export function offsetInSky(input: { fromAltitudeDeg: number; fromAzimuthDeg: number; toAltitudeDeg: number; toAzimuthDeg: number }): {
-  separationDeg: number;
-  positionAngleDeg: number;
-  offsetDirection: OffsetDirection;
-} {
-  const r = offsetVectors(fromAltAz(input.fromAltitudeDeg, input.fromAzimuthDeg), fromAltAz(input.toAltitudeDeg, input.toAzimuthDeg));
-  return { separationDeg: r.separationDeg, positionAngleDeg: r.angleDeg, offsetDirection: r.offsetDirection };
-}
-
 /**
  * An angle in words for the phrases: "about 8° (almost a fist)", "about 2° (about a finger)",
  * "about 0.4° (less than a finger)". Degrees are rounded to whole degrees from 1° up. The hand
@@ -324,31 +256,17 @@ function checkNumber(value: number, field: string, min: number, max: number): vo
   }
 }
 
-interface Frame {
-  eqjToHor: number[][];
-  eqdToHor: number[][];
-}
-
-function horizontalFrame(observer: GuideObserver, time: AstroTime): Frame {
+function horizontalFrame(observer: GuideObserver, time: AstroTime): SkyFrame {
   checkNumber(observer.latitudeDeg, 'observer.latitudeDeg', -90, 90);
   checkNumber(observer.longitudeDeg, 'observer.longitudeDeg', -180, 360);
   checkNumber(observer.elevationM, 'observer.elevationM', -500, 10_000);
-  const site = new Observer(observer.latitudeDeg, observer.longitudeDeg, observer.elevationM);
-  const eqdHor: RotationMatrix = Rotation_EQD_HOR(time, site);
-  const eqjEqd: RotationMatrix = Rotation_EQJ_EQD(time);
-  // Combined EQJ → HOR: apply EQJ→EQD first, then EQD→HOR (column-major storage, see `rotate`).
-  const eqjToHor = [0, 1, 2].map((j) => rotate(eqdHor.rot, [eqjEqd.rot[j]![0]!, eqjEqd.rot[j]![1]!, eqjEqd.rot[j]![2]!]) as number[]);
-  return { eqjToHor, eqdToHor: eqdHor.rot };
+  return new SkyFrame(observer, time);
 }
 
-function targetVector(frame: Frame, target: ApparentPlace): Vec {
+function targetVector(frame: SkyFrame, target: ApparentPlace): Vec {
   checkNumber(target.raHours, 'target.raHours', 0, 24);
   checkNumber(target.decDeg, 'target.decDeg', -90, 90);
-  return rotate(frame.eqdToHor, fromRaDec(target.raHours * 15, target.decDeg));
-}
-
-function altitudeOf(v: Vec): number {
-  return Math.asin(Math.max(-1, Math.min(1, v[2]))) * DEG;
+  return frame.horFromEqd(...fromRaDec(target.raHours * 15, target.decDeg));
 }
 
 /**
@@ -393,19 +311,19 @@ export function guideTarget(options: GuideOptions): GuideResult | null {
   const { groups, brightness, named } = prepare();
   const frame = horizontalFrame(options.observer, options.time);
   const target = targetVector(frame, options.target);
-  const targetAltitudeDeg = altitudeOf(target);
+  const targetAltitudeDeg = altitudeOfHor(target);
   if (targetAltitudeDeg < BELOW_HORIZON_DEG) return null;
   // The horizon phrase gives the altitude a reader sees: with standard refraction (astronomy-engine `Refraction`).
-  const apparentAltitudeDeg = targetAltitudeDeg + Refraction('normal', targetAltitudeDeg);
+  const apparentAltitude = apparentAltitudeDeg(targetAltitudeDeg);
   const sun = options.sun ? targetVector(frame, options.sun) : null;
-  const sunAltitudeDeg = sun ? altitudeOf(sun) : null;
+  const sunAltitudeDeg = sun ? altitudeOfHor(sun) : null;
   const twilight = sunAltitudeDeg !== null && sunAltitudeDeg > -12;
   const maxStarMagnitude = Math.min(options.maxStarMagnitude ?? 3.0, twilight ? TWILIGHT_STAR_MAG : Infinity);
   const skyline = options.skylineAltitudeDeg ?? ((): number => 0);
   /** Whether a direction stands at least `marginDeg` above the skyline (and the ideal horizon). */
   const clear = (v: Vec, marginDeg = 0): boolean => {
-    const alt = altitudeOf(v);
-    return alt >= marginDeg && alt >= skyline(azimuthOf(v)) + marginDeg;
+    const alt = altitudeOfHor(v);
+    return alt >= marginDeg && alt >= skyline(azimuthOfHor(v)) + marginDeg;
   };
 
   // Rank the patterns (rule 1).
@@ -413,19 +331,19 @@ export function guideTarget(options: GuideOptions): GuideResult | null {
   for (const [id, list] of groups) {
     let pick: { group: Group; centroid: Vec; hors: Vec[]; nearest: { star: Star; hor: Vec; sep: number }; rank: number } | null = null;
     for (const group of list) {
-      const hors = group.stars.map((s) => rotate(frame.eqjToHor, s.eqj));
+      const hors = group.stars.map((s) => frame.horFromEqj(...s.eqj));
       let nearest: { star: Star; hor: Vec; sep: number } | null = null;
       hors.forEach((hor, i) => {
         const sep = angleDeg(hor, target);
         if (!nearest || sep < nearest.sep) nearest = { star: group.stars[i]!.star, hor, sep };
       });
-      const centroid = rotate(frame.eqjToHor, group.centroidEqj);
+      const centroid = frame.horFromEqj(...group.centroidEqj);
       // A named part is preferred to the whole pattern unless the pattern has a star over 1° nearer.
       const rank = nearest!.sep + (group.part === undefined ? 1 : 0);
       if (!pick || rank < pick.rank) pick = { group, centroid, hors, nearest: nearest!, rank };
     }
     if (!pick) continue;
-    const altitudeDeg = altitudeOf(pick.centroid);
+    const altitudeDeg = altitudeOfHor(pick.centroid);
     if (altitudeDeg < minAltitudeDeg || !clear(pick.centroid) || pick.nearest.sep > maxSeparationDeg) continue;
     const pattern = pick.group.pattern;
     const score = patternScore({ separationDeg: pick.nearest.sep, familiarity: pattern.familiarity, brightnessMag: brightness.get(id)!, altitudeDeg });
@@ -439,13 +357,13 @@ export function guideTarget(options: GuideOptions): GuideResult | null {
   let bestGuideCost = Infinity;
   for (const s of named) {
     if (s.star.vMag > (options.maxStarMagnitude ?? 3.0)) continue;
-    const hor = rotate(frame.eqjToHor, s.eqj);
+    const hor = frame.horFromEqj(...s.eqj);
     if (hor[2] <= 0) continue;
     const sep = angleDeg(hor, target);
     const cost = sep + 1.5 * Math.max(0, s.star.vMag - 1);
     const describe = (): NearestStar & { hor: Vec; altitudeDeg: number } => {
-      const o = offsetVectors(hor, target);
-      return { hip: s.star.hip, name: s.star.name, separationDeg: o.separationDeg, offsetDirection: o.offsetDirection, phrase: fromWords(o, s.star.name), hor, altitudeDeg: altitudeOf(hor) };
+      const o = offsetOfHor(hor, target);
+      return { hip: s.star.hip, name: s.star.name, separationDeg: o.separationDeg, offsetDirection: o.offsetDirection, phrase: fromWords(o, s.star.name), hor, altitudeDeg: altitudeOfHor(hor) };
     };
     if (cost < bestCost) {
       bestCost = cost;
@@ -461,7 +379,7 @@ export function guideTarget(options: GuideOptions): GuideResult | null {
     : null;
   const base = {
     inside: false,
-    referenceAltitudeDeg: best ? altitudeOf(best.centroid) : null,
+    referenceAltitudeDeg: best ? altitudeOfHor(best.centroid) : null,
     score: best ? best.score : null,
     nearestStar: reported,
     horizon: null,
@@ -474,12 +392,12 @@ export function guideTarget(options: GuideOptions): GuideResult | null {
   }
 
   // Rule 2: the Moon or a bright planet nearby.
-  let companion: { c: GuideCompanion; o: ReturnType<typeof offsetVectors> } | null = null;
+  let companion: { c: GuideCompanion; o: ReturnType<typeof offsetOfHor> } | null = null;
   for (const c of options.companions ?? []) {
     if (c.kind === 'planet' && !(c.magnitude <= BRIGHT_PLANET_MAG)) continue;
     const hor = targetVector(frame, c.place);
     if (!clear(hor, MIN_GUIDE_ALTITUDE_DEG)) continue;
-    const o = offsetVectors(hor, target);
+    const o = offsetOfHor(hor, target);
     if (o.separationDeg > NEAR_BODY_DEG || o.separationDeg < MIN_BODY_SEPARATION_DEG) continue;
     if (!companion || o.separationDeg < companion.o.separationDeg) companion = { c, o };
   }
@@ -515,9 +433,9 @@ export function guideTarget(options: GuideOptions): GuideResult | null {
   }
 
   // Rule 4: the horizon, and where the Sun set or will rise.
-  const azimuthDeg = azimuthOf(target);
-  const sunPart = sun && sunAltitudeDeg !== null && options.sun ? sunPoint(options.observer.latitudeDeg, options.sun.decDeg, sunAltitudeDeg, azimuthOf(sun), azimuthDeg) : null;
-  let phrase = horizonWords(apparentAltitudeDeg, azimuthDeg);
+  const azimuthDeg = azimuthOfHor(target);
+  const sunPart = sun && sunAltitudeDeg !== null && options.sun ? sunPoint(options.observer.latitudeDeg, options.sun.decDeg, sunAltitudeDeg, azimuthOfHor(sun), azimuthDeg) : null;
+  let phrase = horizonWords(apparentAltitude, azimuthDeg);
   if (sunPart) {
     const where = sunPart.event === 'set' ? 'where the Sun set' : 'where the Sun will rise';
     phrase += sunPart.side === 'above' ? `, right above ${where}` : `, ${distanceWords(sunPart.offsetDeg)} to the ${sunPart.side} of ${where}`;
@@ -529,7 +447,7 @@ export function guideTarget(options: GuideOptions): GuideResult | null {
     pattern: null,
     separationDeg: null,
     offsetDirection: null,
-    horizon: { altitudeDeg: apparentAltitudeDeg, azimuthDeg, sun: sunPart },
+    horizon: { altitudeDeg: apparentAltitude, azimuthDeg, sun: sunPart },
     names: [],
   };
 }
@@ -570,7 +488,7 @@ function patternPhrase(
   // Inside a figure none of whose stars has a name, the bright named star nearby gives the distance.
   const insideAnchor = a ? { hip: a.star.hip, name: a.star.name, hor: a.hor } : guideStar;
   if (inside && insideAnchor) {
-    const o = offsetVectors(insideAnchor.hor, target);
+    const o = offsetOfHor(insideAnchor.hor, target);
     const fromStar = fromWords(o, insideAnchor.name);
     return {
       ...common,
@@ -582,7 +500,7 @@ function patternPhrase(
     };
   }
   if (a && close && a.sep <= inLimitDeg) {
-    const o = offsetVectors(a.hor, target);
+    const o = offsetOfHor(a.hor, target);
     return {
       ...common,
       phrase: `${fromWords(o, a.star.name)}, in ${what}`,
@@ -595,7 +513,7 @@ function patternPhrase(
   if (inside) return null;
   const compactNear = group.radiusDeg <= WIDE_GROUP_DEG && nearest.sep <= NEAR_PATTERN_DEG;
   if (close || compactNear) {
-    const o = offsetVectors(group.radiusDeg > WIDE_GROUP_DEG ? nearest.hor : centroid, target);
+    const o = offsetOfHor(group.radiusDeg > WIDE_GROUP_DEG ? nearest.hor : centroid, target);
     return {
       ...common,
       inside: false,
@@ -651,20 +569,15 @@ function convexHull(points: readonly [number, number][]): [number, number][] {
 }
 
 /** The most familiar pattern that holds star `hip` and whose centre stands at least `minAltitudeDeg` up. */
-function patternOfStar(hip: number, frame: Frame, minAltitudeDeg: number): StarPattern | null {
+function patternOfStar(hip: number, frame: SkyFrame, minAltitudeDeg: number): StarPattern | null {
   let found: StarPattern | null = null;
   for (const list of prepare().groups.values()) {
     const whole = list[0]!;
     if (!whole.pattern.stars.includes(hip)) continue;
-    if (altitudeOf(rotate(frame.eqjToHor, whole.centroidEqj)) < minAltitudeDeg) continue;
+    if (altitudeOfHor(frame.horFromEqj(...whole.centroidEqj)) < minAltitudeDeg) continue;
     if (!found || whole.pattern.familiarity < found.familiarity) found = whole.pattern;
   }
   return found;
-}
-
-/** Azimuth of a horizontal unit vector (x north, y west, z zenith), degrees from north through east. */
-function azimuthOf(v: Vec): number {
-  return (((Math.atan2(-v[1], v[0]) * DEG) % 360) + 360) % 360;
 }
 
 /**

@@ -14,7 +14,8 @@ import type { Body } from '../../core/body.ts';
 import { builtInBody } from '../../core/body.ts';
 import { compass } from '../../core/describe.ts';
 import { findCrossings } from '../../core/search.ts';
-import { distanceWords, offsetInSky, type OffsetDirection } from '../../models/stars/guide.ts';
+import { offsetInSky, separationDeg, type OffsetDirection } from '../../core/geometry.ts';
+import { distanceWords } from '../../models/stars/guide.ts';
 import { starByHip, stars, type Star } from '../../models/stars/catalogue.ts';
 import { patterns } from '../../models/stars/patterns.ts';
 import { dateFromUt, utDays } from '../../core/track.ts';
@@ -58,16 +59,9 @@ class Directions {
   }
 }
 
-/** Angle between two unit vectors, degrees (atan2 form: accurate for small angles). */
-function angleDeg(a: Vec, b: Vec): number {
-  const dot = a[0] * b[0] + a[1] * b[1] + a[2] * b[2];
-  const cross = Math.hypot(a[1] * b[2] - a[2] * b[1], a[2] * b[0] - a[0] * b[2], a[0] * b[1] - a[1] * b[0]);
-  return Math.atan2(cross, dot) / RAD;
-}
-
 /** Local minima of the separation of `a` and `b` in [ut0, ut1] that are at most `limitDeg`. */
 export function separationMinima(a: Directions, b: Directions, ut0: number, ut1: number, limitDeg: number): { ut: number; separationDeg: number }[] {
-  const sep = (ut: number): number => angleDeg(a.at(ut), b.at(ut));
+  const sep = (ut: number): number => separationDeg(a.at(ut), b.at(ut));
   const rate = (ut: number): number => sep(ut + DELTA_DAYS) - sep(ut - DELTA_DAYS);
   return findCrossings(rate, ut0, ut1, { stepDays: STEP_DAYS, toleranceDays: 10 / 86_400 })
     .filter((c) => c.direction === 1)

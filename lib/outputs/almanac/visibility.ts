@@ -10,12 +10,12 @@ import type { Body } from '../../core/body.ts';
 import { compass } from '../../core/describe.ts';
 import { findMaximum } from '../../core/search.ts';
 import { skylineAltitudeDeg } from '../../core/site.ts';
-import { dateFromUt, separationDeg, utDays, type NightFrame } from '../../core/track.ts';
+import { separationDeg } from '../../core/geometry.ts';
+import { GLARE_ELONGATION_DEG } from '../../models/near-sun.ts';
+import { dateFromUt, utDays, type NightFrame } from '../../core/track.ts';
 import type { AlmanacContext } from './context.ts';
 import type { EventHiddenReason, EventVisibility } from './types.ts';
 
-/** Below this elongation a body is reported as lost in the Sun's glare, degrees (common practice). */
-export const GLARE_ELONGATION_DEG = 10;
 /** Sampling step of the best-moment search, days (10 minutes; refined to 1 s). */
 const STEP_DAYS = 10 / 1440;
 

@@ -5,10 +5,8 @@
  */
 import type { Body } from '../../core/body.ts';
 import { GloamingError } from '../../core/errors.ts';
+import { NEAR_SUN_DEG } from '../../models/near-sun.ts';
 import type { WeekData } from './week.ts';
-
-/** A target within this angle of the Sun (geocentric, at local midnight of the night) triggers the eye-safety caution. */
-export const NEAR_SUN_DEG = 15;
 
 /** A body a page shows, and the night (0–6 of the week) it shows it for. */
 export interface ShownBody {

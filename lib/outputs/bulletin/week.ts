@@ -5,6 +5,7 @@
  * night on that night's shared frame (`NightReport.body`), and the result is shared by every
  * placeholder and every page of the same site and week through a `WeekCache`.
  */
+import { separationDeg } from '../../core/geometry.ts';
 import * as Astronomy from 'astronomy-engine';
 import { BodyRegistry, builtInBody, type Body } from '../../core/body.ts';
 import { nightMagnitude } from '../../core/body.ts';
@@ -114,7 +115,8 @@ export class WeekData {
     if (e === undefined) {
       const time = Astronomy.MakeTime(this.midnight(index));
       const sun = builtInBody('sun').geoVector(time, { aberration: true });
-      e = Astronomy.AngleBetween(body.geoVector(time, { aberration: true }), sun);
+      const g = body.geoVector(time, { aberration: true });
+      e = separationDeg([g.x, g.y, g.z], [sun.x, sun.y, sun.z]);
       this.#elongations.set(key, e);
     }
     return e;

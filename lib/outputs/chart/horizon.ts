@@ -24,6 +24,7 @@ import type { Body } from '../../core/body.ts';
 import { BUILT_IN_IDS, builtInBody } from '../../core/body.ts';
 import { compass, FIST_DEG } from '../../core/describe.ts';
 import { GloamingError } from '../../core/errors.ts';
+import { SIDEREAL_DAY_DAYS } from '../../core/geometry.ts';
 import { observe, type Observation } from '../../core/observe.ts';
 import { tailPointGeoVector, type SmallBody } from '../../models/orbit/body.ts';
 import { skylineAltitudeDeg, type Site } from '../../core/site.ts';
@@ -39,9 +40,6 @@ export type { ChartLayout };
 import { CHART_WIDTH, COLOURS, FAINT_STAR_MAG, FONT, chartMagnitudeLimit, starRadius } from './style.ts';
 import { LabelPlacer, SVG_CLOSE, leaderLine, n, pathOf, svgOpen, text, type LabelRole, type PlacedLabel } from './svg.ts';
 import { chartLabel, formatChartDate, formatChartTime, formatMagnitude } from './words.ts';
-
-/** Mean sidereal day in solar days (86 164.0905 s; IERS Conventions). */
-export const SIDEREAL_DAY_DAYS = 86_164.0905 / 86_400;
 
 /** Height of the sky-and-ground area, user units. */
 const SCENE_HEIGHT = 262;

@@ -17,7 +17,7 @@ import type { ChartCache, ChartRequest, DeliveredChart } from './cache.ts';
 import { eveningMoment } from './whole-sky.ts';
 
 export { stereographic, stereographicRadius, angleFromRadius, makeLayout, type AltAz, type PlanePoint, type Stereographic } from './projection.ts';
-export { horizonChart, SIDEREAL_DAY_DAYS, type HorizonChart, type HorizonChartOptions, type ChartMark, type ChartLayout } from './horizon.ts';
+export { horizonChart, type HorizonChart, type HorizonChartOptions, type ChartMark, type ChartLayout } from './horizon.ts';
 export { wholeSkyChart, eveningMoment, type WholeSkyChart, type WholeSkyChartOptions } from './whole-sky.ts';
 export { horizonAltText, wholeSkyAltText } from './alt.ts';
 export {

@@ -3,13 +3,13 @@
  * geocentric vectors (J2000) turned into apparent altitude and azimuth.
  *
  * Frames and corrections: J2000 mean equator (EQJ) → true equator of date (precession and
- * nutation, `Rotation_EQJ_EQD`) → horizontal (`Rotation_EQD_HOR`, astronomy-engine's HOR axes:
- * x north, y west, z zenith). Altitudes get standard refraction (astronomy-engine
- * `Refraction('normal', …)`, the same as `observe`), so stars and bodies sit at the heights the
- * reader sees. Stellar aberration (≤ 20″), annual parallax and proper motion since J2000 (≤ 2.6′,
+ * nutation) → horizontal, through `SkyFrame` of lib/core/geometry.ts (the one altitude and azimuth
+ * path). Altitudes get standard refraction (the same as `observe`), so stars and bodies sit at the
+ * heights the reader sees. Stellar aberration (≤ 20″), annual parallax and proper motion since J2000 (≤ 2.6′,
  * see lib/models/stars/catalogue.ts) are ignored: a chart dot is several arcminutes across.
  */
 import * as Astronomy from 'astronomy-engine';
+import { SkyFrame, altitudeOfHor, apparentAltitudeDeg, azimuthOfHor, unitFromRaDec } from '../../core/geometry.ts';
 import type { Site } from '../../core/site.ts';
 import { starByHip, stars, type Star } from '../../models/stars/catalogue.ts';
 import { patterns, type StarPattern } from '../../models/stars/patterns.ts';
@@ -34,9 +34,7 @@ function catalogueVectors(): StarVector[] {
     starVectors = [...stars()]
       .sort((a, b) => a.vMag - b.vMag)
       .map((star) => {
-        const ra = star.raDeg * RAD;
-        const dec = star.decDeg * RAD;
-        return { star, v: [Math.cos(dec) * Math.cos(ra), Math.cos(dec) * Math.sin(ra), Math.sin(dec)] as Vec };
+        return { star, v: unitFromRaDec(star.raDeg, star.decDeg) };
       });
   }
   return starVectors;
@@ -51,36 +49,24 @@ export interface PlacedStar extends AltAz {
 export class SkyAt {
   readonly site: Site;
   readonly time: Astronomy.AstroTime;
-  /** Row-major 3×3 matrix EQJ → HOR. */
-  readonly #m: number[];
+  readonly #frame: SkyFrame;
 
   constructor(site: Site, instant: Date) {
     this.site = site;
     this.time = Astronomy.MakeTime(instant);
-    const eqjHor = Astronomy.CombineRotation(Astronomy.Rotation_EQJ_EQD(this.time), Astronomy.Rotation_EQD_HOR(this.time, site.observer));
-    // astronomy-engine stores rot[column][row]; flatten to row-major.
-    const r = eqjHor.rot;
-    this.#m = [0, 1, 2].flatMap((row) => [r[0]![row]!, r[1]![row]!, r[2]![row]!]);
+    this.#frame = new SkyFrame(site, this.time);
   }
 
   /** Apparent (refracted) altitude and azimuth of an EQJ direction (any length). */
   fromEqj(x: number, y: number, z: number): AltAz {
-    const m = this.#m;
-    const hx = m[0]! * x + m[1]! * y + m[2]! * z;
-    const hy = m[3]! * x + m[4]! * y + m[5]! * z;
-    const hz = m[6]! * x + m[7]! * y + m[8]! * z;
-    const r = Math.hypot(hx, hy, hz);
-    const geometric = Math.asin(Math.max(-1, Math.min(1, hz / r))) / RAD;
-    let az = Math.atan2(-hy, hx) / RAD;
-    if (az < 0) az += 360;
-    return { altitudeDeg: geometric + Astronomy.Refraction('normal', geometric), azimuthDeg: az };
+    const h = this.#frame.horFromEqj(x, y, z);
+    return { altitudeDeg: apparentAltitudeDeg(altitudeOfHor(h)), azimuthDeg: azimuthOfHor(h) };
   }
 
   /** Apparent altitude and azimuth of a catalogue star. */
   star(star: Star): AltAz {
-    const ra = star.raDeg * RAD;
-    const dec = star.decDeg * RAD;
-    return this.fromEqj(Math.cos(dec) * Math.cos(ra), Math.cos(dec) * Math.sin(ra), Math.sin(dec));
+    const [x, y, z] = unitFromRaDec(star.raDeg, star.decDeg);
+    return this.fromEqj(x, y, z);
   }
 
   /**
@@ -90,12 +76,10 @@ export class SkyAt {
    */
   stars(maxMagnitude: number, keep: (place: AltAz) => boolean, options: { minAltitudeDeg?: number } = {}): PlacedStar[] {
     const minSin = Math.sin((options.minAltitudeDeg ?? -1) * RAD);
-    const m = this.#m;
     const out: PlacedStar[] = [];
     for (const { star, v } of catalogueVectors()) {
       if (star.vMag > maxMagnitude) break;
-      const hz = m[6]! * v[0] + m[7]! * v[1] + m[8]! * v[2];
-      if (hz < minSin) continue;
+      if (this.#frame.zenithFromEqj(v[0], v[1], v[2]) < minSin) continue;
       const p = this.fromEqj(v[0], v[1], v[2]);
       if (keep(p)) out.push({ star, ...p });
     }
