@@ -4,9 +4,10 @@
  * A build that lost a file on the way (an interrupted copy, two builds writing one folder) stops
  * with the page and the missing address instead of publishing a page with a hole in it.
  */
-import { readFile } from 'node:fs/promises';
+import { readdir, readFile } from 'node:fs/promises';
 import { existsSync, statSync } from 'node:fs';
-import { join, posix } from 'node:path';
+import { join, posix, relative, sep } from 'node:path';
+import { PAGE_BUDGET_BYTES, assertPublishable } from '../lib/outputs/bulletin/index.ts';
 import { GloamingError } from '../lib/core/errors.ts';
 
 /** An address a page links, with the page's path (relative to the output folder, `/` separators). */
@@ -93,9 +94,6 @@ export async function checkLinkedFiles(dir: string, htmlFiles: string[], options
   return checked;
 }
 
-/** The page budget: HTML and CSS of one page, bytes (README: under 40 KB on a phone). */
-export const PAGE_BUDGET_BYTES = 40 * 1024;
-
 /** A page over the budget. */
 export interface OverBudget {
   page: string;
@@ -124,3 +122,39 @@ export async function pagesOverBudget(dir: string, htmlFiles: string[]): Promise
 export function budgetMessage(o: OverBudget): string {
   return `${o.page}: the page weighs ${(o.bytes / 1024).toFixed(1)} KB of HTML and CSS, over the ${PAGE_BUDGET_BYTES / 1024} KB budget for phones`;
 }
+
+/** Every file below `dir`, as absolute paths, sorted. */
+export async function walk(dir: string): Promise<string[]> {
+  const out: string[] = [];
+  for (const entry of await readdir(dir, { withFileTypes: true })) {
+    const full = join(dir, entry.name);
+    if (entry.isDirectory()) out.push(...(await walk(full)));
+    else out.push(full);
+  }
+  return out.sort();
+}
+
+/**
+ * The final check: every HTML, XML and calendar file must be publishable, and every file a page
+ * links (fonts, CSS, images, charts, cards, feeds) must be in the output — with `pages`, every
+ * page it links too. A page over the 40 KB HTML+CSS budget is a warning, an error with `strict`.
+ * Paths in errors are relative to `dir`. Returns the number of files and the warnings.
+ */
+export async function checkOutput(dir: string, options: { pages: boolean; strict?: boolean } = { pages: false }): Promise<{ files: number; warnings: string[] }> {
+  const files = await walk(dir);
+  const rel = (file: string): string => relative(dir, file).split(sep).join('/');
+  for (const file of files) {
+    if (!/\.(html|xml|ics)$/.test(file)) continue;
+    assertPublishable(await readFile(file, 'utf8'), rel(file));
+  }
+  const pages = files.filter((f) => f.endsWith('.html')).map(rel);
+  await checkLinkedFiles(dir, pages, options);
+  const over = await pagesOverBudget(dir, pages);
+  if (over.length && options.strict) {
+    throw new GloamingError('unsafe-output', `${budgetMessage(over[0]!)}${over.length > 1 ? ` (and ${over.length - 1} more page(s))` : ''}`, {
+      hint: 'shorten the template, or build without --strict to publish with a warning',
+    });
+  }
+  return { files: files.length, warnings: over.map(budgetMessage) };
+}
+

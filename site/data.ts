@@ -1,6 +1,6 @@
 /** Reading the content collections, and the site's URL scheme, in one place. */
 import { getCollection, getEntry } from 'astro:content';
-import type { CentreEntry, PageEntry, SiteEntry } from './gloaming/loaders.ts';
+import type { CentreEntry, PageEntry, SiteEntry } from './gloaming/schema.ts';
 
 export type { CentreEntry, PageEntry, SiteEntry };
 
@@ -8,13 +8,13 @@ export type { CentreEntry, PageEntry, SiteEntry };
 export async function centre(): Promise<CentreEntry> {
   const entry = await getEntry('centre', 'centre');
   if (!entry) throw new Error('the centre collection is empty: content/centre.yaml was not loaded');
-  return entry.data as unknown as CentreEntry;
+  return entry.data;
 }
 
 /** Every site, by name. */
 export async function allSites(): Promise<SiteEntry[]> {
   const entries = await getCollection('sites');
-  return entries.map((e) => e.data as unknown as SiteEntry).sort((a, b) => a.name.localeCompare(b.name, 'en'));
+  return entries.map((e) => e.data).sort((a, b) => a.name.localeCompare(b.name, 'en'));
 }
 
 /** Sites this build publishes pages for. */
@@ -26,7 +26,7 @@ export async function builtSites(): Promise<SiteEntry[]> {
 export async function allPages(): Promise<PageEntry[]> {
   const entries = await getCollection('pages');
   return entries
-    .map((e) => e.data as unknown as PageEntry)
+    .map((e) => e.data)
     .sort((a, b) => (a.weekStart === b.weekStart ? (a.slug < b.slug ? -1 : 1) : a.weekStart < b.weekStart ? -1 : 1));
 }
 
@@ -48,4 +48,5 @@ export const paths = {
   calendar: (id: string): string => `/${id}/events.ics`,
   page: (p: Pick<PageEntry, 'path'>): string => `/${p.path}/`,
   card: (p: Pick<PageEntry, 'path'>): string => `/${p.path}/card.png`,
+  chart: (file: string): string => `/charts/${file}`,
 };

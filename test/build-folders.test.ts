@@ -9,8 +9,8 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { GloamingError } from '../lib/core/errors.ts';
-import { checkOutput, readOptions } from '../scripts/build.ts';
-import { checkLinkedFiles } from '../scripts/output-check.ts';
+import { readOptions } from '../scripts/build.ts';
+import { checkLinkedFiles, checkOutput } from '../scripts/output-check.ts';
 import { acquireBuildLock, removeStaleWork, swapInto, workFolder } from '../scripts/work-folders.ts';
 
 const scratch = mkdtempSync(join(tmpdir(), 'gloaming-folders-'));

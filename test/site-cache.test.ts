@@ -11,7 +11,7 @@ import { appendFileSync, cpSync, mkdtempSync, readFileSync, rmSync, symlinkSync,
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { pageDigest, siteDigest } from '../site/gloaming/loaders.ts';
+import { pageDigest, siteDigest } from '../site/gloaming/session.ts';
 import { loadProject, type Project } from '../site/gloaming/project.ts';
 
 const ROOT = resolve(import.meta.dirname, '..');

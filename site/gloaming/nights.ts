@@ -8,34 +8,10 @@ import type { EventTime } from '../../lib/core/events.ts';
 import type { Site } from '../../lib/core/site.ts';
 import { PHASE_LABEL } from '../../lib/core/moon.ts';
 import { addDays, formatClock, formatInstant, zonedTime } from '../../lib/core/time.ts';
+import type { NightRowEntry as NightRow, ShownTimeEntry as ShownTime } from './schema.ts';
 
-/** One shown time: machine-readable instant (ISO 8601 with offset) and the local clock text. */
-export interface ShownTime {
-  /** ISO 8601 with the site's offset, or null when the event does not happen that night. */
-  datetime: string | null;
-  /** Local clock time in the site's locale ("17:42", "5:42 pm"), or a short reason. */
-  text: string;
-}
-
-export interface NightRow {
-  /** Local date of the evening, YYYY-MM-DD. */
-  date: string;
-  /** "Fri 4 Dec" in the site's locale. */
-  label: string;
-  sunset: ShownTime;
-  /** End of nautical twilight (Sun 12° down): most stars are out. */
-  nauticalDusk: ShownTime;
-  /** End of astronomical twilight (Sun 18° down): full darkness. */
-  darkness: ShownTime;
-  moonrise: ShownTime;
-  moonset: ShownTime;
-  /** The Moon seen from dusk on: "sets" 21:40, "rises" 04:16, or no time and "up all night" / "down all night". */
-  moon: { verb: string; time: ShownTime | null };
-  /** "Waxing crescent". */
-  moonPhase: string;
-  /** Lit fraction of the Moon's disc at local midnight, whole per cent. */
-  moonLitPercent: number;
-}
+/** One shown time and one row of the panel: their shapes are the schemas' (schema.ts). */
+export type { NightRow, ShownTime };
 
 /** "Fri 4 Dec" for a local date, in the site's locale (the date is a calendar date; no zone shift). */
 export function dayLabel(date: string, locale: string): string {

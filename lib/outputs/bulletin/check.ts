@@ -12,7 +12,7 @@ import { addDays, isoWeekOf, type IsoWeek } from '../../core/time.ts';
 import { sitesFor } from './pages.ts';
 import { ProblemList, errorsOf, problemOfError } from './problems.ts';
 import { renderBulletinSync } from './render.ts';
-import type { BulletinTemplate, ChartOutput, PageSpec } from './types.ts';
+import type { BulletinTemplate, ChartOutput, PageSpec, RenderedBulletin } from './types.ts';
 import { WeekCache } from './week.ts';
 
 /** The page budget: HTML with its inline CSS, bytes (40 KB). */
@@ -36,6 +36,8 @@ export interface CheckOptions {
   problems?: ProblemList;
   /** Bytes the layout adds to each page (default `LAYOUT_BYTES`). */
   layoutBytes?: number;
+  /** Receives each page that rendered, so a build that publishes the pages renders each once. */
+  onRendered?: (page: Pick<PageSpec, 'template' | 'site' | 'week'>, rendered: RenderedBulletin) => void;
 }
 
 /** How a problem names a page's week: its ISO week, or a one-off's date. */
@@ -61,6 +63,7 @@ export function checkPages(pages: readonly Pick<PageSpec, 'template' | 'site' | 
     try {
       const r = renderBulletinSync(page.template, { site: page.site, week: page.week, bodies: options.bodies, ...(options.charts ? { charts: options.charts } : {}) }, cache);
       for (const p of r.problems) problems.add(p);
+      options.onRendered?.(page, r);
       const bytes = Buffer.byteLength(r.html) + layout;
       if (bytes > PAGE_BUDGET_BYTES) {
         problems.add({

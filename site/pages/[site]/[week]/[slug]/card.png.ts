@@ -1,5 +1,6 @@
 /** The social card of one bulletin page (1200×630 PNG), referenced by the page's og:image. */
 import type { APIRoute, GetStaticPaths } from 'astro';
+import { cards } from 'virtual:gloaming';
 import { renderCardCached } from '../../../../gloaming/card.ts';
 import { allPages, allSites, centre, type PageEntry, type SiteEntry } from '../../../../data.ts';
 
@@ -20,6 +21,6 @@ export const GET: APIRoute = async ({ props }) => {
     weekLabel: page.when,
     horizon: site.horizon,
     caution: page.cautions.length > 0,
-  }, { cacheDir: process.env.GLOAMING_CARD_CACHE, codeDigest: process.env.GLOAMING_CODE_DIGEST });
+  }, { cacheDir: cards.dir, codeDigest: cards.codeDigest });
   return new Response(Buffer.from(png), { headers: { 'Content-Type': 'image/png' } });
 };
