@@ -5,18 +5,17 @@
  *
  * - `virtual:gloaming`: the session's cache folders and code digest for the routes that serve
  *   social cards and finder charts (`/[site]/[week]/[slug]/card.png`, `/charts/[chart].svg`);
- * - in `astro dev`, a watch on the content folder: an edited site, template, object or satellite
- *   file reloads the project and refreshes both collections, so the next request shows it;
+ * - in `astro dev`, the session watches the content folder: an edited site, template, object or
+ *   satellite file reloads the project and both collections, so the next request shows it;
  * - after a build (`astro:build:done`), the output checks (scripts/output-check.ts): nothing
  *   unpublishable, every linked file present, the page budget (a warning, an error with `strict`).
  *
  * Other integrations and the loaders reach the session through the custom hook `gloaming:session`.
  */
-import { relative, sep } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import type { AstroConfig, AstroIntegration } from 'astro';
 import { checkOutput } from '../../scripts/output-check.ts';
-import { GloamingSession, LOADERS, stopOnProblems } from './session.ts';
+import { GloamingSession, stopOnProblems } from './session.ts';
 
 export interface GloamingOptions {
   /** Build date, YYYY-MM-DD. */
@@ -74,17 +73,6 @@ export default function gloaming(options: GloamingOptions = {}): AstroIntegratio
               },
             ],
           },
-        });
-      },
-      'astro:server:setup': ({ server, refreshContent, logger }) => {
-        const s = current();
-        const dir = s.contentDir;
-        server.watcher.add(dir);
-        server.watcher.on('all', (_event: string, path: string) => {
-          if (path !== dir && !path.startsWith(dir + sep)) return;
-          logger.info(`${relative(s.root, path)} changed: reloading the content`);
-          s.invalidate();
-          refreshContent?.({ loaders: [LOADERS.sites, LOADERS.pages] }).catch((error: unknown) => logger.error(String((error as Error).message ?? error)));
         });
       },
       'astro:build:done': async ({ dir }) => {

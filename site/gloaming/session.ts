@@ -7,7 +7,7 @@
  * Everything here runs in Node's own module graph (not Vite's), so errors are the library's own
  * `GloamingError` objects with their places, untouched on their way out.
  */
-import { join, resolve } from 'node:path';
+import { join, resolve, sep } from 'node:path';
 import type { DataStore, LoaderContext } from 'astro/loaders';
 import { checkPages, ProblemList, WeekCache, formatProblem, type RenderedBulletin } from '../../lib/outputs/bulletin/index.ts';
 import type { PageSpec } from '../../lib/outputs/bulletin/types.ts';
@@ -24,9 +24,6 @@ import { dateLabel, skyLabel, weekLabel } from './words.ts';
 
 /** How many nights the per-site home page shows, starting with the build date's evening. */
 export const NIGHTS_SHOWN = 5;
-
-/** Names of the two content loaders (`refreshContent` in dev names them). */
-export const LOADERS = { sites: 'gloaming-sites', pages: 'gloaming-pages' } as const;
 
 /** What a session builds. */
 export interface SessionOptions {
@@ -100,6 +97,10 @@ export class GloamingSession {
   /** Warnings found by the last load of the pages and by the output checks (errors stop the build). */
   problems = new ProblemList();
   #project: Project | null = null;
+  /** In `astro dev`: each collection's loader context, to load again when a content file changes. */
+  readonly #loaded = new Map<string, { context: LoaderContext; load: (context: LoaderContext) => Promise<void> }>();
+  readonly #watched = new WeakSet<object>();
+  #reloading: Promise<void> = Promise.resolve();
 
   constructor(options: SessionOptions) {
     this.root = options.root;
@@ -146,8 +147,40 @@ export class GloamingSession {
     this.#project = null;
   }
 
+  /**
+   * In `astro dev` (the loader context has a file watcher): remembers how to load `context`'s
+   * collection, and watches the content folder once. A change to any content file reloads the
+   * project and loads every collection again, one change after another; the dev server then
+   * renders the next request from the new entries. A problem is logged, not thrown.
+   */
+  #watch(context: LoaderContext, load: (context: LoaderContext) => Promise<void>): void {
+    const watcher = context.watcher;
+    if (!watcher) return;
+    this.#loaded.set(context.collection, { context, load });
+    if (this.#watched.has(watcher)) return;
+    this.#watched.add(watcher);
+    const dir = this.contentDir;
+    watcher.add(dir);
+    const onChange = (path: string): void => {
+      if (!path.startsWith(dir + sep)) return;
+      this.#reloading = this.#reloading.then(async () => {
+        this.invalidate();
+        for (const { context: c, load: l } of this.#loaded.values()) {
+          try {
+            await l(c);
+          } catch (error) {
+            c.logger.error(error instanceof Error ? error.message : String(error));
+          }
+        }
+      });
+    };
+    for (const event of ['add', 'change', 'unlink'] as const) watcher.on(event, onChange);
+  }
+
   /** The content loader of the `centre` collection: its one entry, `centre`. */
-  async loadCentre({ store, parseData }: LoaderContext): Promise<void> {
+  async loadCentre(context: LoaderContext): Promise<void> {
+    this.#watch(context, (c) => this.loadCentre(c));
+    const { store, parseData } = context;
     const project = this.project();
     const c = project.centre;
     const { url, preview } = publicOrigin(c, process.env);
@@ -171,7 +204,9 @@ export class GloamingSession {
   }
 
   /** The content loader of the `sites` collection: each site with its next nights and its calendar feed. */
-  async loadSites({ store, logger, parseData }: LoaderContext): Promise<void> {
+  async loadSites(context: LoaderContext): Promise<void> {
+    this.#watch(context, (c) => this.loadSites(c));
+    const { store, logger, parseData } = context;
     const project = this.project();
     const builtIds = new Set(project.selected.map((s) => s.site.id));
     const currentWeek = isoWeekOf(project.today).id;
@@ -211,7 +246,9 @@ export class GloamingSession {
    * is kept with its stored warnings. Errors of every template are collected and stop the load
    * together (`BuildProblems`), as do warnings with `strict`.
    */
-  async loadPages({ store, logger, parseData }: LoaderContext): Promise<void> {
+  async loadPages(context: LoaderContext): Promise<void> {
+    this.#watch(context, (c) => this.loadPages(c));
+    const { store, logger, parseData } = context;
     const project = this.project();
     const cache = new WeekCache();
     const problems = new ProblemList();
