@@ -24,13 +24,17 @@ async function get(path: string): Promise<{ status: number; type: string; text: 
   return { status: r.status, type: r.headers.get('content-type') ?? '', text: await r.text() };
 }
 
-/** Fetches `path` until its text matches `pattern` (the content layer refreshes after the watcher fires). */
+/** Fetches `path` until its text matches `pattern` (the content layer reloads after the watcher fires). */
 async function until(path: string, pattern: RegExp, timeoutMs = 60_000): Promise<string> {
   const deadline = Date.now() + timeoutMs;
   let text = '';
   while (Date.now() < deadline) {
-    text = (await get(path)).text;
-    if (pattern.test(text)) return text;
+    try {
+      text = (await get(path)).text;
+      if (pattern.test(text)) return text;
+    } catch {
+      // A request that meets the server while it reloads the content may be dropped: ask again.
+    }
     await new Promise((r) => setTimeout(r, 250));
   }
   return text;
