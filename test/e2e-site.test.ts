@@ -3,7 +3,8 @@
  * reader meets it outside. Checks layout (nothing scrolls sideways), text size, tap targets,
  * images and fonts, the red night light (no JavaScript), and text contrast in both modes
  * (WCAG 2.1 relative luminance and contrast ratio, success criterion 1.4.3: ≥ 4.5:1).
- * Screenshots go to .scratch/ for a person to look at.
+ * Also the print stylesheet (light, no navigation, A4 and Letter; PDFs rendered by Chromium) and the
+ * static "tonight" fragment a centre's own website includes. Screenshots go to .scratch/ for a person to look at.
  */
 import { spawnSync } from 'node:child_process';
 import { existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
@@ -215,5 +216,63 @@ describe.skipIf(!available)('built pages on a phone (390×844)', () => {
     }
     await page.screenshot({ path: join(SHOTS, 'e2e-red-light.png') });
     await browserNoJs.close();
+  });
+});
+
+/** Printable widths of the two paper sizes, CSS px at 96 per inch, with the print stylesheet's 12 mm side margins. */
+const PAPER = { A4: { widthPx: (210 - 24) / 25.4 * 96 }, Letter: { widthPx: (8.5 * 25.4 - 24) / 25.4 * 96 } };
+
+describe.skipIf(!available)('printing a bulletin (print stylesheet)', () => {
+  it('prints light, without navigation, within the width of A4 and Letter; the PDFs have a few pages', async () => {
+    const page = await browser.newPage({ viewport: { width: Math.floor(PAPER.A4.widthPx), height: 1100 } });
+    await page.goto(origin + '/harbour-roof/2026-W49/weekly/', { waitUntil: 'load' });
+    await page.evaluate('document.fonts.ready.then(() => true)');
+    await page.evaluate(`Promise.all([...document.images].map((img) => { img.loading = 'eager'; return img.decode().catch(() => null); }))`);
+    await page.emulateMedia({ media: 'print' });
+    const look = (await page.evaluate(`({
+      bg: getComputedStyle(document.body).backgroundColor,
+      fg: getComputedStyle(document.body).color,
+      accent: getComputedStyle(document.querySelector('.bulletin time, .bulletin [data-value], .value') ?? document.body).color,
+      hidden: ['.bar', '.crumbs', '.pager', '.skip'].map((s) => [...document.querySelectorAll(s)].every((el) => getComputedStyle(el).display === 'none')),
+      scrollWidth: document.documentElement.scrollWidth,
+      vw: document.documentElement.clientWidth,
+    })`)) as { bg: string; fg: string; accent: string; hidden: boolean[]; scrollWidth: number; vw: number };
+    expect(look.bg).toBe('rgb(255, 255, 255)');
+    expect(contrast(look.fg, look.bg)).toBeGreaterThanOrEqual(7); // WCAG 2.1 AAA for body text on paper
+    expect(contrast(look.accent, look.bg)).toBeGreaterThanOrEqual(4.5);
+    expect(look.hidden).toEqual([true, true, true, true]);
+    expect(look.scrollWidth, 'nothing wider than an A4 page').toBeLessThanOrEqual(look.vw);
+    await page.screenshot({ path: join(SHOTS, 'e2e-print-a4.png'), fullPage: true });
+    for (const format of ['A4', 'Letter'] as const) {
+      const pdf = await page.pdf({ format, printBackground: true });
+      expect(pdf.subarray(0, 5).toString('latin1')).toBe('%PDF-');
+      // Page objects of the PDF (ISO 32000-1 §7.7.3.3: /Type /Page); a week's bulletin fits a few sheets.
+      const pages = pdf.toString('latin1').match(/\/Type\s*\/Page[^s]/g)?.length ?? 0;
+      expect(pages, `${format} pages`).toBeGreaterThanOrEqual(1);
+      expect(pages, `${format} pages`).toBeLessThanOrEqual(6);
+    }
+    await page.setViewportSize({ width: Math.floor(PAPER.Letter.widthPx), height: 1100 });
+    expect(await page.evaluate('document.documentElement.scrollWidth <= document.documentElement.clientWidth')).toBe(true);
+    await page.close();
+  });
+});
+
+describe.skipIf(!available)('the "tonight" fragment', () => {
+  it('is static HTML without script, styles or a document around it, and links absolutely to the public site', async () => {
+    const res = await fetch(origin + '/harbour-roof/tonight.html');
+    expect(res.status).toBe(200);
+    const html = await res.text();
+    expect(html).toMatch(/^<section class="gloaming-tonight" lang="en-GB">/);
+    expect(html).not.toMatch(/<(script|style|html|head|body|link|img|iframe)\b/i);
+    expect(html).not.toMatch(/\bon[a-z]+=/i);
+    expect(html).toContain('Tonight at Harbour Roof Terrace, Fri 4 Dec');
+    expect(html).toMatch(/<dt>Sunset<\/dt><dd><time datetime="2026-12-04T\d\d:\d\d:\d\d\+00:00">\d\d:\d\d<\/time><\/dd>/);
+    for (const m of html.matchAll(/href="([^"]+)"/g)) expect(m[1]).toMatch(/^https:\/\/sky\.example\.org\//);
+    // Included into another page, it shows its facts (and nothing of the gloaming page's look).
+    const page = await browser.newPage({ viewport: { width: 390, height: 844 } });
+    await page.setContent(`<!doctype html><html><body><main><h1>Visit us</h1>${html}</main></body></html>`);
+    expect(await page.textContent('.gloaming-tonight')).toMatch(/Sunset\s*\d\d:\d\d/);
+    await page.screenshot({ path: join(SHOTS, 'e2e-tonight-fragment.png') });
+    await page.close();
   });
 });

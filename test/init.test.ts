@@ -83,7 +83,7 @@ describe('gloaming init', () => {
     const r = run(['init', folder, '--name', 'Example Astronomy Society', '--lat', '40.42', '--lon', '-3.70', '--tz', 'Europe/Madrid', '--site-name', 'Hill Meadow', '--elevation', '650']);
     expect(r.err).toBe('');
     expect(r.code).toBe(0);
-    for (const f of ['content/centre.yaml', 'content/sites/hill-meadow.yaml', 'content/bulletins/weekly.md', '.github/workflows/weekly.yml', 'package.json']) {
+    for (const f of ['content/centre.yaml', 'content/sites/hill-meadow.yaml', 'content/bulletins/weekly.md', '.github/workflows/weekly.yml', 'package.json', '.npmrc']) {
       expect(existsSync(join(folder, f)), f).toBe(true);
     }
     expect(r.out).toContain('npm install');
@@ -92,6 +92,8 @@ describe('gloaming init', () => {
     expect(pkg.dependencies.gloaming).toBe(`file:${ROOT}`);
     expect(pkg.devDependencies.node).toBe((JSON.parse(readFileSync(join(ROOT, 'package.json'), 'utf8')) as { devDependencies: Record<string, string> }).devDependencies.node);
     expect(pkg.scripts.build).toBe('gloaming build');
+    // npm on an older machine Node stays quiet about engines the pinned Node satisfies (.npmrc).
+    expect(readFileSync(join(folder, '.npmrc'), 'utf8')).toMatch(/^loglevel=error$/m);
 
     // The starter template at two harder sites as well: in the Arctic (midnight Sun, polar night) and in the south.
     const content = join(work, 'three-sites');

@@ -2,7 +2,7 @@
  * `gloaming init <folder>`: scaffolds a new centre — `content/centre.yaml`, one site from the
  * coordinates given, a starter weekly template that passes `gloaming check` for a year at any
  * latitude, the weekly rebuild workflow, a `package.json` that depends on gloaming and pins the
- * Node it runs on. Refuses a folder that
+ * Node it runs on, with the same `.npmrc` as gloaming (quiet about engines). Refuses a folder that
  * is not empty (nothing is overwritten). Prompting for missing values in a terminal happens at
  * the edge (`bin/gloaming.mjs`, with `INIT_QUESTIONS`); here everything comes as flags.
  */
@@ -30,7 +30,7 @@ Usage: gloaming init <folder> --name <centre> --lat <deg> --lon <deg> --tz <IANA
 
 In a terminal, missing values are asked for. The folder must be new or empty. Writes:
   content/centre.yaml, content/sites/<site>.yaml, content/bulletins/weekly.md,
-  .github/workflows/weekly.yml, package.json, .gitignore
+  .github/workflows/weekly.yml, package.json, .npmrc, .gitignore
 and prints the commands to run next.`;
 
 /** The values `init` needs, with the question a terminal asks for each one that is missing. */
@@ -180,6 +180,8 @@ export function initCentre(argv: string[], cwd: string = process.cwd()): InitRes
     'content/bulletins/weekly.md': readFileSync(join(PACKAGE_ROOT, 'lib/outputs/cli/starter/weekly.md'), 'utf8'),
     '.github/workflows/weekly.yml': readFileSync(join(PACKAGE_ROOT, '.github/workflows/weekly.yml'), 'utf8'),
     'package.json': packageJson({ name, gloaming, node: pinnedNode() }),
+    // npm runs on the machine's Node and would warn about engines the pinned Node satisfies (see that file).
+    '.npmrc': readFileSync(join(PACKAGE_ROOT, '.npmrc'), 'utf8'),
     '.gitignore': 'node_modules/\ndist/\n.astro/\n',
   };
   for (const [rel, text] of Object.entries(files)) {
