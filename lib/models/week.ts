@@ -1,15 +1,20 @@
 /**
- * A week at one site: seven nights (Monday–Sunday of the ISO week, or seven nights from a
- * given date) and, per body, the best night and how things change across the week, in
- * sentences a bulletin can print ("brightens from 4.2 to 3.6", "rises 25 minutes earlier each
- * night", "Moon interference ends on Thursday").
+ * A week at one site, the one week model that the command line, the placeholders and the site
+ * read: the seven nights of an ISO week (Monday–Sunday evenings), each site-night computed once
+ * (`computeNight`), each body once per night on that night's shared frame (`NightReport.body`),
+ * and per body the best night and how things change across the week, in sentences a bulletin can
+ * print ("brightens from 4.2 to 3.6", "rises 25 minutes earlier each night", "Moon interference
+ * ends on Thursday"). Everything is computed on first use; a `WeekCache` shares each site-week
+ * across every placeholder, page and command of a run.
  */
-import type { Body } from '../core/body.ts';
+import * as Astronomy from 'astronomy-engine';
+import { BodyRegistry, builtInBody, nightMagnitude, type Body } from '../core/body.ts';
 import type { EventTime } from '../core/events.ts';
-import { nightMagnitude } from '../core/body.ts';
-import { computeNight, type NightReport } from './night.ts';
+import { separationDeg } from '../core/geometry.ts';
+import { observe, type Observation } from '../core/observe.ts';
 import type { Site } from '../core/site.ts';
-import { addDays, isoWeekOf, parseLocalDate, type IsoWeek } from '../core/time.ts';
+import { isoWeekOf, localMidnight, parseLocalDate, type IsoWeek } from '../core/time.ts';
+import { computeNight, type BodyNight, type NightReport } from './night.ts';
 import type { Visibility } from './visibility.ts';
 
 /** A change across the week smaller than this is not worth a sentence, magnitudes. */
@@ -42,7 +47,7 @@ export interface BodyWeek {
 export interface WeekReport {
   site: Site;
   week: IsoWeek;
-  nights: NightReport[];
+  nights: readonly NightReport[];
   bodies: BodyWeek[];
 }
 
@@ -80,10 +85,11 @@ export function moonInterferes(v: Visibility): boolean {
 }
 
 /** Summarises one body over the nights of a week. */
-function summarise(body: Body, nights: NightReport[]): BodyWeek {
-  const entries = nights.map((n) => n.bodies.find((b) => b.body.id === body.id)!);
+function summarise(body: Body, week: WeekData): BodyWeek {
+  const nights = week.nights;
+  const entries = nights.map((_, i) => week.bodyNight(i, body));
   const visibilities = entries.map((e) => e.visibility);
-  const magnitudes = nights.map((n) => nightMagnitude(n.night, body).value);
+  const magnitudes = week.magnitudes(body).values;
   let bestNight: string | null = null;
   let bestMargin = -Infinity;
   visibilities.forEach((v, i) => {
@@ -121,14 +127,153 @@ function summarise(body: Body, nights: NightReport[]): BodyWeek {
   };
 }
 
+/** One body over the week: its expected magnitude at local midnight of each night. */
+export interface WeekMagnitudes {
+  /** V magnitude at local midnight of each of the 7 nights, Monday first. */
+  values: number[];
+  /** Model band (brightest, faintest) over the week, when the body's model gives one (comets). */
+  brightest: number;
+  faintest: number;
+}
 
 /**
- * The week containing `date` (ISO week, Monday–Sunday) at `site`, for `bodies`.
- * With `{ from: 'date' }` the seven nights start on `date` itself instead.
+ * The one week model: one site and one ISO week. Everything is computed on first use and then
+ * kept: the seven nights, each body's night on that night's shared frame, magnitudes,
+ * elongations, positions, each body's summary, and what later stages derive from the week (the
+ * almanac's events, see `derived`).
  */
-export function computeWeek(site: Site, date: string, bodies: readonly Body[], options: { from?: 'monday' | 'date' } = {}): WeekReport {
-  const week = isoWeekOf(date);
-  const days = options.from === 'date' ? Array.from({ length: 7 }, (_, i) => addDays(date, i)) : week.days;
-  const nights = days.map((d) => computeNight(site, d, bodies));
-  return { site, week, nights, bodies: bodies.map((b) => summarise(b, nights)) };
+export class WeekData {
+  readonly site: Site;
+  readonly week: IsoWeek;
+  /** The bodies placeholders and events may name (built-in ones plus loaded objects). */
+  readonly bodies: BodyRegistry;
+  #nights: readonly NightReport[] | undefined;
+  readonly #observations = new Map<string, Observation>();
+  readonly #magnitudes = new Map<string, WeekMagnitudes>();
+  readonly #elongations = new Map<string, number>();
+  readonly #summaries = new Map<string, BodyWeek>();
+  readonly #derived = new Map<string, unknown>();
+
+  constructor(site: Site, week: IsoWeek, bodies: BodyRegistry = new BodyRegistry()) {
+    this.site = site;
+    this.week = week;
+    this.bodies = bodies;
+  }
+
+  /** The seven nights, Monday evening first (`week.days[i]` is `nights[i].night.date`), computed on first use. */
+  get nights(): readonly NightReport[] {
+    this.#nights ??= this.week.days.map((date) => computeNight(this.site, date, []));
+    return this.#nights;
+  }
+
+  /** Index 0–6 of a local date inside this week, or −1. */
+  indexOf(date: string): number {
+    return this.week.days.indexOf(date);
+  }
+
+  /** `body`'s night `index` (0 = Monday): the report's own entry, computed once (see `NightReport.body`). */
+  bodyNight(index: number, body: Body): BodyNight {
+    return this.nights[index]!.body(body);
+  }
+
+  /** The week of one body: visibility per night, the best night and the week's changes (computed once). */
+  summary(body: Body): BodyWeek {
+    let s = this.#summaries.get(body.id);
+    if (!s) {
+      s = summarise(body, this);
+      this.#summaries.set(body.id, s);
+    }
+    return s;
+  }
+
+  /** A value a later stage derives from this week (the almanac's events of a span), computed once per key and kept with the week. */
+  derived<T>(key: string, compute: (week: WeekData) => T): T {
+    if (!this.#derived.has(key)) this.#derived.set(key, compute(this));
+    return this.#derived.get(key) as T;
+  }
+
+  /** Exact position of `body` at `instant` from the site (`observe`), memoised per instant. */
+  observe(body: Body, instant: Date): Observation {
+    const key = `${body.id}@${instant.getTime()}`;
+    let o = this.#observations.get(key);
+    if (!o) {
+      o = observe(this.site, body, instant);
+      this.#observations.set(key, o);
+    }
+    return o;
+  }
+
+  /** Local midnight that splits night `index` (the moment magnitudes and elongations are taken at). */
+  midnight(index: number): Date {
+    return localMidnight(this.nights[index]!.night);
+  }
+
+  /** Expected magnitude of `body` at local midnight of each night of the week. */
+  magnitudes(body: Body): WeekMagnitudes {
+    let m = this.#magnitudes.get(body.id);
+    if (!m) {
+      const estimates = this.nights.map((n) => nightMagnitude(n.night, body));
+      const values = estimates.map((e) => e.value);
+      m = {
+        values,
+        brightest: Math.min(...estimates.map((e) => e.brightest ?? e.value)),
+        faintest: Math.max(...estimates.map((e) => e.faintest ?? e.value)),
+      };
+      this.#magnitudes.set(body.id, m);
+    }
+    return m;
+  }
+
+  /** Geocentric angle between `body` and the Sun at local midnight of night `index`, degrees. */
+  elongationDeg(index: number, body: Body): number {
+    const key = `${index}:${body.id}`;
+    let e = this.#elongations.get(key);
+    if (e === undefined) {
+      const time = Astronomy.MakeTime(this.midnight(index));
+      const sun = builtInBody('sun').geoVector(time, { aberration: true });
+      const g = body.geoVector(time, { aberration: true });
+      e = separationDeg([g.x, g.y, g.z], [sun.x, sun.y, sun.z]);
+      this.#elongations.set(key, e);
+    }
+    return e;
+  }
+}
+
+/**
+ * Week data keyed by site id and ISO week id. A site object or body registry that differs from
+ * the cached one (same id, new definition) replaces the entry, so a changed file is never served stale.
+ */
+export class WeekCache {
+  readonly #weeks = new Map<string, WeekData>();
+  /** Number of lookups answered from the cache and computed afresh. */
+  hits = 0;
+  misses = 0;
+
+  get(site: Site, week: IsoWeek, bodies?: BodyRegistry): WeekData {
+    const key = `${site.id}/${week.id}`;
+    const found = this.#weeks.get(key);
+    if (found && found.site === site && (bodies === undefined || found.bodies === bodies)) {
+      this.hits++;
+      return found;
+    }
+    this.misses++;
+    const data = new WeekData(site, week, bodies);
+    this.#weeks.set(key, data);
+    return data;
+  }
+
+  /** Forgets everything. */
+  clear(): void {
+    this.#weeks.clear();
+  }
+
+  get size(): number {
+    return this.#weeks.size;
+  }
+}
+
+/** The week containing `date` (ISO week, Monday–Sunday) at `site`, with the summary of each of `bodies`. */
+export function computeWeek(site: Site, date: string, bodies: readonly Body[], cache: WeekCache = new WeekCache()): WeekReport {
+  const week = cache.get(site, isoWeekOf(date));
+  return { site, week: week.week, nights: week.nights, bodies: bodies.map((b) => week.summary(b)) };
 }

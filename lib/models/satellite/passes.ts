@@ -250,11 +250,12 @@ class SatelliteTrack {
   marginOf(s: Sample, instrument: Instrument, without?: 'twilight' | 'moon'): { margin: number; limitingMagnitude: number; sunAltitudeDeg: number } {
     const frame = this.night.frame;
     const topo = s.look.topocentricKm;
+    // Sky brightness takes the apparent (refracted) Sun and Moon (moonlight starts at the apparent moonrise); twilight classes the geometric Sun.
     const sunAlt = frame.sun.at(s.ut).geometricAltitudeDeg;
-    const moonAlt = without === 'moon' ? -90 : frame.moon.at(s.ut).geometricAltitudeDeg;
+    const moonAlt = without === 'moon' ? -90 : frame.moon.apparentAltitudeDeg(s.ut);
     const sky = skyBrightness({
       target: { altitudeDeg: s.look.altitudeDeg, sunSeparationDeg: separationDeg(topo, frame.sun.vectorAt(s.ut)), moonSeparationDeg: separationDeg(topo, frame.moon.vectorAt(s.ut)) },
-      sun: { altitudeDeg: without === 'twilight' ? -90 : sunAlt },
+      sun: without === 'twilight' ? { altitudeDeg: -90 } : { altitudeDeg: frame.sun.apparentAltitudeDeg(s.ut), geometricAltitudeDeg: sunAlt },
       moon: { altitudeDeg: moonAlt, phaseAngleDeg: this.night.moonPhaseDeg },
       darkSkyZenithNl: this.night.darkZenithNl,
       kV: this.night.kV,

@@ -8,6 +8,7 @@
  *   const events = findEvents({ site, from, to, bodies: registry });
  *   const feed = eventsToICalendar(events, { site, prodId: '-//Science Centre//gloaming//EN', now: buildDate });
  */
+import type { WeekData } from '../../models/week.ts';
 import { BUILT_IN_IDS, type Body, type BodyRegistry } from '../../core/body.ts';
 import { GloamingError } from '../../core/errors.ts';
 import type { Site } from '../../core/site.ts';
@@ -132,6 +133,19 @@ export function eventsOfWeek(input: { site: Site; date: string; bodies?: BodyReg
     ...(input.bodies ? { bodies: input.bodies } : {}),
     ...(input.options ? { options: input.options } : {}),
     ...(input.frames ? { frames: input.frames } : {}),
+  });
+}
+
+/**
+ * The site's events from local noon of `firstNight` to local noon after `lastNight` (local dates
+ * of evenings; default the week's seven nights), in time order, computed once per span and kept
+ * with the week (`WeekData.derived`), on the week's own night frames. A one-off bulletin asks for
+ * the nights around its date.
+ */
+export function eventsBetween(week: WeekData, firstNight: string = week.week.days[0]!, lastNight: string = week.week.days[6]!): AlmanacEvent[] {
+  return week.derived(`events:${firstNight}/${lastNight}`, (w) => {
+    const zone = w.site.timeZone;
+    return findEvents({ site: w.site, from: nightOf(firstNight, zone).start, to: nightOf(lastNight, zone).end, bodies: w.bodies, frames: w.nights.map((n) => n.frame) });
   });
 }
 

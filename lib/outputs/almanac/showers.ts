@@ -23,7 +23,7 @@ import { dateFromUt, utDays } from '../../core/track.ts';
 import type { AlmanacContext } from './context.ts';
 import { fixedPointBody } from './context.ts';
 import { eclipticLongitudeJ2000Deg, wrap180 } from './planets.ts';
-import { apparentPlace, hidden } from './visibility.ts';
+import { apparentPlace, hidden, isDark } from './visibility.ts';
 import type { AlmanacEvent, ShowerDetails } from './types.ts';
 import table from './showers.json' with { type: 'json' };
 
@@ -96,14 +96,14 @@ export function showerEvents(ctx: AlmanacContext, from: Date, to: Date, showers:
       const moonFraction = Astronomy.Illumination(Astronomy.Body.Moon, Astronomy.MakeTime(time)).phase_fraction;
       const moonBody = builtInBody('moon');
       const state = (ut: number, moonless: boolean): { rate: number; h: number; az: number; lm: number } | null => {
+        if (!isDark(ctx, frame, ut)) return null;
         const sun = apparentPlace(frame, frame.sun.body, ut).altitudeDeg;
-        if (sun > ctx.darkSunAltitudeDeg) return null;
         const r = apparentPlace(frame, radiant, ut);
         if (r.altitudeDeg <= 0) return null;
         const moonAlt = moonless ? -90 : apparentPlace(frame, moonBody, ut).altitudeDeg;
         const sky = skyBrightness({
           target: { altitudeDeg: 90, sunSeparationDeg: 90 - sun, moonSeparationDeg: 90 - moonAlt },
-          sun: { altitudeDeg: sun },
+          sun: { altitudeDeg: sun, geometricAltitudeDeg: frame.sun.at(ut).geometricAltitudeDeg },
           moon: { altitudeDeg: moonAlt, phaseAngleDeg: moonPhaseAngleDeg },
           darkSkyZenithNl: darkNl,
           kV,
@@ -150,8 +150,8 @@ export function showerEvents(ctx: AlmanacContext, from: Date, to: Date, showers:
           note: `Best at ${ctx.clock(b.time)}, radiant ${Math.round(b.radiantAltitudeDeg)}° up in the ${compass(b.radiantAzimuthDeg).word}; look anywhere in the sky, about 40° from the radiant.`,
         };
       } else {
-        // Dark at some moment: the Sun's lowest point of the night is below the darkness altitude.
-        const lowest = -findMaximum((ut) => -apparentPlace(frame, frame.sun.body, ut).altitudeDeg, frame.ut0, frame.ut1, { stepDays: 10 / 1440 })!.value;
+        // Dark at some moment: the Sun's lowest point of the night (geometric, as `isDark`) is below the darkness altitude.
+        const lowest = -findMaximum((ut) => -frame.sun.at(ut).geometricAltitudeDeg, frame.ut0, frame.ut1, { stepDays: 10 / 1440 })!.value;
         const dark = lowest <= ctx.darkSunAltitudeDeg;
         visibility = hidden(ctx, dark ? 'radiant-below-horizon' : 'no-darkness');
         description = `The ${shower.name} peak on ${night}, but ${dark ? `from here the radiant in ${shower.constellation} stays too low in the dark hours to see more than a stray meteor` : 'the sky here does not get dark enough'}.`;

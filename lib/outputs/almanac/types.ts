@@ -148,7 +148,7 @@ export interface FindEventsOptions {
   starEclipticLatitudeDeg?: number;
   /** Planets taking part in close approaches (default the naked-eye planets Mercury–Saturn). */
   approachPlanets?: readonly string[];
-  /** The Sun's highest apparent altitude that counts as dark enough to see an event, degrees (default −6, end of civil twilight). */
+  /** The Sun's highest geometric altitude (centre, airless) that counts as dark enough to see an event, degrees (default −6: from the end of civil twilight, as printed, to its start). */
   darkSunAltitudeDeg?: number;
   /** Order of the result: `time` (default) or `interest` (score, then time). */
   order?: 'time' | 'interest';

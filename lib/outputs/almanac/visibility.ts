@@ -46,8 +46,14 @@ function lowestMargin(ctx: AlmanacContext, frame: NightFrame, bodies: readonly B
   return lowest;
 }
 
-function isDark(ctx: AlmanacContext, frame: NightFrame, ut: number): boolean {
-  return apparentPlace(frame, frame.sun.body, ut).altitudeDeg <= ctx.darkSunAltitudeDeg;
+/**
+ * Whether the sky counts as dark at `ut`: the Sun's centre at least `darkSunAltitudeDeg` below the
+ * horizon, geometrically (airless), as twilight is defined (USNO; Meeus ch. 15) and as the
+ * printed dusk and dawn are computed (`sunEvents`): with the default −6°, dark from the printed
+ * civil dusk to the printed civil dawn.
+ */
+export function isDark(ctx: AlmanacContext, frame: NightFrame, ut: number): boolean {
+  return frame.sun.at(ut).geometricAltitudeDeg <= ctx.darkSunAltitudeDeg;
 }
 
 /** Geocentric angle between a body and the Sun at `ut`, degrees. */

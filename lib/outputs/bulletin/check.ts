@@ -13,7 +13,7 @@ import { sitesFor } from './pages.ts';
 import { ProblemList, errorsOf, problemOfError } from './problems.ts';
 import { renderBulletinSync } from './render.ts';
 import type { BulletinTemplate, ChartOutput, PageSpec, RenderedBulletin } from './types.ts';
-import { WeekCache } from './week.ts';
+import { WeekCache } from '../../models/week.ts';
 
 /** The page budget: HTML with its inline CSS, bytes (40 KB). */
 export const PAGE_BUDGET_BYTES = 40 * 1024;

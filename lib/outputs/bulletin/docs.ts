@@ -11,7 +11,7 @@ import { describeType, type AttributeSpec } from './attributes.ts';
 import { SECTIONS } from './sections.ts';
 import { PLACEHOLDERS } from './placeholders/registry.ts';
 import { renderBulletinSync } from './render.ts';
-import { WeekCache } from './week.ts';
+import { WeekCache } from '../../models/week.ts';
 
 /** The invented site and week the table's example outputs are computed for. */
 export const EXAMPLE_SITE: Site = defineSite({

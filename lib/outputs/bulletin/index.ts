@@ -18,7 +18,7 @@ export { checkPages, pagesToCheck, PAGE_BUDGET_BYTES, LAYOUT_BYTES, type CheckOp
 export { SECTIONS, type SectionSpec, type Binding } from './sections.ts';
 export { FALLBACK_MARK, PROBLEM_LIMIT, ProblemList, TemplateErrors, errorsOf, errorsOnFile, formatProblem, reportError, reportWarning, throwErrors, problemOfError, warningsOnFile, type Problem, type ProblemKind } from './problems.ts';
 export { remarkPlaceholders, type PlaceholderScope, type RemarkPlaceholdersOptions, type PlaceholderReport } from './plugin.ts';
-export { WeekCache, WeekData, type WeekMagnitudes } from './week.ts';
+export { WeekCache, WeekData, type WeekMagnitudes } from '../../models/week.ts';
 export { assertPublishable, nearSunBodies, nearSunCaution, ECLIPSE_CAUTION, type ShownBody } from './safety.ts';
 export { PLACEHOLDERS, type PlaceholderSpec, type PlaceholderCall } from './placeholders/registry.ts';
 export { placeholderTable } from './docs.ts';

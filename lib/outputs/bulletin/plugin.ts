@@ -24,7 +24,7 @@ import type { List, Nodes, Parent, Root, RootContent, Text } from 'mdast';
 import type { ContainerDirective, LeafDirective, TextDirective } from 'mdast-util-directive';
 import type { VFile } from 'vfile';
 import type { BodyRegistry } from '../../core/body.ts';
-import type { AlmanacEvent } from '../almanac/index.ts';
+import { eventsBetween, type AlmanacEvent } from '../almanac/index.ts';
 import { ChartCache } from '../chart/cache.ts';
 import { GloamingError, didYouMean } from '../../core/errors.ts';
 import type { Site } from '../../core/site.ts';
@@ -35,7 +35,7 @@ import { PLACEHOLDERS, type PlaceholderCall, type PlaceholderSpec } from './plac
 import { errorsOnFile, reportError, reportWarning, throwErrors, type ProblemKind } from './problems.ts';
 import type { ShownBody } from './safety.ts';
 import { OTHERWISE, SECTIONS, type Binding, type SectionSpec } from './sections.ts';
-import { WeekCache, type WeekData } from './week.ts';
+import { WeekCache, type WeekData } from '../../models/week.ts';
 import type { ChartOutput } from './types.ts';
 
 /** What the placeholders of one document are about. */
@@ -365,7 +365,7 @@ class Pass {
   events(): AlmanacEvent[] {
     const span = this.scope.eventNights;
     const days = this.scope.week.days;
-    this.#events ??= this.week.eventsBetween(span?.first ?? days[0]!, span?.last ?? days[6]!);
+    this.#events ??= eventsBetween(this.week, span?.first ?? days[0]!, span?.last ?? days[6]!);
     return this.#events;
   }
 

@@ -12,7 +12,7 @@ import remarkRehype from 'remark-rehype';
 import { unified } from 'unified';
 import type { Body } from '../../core/body.ts';
 import { GloamingError } from '../../core/errors.ts';
-import type { AlmanacEvent } from '../almanac/index.ts';
+import { eventsBetween, type AlmanacEvent } from '../almanac/index.ts';
 import { addDays, isoWeekOf, type IsoWeek } from '../../core/time.ts';
 import { fieldPlace } from './frontmatter.ts';
 import { remarkSafeLinks } from './links.ts';
@@ -20,7 +20,7 @@ import { remarkPlaceholders, type PlaceholderScope } from './plugin.ts';
 import { warningsOnFile } from './problems.ts';
 import { ECLIPSE_CAUTION, assertPublishable, nearSunBodies, nearSunCaution, type ShownBody } from './safety.ts';
 import type { BulletinTemplate, RenderContext, RenderedBulletin } from './types.ts';
-import { WeekCache, type WeekData } from './week.ts';
+import { WeekCache, type WeekData } from '../../models/week.ts';
 
 declare module 'vfile' {
   interface DataMap {
@@ -116,7 +116,7 @@ export function renderBulletinSync(template: BulletinTemplate, context: RenderCo
   const shown = file.data.placeholders?.shown ?? [];
   const week = cache.get(context.site, context.week, context.bodies);
   const days = context.week.days;
-  const events = week.eventsBetween(nights.eventNights?.first ?? days[0]!, nights.eventNights?.last ?? days[6]!);
+  const events = eventsBetween(week, nights.eventNights?.first ?? days[0]!, nights.eventNights?.last ?? days[6]!);
   return {
     html,
     title: template.frontMatter.title,

@@ -6,7 +6,7 @@
 import type { Body } from '../../core/body.ts';
 import { GloamingError } from '../../core/errors.ts';
 import { NEAR_SUN_DEG } from '../../models/near-sun.ts';
-import type { WeekData } from './week.ts';
+import type { WeekData } from '../../models/week.ts';
 
 /** A body a page shows, and the night (0–6 of the week) it shows it for. */
 export interface ShownBody {

@@ -24,11 +24,10 @@ import { GloamingError } from '../../core/errors.ts';
 import { EVENT_TYPES, pickEvent, type AlmanacEvent, type AlmanacEventType } from '../almanac/index.ts';
 import { dateFromUt } from '../../core/track.ts';
 import { viewingSpan } from '../../models/visibility.ts';
-import { moonInterferes } from '../../models/week.ts';
+import { moonInterferes, type WeekData } from '../../models/week.ts';
 import { addDays, formatLocalDate, zonedParts, zonedTime } from '../../core/time.ts';
 import type { AttributeSpec, AttributeValue, ClockTime } from './attributes.ts';
 import { PLACEHOLDERS, type PlaceholderSpec } from './placeholders/registry.ts';
-import type { WeekData } from './week.ts';
 
 /** What an enclosing section binds for the placeholders inside it. */
 export interface Binding {

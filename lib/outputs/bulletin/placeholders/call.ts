@@ -15,7 +15,7 @@ import type { AttributeSpec, AttributeValue } from '../attributes.ts';
 import { el, formatClock, type Clock, type TimePrecision } from '../format.ts';
 import { FALLBACK_MARK } from '../problems.ts';
 import type { ChartOutput } from '../types.ts';
-import type { WeekData } from '../week.ts';
+import type { WeekData } from '../../../models/week.ts';
 
 /** What a render function gets: the placeholder's typed attributes and the shared week. */
 export interface PlaceholderCall {
@@ -31,7 +31,7 @@ export interface PlaceholderCall {
   given: ReadonlySet<string>;
   /** Where finder charts go (the build's chart output; see `ChartOutput`). */
   charts: ChartOutput;
-  /** The page's events: the week's, or those around a one-off's date (see `WeekData.eventsBetween`). */
+  /** The page's events: the week's, or those around a one-off's date (see `eventsBetween` in lib/outputs/almanac). */
   events(): AlmanacEvent[];
   /** How the page's event span is named in sentences: `this week` or `around this date`. */
   eventSpan: string;
