@@ -2,7 +2,7 @@
  * gloaming's build side by side with a plain Astro build of the same number of pages (issue #15).
  *
  * In a temporary folder it generates
- * - a gloaming project: the code of this checkout, the demo's bulletins, objects and satellites,
+ * - a gloaming project: the code of this checkout, the demo's centre, bulletins, objects and satellites,
  *   and `BENCH_SITES` (default 30) invented sites spread over the globe — about 480 pages;
  * - a plain Astro 7 site with as many Markdown pages as gloaming wrote HTML pages, each with ten
  *   values computed by a remark directive plugin with astronomy-engine (sunset, sunrise, moonrise,
@@ -15,10 +15,10 @@
  *   BENCH_SITES=3 BENCH_RUNS=1 node bench/build-compare.bench.ts
  */
 import { spawnSync } from 'node:child_process';
-import { cpSync, mkdirSync, mkdtempSync, readdirSync, rmSync, statSync, symlinkSync, writeFileSync } from 'node:fs';
+import { cpSync, mkdirSync, mkdtempSync, readdirSync, rmSync, symlinkSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
-import { report, type BenchRow } from './harness.ts';
+import { countFiles as count, median, report, type BenchRow } from './harness.ts';
 
 const ROOT = resolve(import.meta.dirname, '..');
 const TODAY = '2026-12-04';
@@ -33,22 +33,6 @@ const ZONES: [string, number][] = [
   ['Asia/Kolkata', 77], ['Asia/Bangkok', 101], ['Asia/Tokyo', 139], ['Australia/Sydney', 150], ['Pacific/Auckland', 174],
   ['America/Sao_Paulo', -47], ['America/New_York', -75], ['America/Chicago', -89], ['America/Denver', -105], ['America/Los_Angeles', -119],
 ];
-
-function median(values: number[]): number {
-  const s = [...values].sort((a, b) => a - b);
-  const m = Math.floor(s.length / 2);
-  return s.length % 2 ? s[m]! : (s[m - 1]! + s[m]!) / 2;
-}
-
-function count(dir: string, suffix: string): number {
-  let n = 0;
-  for (const name of readdirSync(dir)) {
-    const full = join(dir, name);
-    if (statSync(full).isDirectory()) n += count(full, suffix);
-    else if (name.endsWith(suffix)) n++;
-  }
-  return n;
-}
 
 /** An invented site: latitudes from 45° S to 65° N, zones round the globe, Bortle 2–8. */
 function siteYaml(i: number): string {
@@ -71,7 +55,9 @@ function siteYaml(i: number): string {
 /** The gloaming project: this checkout's code, the demo's templates and objects, `sites` invented sites. */
 function gloamingProject(dir: string, sites: number): void {
   for (const p of ['lib', 'site', 'scripts', 'astro.config.mjs', 'package.json', 'package-lock.json', 'tsconfig.json']) cpSync(join(ROOT, p), join(dir, p), { recursive: true });
-  for (const p of ['bulletins', 'objects', 'satellites']) cpSync(join(ROOT, 'content', p), join(dir, 'content', p), { recursive: true });
+  // The demo's centre, templates, objects and satellites; the sites are the benchmark's own.
+  cpSync(join(ROOT, 'content'), join(dir, 'content'), { recursive: true });
+  rmSync(join(dir, 'content/sites'), { recursive: true });
   mkdirSync(join(dir, 'content/sites'), { recursive: true });
   for (let i = 0; i < sites; i++) writeFileSync(join(dir, `content/sites/bench-${String(i + 1).padStart(2, '0')}.yaml`), siteYaml(i));
   symlinkSync(join(ROOT, 'node_modules'), join(dir, 'node_modules'), 'dir');

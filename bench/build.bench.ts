@@ -8,29 +8,13 @@
  *   node bench/build.bench.ts          (or `npm run bench -- build`)
  */
 import { spawnSync } from 'node:child_process';
-import { mkdtempSync, readdirSync, rmSync, statSync } from 'node:fs';
+import { mkdtempSync, rmSync } from 'node:fs';
 import { join, resolve } from 'node:path';
-import { report, type BenchRow } from './harness.ts';
+import { countFiles as count, median, report, type BenchRow } from './harness.ts';
 
 const ROOT = resolve(import.meta.dirname, '..');
 const TODAY = '2026-12-04';
 const RUNS = 3;
-
-function median(values: number[]): number {
-  const s = [...values].sort((a, b) => a - b);
-  const m = Math.floor(s.length / 2);
-  return s.length % 2 ? s[m]! : (s[m - 1]! + s[m]!) / 2;
-}
-
-function count(dir: string, suffix: string): number {
-  let n = 0;
-  for (const name of readdirSync(dir)) {
-    const full = join(dir, name);
-    if (statSync(full).isDirectory()) n += count(full, suffix);
-    else if (name.endsWith(suffix)) n++;
-  }
-  return n;
-}
 
 function timedBuild(work: string, cache: string): number {
   const t = performance.now();

@@ -3,6 +3,8 @@
  * `bench/run.ts` runs them all and prints one table with targets. Targets are the issues'
  * budgets; a row over its target is reported, not hidden.
  */
+import { readdirSync, statSync } from 'node:fs';
+import { join } from 'node:path';
 import { Bench } from 'tinybench';
 
 export interface BenchRow {
@@ -39,4 +41,22 @@ export function report(rows: BenchRow[]): boolean {
   });
   console.table(table);
   return ok;
+}
+
+/** The median of some samples. */
+export function median(values: readonly number[]): number {
+  const s = [...values].sort((a, b) => a - b);
+  const m = Math.floor(s.length / 2);
+  return s.length % 2 ? s[m]! : (s[m - 1]! + s[m]!) / 2;
+}
+
+/** How many files below `dir` end with `suffix`. */
+export function countFiles(dir: string, suffix: string): number {
+  let n = 0;
+  for (const name of readdirSync(dir)) {
+    const full = join(dir, name);
+    if (statSync(full).isDirectory()) n += countFiles(full, suffix);
+    else if (name.endsWith(suffix)) n++;
+  }
+  return n;
 }

@@ -6,12 +6,11 @@
  * Also the print stylesheet (light, no navigation, A4 and Letter; PDFs rendered by Chromium) and the
  * static "tonight" fragment a centre's own website includes. Screenshots go to .scratch/ for a person to look at.
  */
-import { spawnSync } from 'node:child_process';
-import { existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { existsSync, mkdirSync, readFileSync, realpathSync } from 'node:fs';
 import { createServer, type Server } from 'node:http';
 import { extname, join, resolve } from 'node:path';
 import { chromium, type Browser, type Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 
 const ROOT = resolve(import.meta.dirname, '..');
 const CHROMIUM = '/usr/bin/chromium';
@@ -30,7 +29,6 @@ const PAGES = [
 
 const TYPES: Record<string, string> = { '.html': 'text/html; charset=utf-8', '.png': 'image/png', '.woff2': 'font/woff2', '.xml': 'application/xml', '.css': 'text/css', '.svg': 'image/svg+xml' };
 
-let work: string;
 let server: Server;
 let origin: string;
 let browser: Browser;
@@ -129,14 +127,10 @@ const available = existsSync(CHROMIUM) || process.env.CI === 'true';
 
 beforeAll(async () => {
   if (!available) return;
-  work = mkdtempSync(join(ROOT, '.tmp-test-e2e-'));
-  const r = spawnSync(process.execPath, ['scripts/build.ts', '--today', TODAY, '--out', join(work, 'dist')], {
-    cwd: ROOT,
-    encoding: 'utf8',
-    env: { ...process.env, GLOAMING_CACHE_DIR: join(work, 'cache'), GLOAMING_TODAY: '', GLOAMING_SITES: '', GLOAMING_CONTENT: '' },
-  });
-  expect(r.status, r.stderr).toBe(0);
-  server = await serve(join(work, 'dist'));
+  // The suite's shared demo build (test/setup/demo-build.ts), read only.
+  const demo = inject('demoBuild');
+  expect(demo.today).toBe(TODAY);
+  server = await serve(realpathSync(demo.dist));
   const address = server.address() as { port: number };
   origin = `http://127.0.0.1:${address.port}`;
   browser = await chromium.launch({ executablePath: CHROMIUM, args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-background-networking'] });
@@ -146,7 +140,6 @@ beforeAll(async () => {
 afterAll(async () => {
   await browser?.close();
   server?.close();
-  if (work) rmSync(work, { recursive: true, force: true });
 });
 
 describe.skipIf(!available)('built pages on a phone (390×844)', () => {

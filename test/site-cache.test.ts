@@ -10,7 +10,7 @@ import { spawnSync } from 'node:child_process';
 import { appendFileSync, cpSync, mkdtempSync, readFileSync, rmSync, symlinkSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import { pageDigest, siteDigest } from '../site/gloaming/session.ts';
 import { loadProject, type Project } from '../site/gloaming/project.ts';
 
@@ -123,16 +123,14 @@ describe('warm builds', () => {
   }
 
   it('reuse unchanged entries, and recompute every page after a lib/ edit', () => {
-    const cold = build();
-    expect(cold.status, cold.stderr).toBe(0);
-    expect(cold.stdout).toMatch(/bulletin pages: [1-9]\d* computed, 0 unchanged/);
+    // The suite's demo build computed every page from the same code, content and date: with a copy
+    // of its cache the copy's first build computes nothing again.
+    cpSync(inject('demoBuild').cache, join(copy, '.cache'), { recursive: true });
+    const warm = build();
+    expect(warm.status, warm.stderr).toBe(0);
+    expect(warm.stdout).toMatch(/bulletin pages: 0 computed, [1-9]\d* unchanged/);
     const home = (): string => readFileSync(join(copy, 'dist/harbour-roof/index.html'), 'utf8');
     expect(home()).toContain('Waning crescent');
-
-    const warm = build();
-    expect(warm.status).toBe(0);
-    expect(warm.stdout).toMatch(/bulletin pages: 0 computed, [1-9]\d* unchanged/);
-    expect(warm.stdout).toMatch(/sites: 0 computed, 3 unchanged/);
 
     // The edit that Astro's own cache does not see: a label inside the computing library.
     const file = join(copy, 'lib/core/moon.ts');

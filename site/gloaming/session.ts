@@ -9,15 +9,17 @@
  */
 import { join, resolve, sep } from 'node:path';
 import type { DataStore, LoaderContext } from 'astro/loaders';
-import { checkPages, ProblemList, WeekCache, formatProblem, type RenderedBulletin } from '../../lib/outputs/bulletin/index.ts';
+import { checkPages, ProblemList, WeekCache, formatProblem, type Problem, type RenderedBulletin } from '../../lib/outputs/bulletin/index.ts';
 import type { PageSpec } from '../../lib/outputs/bulletin/types.ts';
-import { ChartCache, type ChartProgress } from '../../lib/outputs/chart/cache.ts';
+import { ChartCache } from '../../lib/outputs/chart/cache.ts';
 import { demoNotice, publicOrigin } from '../../lib/outputs/centre.ts';
 import { GloamingError } from '../../lib/core/errors.ts';
 import { isoWeekOf, parseLocalDate } from '../../lib/core/time.ts';
 import { siteCalendar } from './calendar.ts';
+import { cardInputOf, renderCardCached } from './card.ts';
 import { entryDigest } from './digest.ts';
 import { nextNights } from './nights.ts';
+import { WorkerPool } from './pool.ts';
 import { loadProject, type Project, type SiteSource } from './project.ts';
 import type { CentreEntry, PageEntry, PageWarning, SiteEntry } from './schema.ts';
 import { dateLabel, skyLabel, weekLabel } from './words.ts';
@@ -40,6 +42,24 @@ export interface SessionOptions {
   /** Warnings stop the build too (`--strict`). */
   strict?: boolean;
 }
+
+/** Work a session can hand to a worker thread: the entries of some sites, or some pages (with their cards). */
+export type Job = { kind: 'sites'; ids: string[] } | { kind: 'pages'; paths: string[] };
+
+/** One page rendered: its entry (null when it failed), its problems and its charts. */
+export interface PageResult {
+  path: string;
+  data: PageEntry | null;
+  problems: Problem[];
+}
+
+/** What a job gives back: plain data, as it crosses from a worker thread. */
+export type JobResult =
+  | { kind: 'sites'; entries: SiteEntry[] }
+  | { kind: 'pages'; pages: PageResult[]; charts: { count: number; drawn: number; workMs: number } };
+
+/** Below this many pages or sites to compute, a session computes them itself rather than start workers. */
+const PARALLEL_FROM = 6;
 
 /**
  * The build stopped because of problems in its input or output: every problem found (up to the
@@ -101,6 +121,10 @@ export class GloamingSession {
   readonly #loaded = new Map<string, { context: LoaderContext; load: (context: LoaderContext) => Promise<void> }>();
   readonly #watched = new WeakSet<object>();
   #reloading: Promise<void> = Promise.resolve();
+  /** What this session computes with (a worker's session keeps them across its jobs). */
+  #weeks = new WeekCache();
+  #charts: ChartCache | null = null;
+  #pool: WorkerPool<Job, JobResult> | null = null;
 
   constructor(options: SessionOptions) {
     this.root = options.root;
@@ -145,6 +169,101 @@ export class GloamingSession {
   /** Forgets the loaded project (a content file changed): the next use loads it again. */
   invalidate(): void {
     this.#project = null;
+    this.#weeks = new WeekCache();
+    this.#charts = null;
+    void this.#pool?.close();
+    this.#pool = null;
+  }
+
+  /** The options a worker's session needs to load the same project. */
+  get options(): SessionOptions {
+    return { root: this.root, cacheDir: this.cacheDir, today: this.today, sites: this.sites, content: this.content };
+  }
+
+  /**
+   * Runs `jobs` on worker threads (both cores) when there are enough of them, else here; results
+   * in the order of `jobs`.
+   */
+  async #compute(jobs: Job[], items: number): Promise<JobResult[]> {
+    if (items < PARALLEL_FROM || jobs.length < 2) {
+      const out: JobResult[] = [];
+      for (const job of jobs) out.push(await this.runJob(job));
+      return out;
+    }
+    this.#pool ??= new WorkerPool<Job, JobResult>(new URL('./worker.ts', import.meta.url), this.options);
+    return Promise.all(jobs.map((job) => this.#pool!.run(job)));
+  }
+
+  /** Does one job (in a worker thread, or here): see `Job`. */
+  async runJob(job: Job): Promise<JobResult> {
+    const project = this.project();
+    if (job.kind === 'sites') {
+      const built = new Set(project.selected.map((s) => s.site.id));
+      return { kind: 'sites', entries: job.ids.map((id) => this.#siteEntry(project, project.sites.get(id)!, built.has(id))) };
+    }
+    this.#charts ??= new ChartCache({ dir: this.chartDir, codeVersion: project.codeDigest, clock: () => performance.now() });
+    const before = { count: this.#charts.count, drawn: this.#charts.rendered, workMs: this.#charts.workMs };
+    const specs = new Map(project.pages.map((p) => [p.path, p]));
+    const pages: PageResult[] = [];
+    for (const path of job.paths) pages.push(await this.#renderPage(project, specs.get(path)!, this.#charts));
+    const c = this.#charts;
+    return { kind: 'pages', pages, charts: { count: c.count - before.count, drawn: c.rendered - before.drawn, workMs: c.workMs - before.workMs } };
+  }
+
+  #siteEntry(project: Project, source: SiteSource, built: boolean): SiteEntry {
+    const s = source.site;
+    return {
+      id: s.id,
+      name: s.name,
+      description: source.description,
+      latitudeDeg: s.latitudeDeg,
+      longitudeDeg: s.longitudeDeg,
+      elevationM: s.elevationM,
+      timeZone: s.timeZone,
+      locale: s.locale,
+      sky: skyLabel(s.sky),
+      viewingHours: s.viewingHours?.label ?? null,
+      horizon: s.horizon.map((p) => ({ azimuthDeg: p.azimuthDeg, altitudeDeg: p.altitudeDeg })),
+      built,
+      currentWeek: isoWeekOf(project.today).id,
+      nights: built ? nextNights(s, project.today, NIGHTS_SHOWN) : [],
+      calendar: built ? siteCalendar(s, { bodies: project.bodies, today: project.today, satellites: project.satellites, centreName: project.centre.name }) : '',
+    };
+  }
+
+  /**
+   * One bulletin page through the checks of `gloaming check` (`checkPages`), and its social card
+   * into the card cache, where the card route finds it.
+   */
+  async #renderPage(project: Project, spec: PageSpec, chartCache: ChartCache): Promise<PageResult> {
+    // The charts this page links: served by the `/charts/[chart].svg` route.
+    const charts = new Set<string>();
+    const output = { cache: chartCache, url: (file: string) => (charts.add(file), `/charts/${file}`) };
+    const found = new ProblemList();
+    let rendered: RenderedBulletin | undefined;
+    checkPages([spec], { bodies: project.bodies, charts: output, cache: this.#weeks, problems: found, onRendered: (_, r) => (rendered = r) });
+    if (!rendered) return { path: spec.path, data: null, problems: found.items }; // an error, among the problems
+    const oneOff = spec.template.frontMatter.date !== undefined;
+    const data: PageEntry = {
+      path: spec.path,
+      siteId: spec.site.id,
+      siteName: spec.site.name,
+      locale: spec.site.locale,
+      weekId: spec.week.id,
+      weekLabel: weekLabel(spec.week, spec.site.locale),
+      weekStart: spec.week.days[0]!,
+      slug: spec.template.slug,
+      oneOff,
+      when: oneOff ? dateLabel(spec.template.frontMatter.date!, spec.site.locale) : weekLabel(spec.week, spec.site.locale),
+      title: rendered.title,
+      description: rendered.description,
+      html: rendered.html,
+      cautions: rendered.cautions,
+      charts: [...charts].sort(),
+      warnings: found.warnings as PageWarning[],
+    };
+    await renderCardCached(cardInputOf(data, spec.site, project.centre.name), { cacheDir: this.cardDir, codeDigest: project.codeDigest });
+    return { path: spec.path, data, problems: found.items };
   }
 
   /**
@@ -209,35 +328,14 @@ export class GloamingSession {
     const { store, logger, parseData } = context;
     const project = this.project();
     const builtIds = new Set(project.selected.map((s) => s.site.id));
-    const currentWeek = isoWeekOf(project.today).id;
-    let computed = 0;
-    for (const [id, source] of project.sites) {
-      const built = builtIds.has(id);
-      const digest = siteDigest(project, source, built);
-      if (store.get(id)?.digest === digest) continue;
-      const s = source.site;
-      const data: SiteEntry = {
-        id,
-        name: s.name,
-        description: source.description,
-        latitudeDeg: s.latitudeDeg,
-        longitudeDeg: s.longitudeDeg,
-        elevationM: s.elevationM,
-        timeZone: s.timeZone,
-        locale: s.locale,
-        sky: skyLabel(s.sky),
-        viewingHours: s.viewingHours?.label ?? null,
-        horizon: s.horizon.map((p) => ({ azimuthDeg: p.azimuthDeg, altitudeDeg: p.altitudeDeg })),
-        built,
-        currentWeek,
-        nights: built ? nextNights(s, project.today, NIGHTS_SHOWN) : [],
-        calendar: built ? siteCalendar(s, { bodies: project.bodies, today: project.today, satellites: project.satellites, centreName: project.centre.name }) : '',
-      };
-      store.set({ id, data: await parseData({ id, data }), digest });
-      computed++;
+    const todo = [...project.sites].filter(([id, source]) => store.get(id)?.digest !== siteDigest(project, source, builtIds.has(id))).map(([id]) => id);
+    const results = await this.#compute(todo.map((id) => ({ kind: 'sites', ids: [id] })), todo.length);
+    for (const result of results) {
+      if (result.kind !== 'sites') continue;
+      for (const data of result.entries) store.set({ id: data.id, data: await parseData({ id: data.id, data }), digest: siteDigest(project, project.sites.get(data.id)!, data.built) });
     }
     prune(store, (id) => project.sites.has(id));
-    logger.info(`sites: ${computed} computed, ${project.sites.size - computed} unchanged`);
+    logger.info(`sites: ${todo.length} computed, ${project.sites.size - todo.length} unchanged`);
   }
 
   /**
@@ -250,59 +348,39 @@ export class GloamingSession {
     this.#watch(context, (c) => this.loadPages(c));
     const { store, logger, parseData } = context;
     const project = this.project();
-    const cache = new WeekCache();
     const problems = new ProblemList();
-    // Progress: a line every 25 charts, and a summary with the rate at the end.
-    let last: ChartProgress | undefined;
-    const onProgress = (p: ChartProgress): void => {
-      last = p;
-      if (p.count % 25 === 0) logger.info(`charts: ${p.count} (${p.rendered} drawn, ${p.hits} from the cache), ${(p.elapsedMs / 1000).toFixed(1)} s`);
-    };
-    const chartCache = new ChartCache({ dir: this.chartDir, onProgress, codeVersion: project.codeDigest, clock: () => performance.now() });
-    const keep = new Set<string>();
-    let computed = 0;
+    const todo: PageSpec[] = [];
     for (const spec of project.pages) {
-      keep.add(spec.path);
-      const digest = pageDigest(project, spec);
       const stored = store.get<PageEntry>(spec.path);
-      if (stored?.digest === digest) {
-        for (const w of stored.data.warnings) problems.add(w);
-        continue;
-      }
-      // The charts this page links: served by the `/charts/[chart].svg` route.
-      const charts = new Set<string>();
-      const output = { cache: chartCache, url: (file: string) => (charts.add(file), `/charts/${file}`) };
-      const found = new ProblemList();
-      let rendered: RenderedBulletin | undefined;
-      checkPages([spec], { bodies: project.bodies, charts: output, cache, problems: found, onRendered: (_, r) => (rendered = r) });
-      for (const p of found.items) problems.add(p);
-      if (!rendered) continue; // an error: reported below with every other one
-      const oneOff = spec.template.frontMatter.date !== undefined;
-      const data: PageEntry = {
-        path: spec.path,
-        siteId: spec.site.id,
-        siteName: spec.site.name,
-        locale: spec.site.locale,
-        weekId: spec.week.id,
-        weekLabel: weekLabel(spec.week, spec.site.locale),
-        weekStart: spec.week.days[0]!,
-        slug: spec.template.slug,
-        oneOff,
-        when: oneOff ? dateLabel(spec.template.frontMatter.date!, spec.site.locale) : weekLabel(spec.week, spec.site.locale),
-        title: rendered.title,
-        description: rendered.description,
-        html: rendered.html,
-        cautions: rendered.cautions,
-        charts: [...charts].sort(),
-        warnings: found.warnings as PageWarning[],
-      };
-      store.set({ id: spec.path, data: await parseData({ id: spec.path, data }), digest });
-      computed++;
+      if (stored?.digest === pageDigest(project, spec)) for (const w of stored.data.warnings) problems.add(w);
+      else todo.push(spec);
     }
+    // One job per site: the pages of a site share its weeks (WeekCache).
+    const bySite = new Map<string, string[]>();
+    for (const spec of todo) bySite.set(spec.site.id, [...(bySite.get(spec.site.id) ?? []), spec.path]);
+    const t0 = performance.now();
+    const results = await this.#compute([...bySite.values()].map((paths) => ({ kind: 'pages', paths })), todo.length);
+    const rendered = new Map<string, PageResult>();
+    const charts = { count: 0, drawn: 0, workMs: 0 };
+    for (const result of results) {
+      if (result.kind !== 'pages') continue;
+      for (const page of result.pages) rendered.set(page.path, page);
+      charts.count += result.charts.count;
+      charts.drawn += result.charts.drawn;
+      charts.workMs += result.charts.workMs;
+    }
+    // Entries and problems in page order, whichever worker finished first.
+    for (const spec of todo) {
+      const page = rendered.get(spec.path)!;
+      for (const p of page.problems) problems.add(p);
+      if (page.data) store.set({ id: spec.path, data: await parseData({ id: spec.path, data: page.data }), digest: pageDigest(project, spec) });
+    }
+    const keep = new Set(project.pages.map((p) => p.path));
     prune(store, (id) => keep.has(id));
     this.problems = problems;
-    logger.info(`bulletin pages: ${computed} computed, ${project.pages.length - computed} unchanged`);
-    if (last) logger.info(`charts: ${last.count} (${last.rendered} drawn, ${last.hits} from the cache) in ${last.workMs.toFixed(0)} ms of chart work, ${Math.round(last.count / (last.workMs / 1000))} charts/s`);
+    logger.info(`bulletin pages: ${todo.length} computed, ${project.pages.length - todo.length} unchanged (${((performance.now() - t0) / 1000).toFixed(1)} s)`);
+    if (charts.count) logger.info(`charts: ${charts.count} (${charts.drawn} drawn, ${charts.count - charts.drawn} from the cache) in ${charts.workMs.toFixed(0)} ms of chart work`);
     stopOnProblems(problems, this.strict);
   }
+
 }

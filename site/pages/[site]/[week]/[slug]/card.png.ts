@@ -1,7 +1,11 @@
-/** The social card of one bulletin page (1200×630 PNG), referenced by the page's og:image. */
+/**
+ * The social card of one bulletin page (1200×630 PNG), referenced by the page's og:image. The
+ * build drew it beside the page (site/gloaming/session.ts) into the card cache; this route reads
+ * it back by its input's hash, and draws it only when the cache has lost it.
+ */
 import type { APIRoute, GetStaticPaths } from 'astro';
 import { cards } from 'virtual:gloaming';
-import { renderCardCached } from '../../../../gloaming/card.ts';
+import { cardInputOf, renderCardCached } from '../../../../gloaming/card.ts';
 import { allPages, allSites, centre, type PageEntry, type SiteEntry } from '../../../../data.ts';
 
 export const getStaticPaths = (async () => {
@@ -14,13 +18,6 @@ export const getStaticPaths = (async () => {
 
 export const GET: APIRoute = async ({ props }) => {
   const { page, site } = props as { page: PageEntry; site: SiteEntry };
-  const png = await renderCardCached({
-    centre: (await centre()).name,
-    title: page.title,
-    siteName: site.name,
-    weekLabel: page.when,
-    horizon: site.horizon,
-    caution: page.cautions.length > 0,
-  }, { cacheDir: cards.dir, codeDigest: cards.codeDigest });
+  const png = await renderCardCached(cardInputOf(page, site, (await centre()).name), { cacheDir: cards.dir, codeDigest: cards.codeDigest });
   return new Response(Buffer.from(png), { headers: { 'Content-Type': 'image/png' } });
 };
