@@ -1,0 +1,160 @@
+/**
+ * One vocabulary and one formatter for every word gloaming writes: `wordsFor(locale)` gives the
+ * catalogue messages of the locale's language (`t`), and dates, clock times, numbers, lists,
+ * compass directions and hand measures through `Intl` in the locale's own formats. The command
+ * line, the placeholders, the charts and the site all read their words from here.
+ *
+ * A locale is a BCP 47 tag (`es-CL`): its language picks the catalogue (English when there is none
+ * for it), the whole tag the formats (`es-CL` writes "8:10 p. m.", `es-ES` "20:10").
+ * Deterministic: no clock, no environment locale.
+ */
+import { GloamingError } from '../errors.ts';
+import { en, LANGUAGES, LANGUAGE_NAMES, type Catalogue, type Language, type MessageKey } from './catalogue.ts';
+import { de } from './catalogues/de.ts';
+import { es } from './catalogues/es.ts';
+import { fr } from './catalogues/fr.ts';
+import { applyGrammar } from './grammar.ts';
+import { formatParts, parseMessage, type MessageArguments, type MessagePart } from './message.ts';
+import { endSentence, firstSentence, splitSentences, tidyPunctuation } from './sentences.ts';
+
+export { LANGUAGES, LANGUAGE_NAMES, endSentence, firstSentence, splitSentences, tidyPunctuation };
+export type { Catalogue, Language, MessageKey, MessageArguments };
+
+export const CATALOGUES: Readonly<Record<Language, Catalogue>> = { en, es, de, fr };
+
+/** The 16 compass points from north through east, as catalogue key suffixes. */
+export const COMPASS_KEYS = ['n', 'nne', 'ne', 'ene', 'e', 'ese', 'se', 'sse', 's', 'ssw', 'sw', 'wsw', 'w', 'wnw', 'nw', 'nnw'] as const;
+export type CompassKey = (typeof COMPASS_KEYS)[number];
+
+/** The language of a BCP 47 locale that has a catalogue, or null ('es-CL' → 'es', 'pt-BR' → null). */
+export function catalogueLanguage(locale: string): Language | null {
+  const primary = locale.split('-')[0]!.toLowerCase();
+  return (LANGUAGES as readonly string[]).includes(primary) ? (primary as Language) : null;
+}
+
+/** A grammatical gender and number, for messages that agree with a name (`{gender, select, …}`). */
+export type Gender = 'masculine' | 'feminine' | 'neuter' | 'plural-masculine' | 'plural-feminine';
+
+/** A name as a sentence uses it: the phrase (with its article where the language puts one), its gender, and its dative (German). */
+export interface NamePhrase {
+  text: string;
+  gender: Gender;
+  /** German dative phrase ("dem Großen Wagen"); other languages read `text`. */
+  dative?: string;
+}
+
+export interface Words {
+  /** The BCP 47 locale the formats follow. */
+  readonly locale: string;
+  /** The catalogue's language. */
+  readonly language: Language;
+  /**
+   * A catalogue message with its arguments. A `NamePhrase` argument `x` also supplies `x_gender`
+   * and `x_dative`; the message's grammar rules (contractions) are applied.
+   */
+  t(key: MessageKey, args?: Readonly<Record<string, string | number | NamePhrase>>): string;
+  /** A number with `digits` decimals in the locale's digits and separators, with a true minus sign (−0 → 0). */
+  number(value: number, digits?: number): string;
+  /** A list joined the locale's way ("A, B and C", "A, B y C"). */
+  list(items: readonly string[]): string;
+  /** The 16-point compass word of an azimuth (degrees from north through east), and its abbreviation. */
+  compass(azimuthDeg: number): { key: CompassKey; word: string; abbreviation: string };
+  /** An angle as a hand measure at arm's length ("about 3 fingers", "unos 3 dedos"). */
+  handMeasure(angleDeg: number): string;
+  /** An altitude in degrees and hands ("18° (about 2 fists) up"), or below the horizon. */
+  altitude(altitudeDeg: number): string;
+}
+
+const parsed = new Map<string, MessagePart[]>();
+const words = new Map<string, Words>();
+
+/** Degrees covered by a fist at arm's length (common practice). */
+export const FIST_DEG = 10;
+/** Degrees covered by one finger width at arm's length (common practice). */
+export const FINGER_DEG = 2;
+
+/** An angle in fists at arm's length, rounded to halves: 18° → 2 (1.8 rounds to 2). */
+export function fists(angleDeg: number): number {
+  return Math.round((angleDeg / FIST_DEG) * 2) / 2;
+}
+
+/** The index (0–15, from north through east) of an azimuth's 16-point compass direction. */
+export function compassIndex(azimuthDeg: number): number {
+  return Math.round((((azimuthDeg % 360) + 360) % 360) / 22.5) % 16;
+}
+
+function makeWords(locale: string): Words {
+  const language = catalogueLanguage(locale) ?? 'en';
+  const catalogue = CATALOGUES[language];
+  const plural = new Intl.PluralRules(locale);
+  const numberFormats = new Map<number, Intl.NumberFormat>();
+  const numberFormat = (digits: number): Intl.NumberFormat => {
+    let f = numberFormats.get(digits);
+    if (!f) {
+      f = new Intl.NumberFormat(locale, { minimumFractionDigits: digits, maximumFractionDigits: digits, useGrouping: false });
+      numberFormats.set(digits, f);
+    }
+    return f;
+  };
+  const number = (value: number, digits = 0): string => {
+    if (!Number.isFinite(value)) throw new GloamingError('invalid-value', 'a number to print is not finite', { actual: value, expected: 'a finite number' });
+    const text = numberFormat(digits).format(value);
+    if (Number(value.toFixed(digits)) === 0) return numberFormat(digits).format(0);
+    return text.replace(/^[-\u2212]/, '\u2212');
+  };
+  const listFormat = new Intl.ListFormat(locale, { type: 'conjunction', style: 'long' });
+  const context = { plural, number: (v: number) => number(v, Number.isInteger(v) ? 0 : 1) };
+  const t: Words['t'] = (key, args = {}) => {
+    const source = catalogue[key];
+    const cacheKey = `${language}|${key}`;
+    let parts = parsed.get(cacheKey);
+    if (!parts) {
+      parts = parseMessage(source);
+      parsed.set(cacheKey, parts);
+    }
+    const flat: Record<string, string | number> = {};
+    for (const [name, value] of Object.entries(args)) {
+      if (typeof value === 'object') {
+        flat[name] = value.text;
+        flat[`${name}_gender`] = value.gender;
+        flat[`${name}_dative`] = value.dative ?? value.text;
+      } else flat[name] = value;
+    }
+    return applyGrammar(formatParts(parts, flat as MessageArguments, context, key), language);
+  };
+  const self: Words = {
+    locale,
+    language,
+    t,
+    number,
+    list: (items) => listFormat.format(items),
+    compass(azimuthDeg) {
+      const key = COMPASS_KEYS[compassIndex(azimuthDeg)]!;
+      return { key, word: t(`compass.${key}`), abbreviation: t(`compass-short.${key}`) };
+    },
+    handMeasure(angleDeg) {
+      const a = Math.abs(angleDeg);
+      if (a < FINGER_DEG / 2) return t('hand.under-finger');
+      if (a < 7) return t('hand.fingers', { count: Math.round(a / FINGER_DEG) });
+      if (a < 0.95 * FIST_DEG) return t('hand.almost-fist');
+      const f = fists(a);
+      return Number.isInteger(f) ? t('hand.fists', { count: f }) : t('hand.fists-and-half', { count: Math.floor(f) });
+    },
+    altitude(altitudeDeg) {
+      const degrees = Math.round(altitudeDeg);
+      if (altitudeDeg < 0) return degrees === 0 ? t('altitude.just-below') : t('altitude.below', { degrees: Math.abs(degrees) });
+      return t('altitude.up', { degrees, hand: self.handMeasure(altitudeDeg) });
+    },
+  };
+  return self;
+}
+
+/** The words and formats of a BCP 47 locale (cached; the same object for the same locale). */
+export function wordsFor(locale: string): Words {
+  let w = words.get(locale);
+  if (!w) {
+    w = makeWords(locale);
+    words.set(locale, w);
+  }
+  return w;
+}

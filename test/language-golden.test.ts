@@ -1,0 +1,125 @@
+/**
+ * Golden sentences per language: agreement of gender and number, prepositions contracted with the
+ * article of a name, clock times with the right article, hand measures in the plural, and
+ * sentence splitting that never cuts at an abbreviation. The expected words are the standard
+ * grammar of each language (common usage, from memory; the contractions are those every grammar
+ * of the language states: RAE, Duden, Académie française); clock times and dates are whatever
+ * the platform's CLDR data print for the locale, checked here for the shape a reader expects.
+ */
+import { describe, expect, it } from 'vitest';
+import { endSentence, firstSentence, splitSentences, tidyPunctuation, wordsFor } from '../lib/language/index.ts';
+
+const es = wordsFor('es-CL');
+const de = wordsFor('de-DE');
+const fr = wordsFor('fr-FR');
+const en = wordsFor('en-GB');
+
+describe('hand measures and altitudes', () => {
+  it('English keeps its wording', () => {
+    expect(en.handMeasure(0.5)).toBe('less than a finger');
+    expect(en.handMeasure(2.2)).toBe('about a finger');
+    expect(en.handMeasure(6)).toBe('about 3 fingers');
+    expect(en.handMeasure(8)).toBe('almost a fist');
+    expect(en.handMeasure(15)).toBe('about a fist and a half');
+    expect(en.handMeasure(25)).toBe('about 2 and a half fists');
+    expect(en.altitude(18)).toBe('18° (about 2 fists) up');
+    expect(en.altitude(-13)).toBe('13° below the horizon');
+  });
+  it('Spanish: singular and plural of dedo and puño', () => {
+    expect(es.handMeasure(2.2)).toBe('un dedo');
+    expect(es.handMeasure(6)).toBe('unos 3 dedos');
+    expect(es.handMeasure(15)).toBe('un puño y medio');
+    expect(es.handMeasure(25)).toBe('unos 2 puños y medio');
+    expect(es.altitude(18)).toBe('18° (unos 2 puños) de altura');
+  });
+  it('German: eine Faust, Fäuste, anderthalb', () => {
+    expect(de.handMeasure(10)).toBe('etwa eine Faust');
+    expect(de.handMeasure(20)).toBe('etwa 2 Fäuste');
+    expect(de.handMeasure(15)).toBe('etwa anderthalb Fäuste');
+    expect(de.altitude(-0.3)).toBe('knapp unter dem Horizont');
+  });
+  it('French: un poing et demi, doigts', () => {
+    expect(fr.handMeasure(6)).toBe('environ 3 doigts');
+    expect(fr.handMeasure(15)).toBe('environ un poing et demi');
+    expect(fr.handMeasure(35)).toBe('environ 3 poings et demi');
+  });
+});
+
+describe('compass directions and prepositions', () => {
+  it('abbreviations use each language\u2019s letter for west and east', () => {
+    expect(es.compass(292.5).abbreviation).toBe('ONO');
+    expect(de.compass(67.5).abbreviation).toBe('ONO');
+    expect(fr.compass(225).abbreviation).toBe('SO');
+    expect(en.compass(292.5)).toEqual({ key: 'wnw', word: 'west-northwest', abbreviation: 'WNW' });
+  });
+  it('French contracts à le / de le with a direction, and keeps l\u2019', () => {
+    expect(fr.t('guide.overhead', { direction: fr.compass(0).word })).toBe('presque au zénith, un peu vers le nord');
+    expect(fr.t('offset.left', { distance: 'à 3°', what: { text: 'le Grand Carré de Pégase', gender: 'masculine' } })).toBe('à 3° à gauche du Grand Carré de Pégase');
+    expect(fr.t('guide.low-in', { direction: fr.compass(270).word, height: 'x' })).toBe("bas vers l'ouest, x");
+  });
+  it('Spanish contracts de el → del and a el → al', () => {
+    expect(es.t('offset.left', { distance: 'a unos 3°', what: { text: 'el Triángulo de Verano', gender: 'masculine' } })).toBe('a unos 3° a la izquierda del Triángulo de Verano');
+    expect(es.t('offset.left', { distance: 'a unos 3°', what: { text: 'la Osa Mayor', gender: 'feminine' } })).toBe('a unos 3° a la izquierda de la Osa Mayor');
+  });
+  it('German uses the dative and contracts in dem → im, von dem → vom', () => {
+    const wagen = { text: 'der Große Wagen', dative: 'dem Großen Wagen', gender: 'masculine' as const };
+    expect(de.t('offset.right', { distance: 'etwa 3°', what: wagen })).toBe('etwa 3° rechts vom Großen Wagen');
+    expect(de.t('guide.in-pattern', { from: 'neben Dubhe', pattern: wagen })).toBe('neben Dubhe, im Großen Wagen');
+    expect(de.t('guide.in-pattern', { from: 'neben Schedar', pattern: { text: 'das Himmels-W', gender: 'neuter', dative: 'dem Himmels-W' } })).toBe('neben Schedar, im Himmels-W');
+  });
+});
+
+describe('agreement with the body', () => {
+  it('Spanish and French reasons agree with a feminine body (la Luna, la Lune)', () => {
+    expect(es.t('reason.daylight', { gender: 'feminine' })).toBe('oculta por la luz del día');
+    expect(es.t('reason.daylight', { gender: 'masculine' })).toBe('oculto por la luz del día');
+    expect(fr.t('reason.twilight', { gender: 'feminine' })).toBe('perdue dans le crépuscule');
+    expect(fr.t('verdict.not-visible', { gender: 'feminine', reason: 'x' })).toBe('invisible cette nuit\u00a0: x');
+  });
+  it('the near-Sun caution agrees in number', () => {
+    expect(es.t('caution.near-sun', { count: 2, names: 'Mercurio y Venus' })).toMatch(/^Mercurio y Venus están cerca del Sol/);
+    expect(de.t('caution.near-sun', { count: 1, names: 'Merkur' })).toMatch(/^Merkur steht diese Woche/);
+    expect(fr.t('caution.near-sun', { count: 1, names: 'Vénus' })).toMatch(/^Vénus est près du Soleil/);
+  });
+  it('every eclipse caution names ISO 12312-2 and says never to look at the Sun unprotected', () => {
+    expect(en.t('caution.eclipse')).toMatch(/ISO 12312-2.*sunglasses/);
+    expect(es.t('caution.eclipse')).toMatch(/^Nunca mire al Sol.*ISO 12312-2.*gafas de sol/);
+    expect(de.t('caution.eclipse')).toMatch(/^Schauen Sie nie .* in die Sonne.*ISO 12312-2.*Sonnenbrillen/);
+    expect(fr.t('caution.eclipse')).toMatch(/^Ne regardez jamais le Soleil.*ISO 12312-2.*lunettes de soleil/);
+  });
+});
+
+describe('clock times and dates through Intl', () => {
+  const at = (iso: string): Date => new Date(iso);
+  const clock = (locale: string, d: Date, zone: string): string => new Intl.DateTimeFormat(locale, { timeZone: zone, hour: 'numeric', minute: '2-digit' }).format(d);
+  it('Spanish reads "a la 1:05" but "a las 9:47"', () => {
+    // Santiago in December is UTC−3 (CLT summer time).
+    const one = clock('es-CL', at('2026-12-08T04:05:00Z'), 'America/Santiago');
+    const nine = clock('es-CL', at('2026-12-08T00:47:00Z'), 'America/Santiago');
+    expect(es.t('chart.looking', { direction: 'oeste', clock: one, target: 'Júpiter', degrees: 20, guide: '' })).toMatch(/^Mirando hacia el oeste a la 1:05\sa\.\sm\.: Júpiter a 20° de altura\.$/);
+    expect(es.t('chart.looking', { direction: 'oeste', clock: nine, target: 'Júpiter', degrees: 20, guide: '' })).toMatch(/ a las 9:47\sp\.\sm\.:/);
+  });
+  it('numbers use the locale\u2019s decimal comma and a true minus sign', () => {
+    expect(es.number(-2.4, 1)).toBe('\u22122,4');
+    expect(de.number(4.9, 1)).toBe('4,9');
+    expect(en.number(-0.01, 1)).toBe('0.0');
+    expect(fr.list(['Mars', 'Vénus', 'la Lune'])).toBe('Mars, Vénus et la Lune');
+    expect(es.list(['Marte', 'Venus', 'la Luna'])).toBe('Marte, Venus y la Luna');
+  });
+});
+
+describe('sentences', () => {
+  it('a Spanish caption is not cut at "p. m."', () => {
+    const alt = 'Mirando hacia el noroeste a las 9:47\u00a0p.\u00a0m. Júpiter está a 20° de altura. También a la vista: la Luna.';
+    expect(firstSentence(alt, 'es')).toBe('Mirando hacia el noroeste a las 9:47\u00a0p.\u00a0m. Júpiter está a 20° de altura.');
+    expect(splitSentences('Approx. 3° above Regulus. Also in view: Mars.', 'en')).toEqual(['Approx. 3° above Regulus.', 'Also in view: Mars.']);
+    expect(splitSentences('Env. 3° au-dessus de Régulus. Aussi\u00a0: Mars.', 'fr')).toEqual(['Env. 3° au-dessus de Régulus.', 'Aussi\u00a0: Mars.']);
+    expect(splitSentences('Mira ca. 3° más arriba. Luego al oeste.', 'es')).toEqual(['Mira ca. 3° más arriba.', 'Luego al oeste.']);
+  });
+  it('no doubled full stop after an abbreviation that ends a sentence', () => {
+    expect(endSentence('El Sol se pone a las 8:10\u00a0p.\u00a0m.')).toBe('El Sol se pone a las 8:10\u00a0p.\u00a0m.');
+    expect(endSentence('The Sun sets at 20:10')).toBe('The Sun sets at 20:10.');
+    expect(tidyPunctuation('a las 9:37 p. m.. Luego')).toBe('a las 9:37 p. m. Luego');
+    expect(tidyPunctuation('Júpiter , visible ,, alto .')).toBe('Júpiter, visible, alto.');
+  });
+});
