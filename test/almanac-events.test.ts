@@ -229,7 +229,7 @@ describe('comet and asteroid events speak for the site', () => {
     const { loadBodies } = await import('../lib/models/content.ts');
     const { computeNight } = await import('../lib/models/night.ts');
     const { nightDateOf } = await import('../lib/outputs/almanac/context.ts');
-    const { VERDICT_WORDS } = await import('../lib/models/visibility.ts');
+    const { verdictWords } = await import('../lib/models/visibility.ts');
     const { formatClock } = await import('../lib/core/time.ts');
     const bodies = loadBodies('content/objects');
     const comet = bodies.get('comet-lumen');
@@ -246,7 +246,7 @@ describe('comet and asteroid events speak for the site', () => {
           expect(e.visible, e.description).toBe(false);
           expect(e.description).toContain('not visible that night');
         } else {
-          expect(e.description).toContain(`${VERDICT_WORDS[v.verdict]} from here`);
+          expect(e.description).toContain(`${verdictWords(v.verdict as "naked-eye")} from here`);
           expect(e.description).toContain(formatClock(v.best!.time, site));
         }
         // The old rule called every comet brighter than magnitude 5 naked-eye "from a dark site", whatever the site.

@@ -6,8 +6,8 @@
  * (Unicode CLDR plural rules, as `Intl.PluralRules` reports them).
  */
 import { describe, expect, it } from 'vitest';
-import { CATALOGUES, LANGUAGES } from '../lib/language/index.ts';
-import { messageShape, parseMessage, type MessagePart } from '../lib/language/message.ts';
+import { CATALOGUES, LANGUAGES } from '../lib/core/language/index.ts';
+import { messageShape, parseMessage, type MessagePart } from '../lib/core/language/message.ts';
 
 /** The argument a grammatical form belongs to: `what_dative` → `what`; the body's own `gender` → null. */
 function base(name: string): string | null {

@@ -7,7 +7,7 @@
  * the platform's CLDR data print for the locale, checked here for the shape a reader expects.
  */
 import { describe, expect, it } from 'vitest';
-import { endSentence, firstSentence, splitSentences, tidyPunctuation, wordsFor } from '../lib/language/index.ts';
+import { endSentence, firstSentence, splitSentences, tidyPunctuation, wordsFor } from '../lib/core/language/index.ts';
 
 const es = wordsFor('es-CL');
 const de = wordsFor('de-DE');
@@ -54,12 +54,12 @@ describe('compass directions and prepositions', () => {
   });
   it('French contracts à le / de le with a direction, and keeps l\u2019', () => {
     expect(fr.t('guide.overhead', { direction: fr.compass(0).word })).toBe('presque au zénith, un peu vers le nord');
-    expect(fr.t('offset.left', { distance: 'à 3°', what: { text: 'le Grand Carré de Pégase', gender: 'masculine' } })).toBe('à 3° à gauche du Grand Carré de Pégase');
-    expect(fr.t('guide.low-in', { direction: fr.compass(270).word, height: 'x' })).toBe("bas vers l'ouest, x");
+    expect(fr.t('offset.left', { distance: '3°', what: { text: 'le Grand Carré de Pégase', gender: 'masculine' } })).toBe('à 3° à gauche du Grand Carré de Pégase');
+    expect(fr.t('guide.low-in', { direction: fr.compass(270).word, height: 'x' })).toBe('bas vers l’ouest, x');
   });
   it('Spanish contracts de el → del and a el → al', () => {
-    expect(es.t('offset.left', { distance: 'a unos 3°', what: { text: 'el Triángulo de Verano', gender: 'masculine' } })).toBe('a unos 3° a la izquierda del Triángulo de Verano');
-    expect(es.t('offset.left', { distance: 'a unos 3°', what: { text: 'la Osa Mayor', gender: 'feminine' } })).toBe('a unos 3° a la izquierda de la Osa Mayor');
+    expect(es.t('offset.left', { distance: 'unos 3°', what: { text: 'el Triángulo de Verano', gender: 'masculine' } })).toBe('a unos 3° a la izquierda del Triángulo de Verano');
+    expect(es.t('offset.left', { distance: 'unos 3°', what: { text: 'la Osa Mayor', gender: 'feminine' } })).toBe('a unos 3° a la izquierda de la Osa Mayor');
   });
   it('German uses the dative and contracts in dem → im, von dem → vom', () => {
     const wagen = { text: 'der Große Wagen', dative: 'dem Großen Wagen', gender: 'masculine' as const };

@@ -39,6 +39,9 @@ import { separationDeg } from '../core/geometry.ts';
 import { OPTICS_SUN_DEPRESSION_DEG, OPTICS_SUN_MINUTES, TOO_CLOSE_TO_SUN_DEG } from './near-sun.ts';
 import { dateFromUt, utDays, type NightFrame, type Track } from '../core/track.ts';
 import { addDays, zonedTime, type Night } from '../core/time.ts';
+import { wordsFor, type Gender, type Words } from '../core/language/index.ts';
+
+const ENGLISH = wordsFor('en');
 
 /**
  * What the visibility model reads of a night (a `NightReport` of `./night.ts` is one): the site,
@@ -71,43 +74,28 @@ export type NotVisibleReason =
   | 'too-faint'
   | 'is-the-sun';
 
-/** Why a not-visible body is not visible, as a phrase (see `reasonText` for the one that names the site's minimum altitude). */
-export const REASON_TEXT: Record<NotVisibleReason, string> = {
-  'below-horizon': 'below the horizon',
-  'behind-skyline': 'behind the skyline',
-  'under-min-altitude': "under the site's minimum altitude",
-  'too-close-to-sun': 'too close to the Sun',
-  'optics-unsafe': 'only visible in binoculars or a telescope while the Sun is too near the horizon to use them safely',
-  daylight: 'hidden by daylight',
-  twilight: 'lost in twilight',
-  moonlight: 'washed out by moonlight',
-  'too-faint': 'too faint',
-  'is-the-sun': 'the Sun is never a target: never look at it directly',
-};
-
-/** The reason phrase for a site: "under the site's minimum altitude (10°)" names the altitude. */
-export function reasonText(reason: NotVisibleReason, site: { minAltitudeDeg: number }): string {
-  return reason === 'under-min-altitude' ? `${REASON_TEXT[reason]} (${Math.round(site.minAltitudeDeg)}°)` : REASON_TEXT[reason];
+/**
+ * Why a not-visible body is not visible, as a phrase in the language of `words` (English by
+ * default): "too close to the Sun", "under the site's minimum altitude (10°)" (it names the
+ * site's minimum altitude). `gender` makes the words agree with the body in languages that need it
+ * ("oculta por la luz del día" for la Luna).
+ */
+export function reasonText(reason: NotVisibleReason, site: { minAltitudeDeg: number }, words: Words = ENGLISH, gender: Gender = 'masculine'): string {
+  return words.t(`reason.${reason}`, { degrees: Math.round(site.minAltitudeDeg), gender });
 }
 
 /** The words for a positive verdict, to follow "is": "Jupiter is visible to the naked eye". */
-export const VERDICT_WORDS = { 'naked-eye': 'visible to the naked eye', binoculars: 'a target for binoculars', telescope: 'a target for a small telescope' } as const;
+export function verdictWords(verdict: InstrumentKind, words: Words = ENGLISH, gender: Gender = 'masculine'): string {
+  return words.t(`verdict.${verdict}`, { gender });
+}
 
 /** Why a viewing window ends. */
 export type WindowEnd = 'optics-safety' | 'sunrise' | 'dawn' | 'sets' | 'behind-skyline' | 'under-min-altitude' | 'low' | 'moonlight' | 'night-end';
 
-/** Phrases for `WindowEnd`, to follow "until HH:MM, when …". */
-export const WINDOW_END_TEXT: Record<WindowEnd, string> = {
-  'optics-safety': 'the Sun is too near the horizon to use binoculars or a telescope safely',
-  sunrise: 'the Sun rises',
-  dawn: 'the dawn sky grows too bright',
-  sets: 'it sets',
-  'behind-skyline': 'it goes behind the skyline',
-  'under-min-altitude': "it sinks under the site's minimum altitude",
-  low: 'it sinks too low into the haze',
-  moonlight: 'moonlight washes it out',
-  'night-end': 'the night ends',
-};
+/** Why a window ends, to follow "until HH:MM, when …", in the language of `words`. */
+export function windowEndText(end: WindowEnd, words: Words = ENGLISH): string {
+  return words.t(`window-end.${end}`);
+}
 
 /** The state of the sky at the best moment. */
 export interface BestMoment {

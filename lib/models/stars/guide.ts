@@ -14,7 +14,8 @@
  * Hand measures are common practice: a fist at arm's length ≈ 10°, a finger ≈ 2°.
  */
 import { Rotation_EQD_EQJ, type AstroTime } from 'astronomy-engine';
-import { compass, handMeasure } from '../../core/describe.ts';
+import { wordsFor, type NamePhrase, type Words } from '../../core/language/index.ts';
+import { bodyPhrase, partPhrase as namedPart, patternPhrase as namedPattern } from '../../core/language/names/index.ts';
 import {
   SkyFrame,
   altitudeOfHor,
@@ -75,11 +76,29 @@ export interface GuideCompanion {
   magnitude: number;
 }
 
+/** What a guide phrase names as its reference: a star (IAU name), a pattern or a part of it, a body. */
+export type GuideRef =
+  | { kind: 'star'; name: string }
+  | { kind: 'pattern'; pattern: { id: string; name: string; sentenceName: string }; part?: { id: string; english: string } }
+  | { kind: 'body'; id: string; name: string };
+
+/**
+ * A guide phrase as data, so that it can be said in any language (`guidePhrase`): an offset from
+ * a reference, that offset placed in or inside a pattern or said to be from a star of one, or
+ * the horizon with where the Sun set or will rise.
+ */
+export type GuideSaid =
+  | { kind: 'offset'; distanceDeg: number; direction: OffsetDirection; from: GuideRef }
+  | { kind: 'in' | 'inside' | 'star-of'; offset: GuideSaid & { kind: 'offset' }; pattern: GuideRef & { kind: 'pattern' } }
+  | { kind: 'horizon'; altitudeDeg: number; azimuthDeg: number; sun: SunPoint | null };
+
 export interface GuideResult {
   /** What the phrase leads from: a star pattern, a named star, a planet, the Moon, or the horizon (and the Sun). */
   kind: GuideKind;
-  /** "about 3° (about 2 fingers) to the upper right of Regulus, in the Sickle of Leo". */
+  /** "about 3° (about 2 fingers) to the upper right of Regulus, in the Sickle of Leo" (English; `guidePhrase(result.said, words)` in another language). */
   phrase: string;
+  /** The phrase as data, for `guidePhrase`. */
+  said: GuideSaid;
   /** The pattern the phrase names (kind 'pattern', or the pattern a guide star belongs to), else null. */
   pattern: { id: string; name: string } | null;
   /** The named part used as the reference ("bowl"), when the phrase names one. */
@@ -174,16 +193,61 @@ function rotate(m: number[][], v: Vec): Vec {
  * "about 0.4° (less than a finger)". Degrees are rounded to whole degrees from 1° up. The hand
  * measure is `handMeasure` from lib/core/describe.ts (common practice: fist ≈ 10°, finger ≈ 2°).
  */
-export function distanceWords(angleDeg: number): string {
+export function distanceWords(angleDeg: number, words: Words = ENGLISH): string {
   const a = Math.abs(angleDeg);
   // The hand measure follows the degrees as printed, so "about 3°" never reads "(about a finger)".
   const shown = a < 1 ? Number(a.toFixed(1)) : Math.round(a);
-  return `about ${a < 1 ? a.toFixed(1) : String(shown)}° (${handMeasure(shown)})`;
+  return words.t('guide.distance', { degrees: words.number(shown, a < 1 ? 1 : 0), hand: words.handMeasure(shown) });
 }
 
-function directionWords(direction: OffsetDirection, what: string): string {
-  if (direction === 'above' || direction === 'below') return `${direction} ${what}`;
-  return `to the ${direction} of ${what}`;
+const ENGLISH = wordsFor('en');
+
+const OFFSET_KEYS = {
+  above: 'offset.above',
+  'upper right': 'offset.upper-right',
+  right: 'offset.right',
+  'lower right': 'offset.lower-right',
+  below: 'offset.below',
+  'lower left': 'offset.lower-left',
+  left: 'offset.left',
+  'upper left': 'offset.upper-left',
+} as const satisfies Record<OffsetDirection, string>;
+
+/** A reference as a sentence names it, in the language of `words`. */
+function refPhrase(ref: GuideRef, words: Words): NamePhrase {
+  if (ref.kind === 'star') return { text: ref.name, gender: 'feminine' };
+  if (ref.kind === 'body') return bodyPhrase(words.language, ref);
+  const pattern = namedPattern(words.language, ref.pattern);
+  if (!ref.part) return pattern;
+  return namedPart(words.language, ref.pattern, ref.part.id, ref.part.english);
+}
+
+/** "about 3° (about 2 fingers) to the upper right of Regulus", in the language of `words`. */
+export function offsetWords(distanceDeg: number, direction: OffsetDirection, what: NamePhrase, words: Words = ENGLISH): string {
+  return words.t(OFFSET_KEYS[direction], { distance: distanceWords(distanceDeg, words), what });
+}
+
+/** A guide phrase in the language of `words` (English gives `GuideResult.phrase`). */
+export function guidePhrase(said: GuideSaid, words: Words = ENGLISH): string {
+  switch (said.kind) {
+    case 'offset':
+      return offsetWords(said.distanceDeg, said.direction, refPhrase(said.from, words), words);
+    case 'in':
+      return words.t('guide.in-pattern', { from: guidePhrase(said.offset, words), pattern: refPhrase(said.pattern, words) });
+    case 'inside':
+      return words.t('guide.inside-pattern', { from: guidePhrase(said.offset, words), pattern: refPhrase(said.pattern, words) });
+    case 'star-of':
+      return words.t('guide.star-of-pattern', { from: guidePhrase(said.offset, words), pattern: refPhrase(said.pattern, words) });
+    case 'horizon': {
+      let phrase = horizonWords(said.altitudeDeg, said.azimuthDeg, words);
+      const sun = said.sun;
+      if (sun) {
+        const where = words.t(sun.event === 'set' ? 'guide.sun-set-point' : 'guide.sun-rise-point');
+        phrase += sun.side === 'above' ? words.t('guide.right-above', { where }) : words.t('guide.beside-sun-point', { distance: distanceWords(sun.offsetDeg, words), side: sun.side, where });
+      }
+      return phrase;
+    }
+  }
 }
 
 interface Group {
@@ -363,7 +427,7 @@ export function guideTarget(options: GuideOptions): GuideResult | null {
     const cost = sep + 1.5 * Math.max(0, s.star.vMag - 1);
     const describe = (): NearestStar & { hor: Vec; altitudeDeg: number } => {
       const o = offsetOfHor(hor, target);
-      return { hip: s.star.hip, name: s.star.name, separationDeg: o.separationDeg, offsetDirection: o.offsetDirection, phrase: fromWords(o, s.star.name), hor, altitudeDeg: altitudeOfHor(hor) };
+      return { hip: s.star.hip, name: s.star.name, separationDeg: o.separationDeg, offsetDirection: o.offsetDirection, phrase: offsetWords(o.separationDeg, o.offsetDirection, { text: s.star.name, gender: 'feminine' }), hor, altitudeDeg: altitudeOfHor(hor) };
     };
     if (cost < bestCost) {
       bestCost = cost;
@@ -403,11 +467,12 @@ export function guideTarget(options: GuideOptions): GuideResult | null {
   }
   if (companion) {
     const { c, o } = companion;
-    const name = c.kind === 'moon' ? 'the Moon' : c.name;
+    const said: GuideSaid = { kind: 'offset', distanceDeg: o.separationDeg, direction: o.offsetDirection, from: { kind: 'body', id: c.id, name: c.kind === 'moon' ? 'the Moon' : c.name } };
     return {
       ...base,
       kind: c.kind,
-      phrase: fromWords(o, name),
+      phrase: guidePhrase(said),
+      said,
       pattern: null,
       anchorBody: c.id,
       separationDeg: o.separationDeg,
@@ -419,10 +484,13 @@ export function guideTarget(options: GuideOptions): GuideResult | null {
   // Rule 3: a bright named star, with the pattern it belongs to when that pattern stands up.
   if (guideStar) {
     const home = patternOfStar(guideStar.hip, frame, minAltitudeDeg);
+    const offset = { kind: 'offset' as const, distanceDeg: guideStar.separationDeg, direction: guideStar.offsetDirection, from: { kind: 'star' as const, name: guideStar.name } };
+    const said: GuideSaid = home ? { kind: 'star-of', offset, pattern: { kind: 'pattern', pattern: home } } : offset;
     const result: GuideResult = {
       ...base,
       kind: 'star',
-      phrase: home ? `${guideStar.phrase}, a star of ${home.sentenceName}` : guideStar.phrase,
+      phrase: guidePhrase(said),
+      said,
       pattern: home ? { id: home.id, name: home.name } : null,
       anchorStar: guideStar.name,
       separationDeg: guideStar.separationDeg,
@@ -435,15 +503,12 @@ export function guideTarget(options: GuideOptions): GuideResult | null {
   // Rule 4: the horizon, and where the Sun set or will rise.
   const azimuthDeg = azimuthOfHor(target);
   const sunPart = sun && sunAltitudeDeg !== null && options.sun ? sunPoint(options.observer.latitudeDeg, options.sun.decDeg, sunAltitudeDeg, azimuthOfHor(sun), azimuthDeg) : null;
-  let phrase = horizonWords(apparentAltitude, azimuthDeg);
-  if (sunPart) {
-    const where = sunPart.event === 'set' ? 'where the Sun set' : 'where the Sun will rise';
-    phrase += sunPart.side === 'above' ? `, right above ${where}` : `, ${distanceWords(sunPart.offsetDeg)} to the ${sunPart.side} of ${where}`;
-  }
+  const said: GuideSaid = { kind: 'horizon', altitudeDeg: apparentAltitude, azimuthDeg, sun: sunPart };
   return {
     ...base,
     kind: 'horizon',
-    phrase,
+    phrase: guidePhrase(said),
+    said,
     pattern: null,
     separationDeg: null,
     offsetDirection: null,
@@ -452,9 +517,9 @@ export function guideTarget(options: GuideOptions): GuideResult | null {
   };
 }
 
-/** "about 3° (about 2 fingers) to the upper right of Regulus". */
-function fromWords(o: { separationDeg: number; offsetDirection: OffsetDirection }, what: string): string {
-  return `${distanceWords(o.separationDeg)} ${directionWords(o.offsetDirection, what)}`;
+/** An offset from a named star. */
+function fromStar(o: { separationDeg: number; offsetDirection: OffsetDirection }, name: string): GuideSaid & { kind: 'offset' } {
+  return { kind: 'offset', distanceDeg: o.separationDeg, direction: o.offsetDirection, from: { kind: 'star', name } };
 }
 
 /** Rule 1's phrase for the best-ranked pattern, or null when the target is neither within its figure nor close to it. */
@@ -463,10 +528,10 @@ function patternPhrase(
   target: Vec,
   guideStar: { hip: number; name: string; hor: Vec } | null,
   clear: (v: Vec) => boolean,
-): Pick<GuideResult, 'phrase' | 'pattern' | 'part' | 'anchorStar' | 'inside' | 'separationDeg' | 'offsetDirection' | 'names'> | null {
+): Pick<GuideResult, 'phrase' | 'said' | 'pattern' | 'part' | 'anchorStar' | 'inside' | 'separationDeg' | 'offsetDirection' | 'names'> | null {
   const { group, centroid, hors, nearest } = best;
   const pattern = group.pattern;
-  const what = group.part === undefined ? pattern.sentenceName : partPhrase(pattern, group.part);
+  const what: GuideRef & { kind: 'pattern' } = { kind: 'pattern', pattern, ...(group.part === undefined ? {} : { part: { id: group.part, english: partPhrase(pattern, group.part) } }) };
   const inside = group.stars.length >= 3 && insideOutline(centroid, hors, target);
   // "in" reaches as far from the figure's stars as the figure is wide (its radius), at least 1°, at most IN_PATTERN_DEG.
   const inLimitDeg = Math.min(IN_PATTERN_DEG, Math.max(1, group.radiusDeg));
@@ -489,10 +554,11 @@ function patternPhrase(
   const insideAnchor = a ? { hip: a.star.hip, name: a.star.name, hor: a.hor } : guideStar;
   if (inside && insideAnchor) {
     const o = offsetOfHor(insideAnchor.hor, target);
-    const fromStar = fromWords(o, insideAnchor.name);
+    const said: GuideSaid = { kind: o.separationDeg > 3 ? 'inside' : 'in', offset: fromStar(o, insideAnchor.name), pattern: what };
     return {
       ...common,
-      phrase: o.separationDeg > 3 ? `inside ${what}, ${fromStar}` : `${fromStar}, in ${what}`,
+      phrase: guidePhrase(said),
+      said,
       anchorStar: insideAnchor.name,
       separationDeg: o.separationDeg,
       offsetDirection: o.offsetDirection,
@@ -503,7 +569,8 @@ function patternPhrase(
     const o = offsetOfHor(a.hor, target);
     return {
       ...common,
-      phrase: `${fromWords(o, a.star.name)}, in ${what}`,
+      phrase: guidePhrase({ kind: 'in', offset: fromStar(o, a.star.name), pattern: what }),
+      said: { kind: 'in', offset: fromStar(o, a.star.name), pattern: what },
       anchorStar: a.star.name,
       separationDeg: o.separationDeg,
       offsetDirection: o.offsetDirection,
@@ -517,7 +584,8 @@ function patternPhrase(
     return {
       ...common,
       inside: false,
-      phrase: `${distanceWords(nearest.sep)} ${directionWords(o.offsetDirection, what)}`,
+      phrase: guidePhrase({ kind: 'offset', distanceDeg: nearest.sep, direction: o.offsetDirection, from: what }),
+      said: { kind: 'offset', distanceDeg: nearest.sep, direction: o.offsetDirection, from: what },
       separationDeg: nearest.sep,
       offsetDirection: o.offsetDirection,
       names: [patternName],
@@ -584,12 +652,11 @@ function patternOfStar(hip: number, frame: SkyFrame, minAltitudeDeg: number): St
  * "low in the west-southwest, about a fist above the horizon": below 20° "low in the …", below
  * 50° "in the …", below 75° "high in the …", above that "nearly overhead, a little to the …".
  */
-export function horizonWords(altitudeDeg: number, azimuthDeg: number): string {
-  const word = compass(azimuthDeg).word;
-  if (altitudeDeg >= 75) return `nearly overhead, a little to the ${word}`;
-  const height = altitudeDeg < 1 ? 'just above the horizon' : `${handMeasure(altitudeDeg)} above the horizon`;
-  const where = altitudeDeg < 20 ? `low in the ${word}` : altitudeDeg < 50 ? `in the ${word}` : `high in the ${word}`;
-  return `${where}, ${height}`;
+export function horizonWords(altitudeDeg: number, azimuthDeg: number, words: Words = ENGLISH): string {
+  const direction = words.compass(azimuthDeg).word;
+  if (altitudeDeg >= 75) return words.t('guide.overhead', { direction });
+  const height = altitudeDeg < 1 ? words.t('guide.just-above-horizon') : words.t('guide.height', { hand: words.handMeasure(altitudeDeg) });
+  return words.t(altitudeDeg < 20 ? 'guide.low-in' : altitudeDeg < 50 ? 'guide.in' : 'guide.high-in', { direction, height });
 }
 
 /**

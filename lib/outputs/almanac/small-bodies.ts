@@ -15,7 +15,7 @@ import { KM_PER_AU } from '../../core/observe.ts';
 import { nightDateOf, type AlmanacContext } from './context.ts';
 import { eventVisibility, hidden } from './visibility.ts';
 import { computeNight } from '../../models/night.ts';
-import { reasonText, VERDICT_WORDS } from '../../models/visibility.ts';
+import { reasonText, verdictWords } from '../../models/visibility.ts';
 import type { AlmanacEvent, AlmanacEventType } from './types.ts';
 
 const DELTA_DAYS = 0.01;
@@ -29,7 +29,7 @@ function siteWords(ctx: AlmanacContext, body: Body, time: Date): { words: string
   const v = computeNight(ctx.site, nightDateOf(time, ctx.site.timeZone), [body]).body(body).visibility;
   if (v.verdict === 'not-visible' || !v.best) return { words: `; from here it is not visible that night: ${reasonText(v.reason ?? 'too-faint', ctx.site)}`, seen: false };
   const day = ctx.day(v.best.time) === ctx.day(time) ? '' : ` (${ctx.day(v.best.time)})`;
-  return { words: `, ${VERDICT_WORDS[v.verdict]} from here; look ${compass(v.best.azimuthDeg).word} at ${ctx.clock(v.best.time)}${day}`, seen: true };
+  return { words: `, ${verdictWords(v.verdict)} from here; look ${compass(v.best.azimuthDeg).word} at ${ctx.clock(v.best.time)}${day}`, seen: true };
 }
 
 /** Minima of `quantity` over [from, to) as instants. */

@@ -19,6 +19,7 @@
  * the file as warnings (`warningsOnFile`). Lines are the file's own: a caller that parses only a
  * template's body gives the file its front matter as blank lines (see `render.ts`).
  */
+import { wordsFor } from '../../core/language/index.ts';
 import type { ElementContent } from 'hast';
 import type { List, Nodes, Parent, Root, RootContent, Text } from 'mdast';
 import type { ContainerDirective, LeafDirective, TextDirective } from 'mdast-util-directive';
@@ -370,7 +371,7 @@ class Pass {
   }
 
   get eventSpan(): string {
-    return this.scope.eventNights ? 'around this date' : 'this week';
+    return wordsFor(this.scope.site.locale).t(this.scope.eventNights ? 'span.around-date' : 'span.week');
   }
 
   defaults(binding: Binding): Defaults {

@@ -12,7 +12,7 @@
 import type { Body } from '../../core/body.ts';
 import type { NightReport } from '../../models/night.ts';
 import type { Site } from '../../core/site.ts';
-import { REASON_TEXT, type Visibility } from '../../models/visibility.ts';
+import { reasonText, type Visibility } from '../../models/visibility.ts';
 import type { ChartCache, ChartRequest, DeliveredChart } from './cache.ts';
 import { eveningMoment } from './whole-sky.ts';
 
@@ -68,7 +68,7 @@ export function placeholderChart(input: {
   } else {
     const best = input.visibility.best;
     if (!best) {
-      const reason = input.visibility.reason ? REASON_TEXT[input.visibility.reason] : 'not visible';
+      const reason = input.visibility.reason ? reasonText(input.visibility.reason, input.site) : 'not visible';
       return { kind: 'not-visible', reason };
     }
     const trackDays = [0, 1, 2, 3, 4, 5, 6].map((i) => i - input.nightIndex).filter((d) => d !== 0);

@@ -9,7 +9,7 @@ import type { NightReport } from '../../models/night.ts';
 import type { Observation } from '../../core/observe.ts';
 import { PHASE_LABEL } from '../../core/moon.ts';
 import { formatInstant } from '../../core/time.ts';
-import { reasonText, WINDOW_END_TEXT, type Visibility } from '../../models/visibility.ts';
+import { reasonText, windowEndText, type Visibility } from '../../models/visibility.ts';
 import type { WeekReport } from '../../models/week.ts';
 import type { GuideResult } from '../../models/stars/guide.ts';
 
@@ -134,7 +134,7 @@ export function visibilityJson(v: Visibility, zone: string, site: { minAltitudeD
         }
       : null,
     window: v.window
-      ? { start: formatInstant(v.window.start, zone), end: formatInstant(v.window.end, zone), endReason: v.window.endReason, endsBecause: WINDOW_END_TEXT[v.window.endReason] }
+      ? { start: formatInstant(v.window.start, zone), end: formatInstant(v.window.end, zone), endReason: v.window.endReason, endsBecause: windowEndText(v.window.endReason) }
       : null,
     verdict: v.verdict,
     instrument: v.instrument?.id ?? null,

@@ -10,6 +10,9 @@ import type { EventTime, MissingReason } from '../../../core/events.ts';
 import type { Site } from '../../../core/site.ts';
 import { formatInstant } from '../../../core/time.ts';
 import { reasonText, type Visibility } from '../../../models/visibility.ts';
+import { wordsFor, type Words } from '../../../core/language/index.ts';
+import { bodyLabel, bodyPhrase } from '../../../core/language/names/index.ts';
+import { TWILIGHT_DEPTH_DEG, type MissingPhrases, type TwilightKind } from './phrases.ts';
 import type { AlmanacEvent } from '../../almanac/index.ts';
 import type { AttributeSpec, AttributeValue } from '../attributes.ts';
 import { el, formatClock, type Clock, type TimePrecision } from '../format.ts';
@@ -87,6 +90,16 @@ export const TIME_ATTRS = { night: NIGHT, clock: CLOCK, precision: TIME_PRECISIO
 // Helpers
 
 
+/** The words of the page's language (its site's locale). */
+export function wordsOf(call: PlaceholderCall): Words {
+  return wordsFor(call.site.locale);
+}
+
+/** A body's label in the page's language ("Jupiter", "Júpiter"). */
+export function labelOf(call: PlaceholderCall, body: Body): string {
+  return bodyLabel(wordsOf(call).language, body);
+}
+
 export function classes(call: PlaceholderCall, ...extra: string[]): Properties {
   return { className: ['gl', `gl-${call.name}`, ...extra] };
 }
@@ -137,12 +150,23 @@ export function missingElement(call: PlaceholderCall, reason: MissingReason, phr
   return noValue(call, phrase, { dataReason: reason, ...data });
 }
 
-export function eventElement(call: PlaceholderCall, event: EventTime, phrases: Record<MissingReason, string>, data: Properties = {}): ElementContent {
-  return event.time ? timeElement(call, event.time, data) : missingElement(call, event.reason, phrases[event.reason], data);
+export function eventElement(call: PlaceholderCall, event: EventTime, phrases: MissingPhrases | TwilightKind, data: Properties = {}): ElementContent {
+  return event.time ? timeElement(call, event.time, data) : missingElement(call, event.reason, missingText(call, phrases, event.reason), data);
+}
+
+/** Why an event does not happen, in the page's language; for a twilight, with its depth. */
+export function missingText(call: PlaceholderCall, phrases: MissingPhrases | TwilightKind, reason: MissingReason): string {
+  const words = wordsOf(call);
+  if (typeof phrases !== 'string') return words.t(phrases[reason]);
+  if (reason === 'outside-night') return words.t('missing.not-this-night');
+  const depth = TWILIGHT_DEPTH_DEG[phrases];
+  return words.t(reason === 'stays-above' || reason === 'always-above' ? 'missing.no-darkness' : 'missing.dark-all-day', { kind: phrases, depth });
 }
 
 /** The honest phrase for a body with no best moment this night. */
 export function notVisible(call: PlaceholderCall, body: Body, v: Visibility, data: Properties = {}): ElementContent {
   const reason = v.reason ?? 'too-faint';
-  return noValue(call, `${body.name} is not visible this night: ${reasonText(reason, call.site)}`, { dataBody: body.id, dataVerdict: v.verdict, dataReason: reason, ...data }, `seen=either body=${body.id}`);
+  const words = wordsOf(call);
+  const said = words.t('ph.not-visible', { name: labelOf(call, body), reason: reasonText(reason, call.site, words, bodyPhrase(words.language, body).gender) });
+  return noValue(call, said, { dataBody: body.id, dataVerdict: v.verdict, dataReason: reason, ...data }, `seen=either body=${body.id}`);
 }

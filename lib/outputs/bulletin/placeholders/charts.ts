@@ -1,8 +1,9 @@
 /** `::chart`: a finder chart of the body at its best time, or of the whole sky. */
+import { firstSentence } from '../../../core/language/index.ts';
 import type { ElementContent } from 'hast';
 import { placeholderChart } from '../../chart/index.ts';
 import { el } from '../format.ts';
-import { BODY, NIGHT, bodyOf, classes, nightDate, showsBody, type PlaceholderCall, type PlaceholderSpec } from './call.ts';
+import { BODY, NIGHT, bodyOf, classes, nightDate, showsBody, labelOf, wordsOf, type PlaceholderCall, type PlaceholderSpec } from './call.ts';
 
 /** `::chart`: a figure with the finder chart image and a caption, or an honest sentence. */
 function chart(call: PlaceholderCall): ElementContent {
@@ -19,10 +20,10 @@ function chart(call: PlaceholderCall): ElementContent {
     cache: output.cache,
   });
   if (r.kind === 'not-visible') {
-    return el('p', { ...classes(call, 'gl-none'), dataReason: visibility.reason ?? 'not-visible' }, `No finder chart for ${body.name} this night: ${r.reason}.`);
+    return el('p', { ...classes(call, 'gl-none'), dataReason: visibility.reason ?? 'not-visible' }, wordsOf(call).t('chart.none', { name: labelOf(call, body), reason: r.reason }));
   }
   const c = r.chart;
-  const caption = c.alt.split(/(?<=\.)\s/)[0] ?? c.alt;
+  const caption = firstSentence(c.alt, wordsOf(call).language);
   return el('figure', { ...classes(call), dataChart: c.key, dataBody: body.id, dataNight: nightDate(call) }, [
     el('img', { src: output.url(c.files.svg), width: c.width, height: c.height, loading: 'lazy', decoding: 'async', alt: c.alt }),
     el('figcaption', {}, caption),

@@ -4,8 +4,9 @@ import type { Body } from '../../../core/body.ts';
 import { GloamingError } from '../../../core/errors.ts';
 import { formatInstant, localDateOf } from '../../../core/time.ts';
 import { EVENT_TYPES, pickEvent, type AlmanacEvent, type AlmanacEventType } from '../../almanac/index.ts';
-import { el, exact, formatClock, formatDay, formatNumber } from '../format.ts';
-import { BODY, CLOCK, classes, noValue, type PlaceholderCall, type PlaceholderSpec } from './call.ts';
+import { el, exact, formatClock, formatDay } from '../format.ts';
+import { bodyPhrase } from '../../../core/language/names/index.ts';
+import { BODY, CLOCK, classes, noValue, labelOf, wordsOf, type PlaceholderCall, type PlaceholderSpec } from './call.ts';
 
 /** One almanac event as a list item: time, sentence, visibility note and any caution. */
 function eventItem(call: PlaceholderCall, e: AlmanacEvent): ElementContent {
@@ -26,7 +27,7 @@ function weekEvents(call: PlaceholderCall): ElementContent {
   const order = call.attrs.get('order') as 'time' | 'interest';
   const events = [...call.events()];
   if (order === 'interest') events.sort((a, b) => b.score - a.score || a.time.getTime() - b.time.getTime());
-  if (events.length === 0) return el('p', { ...classes(call, 'gl-none') }, `No special events ${call.eventSpan}.`);
+  if (events.length === 0) return el('p', { ...classes(call, 'gl-none') }, wordsOf(call).t('ph.no-events', { span: call.eventSpan }));
   return el('ul', { ...classes(call), dataOrder: order }, events.map((e) => eventItem(call, e)));
 }
 
@@ -35,7 +36,10 @@ function oneEvent(call: PlaceholderCall): ElementContent {
   const type = call.attrs.get('type') as AlmanacEventType | undefined;
   const body = call.attrs.get('body') as Body | undefined;
   const e = type === undefined ? (call.event ?? null) : pickEvent(call.events(), { type, ...(body ? { bodies: [body.id] } : {}) });
-  if (!e) return noValue(call, `no ${(type ?? 'event').replace(/-/g, ' ')}${body ? ` involving ${body.name}` : ''} ${call.eventSpan}`, { dataType: type ?? '' }, `event=${type ?? '…'}${body ? ` body=${body.id}` : ''}`);
+  const words = wordsOf(call);
+  const what = words.t(`event-type.${type ?? 'any'}`);
+  const said = body ? words.t('ph.no-event-involving', { type: what, name: labelOf(call, body), span: call.eventSpan }) : words.t('ph.no-event', { type: what, span: call.eventSpan });
+  if (!e) return noValue(call, said, { dataType: type ?? '' }, `event=${type ?? '…'}${body ? ` body=${body.id}` : ''}`);
   const zone = call.site.timeZone;
   const data = { ...classes(call), dataType: e.type, dataVisible: String(e.visible) };
   switch (call.attrs.get('show')) {
@@ -43,8 +47,8 @@ function oneEvent(call: PlaceholderCall): ElementContent {
       return el('time', { ...data, dateTime: localDateOf(e.time, zone) }, formatDay(localDateOf(e.time, zone), call.site, { weekday: 'long' }));
     case 'separation':
       return e.separationDeg === undefined
-        ? noValue(call, `no separation for ${e.title}`, { dataType: e.type })
-        : el('data', { ...data, value: exact(e.separationDeg, 4) }, `${formatNumber(e.separationDeg, e.separationDeg < 1 ? 1 : 0)}°`);
+        ? noValue(call, words.t('ph.no-separation', { title: e.title }), { dataType: e.type })
+        : el('data', { ...data, value: exact(e.separationDeg, 4) }, `${words.number(e.separationDeg, e.separationDeg < 1 ? 1 : 0)}°`);
     case 'sentence':
       return el('span', data, e.description);
     case 'title':
@@ -57,7 +61,7 @@ function oneEvent(call: PlaceholderCall): ElementContent {
 /** `:name`: the name of a body, or of the body or event an enclosing section binds. */
 function nameOf(call: PlaceholderCall): ElementContent {
   const body = call.attrs.get('body') as Body | undefined;
-  if (body) return el('span', { ...classes(call), dataBody: body.id }, body.kind === 'moon' ? 'the Moon' : body.name);
+  if (body) return el('span', { ...classes(call), dataBody: body.id }, body.kind === 'moon' ? bodyPhrase(wordsOf(call).language, body).text : labelOf(call, body));
   const e = call.event!;
   return el('span', { ...classes(call), dataType: e.type }, e.title);
 }

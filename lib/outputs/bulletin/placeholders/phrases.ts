@@ -3,46 +3,37 @@
  * words inside a sentence.
  */
 import type { MissingReason } from '../../../core/events.ts';
-import { PHASE_LABEL } from '../../../core/moon.ts';
+import type { MessageKey } from '../../../core/language/index.ts';
 
-export const RISE_PHRASES: Record<MissingReason, string> = {
-  'always-below': 'does not rise this night',
-  'always-above': 'stays up all night',
-  'outside-night': 'does not rise this night',
-  'stays-above': 'stays up all night',
-  'stays-below': 'does not rise this night',
+/** Catalogue keys of the phrases for an event that does not happen, by reason (lib/core/language). */
+export type MissingPhrases = Readonly<Record<MissingReason, MessageKey>>;
+
+export const RISE_PHRASES: MissingPhrases = {
+  'always-below': 'missing.does-not-rise',
+  'always-above': 'missing.stays-up',
+  'outside-night': 'missing.does-not-rise',
+  'stays-above': 'missing.stays-up',
+  'stays-below': 'missing.does-not-rise',
 };
-export const SET_PHRASES: Record<MissingReason, string> = {
+export const SET_PHRASES: MissingPhrases = {
   ...RISE_PHRASES,
-  'always-above': 'does not set this night',
-  'outside-night': 'does not set this night',
-  'stays-above': 'does not set this night',
+  'always-above': 'missing.does-not-set',
+  'outside-night': 'missing.does-not-set',
+  'stays-above': 'missing.does-not-set',
 };
-export const TRANSIT_PHRASES: Record<MissingReason, string> = {
-  'always-below': 'does not cross the meridian this night',
-  'always-above': 'does not cross the meridian this night',
-  'outside-night': 'does not cross the meridian this night',
-  'stays-above': 'does not cross the meridian this night',
-  'stays-below': 'does not cross the meridian this night',
+export const TRANSIT_PHRASES: MissingPhrases = {
+  'always-below': 'missing.no-transit',
+  'always-above': 'missing.no-transit',
+  'outside-night': 'missing.no-transit',
+  'stays-above': 'missing.no-transit',
+  'stays-below': 'missing.no-transit',
 };
-export const SUN_PHRASES: Record<MissingReason, string> = {
-  'always-above': 'the Sun stays up all night',
-  'stays-above': 'the Sun stays up all night',
-  'always-below': 'the Sun stays below the horizon all day',
-  'stays-below': 'the Sun stays below the horizon all day',
-  'outside-night': 'not during this night',
+export const SUN_PHRASES: MissingPhrases = {
+  'always-above': 'missing.sun-stays-up',
+  'stays-above': 'missing.sun-stays-up',
+  'always-below': 'missing.sun-stays-down',
+  'stays-below': 'missing.sun-stays-down',
+  'outside-night': 'missing.not-this-night',
 };
 export const TWILIGHT_DEPTH_DEG = { civil: 6, nautical: 12, astronomical: 18 } as const;
 export type TwilightKind = keyof typeof TWILIGHT_DEPTH_DEG;
-
-export function twilightPhrases(kind: TwilightKind): Record<MissingReason, string> {
-  const depth = TWILIGHT_DEPTH_DEG[kind];
-  const light = `no ${kind} darkness this night: the Sun stays less than ${depth}° below the horizon`;
-  const dark = `dark all day: the Sun stays more than ${depth}° below the horizon`;
-  return { 'stays-above': light, 'always-above': light, 'stays-below': dark, 'always-below': dark, 'outside-night': 'not during this night' };
-}
-
-
-export const PHASE_WORDS: Record<keyof typeof PHASE_LABEL, string> = Object.fromEntries(
-  Object.entries(PHASE_LABEL).map(([k, v]) => [k, v.charAt(0).toLowerCase() + v.slice(1)]),
-) as Record<keyof typeof PHASE_LABEL, string>;

@@ -1,14 +1,14 @@
 /** Where and how bright: a body's compass direction and altitude at a moment, and its magnitude. */
 import type { ElementContent } from 'hast';
 import type { Body } from '../../../core/body.ts';
-import { compass, fists, handMeasure } from '../../../core/describe.ts';
-import type { EventTime, MissingReason } from '../../../core/events.ts';
+import { compass, fists } from '../../../core/describe.ts';
+import type { EventTime } from '../../../core/events.ts';
 import { addDays, formatInstant, zonedTime } from '../../../core/time.ts';
 import type { Visibility } from '../../../models/visibility.ts';
 import type { ClockTime } from '../attributes.ts';
-import { el, exact, formatNumber } from '../format.ts';
-import { BODY, DIGITS, NIGHT, bodyOf, classes, digitsOf, missingElement, nightDate, notVisible, showsBody, type PlaceholderCall, type PlaceholderSpec } from './call.ts';
-import { RISE_PHRASES, SET_PHRASES, TRANSIT_PHRASES } from './phrases.ts';
+import { el, exact } from '../format.ts';
+import { BODY, DIGITS, NIGHT, bodyOf, classes, digitsOf, missingElement, missingText, nightDate, notVisible, showsBody, wordsOf, type PlaceholderCall, type PlaceholderSpec } from './call.ts';
+import { RISE_PHRASES, SET_PHRASES, TRANSIT_PHRASES, type MissingPhrases } from './phrases.ts';
 
 /** The instant of a moment attribute on the placeholder's night: a rise/transit/set event or a clock time. */
 function momentOf(call: PlaceholderCall, body: Body): { event: EventTime; at: string; visibility?: Visibility } {
@@ -28,7 +28,7 @@ function momentOf(call: PlaceholderCall, body: Body): { event: EventTime; at: st
   return { event: { time: zonedTime(date, moment.hour, moment.minute, call.site.timeZone) }, at: label };
 }
 
-function momentPhrases(at: string): Record<MissingReason, string> {
+function momentPhrases(at: string): MissingPhrases {
   return at === 'rise' ? RISE_PHRASES : at === 'set' ? SET_PHRASES : TRANSIT_PHRASES;
 }
 
@@ -36,11 +36,11 @@ function direction(call: PlaceholderCall): ElementContent {
   const body = bodyOf(call);
   const { event, at, visibility } = momentOf(call, body);
   if (visibility && !visibility.best) return notVisible(call, body, visibility, { dataAt: at });
-  if (!event.time) return missingElement(call, event.reason, momentPhrases(at)[event.reason], { dataBody: body.id, dataAt: at });
+  if (!event.time) return missingElement(call, event.reason, missingText(call, momentPhrases(at), event.reason), { dataBody: body.id, dataAt: at });
   const o = call.week.observe(body, event.time);
   const style = call.attrs.get('style') as string;
-  const point = compass(o.azimuthDeg);
-  let words = style === 'short' ? point.abbreviation : style === 'degrees' ? `${formatNumber(o.azimuthDeg, 0)}°` : point.word;
+  const point = compass(o.azimuthDeg, wordsOf(call));
+  let words = style === 'short' ? point.abbreviation : style === 'degrees' ? `${wordsOf(call).number(o.azimuthDeg, 0)}°` : point.word;
   if (typeof call.attrs.get('at') !== 'string' && o.altitudeDeg < 0) words += ' (below the horizon then)';
   return el(
     'data',
@@ -53,11 +53,12 @@ function altitude(call: PlaceholderCall): ElementContent {
   const body = bodyOf(call);
   const { event, at, visibility } = momentOf(call, body);
   if (visibility && !visibility.best) return notVisible(call, body, visibility, { dataAt: at });
-  if (!event.time) return missingElement(call, event.reason, momentPhrases(at)[event.reason], { dataBody: body.id, dataAt: at });
+  if (!event.time) return missingElement(call, event.reason, missingText(call, momentPhrases(at), event.reason), { dataBody: body.id, dataAt: at });
   const o = call.week.observe(body, event.time);
   const digits = digitsOf(call, 0);
-  const deg = `${formatNumber(o.altitudeDeg, digits)}°`;
-  const words = o.altitudeDeg < 0 ? `below the horizon (${deg})` : `${deg} (${handMeasure(o.altitudeDeg)})`;
+  const lang = wordsOf(call);
+  const deg = `${lang.number(o.altitudeDeg, digits)}°`;
+  const words = o.altitudeDeg < 0 ? lang.t('ph.altitude-below', { degrees: deg }) : lang.t('ph.altitude', { degrees: deg, hand: lang.handMeasure(o.altitudeDeg) });
   return el(
     'data',
     { ...classes(call, ...(o.altitudeDeg < 0 ? ['gl-below'] : [])), value: exact(o.altitudeDeg, 2), dataBody: body.id, dataAt: at, dataAltitudeDeg: exact(o.altitudeDeg, 3), dataFists: String(fists(o.altitudeDeg)), dataTime: formatInstant(event.time, call.site.timeZone) },
@@ -72,16 +73,16 @@ function magnitude(call: PlaceholderCall): ElementContent {
   const band = m.brightest !== Math.min(...m.values) || m.faintest !== Math.max(...m.values) ? { dataBrightest: exact(m.brightest, 2), dataFaintest: exact(m.faintest, 2) } : {};
   if (call.given.has('night')) {
     const v = m.values[call.night]!;
-    return el('data', { ...classes(call), value: exact(v, 2), dataBody: body.id, dataNight: nightDate(call), ...band }, formatNumber(v, digits));
+    return el('data', { ...classes(call), value: exact(v, 2), dataBody: body.id, dataNight: nightDate(call), ...band }, wordsOf(call).number(v, digits));
   }
   const first = m.values[0]!;
   const last = m.values[6]!;
-  const a = formatNumber(first, digits);
-  const b = formatNumber(last, digits);
+  const a = wordsOf(call).number(first, digits);
+  const b = wordsOf(call).number(last, digits);
   const lo = Math.min(...m.values);
   const hi = Math.max(...m.values);
   // A range only when the week's change reaches one unit of the last digit shown (rounding alone must not make one).
-  const text = hi - lo < 10 ** -digits || a === b ? a : `${a} to ${b}`;
+  const text = hi - lo < 10 ** -digits || a === b ? a : wordsOf(call).t('ph.magnitude-range', { first: a, last: b });
   return el(
     'data',
     { ...classes(call), value: exact(first, 2), dataBody: body.id, dataWeek: call.week.week.id, dataMagnitudeFirst: exact(first, 2), dataMagnitudeLast: exact(last, 2), dataMagnitudeMin: exact(lo, 2), dataMagnitudeMax: exact(hi, 2), ...band },

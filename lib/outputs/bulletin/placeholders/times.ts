@@ -2,7 +2,7 @@
 import type { ElementContent } from 'hast';
 import { el, formatDay, formatDayRange } from '../format.ts';
 import { BODY, NIGHT, TIME_ATTRS, TWILIGHT, bodyOf, classes, eventElement, nightDate, showsBody, type PlaceholderCall, type PlaceholderSpec } from './call.ts';
-import { RISE_PHRASES, SET_PHRASES, SUN_PHRASES, TRANSIT_PHRASES, twilightPhrases, type TwilightKind } from './phrases.ts';
+import { RISE_PHRASES, SET_PHRASES, SUN_PHRASES, TRANSIT_PHRASES, type TwilightKind } from './phrases.ts';
 
 
 function sunTime(field: 'set' | 'rise') {
@@ -14,7 +14,7 @@ function twilight(edge: 'dusk' | 'dawn') {
     const kind = call.attrs.get('kind') as TwilightKind;
     const sun = call.week.nights[call.night]!.sun;
     const key = `${kind}${edge === 'dusk' ? 'Dusk' : 'Dawn'}` as const;
-    return eventElement(call, sun[key], twilightPhrases(kind), { dataTwilight: kind });
+    return eventElement(call, sun[key], kind, { dataTwilight: kind });
   };
 }
 

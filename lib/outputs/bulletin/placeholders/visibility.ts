@@ -1,11 +1,13 @@
 /** What a reader can see: best time, viewing window, verdict, where to look, and the night's targets. */
 import type { ElementContent, Properties } from 'hast';
-import { compass, handMeasure } from '../../../core/describe.ts';
+import { compass } from '../../../core/describe.ts';
+import { bodyPhrase } from '../../../core/language/names/index.ts';
+import { guidePhrase } from '../../../models/stars/guide.ts';
 import { formatInstant } from '../../../core/time.ts';
 import type { BodyNight } from '../../../models/night.ts';
-import { reasonText, VERDICT_WORDS, WINDOW_END_TEXT, type Visibility } from '../../../models/visibility.ts';
-import { el, exact, formatClock, formatNumber } from '../format.ts';
-import { BODY, NIGHT, TIME_ATTRS, bodyOf, classes, nightDate, noValue, notVisible, precisionOf, showsBody, timeElement, type PlaceholderCall, type PlaceholderSpec } from './call.ts';
+import { reasonText, verdictWords, windowEndText, type Visibility } from '../../../models/visibility.ts';
+import { el, exact, formatClock } from '../format.ts';
+import { BODY, NIGHT, TIME_ATTRS, bodyOf, classes, nightDate, noValue, notVisible, precisionOf, showsBody, timeElement, labelOf, wordsOf, type PlaceholderCall, type PlaceholderSpec } from './call.ts';
 
 function visibilityData(v: Visibility): Properties {
   return {
@@ -32,7 +34,7 @@ function viewingWindow(call: PlaceholderCall): ElementContent {
   const zone = call.site.timeZone;
   const format = { clock: call.clock, precision: precisionOf(call) };
   // An optics window cut short for safety says so, so nobody keeps sweeping towards the rising Sun.
-  const why: ElementContent[] = v.window.endReason === 'optics-safety' ? [{ type: 'text', value: `, when ${WINDOW_END_TEXT['optics-safety']}` }] : [];
+  const why: ElementContent[] = v.window.endReason === 'optics-safety' ? [{ type: 'text', value: wordsOf(call).t('window.when', { why: windowEndText('optics-safety', wordsOf(call)) }) }] : [];
   return el('span', { ...classes(call), dataNight: nightDate(call), dataBody: body.id, dataEndReason: v.window.endReason, ...visibilityData(v) }, [
     el('time', { dateTime: formatInstant(v.window.start, zone) }, formatClock(v.window.start, call.site, format)),
     { type: 'text', value: '\u2013' },
@@ -44,18 +46,21 @@ function viewingWindow(call: PlaceholderCall): ElementContent {
 function verdict(call: PlaceholderCall): ElementContent {
   const body = bodyOf(call);
   const v = call.week.bodyNight(call.night, body).visibility;
-  const words = v.verdict === 'not-visible' ? `not visible this night: ${reasonText(v.reason ?? 'too-faint', call.site)}` : VERDICT_WORDS[v.verdict];
+  const lang = wordsOf(call);
+  const gender = bodyPhrase(lang.language, body).gender;
+  const words =
+    v.verdict === 'not-visible' ? lang.t('verdict.not-visible', { reason: reasonText(v.reason ?? 'too-faint', call.site, lang, gender), gender }) : verdictWords(v.verdict, lang, gender);
   return el('data', { ...classes(call), value: v.verdict, dataNight: nightDate(call), dataBody: body.id, ...(v.reason ? { dataReason: v.reason } : {}), ...visibilityData(v) }, words);
 }
 
 function guide(call: PlaceholderCall): ElementContent {
   const body = bodyOf(call);
   const g = call.week.bodyNight(call.night, body).guide;
-  if (!g) return noValue(call, `${body.name} is below the horizon at that time`, { dataBody: body.id });
+  if (!g) return noValue(call, wordsOf(call).t('ph.guide-below', { name: labelOf(call, body) }), { dataBody: body.id });
   return el(
     'span',
     { ...classes(call), dataNight: nightDate(call), dataBody: body.id, dataGuide: g.kind, ...(g.pattern ? { dataPattern: g.pattern.id } : {}), ...(g.separationDeg !== null ? { dataSeparationDeg: exact(g.separationDeg, 2) } : {}), ...(g.offsetDirection ? { dataOffset: g.offsetDirection } : {}), ...(g.nearestStar ? { dataNearestStar: g.nearestStar.name } : {}) },
-    g.phrase,
+    guidePhrase(g.said, wordsOf(call)),
   );
 }
 
@@ -75,18 +80,19 @@ function targets(call: PlaceholderCall): ElementContent {
   const format = { clock: call.clock, precision: precisionOf(call) };
   const rows = targetNights(call);
   if (rows.length === 0) {
-    return el('p', { ...classes(call, 'gl-none'), dataNight: nightDate(call) }, 'No naked-eye or binocular targets this night.');
+    return el('p', { ...classes(call, 'gl-none'), dataNight: nightDate(call) }, wordsOf(call).t('ph.no-targets'));
   }
+  const words = wordsOf(call);
   const items = rows.map((bn) => {
     const v = bn.visibility;
     const best = v.best!;
     return el('li', { dataBody: bn.body.id, ...visibilityData(v) }, [
-      el('strong', {}, bn.body.name),
-      { type: 'text', value: ': best at ' },
+      el('strong', {}, labelOf(call, bn.body)),
+      { type: 'text', value: `${words.t('ph.target-best-at')} ` },
       el('time', { dateTime: formatInstant(best.time, zone) }, formatClock(best.time, call.site, format)),
-      { type: 'text', value: `, ${compass(best.azimuthDeg).word}, ${formatNumber(best.altitudeDeg, 0)}° (${handMeasure(best.altitudeDeg)}) up, magnitude ` },
-      el('data', { value: exact(best.magnitude, 2) }, formatNumber(best.magnitude, 1)),
-      { type: 'text', value: `${bn.guide ? `, ${bn.guide.phrase}` : ''} \u2014 ${VERDICT_WORDS[v.verdict as keyof typeof VERDICT_WORDS]}${v.outsideViewingHours ? ' (outside the viewing hours)' : ''}` },
+      { type: 'text', value: `${words.t('ph.target-where', { direction: compass(best.azimuthDeg, words).word, degrees: words.number(best.altitudeDeg, 0), hand: words.handMeasure(best.altitudeDeg) })} ` },
+      el('data', { value: exact(best.magnitude, 2) }, words.number(best.magnitude, 1)),
+      { type: 'text', value: `${bn.guide ? `, ${guidePhrase(bn.guide.said, words)}` : ''} \u2014 ${verdictWords(v.verdict as 'naked-eye' | 'binoculars', words, bodyPhrase(words.language, bn.body).gender)}${v.outsideViewingHours ? ` ${words.t('verdict.outside-hours')}` : ''}` },
     ]);
   });
   return el('ul', { ...classes(call), dataNight: nightDate(call) }, items);

@@ -1,7 +1,7 @@
 /**
  * Grammar a message cannot express by itself: contractions of a preposition with the article that
  * begins the next name (Spanish de el → del, a el → al; French à le → au, de le → du, de les → des,
- * à les → aux; German in dem → im, von dem → vom, an dem → am, zu dem → zum, zu der → zur), applied
+ * à les → aux, de Orion → d’Orion; German in dem → im, von dem → vom, an dem → am, zu dem → zum, zu der → zur), applied
  * to every formatted message. All are obligatory in the standard language (common usage, from
  * memory; RAE, Académie française and Duden grammars all state them).
  *
@@ -30,6 +30,8 @@ const RULES: Readonly<Record<Language, readonly Rule[]>> = {
     [words('à les'), 'aux'],
     [words('([Dd])e le'), '$1u'],
     [words('([Dd])e les'), '$1es'],
+    // Elision before a vowel or a mute H: de Orion → d’Orion, que il → qu’il.
+    [words('([Dd])e ([AEIOUÉÈÊaeiouéèêH])'), '$1’$2'],
   ],
   de: [
     [words('([Ii])n dem'), '$1m'],

@@ -1,12 +1,12 @@
 /**
  * The message catalogues: one per language, each a table from a message key to an ICU
- * MessageFormat text (lib/language/message.ts). English (`catalogues/en.ts`) is the reference:
+ * MessageFormat text (lib/core/language/message.ts). English (`catalogues/en.ts`) is the reference:
  * its keys are the type every other catalogue must fill, so a missing key fails the type check,
  * and test/language-catalogues.test.ts checks that every translation reads the same arguments.
  *
  * Adding a language: copy `catalogues/en.ts` to `catalogues/<code>.ts`, translate every message,
- * add it to `CATALOGUES` below and its grammar rules to lib/language/grammar.ts (or none), its
- * names to lib/language/names.ts, and golden sentences to test/language-golden.test.ts.
+ * add it to `CATALOGUES` below and its grammar rules to lib/core/language/grammar.ts (or none), its
+ * names to lib/core/language/names.ts, and golden sentences to test/language-golden.test.ts.
  */
 import { en, type MessageKey } from './catalogues/en.ts';
 

@@ -9,7 +9,7 @@
  * Why not a MessageFormat library: the sentences need simple arguments, plural categories (which
  * `Intl.PluralRules` gives for every language, French's "one" for 0 and 1 included) and select on a
  * pattern name's grammatical gender and number; numbers, dates, lists and directions go through
- * `Intl` directly (lib/language/formatter.ts). That is about a hundred lines, tested, with no
+ * `Intl` directly (lib/core/language/formatter.ts). That is about a hundred lines, tested, with no
  * package to keep in step. Apostrophes are plain text (French elisions read naturally:
  * "l'Ourse"); braces cannot appear in text.
  */

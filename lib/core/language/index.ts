@@ -55,6 +55,8 @@ export interface Words {
   t(key: MessageKey, args?: Readonly<Record<string, string | number | NamePhrase>>): string;
   /** A number with `digits` decimals in the locale's digits and separators, with a true minus sign (−0 → 0). */
   number(value: number, digits?: number): string;
+  /** A fraction (0–1) as a percentage in the locale's style ("42%", "42 %"), with `digits` decimals. */
+  percent(fraction: number, digits?: number): string;
   /** A list joined the locale's way ("A, B and C", "A, B y C"). */
   list(items: readonly string[]): string;
   /** The 16-point compass word of an azimuth (degrees from north through east), and its abbreviation. */
@@ -128,6 +130,16 @@ function makeWords(locale: string): Words {
     t,
     number,
     list: (items) => listFormat.format(items),
+    percent(fraction, digits = 0) {
+      if (!Number.isFinite(fraction)) throw new GloamingError('invalid-value', 'a percentage to print is not finite', { actual: fraction, expected: 'a finite number' });
+      const key = -1 - digits;
+      let f = numberFormats.get(key);
+      if (!f) {
+        f = new Intl.NumberFormat(locale, { style: 'percent', minimumFractionDigits: digits, maximumFractionDigits: digits });
+        numberFormats.set(key, f);
+      }
+      return f.format(fraction);
+    },
     compass(azimuthDeg) {
       const key = COMPASS_KEYS[compassIndex(azimuthDeg)]!;
       return { key, word: t(`compass.${key}`), abbreviation: t(`compass-short.${key}`) };
