@@ -9,6 +9,7 @@ import type { BodyRegistry } from '../../lib/core/body.ts';
 import type { Satellite } from '../../lib/models/satellite/passes.ts';
 import type { Site } from '../../lib/core/site.ts';
 import { addDays, isoWeekOf, zonedTime } from '../../lib/core/time.ts';
+import { wordsFor } from '../../lib/core/language/index.ts';
 
 /** Weeks of events in each feed. */
 export const CALENDAR_WEEKS = 13;
@@ -28,6 +29,6 @@ export function siteCalendar(site: Site, options: { bodies: BodyRegistry; today:
     site,
     prodId: `-//${options.centreName}//gloaming night-sky diary//EN`,
     now: new Date(`${today}T00:00:00Z`),
-    name: `Night-sky diary · ${site.name}`,
+    name: wordsFor(site.locale).t('ui.diary-title', { site: site.name }),
   });
 }

@@ -9,6 +9,7 @@
  */
 import type { RSSOptions } from '@astrojs/rss';
 import { escapeXml } from '../../lib/outputs/chart/svg.ts';
+import { wordsFor } from '../../lib/core/language/index.ts';
 
 /** What one feed item needs from a bulletin page. */
 export interface FeedPage {
@@ -36,9 +37,10 @@ export function siteFeed(input: {
   origin: URL | string;
   pages: FeedPage[];
 }): RSSOptions {
+  const w = wordsFor(input.language ?? 'en');
   return {
     title: htmlText(`${input.siteName} · ${input.centreName}`),
-    description: htmlText(`Weekly night-sky bulletins for ${input.siteName}.${input.note ? ` ${input.note}` : ''}`),
+    description: htmlText(`${w.t('ui.feed-description', { site: input.siteName })}${input.note ? ` ${input.note}` : ''}`),
     site: input.origin,
     items: input.pages.map((p) => ({
       title: htmlText(`${p.title} (${p.weekLabel})`),

@@ -6,7 +6,7 @@
 import { computeNight, type NightReport } from '../../lib/models/night.ts';
 import type { EventTime } from '../../lib/core/events.ts';
 import type { Site } from '../../lib/core/site.ts';
-import { PHASE_LABEL } from '../../lib/core/moon.ts';
+import { wordsFor, type MessageKey } from '../../lib/core/language/index.ts';
 import { addDays, formatClock, formatInstant, zonedTime } from '../../lib/core/time.ts';
 import type { NightRowEntry as NightRow, ShownTimeEntry as ShownTime } from './schema.ts';
 
@@ -21,14 +21,14 @@ export function dayLabel(date: string, locale: string): string {
   );
 }
 
-function shown(event: EventTime, site: Site, missing: Record<string, string>): ShownTime {
+function shown(event: EventTime, site: Site, missing: Readonly<Record<string, MessageKey>>): ShownTime {
   if (event.time) return { datetime: formatInstant(event.time, site.timeZone), text: formatClock(event.time, site) };
-  return { datetime: null, text: missing[event.reason] ?? 'not tonight' };
+  return { datetime: null, text: wordsFor(site.locale).t(missing[event.reason] ?? 'ui.not-tonight') };
 }
 
-const SUNSET_MISSING = { 'always-below': 'Sun stays down', 'always-above': 'Sun stays up', 'outside-night': 'no sunset' };
-const DUSK_MISSING = { 'stays-above': 'never fully dark', 'stays-below': 'dark all day', 'outside-night': 'not tonight' };
-const MOON_MISSING = { 'always-above': 'up all night', 'always-below': 'down all night', 'outside-night': 'not tonight' };
+const SUNSET_MISSING = { 'always-below': 'ui.sun-stays-down', 'always-above': 'ui.sun-stays-up', 'outside-night': 'ui.no-sunset' } as const;
+const DUSK_MISSING = { 'stays-above': 'ui.never-dark', 'stays-below': 'ui.dark-all-day', 'outside-night': 'ui.not-tonight' } as const;
+const MOON_MISSING = { 'always-above': 'ui.moon-up-all-night', 'always-below': 'ui.moon-down-all-night', 'outside-night': 'ui.not-tonight' } as const;
 
 /**
  * Whether the Moon is above the horizon at `at`, from the night's first moonrise and moonset
@@ -56,8 +56,9 @@ function moonSummary(report: NightReport): NightRow['moon'] {
   const dusk = duskOf(report);
   const up = moonUpAt(report, dusk);
   const next = up ? report.moon.set : report.moon.rise;
-  if (next.time && next.time > dusk) return { verb: up ? 'sets' : 'rises', time: shown(next, report.site, {}) };
-  return { verb: up ? 'up all night' : 'down all night', time: null };
+  const w = wordsFor(report.site.locale);
+  if (next.time && next.time > dusk) return { verb: w.t(up ? 'ui.moon-sets' : 'ui.moon-rises'), time: shown(next, report.site, {}) };
+  return { verb: w.t(up ? 'ui.moon-up-all-night' : 'ui.moon-down-all-night'), time: null };
 }
 
 /** One row from a computed night. */
@@ -72,7 +73,7 @@ export function nightRow(report: NightReport): NightRow {
     moonrise: shown(report.moon.rise, site, MOON_MISSING),
     moonset: shown(report.moon.set, site, MOON_MISSING),
     moon: moonSummary(report),
-    moonPhase: PHASE_LABEL[report.moon.phase.name],
+    moonPhase: report.moon.phase.name,
     moonLitPercent: Math.round(report.moon.phase.illuminatedFraction * 100),
   };
 }

@@ -1,12 +1,15 @@
-/** Short wordings the site uses around the computed values. */
+/** Short wordings the site uses around the computed values, in the words of the page's locale (lib/core/language). */
+import { catalogueLanguage, wordsFor } from '../../lib/core/language/index.ts';
 import type { SkyQuality } from '../../lib/core/site.ts';
 import type { IsoWeek } from '../../lib/core/time.ts';
 
-/** "Bortle 7", "SQM 20.4", "naked-eye limit 5.5". */
-export function skyLabel(sky: SkyQuality): string {
-  if ('bortle' in sky) return `Bortle ${sky.bortle}`;
-  if ('sqm' in sky) return `SQM ${sky.sqm} mag/arcsec²`;
-  return `naked-eye limit ${sky.nelm}`;
+/** "Bortle 7", "SQM 20.4", "naked-eye limit 5.5" (decimals in the locale's style). */
+export function skyLabel(sky: SkyQuality, locale = 'en-GB'): string {
+  const w = wordsFor(locale);
+  const value = (x: number): string => w.number(x, Number.isInteger(x) ? 0 : 1);
+  if ('bortle' in sky) return w.t('ui.sky-bortle', { value: String(sky.bortle) });
+  if ('sqm' in sky) return w.t('ui.sky-sqm', { value: value(sky.sqm) });
+  return w.t('ui.sky-nelm', { value: value(sky.nelm) });
 }
 
 function utcNoon(date: string): Date {
@@ -20,10 +23,11 @@ export function weekLabel(week: IsoWeek, locale: string): string {
   return f.formatRange(utcNoon(week.days[0]!), utcNoon(week.days[6]!));
 }
 
-/** "52.9° N, 1.4° W". */
-export function latLonLabel(latitudeDeg: number, longitudeDeg: number): string {
-  const lat = `${Math.abs(latitudeDeg).toFixed(1)}° ${latitudeDeg >= 0 ? 'N' : 'S'}`;
-  const lon = `${Math.abs(longitudeDeg).toFixed(1)}° ${longitudeDeg >= 0 ? 'E' : 'W'}`;
+/** "52.9° N, 1.4° W" ("33,4° S, 70,5° O" in Spanish). */
+export function latLonLabel(latitudeDeg: number, longitudeDeg: number, locale = 'en-GB'): string {
+  const w = wordsFor(locale);
+  const lat = w.t(latitudeDeg >= 0 ? 'ui.latitude-north' : 'ui.latitude-south', { value: w.number(Math.abs(latitudeDeg), 1) });
+  const lon = w.t(longitudeDeg >= 0 ? 'ui.longitude-east' : 'ui.longitude-west', { value: w.number(Math.abs(longitudeDeg), 1) });
   return `${lat}, ${lon}`;
 }
 
@@ -32,4 +36,14 @@ export function dateLabel(date: string, locale: string): string {
   // Weekday and date apart, as the bulletin's own dates read ("Wednesday 13 January"): ICU puts a comma after the weekday when a year follows.
   const weekday = new Intl.DateTimeFormat(locale, { timeZone: 'UTC', weekday: 'long' }).format(utcNoon(date));
   return `${weekday} ${new Intl.DateTimeFormat(locale, { timeZone: 'UTC', day: 'numeric', month: 'long', year: 'numeric' }).format(utcNoon(date))}`;
+}
+
+/**
+ * The demo notice of a page in `locale`: the centre's own sentence on pages in the centre's
+ * language, the catalogue's in another language; null for a real centre.
+ */
+export function noticeIn(publisher: { name: string; locale: string; notice: string | null }, locale: string): string | null {
+  if (publisher.notice === null) return null;
+  if (catalogueLanguage(locale) === catalogueLanguage(publisher.locale)) return publisher.notice;
+  return wordsFor(locale).t('ui.invented-note', { centre: publisher.name });
 }

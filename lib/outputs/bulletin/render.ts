@@ -18,7 +18,9 @@ import { fieldPlace } from './frontmatter.ts';
 import { remarkSafeLinks } from './links.ts';
 import { remarkPlaceholders, type PlaceholderScope } from './plugin.ts';
 import { warningsOnFile } from './problems.ts';
-import { ECLIPSE_CAUTION, assertPublishable, nearSunBodies, nearSunCaution, type ShownBody } from './safety.ts';
+import { assertPublishable, eclipseCaution, nearSunBodies, nearSunCaution, type ShownBody } from './safety.ts';
+import { wordsFor, type Words } from '../../core/language/index.ts';
+import { bodyPhrase } from '../../core/language/names/index.ts';
 import type { BulletinTemplate, RenderContext, RenderedBulletin } from './types.ts';
 import { WeekCache, type WeekData } from '../../models/week.ts';
 
@@ -59,13 +61,13 @@ function frontMatterBodies(template: BulletinTemplate, context: RenderContext): 
 }
 
 /** Cautions for a page: near-Sun targets (front matter bodies on any night, bodies the page shows on their night; see `nearSunBodies`) and eclipses among the page's events. */
-function cautionsFor(template: BulletinTemplate, week: WeekData, events: AlmanacEvent[], listed: Body[], shown: ShownBody[]): string[] {
+function cautionsFor(template: BulletinTemplate, week: WeekData, events: AlmanacEvent[], listed: Body[], shown: ShownBody[], words: Words): string[] {
   const near = nearSunBodies(week, { listed, shown });
-  const names = near.filter((b) => b.kind !== 'sun').map((b) => (b.kind === 'moon' ? 'the Moon' : b.name));
+  const names = near.filter((b) => b.kind !== 'sun').map((b) => bodyPhrase(words.language, b).text);
   const cautions: string[] = [];
-  if (near.length > 0) cautions.push(nearSunCaution(names));
+  if (near.length > 0) cautions.push(nearSunCaution(names, words));
   // Every page of a week with a solar eclipse visible from the site carries the eclipse caution.
-  if (template.frontMatter.eclipse || events.some((e) => e.type === 'solar-eclipse' && e.visible)) cautions.push(ECLIPSE_CAUTION);
+  if (template.frontMatter.eclipse || events.some((e) => e.type === 'solar-eclipse' && e.visible)) cautions.push(eclipseCaution(words));
   return cautions;
 }
 
@@ -121,7 +123,7 @@ export function renderBulletinSync(template: BulletinTemplate, context: RenderCo
     html,
     title: template.frontMatter.title,
     description: template.frontMatter.description ?? '',
-    cautions: cautionsFor(template, week, events, listed, shown),
+    cautions: cautionsFor(template, week, events, listed, shown, wordsFor(context.site.locale)),
     // A one-off's problems name its date rather than its ISO week.
     problems: warningsOnFile(file, { site: context.site.id, week: nights.defaultNight ?? context.week.id }),
   };

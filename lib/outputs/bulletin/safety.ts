@@ -30,22 +30,23 @@ export function nearSunBodies(week: WeekData, input: { listed: readonly Body[]; 
   }
   return [...near.values()];
 }
+import { wordsFor, type Words } from '../../core/language/index.ts';
 
-/** Shown when a bulletin's target is close to the Sun in the sky. Our own wording. */
-export function nearSunCaution(names: readonly string[]): string {
-  const list = names.length <= 1 ? (names[0] ?? 'A target') : `${names.slice(0, -1).join(', ')} and ${names[names.length - 1]}`;
-  const verb = names.length > 1 ? 'are' : 'is';
-  return (
-    `${list.charAt(0).toUpperCase()}${list.slice(1)} ${verb} close to the Sun in the sky this week. Never point binoculars or a telescope at or near the Sun: ` +
-    'search only after the Sun has fully set, stop well before it rises, and follow the advice of your local observatory or astronomy society.'
-  );
+const ENGLISH = wordsFor('en');
+
+/** Shown when a bulletin's target is close to the Sun in the sky (names as sentences read them: "the Moon"). Our own wording, in the language of `words`. */
+export function nearSunCaution(names: readonly string[], words: Words = ENGLISH): string {
+  const list = names.length === 0 ? words.t('caution.a-target') : words.list(names);
+  return words.t('caution.near-sun', { count: Math.max(1, names.length), names: `${list.charAt(0).toUpperCase()}${list.slice(1)}` });
 }
 
-/** Shown on every eclipse bulletin. Our own wording. */
-export const ECLIPSE_CAUTION =
-  'Never look at the Sun without protection made for it, even when most of it is covered. ' +
-  'Only solar viewers certified to ISO 12312-2, or a telescope with a certified solar filter fitted over its front, are safe for the partial phases; ' +
-  'sunglasses, smoked glass and exposed film are not. Follow the guidance of your local observatory or health authority.';
+/** Shown on every eclipse bulletin: never look at the Sun unprotected, only ISO 12312-2 viewers. Our own wording, in the language of `words`. */
+export function eclipseCaution(words: Words = ENGLISH): string {
+  return words.t('caution.eclipse');
+}
+
+/** The English eclipse caution. */
+export const ECLIPSE_CAUTION = eclipseCaution();
 
 const FORBIDDEN: { pattern: RegExp; what: string }[] = [
   { pattern: /\bNaN\b/, what: 'NaN' },

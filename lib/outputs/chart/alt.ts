@@ -6,42 +6,45 @@
  *   "Looking west-northwest at 21:40: Jupiter 18° up, about 3° (about 2 fingers) above Regulus,
  *    in the Sickle of Leo. Also in view: the Moon, Saturn."
  */
-import { compass } from '../../core/describe.ts';
 import type { ChartMark, HorizonChart } from './horizon.ts';
 import type { WholeSkyChart } from './whole-sky.ts';
-import { chartLabel, formatChartTime } from './words.ts';
+import { guidePhrase } from '../../models/stars/guide.ts';
+import type { Words } from '../../core/language/index.ts';
+import { bodyPhrase } from '../../core/language/names/index.ts';
+import { chartLabel, chartWords, formatChartTime } from './words.ts';
 
-function bodyName(mark: ChartMark): string {
-  return mark.kind === 'moon' ? 'the Moon' : mark.label;
+/** A body as a sentence names it ("the Moon", "la Luna", "Júpiter"). */
+function bodyName(mark: ChartMark, words: Words): string {
+  return mark.kind === 'moon' ? bodyPhrase(words.language, { id: 'moon', name: mark.label }).text : mark.label;
 }
 
-function list(items: readonly string[]): string {
-  if (items.length <= 1) return items.join('');
-  return `${items.slice(0, -1).join(', ')} and ${items[items.length - 1]}`;
-}
-
-/** Alt text of a horizon-view finder chart. */
+/** Alt text of a horizon-view finder chart, in the language of the chart's site. */
 export function horizonAltText(chart: HorizonChart): string {
+  const words = chartWords(chart.site);
   const clock = formatChartTime(chart.time, chart.site);
-  const alt = Math.round(chart.target.altitudeDeg);
-  const where = chart.guide ? `, ${chart.guide.phrase}` : '';
-  const looking = chart.view === 'overhead' ? `Looking up, facing ${chart.facing.word},` : `Looking ${chart.facing.word}`;
-  let out = `${looking} at ${clock}: ${chartLabel(chart.body)} ${alt}° up${where}.`;
-  const others = chart.marks.filter((m) => m.kind === 'moon' || m.kind === 'planet').map(bodyName);
-  if (others.length) out += ` Also in view: ${list(others)}.`;
+  const target = chartLabel(chart.body, chart.site);
+  const degrees = Math.round(chart.target.altitudeDeg);
+  const guide = chart.guide ? `, ${guidePhrase(chart.guide.said, words)}` : '';
+  const direction = words.compass(chart.facing.azimuthDeg).word;
+  let out = words.t(chart.view === 'overhead' ? 'chart.looking-up' : 'chart.looking', { direction, clock, target, degrees, guide });
+  const others = chart.marks.filter((m) => m.kind === 'moon' || m.kind === 'planet').map((m) => bodyName(m, words));
+  if (others.length) out += ` ${words.t('chart.also-in-view', { names: words.list(others) })}`;
   const track = chart.marks.filter((m) => m.kind === 'track');
-  if (track.length) out += ` Dots show it on other nights from ${track[0]!.label} to ${track[track.length - 1]!.label}, with the stars as drawn.`;
+  if (track.length) out += ` ${words.t('chart.track', { first: track[0]!.label, last: track[track.length - 1]!.label })}`;
   return out;
 }
 
-/** Alt text of a whole-sky chart. */
+/** Alt text of a whole-sky chart, in the language of the chart's site. */
 export function wholeSkyAltText(chart: WholeSkyChart): string {
+  const words = chartWords(chart.site);
   const clock = formatChartTime(chart.time, chart.site);
   const up = chart.marks.filter((m) => m.kind !== 'star' && m.kind !== 'track');
-  const phrases = up.map((m) => `${m.kind === 'target' ? chartLabel(chart.body!) : bodyName(m)} ${Math.round(m.altitudeDeg)}° up in the ${compass(m.azimuthDeg).word}`);
-  let out = `The whole sky from ${chart.site.name} at ${clock}, north at the top and east at the left`;
+  const phrases = up.map((m) =>
+    words.t('chart.whole-sky-body', { name: m.kind === 'target' ? chartLabel(chart.body!, chart.site) : bodyName(m, words), degrees: Math.round(m.altitudeDeg), direction: words.compass(m.azimuthDeg).word }),
+  );
+  let out = words.t('chart.whole-sky', { site: chart.site.name, clock });
   out += phrases.length ? `: ${phrases.join('; ')}.` : '.';
-  if (chart.body && chart.target && !up.some((m) => m.kind === 'target')) out += ` ${chartLabel(chart.body)} is not above the skyline at this time.`;
-  else if (chart.guide && chart.body) out += ` ${chartLabel(chart.body)} is ${chart.guide.phrase}.`;
+  if (chart.body && chart.target && !up.some((m) => m.kind === 'target')) out += ` ${words.t('chart.not-above-skyline', { name: chartLabel(chart.body, chart.site) })}`;
+  else if (chart.guide && chart.body) out += ` ${words.t('chart.is-where', { name: chartLabel(chart.body, chart.site), guide: guidePhrase(chart.guide.said, words) })}`;
   return out;
 }

@@ -39,7 +39,8 @@ import { angleFromRadius, makeLayout, stereographicRadius, type AltAz, type Char
 export type { ChartLayout };
 import { CHART_WIDTH, COLOURS, FAINT_STAR_MAG, FONT, chartMagnitudeLimit, starRadius } from './style.ts';
 import { LabelPlacer, SVG_CLOSE, leaderLine, n, pathOf, svgOpen, text, type LabelRole, type PlacedLabel } from './svg.ts';
-import { chartLabel, formatChartDate, formatChartTime, formatMagnitude } from './words.ts';
+import { chartLabel, chartWords, formatChartDate, formatChartTime, formatMagnitude } from './words.ts';
+import { patternLabel as patternName } from '../../core/language/names/index.ts';
 
 /** Height of the sky-and-ground area, user units. */
 const SCENE_HEIGHT = 262;
@@ -204,12 +205,14 @@ export function horizonChart(input: { site: Site; body: Body; time: Date; option
   const placer = new LabelPlacer(W, SCENE_HEIGHT);
   const parts: string[] = [];
   const marks: ChartMark[] = [];
-  const facing = compass(azimuth0);
+  const words = chartWords(site);
+  const facing = compass(azimuth0, words);
   const clock = formatChartTime(time, site);
   const labelMarkup: string[] = [];
 
   // Heading (top left): the first label, so nothing overprints it.
-  const heading = overhead ? `${clock} · overhead, facing ${facing.abbreviation}` : `${clock} · facing ${facing.abbreviation} (${Math.round(azimuth0)}°)`;
+  const facingShort = words.compass(azimuth0).abbreviation;
+  const heading = overhead ? words.t('chart.heading-overhead', { clock, direction: facingShort }) : words.t('chart.heading', { clock, direction: facingShort, degrees: Math.round(azimuth0) });
   placer.fixed(6, 17, heading, FONT.label, { bold: true, role: 'title' });
   labelMarkup.push(text(6, 17, heading, { size: FONT.label, fill: COLOURS.text, weight: 'bold' }));
 
@@ -294,10 +297,10 @@ export function horizonChart(input: { site: Site; body: Body; time: Date; option
   // direction's vertical leaves it, when looking up.
   for (let i = 0; i < 16; i++) {
     const az = i * 22.5;
-    const label = compass(az).abbreviation;
+    const label = words.compass(az).abbreviation;
     const main = i % 2 === 0;
     const size = main ? FONT.compass : FONT.small;
-    const style = { size, fill: COLOURS.compass, anchor: 'middle' as const, halo: overhead ? COLOURS.sky : COLOURS.ground, ...(label === facing.abbreviation ? { weight: 'bold' as const } : {}) };
+    const style = { size, fill: COLOURS.compass, anchor: 'middle' as const, halo: overhead ? COLOURS.sky : COLOURS.ground, ...(label === facingShort ? { weight: 'bold' as const } : {}) };
     if (overhead) {
       if (!main) continue;
       const q = layout.toChart(0, az);
@@ -305,7 +308,7 @@ export function horizonChart(input: { site: Site; body: Body; time: Date; option
       const dx = q.x - W / 2, dy = q.y - SCENE_HEIGHT / 2;
       const t = Math.min((W / 2 - 14) / Math.max(Math.abs(dx), 1e-9), (SCENE_HEIGHT / 2 - 12) / Math.max(Math.abs(dy), 1e-9), 1);
       const lx = W / 2 + dx * t, ly = SCENE_HEIGHT / 2 + dy * t + 5;
-      if (placer.fixed(lx, ly, label, size, { anchor: 'middle', bold: label === facing.abbreviation, role: 'compass' })) labelMarkup.push(text(lx, ly, label, style));
+      if (placer.fixed(lx, ly, label, size, { anchor: 'middle', bold: label === facingShort, role: 'compass' })) labelMarkup.push(text(lx, ly, label, style));
       continue;
     }
     const delta = ((az - azimuth0 + 540) % 360) - 180;
@@ -314,7 +317,7 @@ export function horizonChart(input: { site: Site; body: Body; time: Date; option
     if (!q || q.x < 8 || q.x > W - 8 || q.y > SCENE_HEIGHT - 4) continue;
     parts.push(`<path d="M${n(q.x)} ${n(q.y)}v${main ? 7 : 4}" stroke="${COLOURS.compass}" stroke-width="1.5"/>`);
     const ly = Math.min(q.y + 22, SCENE_HEIGHT - 4);
-    if (placer.fixed(q.x, ly, label, size, { anchor: 'middle', bold: label === facing.abbreviation, role: 'compass' })) labelMarkup.push(text(q.x, ly, label, style));
+    if (placer.fixed(q.x, ly, label, size, { anchor: 'middle', bold: label === facingShort, role: 'compass' })) labelMarkup.push(text(q.x, ly, label, style));
   }
   // The ground, in 10-unit columns that follow the skyline: labels stay in the sky.
   if (groundVisible) {
@@ -333,7 +336,7 @@ export function horizonChart(input: { site: Site; body: Body; time: Date; option
     const q = layout.toChart(o.altitudeDeg, o.azimuthDeg);
     if (!inScene(q) || !aboveSkyline(o)) continue;
     const isMoon = other.kind === 'moon';
-    const mark: ChartMark = { kind: isMoon ? 'moon' : 'planet', id: other.id, label: other.name, altitudeDeg: o.altitudeDeg, azimuthDeg: o.azimuthDeg, x: q.x, y: q.y, labelled: false };
+    const mark: ChartMark = { kind: isMoon ? 'moon' : 'planet', id: other.id, label: chartLabel(other, site), altitudeDeg: o.altitudeDeg, azimuthDeg: o.azimuthDeg, x: q.x, y: q.y, labelled: false };
     const r = isMoon ? Math.max(6, o.semidiameterDeg * scale * (Math.PI / 180) * 2) : 3.2;
     if (isMoon) {
       const sun = observe(site, builtInBody('sun'), time);
@@ -343,7 +346,7 @@ export function horizonChart(input: { site: Site; body: Body; time: Date; option
       bodyMarkup.push(`<rect x="${n(q.x - 3.2)}" y="${n(q.y - 3.2)}" width="6.4" height="6.4" fill="${COLOURS.planet}" stroke="${COLOURS.sky}" stroke-width="1" transform="rotate(45 ${n(q.x)} ${n(q.y)})"/>`);
     }
     // Bodies the guide names are labelled right after the target.
-    const item = { x: q.x, y: q.y, text: other.name, size: FONT.label, gap: isMoon ? r : 5, fill: isMoon ? COLOURS.moon : COLOURS.planet, mark, force: true, role: 'body' as const };
+    const item = { x: q.x, y: q.y, text: mark.label, size: FONT.label, gap: isMoon ? r : 5, fill: isMoon ? COLOURS.moon : COLOURS.planet, mark, force: true, role: 'body' as const };
     if (namedBodies.has(other.id)) labelQueue.unshift(item);
     else labelQueue.push(item);
     marks.push(mark);
@@ -358,7 +361,7 @@ export function horizonChart(input: { site: Site; body: Body; time: Date; option
     if (inScene(q)) {
       parts.push(`<path d="M${n(q.x - 7)} ${n(q.y)}A7 7 0 0 1 ${n(q.x + 7)} ${n(q.y)}Z" fill="${COLOURS.sun}" stroke="none"/>`);
       placer.reserve(q.x - 8, q.y - 8, q.x + 8, q.y + 1);
-      const mark: ChartMark = { kind: 'sun', id: 'sun', label: sunPoint.event === 'set' ? 'Sun set here' : 'Sun rises here', altitudeDeg: alt, azimuthDeg: sunPoint.azimuthDeg, x: q.x, y: q.y, labelled: false };
+      const mark: ChartMark = { kind: 'sun', id: 'sun', label: words.t(sunPoint.event === 'set' ? 'chart.sun-set-here' : 'chart.sun-rises-here'), altitudeDeg: alt, azimuthDeg: sunPoint.azimuthDeg, x: q.x, y: q.y, labelled: false };
       marks.push(mark);
       labelQueue.push({ x: q.x, y: q.y - 4, text: mark.label, size: FONT.small, gap: 5, fill: COLOURS.sun, mark, force: true, role: 'sun' });
     }
@@ -457,7 +460,7 @@ export function horizonChart(input: { site: Site; body: Body; time: Date; option
     if (!inScene(q) || q.y < 24 || q.y > SCENE_HEIGHT - 8 || alt < skylineAltitudeDeg(site, azimuth0)) continue;
     const f = alt / FIST_DEG;
     const deg = `${alt}°`;
-    const fistWords = `${f} fist${f === 1 ? '' : 's'}`;
+    const fistWords = words.t('chart.fists', { count: f });
     if (placer.fixed(q.x - 4, q.y - 3, deg, FONT.small, { anchor: 'end', role: 'altitude', avoidMarks: true })) labelMarkup.push(text(q.x - 4, q.y - 3, deg, { size: FONT.small, fill: COLOURS.dimText, anchor: 'end' }));
     if (placer.fixed(q.x + 4, q.y - 3, fistWords, FONT.small, { role: 'altitude', avoidMarks: true })) labelMarkup.push(text(q.x + 4, q.y - 3, fistWords, { size: FONT.small, fill: COLOURS.dimText }));
   }
@@ -470,7 +473,7 @@ export function horizonChart(input: { site: Site; body: Body; time: Date; option
       .map((p) => layout.toChart(p.altitudeDeg, p.azimuthDeg))
       .filter((q): q is { x: number; y: number } => inScene(q));
     if (pts.length) {
-      labelMarkup.push(patternLabel(placer, guidePat.name, pts));
+      labelMarkup.push(patternLabel(placer, patternName(words.language, guidePat), pts));
     }
   }
   // Other named stars: the guide pattern's bright stars, the nearest named star, and any star of V ≤ 1 in view.

@@ -29,7 +29,8 @@ import { brightLimbAngle, moonMarkup } from './moon.ts';
 import { makeLayout, type ChartLayout } from './projection.ts';
 import { CHART_WIDTH, COLOURS, FAINT_STAR_MAG, FONT, chartMagnitudeLimit, starRadius } from './style.ts';
 import { LabelPlacer, SVG_CLOSE, leaderLine, n, pathOf, svgOpen, text, type PlacedLabel } from './svg.ts';
-import { chartLabel, formatChartTime, formatMagnitude } from './words.ts';
+import { chartLabel, chartWords, formatChartTime, formatMagnitude } from './words.ts';
+import { patternLabel as patternName } from '../../core/language/names/index.ts';
 
 /** Radius of the horizon circle, user units. */
 const RADIUS = 170;
@@ -153,7 +154,8 @@ export function wholeSkyChart(input: { site: Site; time: Date; body?: Body; opti
   parts.push(`<circle cx="${cx}" cy="${cy}" r="${RADIUS}" fill="none" stroke="${COLOURS.groundEdge}" stroke-width="1.5"/>`);
 
   // Compass letters outside the rim.
-  for (const [az, label] of [[0, 'N'], [90, 'E'], [180, 'S'], [270, 'W']] as const) {
+  for (const az of [0, 90, 180, 270]) {
+    const label = chartWords(site).compass(az).abbreviation;
     const q = layout.toChart(0, az)!;
     const dx = (q.x - cx) / RADIUS;
     const dy = (q.y - cy) / RADIUS;
@@ -170,12 +172,12 @@ export function wholeSkyChart(input: { site: Site; time: Date; body?: Body; opti
     if (!visible(o)) continue;
     const q = layout.toChart(o.altitudeDeg, o.azimuthDeg)!;
     const isMoon = other.kind === 'moon';
-    const mark: ChartMark = { kind: isMoon ? 'moon' : 'planet', id: other.id, label: other.name, altitudeDeg: o.altitudeDeg, azimuthDeg: o.azimuthDeg, x: q.x, y: q.y, labelled: false };
+    const mark: ChartMark = { kind: isMoon ? 'moon' : 'planet', id: other.id, label: chartLabel(other, site), altitudeDeg: o.altitudeDeg, azimuthDeg: o.azimuthDeg, x: q.x, y: q.y, labelled: false };
     marks.push(mark);
     if (isMoon) parts.push(moonMarkup(q.x, q.y, 6, o.illuminatedFraction, brightLimbAngle(layout, o, observe(site, builtInBody('sun'), time))));
     else parts.push(`<rect x="${n(q.x - 3.2)}" y="${n(q.y - 3.2)}" width="6.4" height="6.4" fill="${COLOURS.planet}" stroke="${COLOURS.sky}" stroke-width="1" transform="rotate(45 ${n(q.x)} ${n(q.y)})"/>`);
     placer.reserve(q.x - 7, q.y - 7, q.x + 7, q.y + 7);
-    const item = { x: q.x, y: q.y, text: other.name, fill: isMoon ? COLOURS.moon : COLOURS.planet, gap: isMoon ? 7 : 5, mark, role: 'body' as const };
+    const item = { x: q.x, y: q.y, text: mark.label, fill: isMoon ? COLOURS.moon : COLOURS.planet, gap: isMoon ? 7 : 5, mark, role: 'body' as const };
     if (namedBodies.has(other.id)) labels.unshift(item);
     else labels.push(item);
   }
@@ -192,11 +194,11 @@ export function wholeSkyChart(input: { site: Site; time: Date; body?: Body; opti
   if (target && body) {
     const q = layout.toChart(target.altitudeDeg, target.azimuthDeg);
     if (q && visible(target)) {
-      const mark: ChartMark = { kind: 'target', id: body.id, label: `${chartLabel(body)} · mag ${formatMagnitude(target.magnitude.value)}`, altitudeDeg: target.altitudeDeg, azimuthDeg: target.azimuthDeg, x: q.x, y: q.y, labelled: false };
+      const mark: ChartMark = { kind: 'target', id: body.id, label: chartWords(site).t('chart.target-mag', { name: chartLabel(body, site), value: formatMagnitude(target.magnitude.value, site) }), altitudeDeg: target.altitudeDeg, azimuthDeg: target.azimuthDeg, x: q.x, y: q.y, labelled: false };
       marks.unshift(mark);
       parts.push(`<circle cx="${n(q.x)}" cy="${n(q.y)}" r="7" fill="none" stroke="${COLOURS.target}" stroke-width="2.2"/><circle cx="${n(q.x)}" cy="${n(q.y)}" r="2.4" fill="${COLOURS.target}" stroke="none"/>`);
       placer.reserve(q.x - 8, q.y - 8, q.x + 8, q.y + 8);
-      labels.unshift({ x: q.x, y: q.y, text: chartLabel(body), fill: COLOURS.target, gap: 8, mark, bold: true, role: 'target' });
+      labels.unshift({ x: q.x, y: q.y, text: chartLabel(body, site), fill: COLOURS.target, gap: 8, mark, bold: true, role: 'target' });
     }
   }
   const labelMarkup: string[] = [];
@@ -222,7 +224,7 @@ export function wholeSkyChart(input: { site: Site; time: Date; body?: Body; opti
   if (guidePat) {
     const pts = guidePat.stars.map((hip) => sky.star(starByHip(hip)!)).filter((p) => visible(p)).map((p) => layout.toChart(p.altitudeDeg, p.azimuthDeg)!);
     if (pts.length) {
-      labelMarkup.push(patternLabel(placer, guidePat.name, pts));
+      labelMarkup.push(patternLabel(placer, patternName(chartWords(site).language, guidePat), pts));
     }
   }
   // The brightest named stars (V ≤ 1.5), brightest first, where they fit.

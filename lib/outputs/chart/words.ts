@@ -6,12 +6,20 @@
 import type { Body } from '../../core/body.ts';
 import type { Site } from '../../core/site.ts';
 import { formatClock } from '../../core/time.ts';
+import { wordsFor, type Words } from '../../core/language/index.ts';
+import { bodyLabel } from '../../core/language/names/index.ts';
 
 const dateFormats = new Map<string, Intl.DateTimeFormat>();
 
-/** A body's name for a chart label, without a trailing parenthesis ("Comet Lumen (invented …)" → "Comet Lumen"). */
-export function chartLabel(body: Body): string {
-  return body.name.replace(/\s*\([^)]*\)\s*$/, '') || body.name;
+/** The words of a chart's site (its locale's catalogue and formats). */
+export function chartWords(site: Pick<Site, 'locale'>): Words {
+  return wordsFor(site.locale);
+}
+
+/** A body's name for a chart label in the site's language, without a trailing parenthesis ("Comet Lumen (invented …)" → "Comet Lumen", "Jupiter" → "Júpiter"). */
+export function chartLabel(body: Pick<Body, 'id' | 'name'>, site: Pick<Site, 'locale'> = { locale: 'en' }): string {
+  const name = bodyLabel(chartWords(site).language, body);
+  return name.replace(/\s*\([^)]*\)\s*$/, '') || name;
 }
 
 /** Clock time of `instant` in the site's zone and locale ("21:40", "9:40 pm"). */
@@ -30,8 +38,7 @@ export function formatChartDate(instant: Date, site: Pick<Site, 'locale' | 'time
   return f.format(instant);
 }
 
-/** A magnitude to one decimal with a true minus sign ("−2.4", "4.9"). */
-export function formatMagnitude(value: number): string {
-  const r = Math.round(value * 10) / 10;
-  return (r < 0 ? '\u2212' : '') + Math.abs(r).toFixed(1);
+/** A magnitude to one decimal with a true minus sign, in the site's digits ("−2.4", "4,9"). */
+export function formatMagnitude(value: number, site: Pick<Site, 'locale'> = { locale: 'en' }): string {
+  return chartWords(site).number(Math.round(value * 10) / 10, 1);
 }

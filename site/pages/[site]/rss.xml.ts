@@ -3,6 +3,7 @@ import rss from '@astrojs/rss';
 import type { APIRoute, GetStaticPaths } from 'astro';
 import { siteFeed } from '../../gloaming/feed.ts';
 import { builtSites, centre, pagesOf, paths, type SiteEntry } from '../../data.ts';
+import { noticeIn } from '../../gloaming/words.ts';
 
 export const getStaticPaths = (async () => {
   return (await builtSites()).map((site) => ({ params: { site: site.id }, props: { site } }));
@@ -16,7 +17,7 @@ export const GET: APIRoute = async ({ props, site: origin }) => {
     siteFeed({
       siteName: site.name,
       centreName: publisher.name,
-      note: publisher.notice ?? '',
+      note: noticeIn(publisher, site.locale) ?? '',
       language: site.locale,
       origin: origin!,
       pages: pages.map((p) => ({ title: p.title, description: p.description, weekLabel: p.when, weekStart: p.weekStart, path: paths.page(p) })),
