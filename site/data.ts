@@ -30,9 +30,9 @@ export async function allPages(): Promise<PageEntry[]> {
     .sort((a, b) => (a.weekStart === b.weekStart ? (a.slug < b.slug ? -1 : 1) : a.weekStart < b.weekStart ? -1 : 1));
 }
 
-/** The pages of one site, oldest first. */
+/** The pages of one site in its own language, oldest first (versions in other languages are linked from these). */
 export async function pagesOf(siteId: string): Promise<PageEntry[]> {
-  return (await allPages()).filter((p) => p.siteId === siteId);
+  return (await allPages()).filter((p) => p.siteId === siteId && p.primary);
 }
 
 /** The standing weekly bulletin of a week, else the first one-off of that week. */

@@ -78,7 +78,14 @@ export const pageEntrySchema = z.object({
   weekLabel: z.string(),
   /** Monday of the week, YYYY-MM-DD. */
   weekStart: z.string(),
+  /** The last part of the path: the bulletin's name, with its language when it is not the site's (`weekly`, `weekly.en`). */
   slug: z.string(),
+  /** The language of the page's words (a catalogue language): `es` for `es-CL`. */
+  language: z.string(),
+  /** The version in the site's own language (listed in the archive, the feed and "this week"); other versions are linked from it. */
+  primary: z.boolean(),
+  /** The same bulletin for the same week in other languages: locale, path, and the language's name in itself. */
+  alternates: z.array(z.object({ locale: z.string(), path: z.string(), label: z.string() })),
   /** A one-off bulletin (dated) rather than a standing weekly one. */
   oneOff: z.boolean(),
   /** What the page is about in words: the week, or a one-off's date ("Wednesday 13 January 2027"). */

@@ -14,6 +14,7 @@ import type { PageSpec } from '../../lib/outputs/bulletin/types.ts';
 import { ChartCache } from '../../lib/outputs/chart/cache.ts';
 import { demoNotice, publicOrigin } from '../../lib/outputs/centre.ts';
 import { GloamingError } from '../../lib/core/errors.ts';
+import { catalogueLanguage, LANGUAGE_NAMES } from '../../lib/core/language/index.ts';
 import { isoWeekOf, parseLocalDate } from '../../lib/core/time.ts';
 import { siteCalendar } from './calendar.ts';
 import { cardInputOf, renderCardCached } from './card.ts';
@@ -94,6 +95,7 @@ export function pageDigest(project: Project, spec: PageSpec): string {
     objects: project.objectsDigest,
     today: project.today,
     path: spec.path,
+    alternates: spec.alternates.map((a) => `${a.locale} ${a.path}`).join(','),
   });
 }
 
@@ -221,7 +223,7 @@ export class GloamingSession {
       elevationM: s.elevationM,
       timeZone: s.timeZone,
       locale: s.locale,
-      sky: skyLabel(s.sky),
+      sky: skyLabel(s.sky, s.locale),
       viewingHours: s.viewingHours?.label ?? null,
       horizon: s.horizon.map((p) => ({ azimuthDeg: p.azimuthDeg, altitudeDeg: p.altitudeDeg })),
       built,
@@ -252,7 +254,10 @@ export class GloamingSession {
       weekId: spec.week.id,
       weekLabel: weekLabel(spec.week, spec.site.locale),
       weekStart: spec.week.days[0]!,
-      slug: spec.template.slug,
+      slug: spec.path.split('/').pop()!,
+      language: spec.template.language,
+      primary: !spec.path.endsWith(`.${spec.template.language}`),
+      alternates: spec.alternates.map((a) => ({ locale: a.locale, path: a.path, label: LANGUAGE_NAMES[catalogueLanguage(a.locale) ?? 'en'] })),
       oneOff,
       when: oneOff ? dateLabel(spec.template.frontMatter.date!, spec.site.locale) : weekLabel(spec.week, spec.site.locale),
       title: rendered.title,

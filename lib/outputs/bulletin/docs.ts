@@ -29,7 +29,7 @@ function cell(text: string): string {
 }
 
 function outputOf(example: string, cache: WeekCache): string {
-  const template = { file: 'example.md', slug: 'example', frontMatter: { title: 'Example', sites: 'all' as const, schedule: { every: 'week' as const, past: 0, future: 0 } }, body: example, bodyLine: 1 };
+  const template = { file: 'example.md', slug: 'example', language: 'en' as const, frontMatter: { title: 'Example', sites: 'all' as const, schedule: { every: 'week' as const, past: 0, future: 0 } }, body: example, bodyLine: 1 };
   const { html } = renderBulletinSync(template, { site: EXAMPLE_SITE, week: EXAMPLE_WEEK, bodies: new BodyRegistry() }, cache);
   if (html.includes('<table')) return 'a table, one row per night';
   if (html.includes('<ul')) return 'a list, one line per target';

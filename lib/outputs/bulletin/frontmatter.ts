@@ -3,6 +3,7 @@
  * the bulletin is, for which sites and for which weeks. Validation is strict and positioned: every
  * problem is a `GloamingError` naming `file:line:column` and the field.
  */
+import { LANGUAGES, type Language } from '../../core/language/index.ts';
 import { basename } from 'node:path';
 import { GloamingError, didYouMean } from '../../core/errors.ts';
 import { parseLocalDate } from '../../core/time.ts';
@@ -18,6 +19,9 @@ export const MAX_SCHEDULE_WEEKS = 104;
 const FIELDS = ['title', 'description', 'sites', 'schedule', 'date', 'bodies', 'eclipse'] as const;
 const SCHEDULE_FIELDS = ['every', 'past', 'future'] as const;
 const SLUG_RE = /^[a-z0-9][a-z0-9-]*$/;
+
+/** The language of a template whose file name names none (`weekly.md`). */
+export const DEFAULT_LANGUAGE: Language = 'en';
 
 function invalid(field: string, reason: string, actual: unknown, expected: string, hint?: string): never {
   throw new GloamingError('invalid-value', reason, { place: { field }, actual, expected, ...(hint ? { hint } : {}) });
@@ -154,17 +158,27 @@ export function parseBulletin(text: string, file: string): BulletinTemplate {
     if (error instanceof GloamingError) throw source.place(error);
     throw error;
   }
-  const slug = basename(file).replace(/\.(md|markdown)$/i, '');
-  if (!SLUG_RE.test(slug)) {
+  const name = basename(file).replace(/\.(md|markdown)$/i, '');
+  // `weekly.es.md`: the Spanish version of the bulletin `weekly` (a language the catalogues have).
+  const [slug = '', suffix, ...rest] = name.split('.');
+  if (!SLUG_RE.test(slug) || rest.length > 0) {
     throw new GloamingError('invalid-value', 'a bulletin file name is used in URLs and must be a lower-case slug', {
       place: { file },
-      actual: slug,
-      expected: "letters a–z, digits and hyphens, e.g. 'weekly.md'",
+      actual: name,
+      expected: "letters a–z, digits and hyphens, with an optional language, e.g. 'weekly.md' or 'weekly.es.md'",
+    });
+  }
+  if (suffix !== undefined && !(LANGUAGES as readonly string[]).includes(suffix)) {
+    throw new GloamingError('invalid-value', `'${suffix}' in the file name is not a language gloaming has words for`, {
+      place: { file },
+      actual: suffix,
+      expected: `one of ${LANGUAGES.join(', ')} (lib/core/language), e.g. 'weekly.es.md'`,
     });
   }
   return {
     file,
     slug,
+    language: (suffix as Language | undefined) ?? DEFAULT_LANGUAGE,
     frontMatter,
     body: lines.slice(end + 1).join('\n'),
     bodyLine: end + 2,

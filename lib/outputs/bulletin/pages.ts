@@ -8,6 +8,13 @@ import { GloamingError } from '../../core/errors.ts';
 import type { Site } from '../../core/site.ts';
 import { addDays, isoWeekOf, parseLocalDate, type IsoWeek } from '../../core/time.ts';
 import { fieldPlace } from './frontmatter.ts';
+import { catalogueLanguage, type Language } from '../../core/language/index.ts';
+
+/** A locale for a page in `language` at a site with `siteLocale`: the language with the site's region (`en` at `es-CL` → `en-CL`), or the bare language. */
+export function localeFor(language: Language, siteLocale: string): string {
+  const region = new Intl.Locale(siteLocale).region;
+  return region ? `${language}-${region}` : language;
+}
 import type { BulletinTemplate, PageSpec } from './types.ts';
 
 export interface PagesOptions {
@@ -50,24 +57,43 @@ export function sitesFor(template: BulletinTemplate, sites: Map<string, Site>): 
  */
 export function pagesFor(templates: readonly BulletinTemplate[], options: PagesOptions): PageSpec[] {
   parseLocalDate(options.today, 'today');
-  const bySlug = new Map<string, BulletinTemplate>();
+  // A bulletin is all templates with one slug, one per language (`weekly.md`, `weekly.es.md`).
+  const bySlug = new Map<string, BulletinTemplate[]>();
   for (const t of templates) {
-    const other = bySlug.get(t.slug);
+    const versions = bySlug.get(t.slug) ?? [];
+    const other = versions.find((v) => v.language === t.language);
     if (other) {
-      throw new GloamingError('invalid-value', `two bulletin templates share the name '${t.slug}'`, {
+      throw new GloamingError('invalid-value', `two bulletin templates share the name '${t.slug}' in the same language (${t.language})`, {
         place: { file: t.file },
         actual: t.slug,
         expected: `a file name not used by ${other.file}`,
       });
     }
-    bySlug.set(t.slug, t);
+    bySlug.set(t.slug, [...versions, t].sort((a, b) => (a.language < b.language ? -1 : 1)));
   }
   const pages: PageSpec[] = [];
   for (const slug of [...bySlug.keys()].sort()) {
-    const template = bySlug.get(slug)!;
-    const weeks = weeksFor(template, options.today);
-    for (const site of sitesFor(template, options.sites)) {
-      for (const week of weeks) pages.push({ template, site, week, path: `${site.id}/${week.id}/${template.slug}` });
+    const versions = bySlug.get(slug)!;
+    const served = versions.map((template) => ({ template, sites: new Set(sitesFor(template, options.sites).map((s) => s.id)) }));
+    for (const id of [...options.sites.keys()].sort()) {
+      const site = options.sites.get(id)!;
+      const mine = served.filter((v) => v.sites.has(id)).map((v) => v.template);
+      if (mine.length === 0) continue;
+      // The version in the site's own language takes the plain address; the others add their language.
+      const own = mine.find((t) => t.language === catalogueLanguage(site.locale)) ?? mine[0]!;
+      const versionsHere = mine.map((template) => {
+        const primary = template === own;
+        const locale = template.language === catalogueLanguage(site.locale) ? site.locale : localeFor(template.language, site.locale);
+        return { template, locale, segment: primary ? slug : `${slug}.${template.language}` };
+      });
+      for (const v of versionsHere) {
+        for (const week of weeksFor(v.template, options.today)) {
+          const alternates = versionsHere
+            .filter((o) => o !== v && weeksFor(o.template, options.today).some((w) => w.id === week.id))
+            .map((o) => ({ locale: o.locale, path: `${site.id}/${week.id}/${o.segment}` }));
+          pages.push({ template: v.template, site: v.locale === site.locale ? site : { ...site, locale: v.locale }, week, path: `${site.id}/${week.id}/${v.segment}`, alternates });
+        }
+      }
     }
   }
   return pages;

@@ -3,6 +3,7 @@
  * The library turns a Markdown template with placeholders into HTML for one site and one week;
  * the site decides which pages exist and lays them out. Neither side imports Astro here.
  */
+import type { Language } from '../../core/language/index.ts';
 import type { BodyRegistry } from '../../core/body.ts';
 import type { ChartCache } from '../chart/cache.ts';
 import type { Site } from '../../core/site.ts';
@@ -29,8 +30,10 @@ export interface BulletinFrontMatter {
 export interface BulletinTemplate {
   /** Path of the template file as given (used in error places). */
   file: string;
-  /** File name without extension, used in URLs. */
+  /** File name without extension and language, used in URLs (`weekly` for `weekly.es.md`). */
   slug: string;
+  /** The language the template is written in: its file name's (`weekly.es.md` → es), else English. */
+  language: Language;
   frontMatter: BulletinFrontMatter;
   /** Markdown body after the front matter. */
   body: string;
@@ -47,10 +50,16 @@ export interface BulletinTemplate {
 /** One page the site will publish: a template applied to a site and a week. */
 export interface PageSpec {
   template: BulletinTemplate;
+  /** The site, with `locale` set to the page's: the site's own when the template is in the site's language, else the template's language with the site's region (`en-CL`). */
   site: Site;
   week: IsoWeek;
-  /** URL path below the site root, without leading slash, e.g. `harbour-roof/2026-W49/weekly`. */
+  /**
+   * URL path below the site root, without leading slash, e.g. `harbour-roof/2026-W49/weekly`; a
+   * version in another language than the site's gets the language after the slug (`weekly.en`).
+   */
   path: string;
+  /** The same bulletin for the same site and week in other languages (BCP 47 locale and path). */
+  alternates: { locale: string; path: string }[];
 }
 
 /** What rendering one page yields. */
