@@ -61,8 +61,8 @@ const EXPECTED: Record<string, [string, string]> = {
   "schedule unknown field": ["unknown-field", "content/bulletins/bad.md:4:33 field 'schedule.futur': unknown front matter field 'schedule.futur'; expected one of every, past, future — did you mean 'future'?"],
   "eclipse not a boolean": ["invalid-value", "content/bulletins/bad.md:5:10 field 'eclipse': eclipse must be true or false (got 'yes'); expected true or false"],
   "empty title": ["invalid-value", "content/bulletins/bad.md:2:8 field 'title': title must be non-empty text (got ''); expected the bulletin title as text"],
-  "file name not a slug": ["invalid-value", "content/bulletins/Weekly Notes.md: a bulletin file name is used in URLs and must be a lower-case slug (got 'Weekly Notes'); expected letters a–z, digits and hyphens, e.g. 'weekly.md'"],
-  "unknown site with suggestion": ["unknown-site", "content/bulletins/bad.md:5:5 field 'sites.1': unknown site 'harbor-roof'; expected one of harbour-roof, northern-outpost, southern-station — did you mean 'harbour-roof'?"],
+  "file name not a slug": ["invalid-value", "content/bulletins/Weekly Notes.md: a bulletin file name is used in URLs and must be a lower-case slug (got 'Weekly Notes'); expected letters a–z, digits and hyphens, with an optional language, e.g. 'weekly.md' or 'weekly.es.md'"],
+  "unknown site with suggestion": ["unknown-site", "content/bulletins/bad.md:5:5 field 'sites.1': unknown site 'harbor-roof'; expected one of cerro-lucero, harbour-roof, northern-outpost, southern-station — did you mean 'harbour-roof'?"],
 };
 
 function run(c: (typeof CASE_INPUTS)[number]): unknown {

@@ -29,8 +29,9 @@ describe('gloaming check', () => {
     const r = run(['check', '--weeks', '52', '--json']);
     const json = JSON.parse(r.out) as CheckJson;
     expect(json.problems.map((p) => `${p.file}:${p.line}:${p.column} ${p.site} ${p.week} ${p.message}`)).toEqual([]);
-    // 3 sites × 52 weeks of the standing template, and the one-off once per site.
-    expect(json.pages).toBe(3 * 52 + 3);
+    // 4 sites × 52 weeks of the standing template (English), 52 weeks of its Spanish version at the
+    // Spanish-speaking site, and the one-off once at each of the three English-speaking sites.
+    expect(json.pages).toBe(4 * 52 + 52 + 3);
     expect(r.code).toBe(0);
   }, 240_000);
 
@@ -67,7 +68,7 @@ describe('gloaming check', () => {
     const text = run(['check', '--content', content, '--today', '2027-06-21', '--weeks', '2']);
     expect(text.code).toBe(1);
     expect(text.out).toContain(`warning: ${join(content, 'bulletins/c-warnings.md')}:6:12: ':best-time{body=neptune}' has no value on Monday 21 June`);
-    expect(text.out.trim().split('\n').at(-1)).toBe('checked 4 page(s): 2 template(s), 3 site(s), 2 week(s) from 2027-06-21; 3 error(s), 4 warning(s)');
+    expect(text.out.trim().split('\n').at(-1)).toBe('checked 4 page(s): 2 template(s), 4 site(s), 2 week(s) from 2027-06-21; 3 error(s), 4 warning(s)');
   }, 120_000);
 
   it('wrong arguments exit 2 with one line naming the flag', () => {

@@ -11,6 +11,10 @@ import { createServer, type Server } from 'node:http';
 import { extname, join, resolve } from 'node:path';
 import { chromium, type Browser, type Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
+import { readdirSync, statSync } from 'node:fs';
+import { CATALOGUES } from '../lib/core/language/index.ts';
+import { NAMES } from '../lib/core/language/names/index.ts';
+import { CENTRE } from '../site/gloaming/centre.ts';
 
 const ROOT = resolve(import.meta.dirname, '..');
 const CHROMIUM = '/usr/bin/chromium';
@@ -25,6 +29,8 @@ const PAGES = [
   '/southern-station/2026-W49/weekly/',
   '/northern-outpost/',
   '/northern-outpost/archive/',
+  '/cerro-lucero/',
+  '/cerro-lucero/2026-W49/weekly/',
 ];
 
 const TYPES: Record<string, string> = { '.html': 'text/html; charset=utf-8', '.png': 'image/png', '.woff2': 'font/woff2', '.xml': 'application/xml', '.css': 'text/css', '.svg': 'image/svg+xml' };
@@ -153,7 +159,7 @@ describe.skipIf(!available)('built pages on a phone (390×844)', () => {
       for (const t of m.targets) expect(Math.min(t.width, t.height), `tap target '${t.text}'`).toBeGreaterThanOrEqual(44);
       for (const img of m.images) expect(img.ok, img.src).toBe(true);
       expect(m.fontsLoaded.sort()).toEqual(['400', '700']);
-      expect(m.lang).toMatch(/^en/);
+      expect(m.lang).toMatch(path.startsWith('/cerro-lucero/') ? /^es-CL$/ : /^en/);
       expect(m.h1).toBe(1);
       if (m.og) {
         // The social card the page announces exists and is a PNG.
@@ -267,5 +273,68 @@ describe.skipIf(!available)('the "tonight" fragment', () => {
     expect(await page.textContent('.gloaming-tonight')).toMatch(/Sunset\s*\d\d:\d\d/);
     await page.screenshot({ path: join(SHOTS, 'e2e-tonight-fragment.png') });
     await page.close();
+/** The words of a catalogue's messages (ICU syntax and argument names left out), lower case. */
+function catalogueWords(messages: Iterable<string>): Set<string> {
+  const out = new Set<string>();
+  for (const m of messages) {
+    const text = m.replace(/\{[A-Za-z_]+(, (plural|select),)?/g, ' ').replace(/\b(one|other|masculine|feminine|neuter|plural-\w+|left|right|civil|nautical|new-moon|full-moon|[a-z]+-[a-z-]+)\s*\{/g, ' ');
+    for (const w of text.toLowerCase().match(/\p{L}+/gu) ?? []) out.add(w);
+  }
+  return out;
+}
+
+/** Every HTML file below `dir`. */
+function htmlFiles(dir: string): string[] {
+  return readdirSync(dir).flatMap((name) => {
+    const path = join(dir, name);
+    return statSync(path).isDirectory() ? htmlFiles(path) : name.endsWith('.html') ? [path] : [];
+  });
+}
+
+describe.skipIf(!available)('a site in Spanish (the invented Observatorio Cerro Lucero, es-CL)', () => {
+  // Words only the English catalogue has: any of them on a Spanish page is a message that was not translated.
+  const spanish = catalogueWords([...Object.values(CATALOGUES.es), ...Object.values(NAMES.es.patterns).flatMap((p) => [p.name, p.phrase, ...Object.values(p.parts ?? {}).map((x) => x.phrase)])]);
+  const englishOnly = [...catalogueWords(Object.values(CATALOGUES.en))].filter((w) => w.length >= 4 && !spanish.has(w));
+
+  it('its pages (bulletin, site, archive, week pages) contain no word of the English catalogue', () => {
+    const dir = join(work, 'dist', 'cerro-lucero');
+    const pages = htmlFiles(dir).filter((f) => !/\/weekly\.en\//.test(f));
+    expect(pages.length).toBeGreaterThan(10);
+    expect(englishOnly.length).toBeGreaterThan(200);
+    const found: string[] = [];
+    for (const file of pages) {
+      // The centre's own name is a proper name, not a catalogue message.
+      const html = readFileSync(file, 'utf8').replaceAll(CENTRE.name, ' ').replaceAll(CENTRE.shortName, ' ');
+      // What a reader sees or hears: text, alt text, titles, labels, descriptions (not class names or URLs).
+      const said = [
+        ...html.replace(/<style[^>]*>[\s\S]*?<\/style>/g, ' ').replace(/<[^>]+>/g, ' ').split(/\s+/),
+        ...[...html.matchAll(/\s(?:alt|title|aria-label)="([^"]*)"/g)].map((m) => m[1]!),
+        ...[...html.matchAll(/<meta (?:name|property)="(?:description|og:title|og:description|og:image:alt)" content="([^"]*)"/g)].map((m) => m[1]!),
+      ].join(' ');
+      const words = new Set(said.toLowerCase().match(/\p{L}+/gu) ?? []);
+      for (const w of englishOnly) if (words.has(w)) found.push(`${file.slice(dir.length)}: ${w}`);
+    }
+    expect(found).toEqual([]);
+  });
+
+  it('says its language (<html lang="es-CL">) and links the English version of the bulletin both ways with hreflang', () => {
+    const es = readFileSync(join(work, 'dist', 'cerro-lucero', '2026-W49', 'weekly', 'index.html'), 'utf8');
+    const en = readFileSync(join(work, 'dist', 'cerro-lucero', '2026-W49', 'weekly.en', 'index.html'), 'utf8');
+    expect(es).toMatch(/<html lang="es-CL"/);
+    expect(en).toMatch(/<html lang="en-CL"/);
+    expect(es).toMatch(/<link rel="alternate" hreflang="en-CL" href="[^"]*\/cerro-lucero\/2026-W49\/weekly\.en\/"/);
+    expect(en).toMatch(/<link rel="alternate" hreflang="es-CL" href="[^"]*\/cerro-lucero\/2026-W49\/weekly\/"/);
+    expect(en).toContain('After dark this week');
+  });
+
+  it('draws its finder charts with Spanish labels (compass letters with O for oeste, fists as puños)', () => {
+    const page = readFileSync(join(work, 'dist', 'cerro-lucero', '2026-W49', 'weekly', 'index.html'), 'utf8');
+    const src = /<img src="(\/charts\/[^"]+\.svg)"/.exec(page)?.[1];
+    expect(src, 'the Spanish weekly page has a finder chart').toBeDefined();
+    const svg = readFileSync(join(work, 'dist', src!), 'utf8');
+    const labels = [...svg.matchAll(/<text[^>]*>([^<]*)<\/text>/g)].map((m) => m[1]!);
+    expect(labels.some((l) => /puños?$/.test(l))).toBe(true);
+    expect(labels.some((l) => /mirando al/.test(l))).toBe(true);
+    expect(labels.filter((l) => /\b(fists?|facing|Sun set here)\b/.test(l))).toEqual([]);
   });
 });

@@ -124,7 +124,7 @@ describe('site build', () => {
 
   it('bulletin pages carry og:image, lang, one h1, and the week in the title', () => {
     const html = readFileSync(join(work, 'a/southern-station/2026-W49/weekly/index.html'), 'utf8');
-    expect(html).toMatch(/<html lang="en">/);
+    expect(html).toMatch(/<html lang="en-AU">/); // the site's full BCP 47 locale
     expect(html).toContain('<meta property="og:image" content="https://sky.example.org/southern-station/2026-W49/weekly/card.png">');
     expect(html.match(/<h1\b/g)).toHaveLength(1);
     expect(html).toMatch(/<title>[^<]*30 Nov\s–\s6 Dec 2026<\/title>/); // Intl's range style puts thin spaces round the dash
@@ -198,7 +198,7 @@ describe('site build', () => {
 
   it('a shard builds only its sites, and merged shards equal the full build apart from sitemap names', () => {
     expect(build(['--today', TODAY, '--sites', 'harbour-roof', '--out', join(work, 's1')], { cache: cacheFor('s1') }).status).toBe(0);
-    expect(build(['--today', TODAY, '--sites', 'southern-station,northern-outpost', '--out', join(work, 's2')], { cache: cacheFor('s2') }).status).toBe(0);
+    expect(build(['--today', TODAY, '--sites', 'southern-station,northern-outpost,cerro-lucero', '--out', join(work, 's2')], { cache: cacheFor('s2') }).status).toBe(0);
     expect(existsSync(join(work, 's1/southern-station'))).toBe(false);
     const m = build(['--merge', join(work, 's1'), join(work, 's2'), '--out', join(work, 'm')]);
     expect(m.status).toBe(0);

@@ -132,9 +132,9 @@ describe('warm builds', () => {
     const home = (): string => readFileSync(join(copy, 'dist/harbour-roof/index.html'), 'utf8');
     expect(home()).toContain('Waning crescent');
 
-    // The edit that Astro's own cache does not see: a label inside the computing library.
-    const file = join(copy, 'lib/core/moon.ts');
-    writeFileSync(file, readFileSync(file, 'utf8').replace("'waning-crescent': 'Waning crescent'", "'waning-crescent': 'Waning sliver'"));
+    // The edit that Astro's own cache does not see: a label inside the computing library (the message catalogue).
+    const file = join(copy, 'lib/core/language/catalogues/en.ts');
+    writeFileSync(file, readFileSync(file, 'utf8').replace('other {Waning crescent Moon}', 'other {Waning sliver Moon}'));
     const edited = build();
     expect(edited.status, edited.stderr).toBe(0);
     expect(edited.stdout).toMatch(/bulletin pages: [1-9]\d* computed, 0 unchanged/);

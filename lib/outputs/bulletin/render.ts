@@ -19,6 +19,7 @@ import { remarkSafeLinks } from './links.ts';
 import { remarkPlaceholders, type PlaceholderScope } from './plugin.ts';
 import { warningsOnFile } from './problems.ts';
 import { assertPublishable, eclipseCaution, nearSunBodies, nearSunCaution, type ShownBody } from './safety.ts';
+import { rehypeTidyPunctuation } from './punctuation.ts';
 import { wordsFor, type Words } from '../../core/language/index.ts';
 import { bodyPhrase } from '../../core/language/names/index.ts';
 import type { BulletinTemplate, RenderContext, RenderedBulletin } from './types.ts';
@@ -45,6 +46,7 @@ const processor = unified()
   // Links, images and definitions may use only http:, https:, mailto: or relative addresses.
   .use(remarkSafeLinks)
   .use(remarkRehype)
+  .use(rehypeTidyPunctuation, { language: (file) => wordsFor((file.data as { gloamingScope?: PlaceholderScope }).gloamingScope?.site.locale ?? 'en').language })
   .use(rehypeStringify)
   .freeze();
 

@@ -490,18 +490,19 @@ export function horizonChart(input: { site: Site; body: Body; time: Date; option
 
   // Legend strip.
   parts.push(`<rect y="${SCENE_HEIGHT}" width="${W}" height="${LEGEND_HEIGHT}" fill="${COLOURS.skyEdge}" stroke="none"/>`);
-  const legend1 = overhead ? `Stars to mag ${magnitudeLimit.toFixed(1)} · 1 fist ≈ 10° · zenith at the centre` : `Stars to mag ${magnitudeLimit.toFixed(1)} · 1 fist at arm's length ≈ 10°`;
+  const mag = words.number(magnitudeLimit, 1);
+  const legend1 = words.t(overhead ? 'chart.legend-overhead' : 'chart.legend-horizon', { mag });
   const firstTrack = trackMarks[0];
   const lastTrack = trackMarks[trackMarks.length - 1];
   const legend2 = trackShown && firstTrack && lastTrack
-    ? `Track ○ ${firstTrack.label} → ● ${lastTrack.label}, at the same sidereal time`
+    ? words.t('chart.legend-track', { first: firstTrack.label, last: lastTrack.label })
     : trackMarkup.length
-      ? `${chartLabel(body)} hardly moves against the stars this week`
+      ? words.t('chart.legend-still', { name: chartLabel(body, site) })
       : site.name;
   parts.push(text(6, SCENE_HEIGHT + 15, legend1, { size: FONT.small, fill: COLOURS.dimText, halo: COLOURS.skyEdge }));
   parts.push(text(6, SCENE_HEIGHT + 31, legend2, { size: FONT.small, fill: trackShown ? COLOURS.track : COLOURS.dimText, halo: COLOURS.skyEdge }));
 
-  const title = `Finder chart: ${chartLabel(body)} from ${site.name} at ${clock}`;
+  const title = words.t('chart.title', { name: chartLabel(body, site), site: site.name, clock });
   const svg = svgOpen(W, H, title) + parts.join('') + SVG_CLOSE;
   return {
     kind: 'horizon',

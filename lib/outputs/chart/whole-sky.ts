@@ -241,11 +241,12 @@ export function wholeSkyChart(input: { site: Site; time: Date; body?: Body; opti
   parts.push(...labelMarkup);
 
   parts.push(text(6, 17, clock, { size: FONT.label, fill: COLOURS.text, weight: 'bold', halo: COLOURS.skyEdge }));
-  parts.push(text(6, DISC_HEIGHT + 14, `Whole sky: zenith at the centre, N up, E left`, { size: FONT.small, fill: COLOURS.dimText, halo: COLOURS.skyEdge }));
-  const hidden = target && body && !visible(target) ? ` · ${chartLabel(body)} not up` : '';
-  parts.push(text(6, DISC_HEIGHT + 30, `Stars to mag ${magnitudeLimit.toFixed(1)} · circles at 30° and 60° up${hidden}`, { size: FONT.small, fill: COLOURS.dimText, halo: COLOURS.skyEdge }));
+  const words = chartWords(site);
+  parts.push(text(6, DISC_HEIGHT + 14, words.t('chart.sky-legend', { north: words.compass(0).abbreviation, east: words.compass(90).abbreviation }), { size: FONT.small, fill: COLOURS.dimText, halo: COLOURS.skyEdge }));
+  const hidden = target && body && !visible(target) ? ` · ${words.t('chart.sky-not-up', { name: chartLabel(body, site) })}` : '';
+  parts.push(text(6, DISC_HEIGHT + 30, `${words.t('chart.sky-stars', { mag: words.number(magnitudeLimit, 1) })}${hidden}`, { size: FONT.small, fill: COLOURS.dimText, halo: COLOURS.skyEdge }));
 
-  const title = `Whole-sky chart from ${site.name} at ${clock}`;
+  const title = words.t('chart.sky-title', { site: site.name, clock });
   return {
     kind: 'sky',
     svg: svgOpen(W, H, title) + parts.join('') + SVG_CLOSE,

@@ -304,4 +304,13 @@ export const de: Catalogue = {
   'chart.heading': '{clock} · Blick nach {direction} ({degrees}°)',
   'chart.heading-overhead': '{clock} · Zenit, Blick nach {direction}',
   'chart.target-mag': '{name} · {value} mag',
+  'chart.legend-horizon': 'Sterne bis {mag} mag · 1 Faust bei ausgestrecktem Arm ≈ 10°',
+  'chart.legend-overhead': 'Sterne bis {mag} mag · 1 Faust ≈ 10° · Zenit in der Mitte',
+  'chart.legend-track': 'Bahn ○ {first} → ● {last}, zur selben Sternzeit',
+  'chart.legend-still': '{name} bewegt sich diese Woche kaum vor den Sternen',
+  'chart.sky-legend': 'Ganzer Himmel: Zenit in der Mitte, {north} oben, {east} links',
+  'chart.sky-stars': 'Sterne bis {mag} mag · Kreise bei 30° und 60° Höhe',
+  'chart.sky-not-up': '{name} nicht aufgegangen',
+  'chart.sky-title': 'Karte des ganzen Himmels über {site} um {clock}',
+  'chart.title': 'Aufsuchkarte: {name} von {site} aus um {clock}',
 };

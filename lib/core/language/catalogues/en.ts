@@ -276,7 +276,7 @@ export const en = {
   'ui.invented-for-demo': 'Invented for the demo.',
   'ui.invented-note': 'The {centre} and its observing sites are invented for this demo of gloaming.',
   'ui.real-computations': 'The sky values on every page are real computations for the given coordinates.',
-  'ui.index-lede': 'Every week, for each of our observing sites: what to look for, when it is best placed, which way to face and how high to look, worked out for that site’s own horizon, sky and clock.',
+  'ui.index-lede': 'Every week, for each of our observing sites: what to look for, when it is best placed, which way to face and how high to look, worked out for that site\'s own horizon, sky and clock.',
   'ui.index-title': 'Night-sky bulletins · {centre}',
   'ui.index-description': '{centre}: weekly night-sky bulletins for each of its observing sites{invented, select, yes { (an invented demo centre)} other {}}.',
   'ui.viewing-short': 'viewing {hours}',
@@ -320,6 +320,15 @@ export const en = {
   'chart.heading': '{clock} · facing {direction} ({degrees}°)',
   'chart.heading-overhead': '{clock} · overhead, facing {direction}',
   'chart.target-mag': '{name} · mag {value}',
+  'chart.legend-horizon': 'Stars to mag {mag} · 1 fist at arm\'s length ≈ 10°',
+  'chart.legend-overhead': 'Stars to mag {mag} · 1 fist ≈ 10° · zenith at the centre',
+  'chart.legend-track': 'Track ○ {first} → ● {last}, at the same sidereal time',
+  'chart.legend-still': '{name} hardly moves against the stars this week',
+  'chart.sky-legend': 'Whole sky: zenith at the centre, {north} up, {east} left',
+  'chart.sky-stars': 'Stars to mag {mag} · circles at 30° and 60° up',
+  'chart.sky-not-up': '{name} not up',
+  'chart.sky-title': 'Whole-sky chart from {site} at {clock}',
+  'chart.title': 'Finder chart: {name} from {site} at {clock}',
 } as const;
 
 export type MessageKey = keyof typeof en;

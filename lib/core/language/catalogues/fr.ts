@@ -307,4 +307,13 @@ export const fr: Catalogue = {
   'chart.heading': '{clock} · direction {direction} ({degrees}°)',
   'chart.heading-overhead': '{clock} · zénith, direction {direction}',
   'chart.target-mag': '{name} · mag. {value}',
+  'chart.legend-horizon': 'Étoiles jusqu’à la mag. {mag} · 1 poing à bout de bras ≈ 10°',
+  'chart.legend-overhead': 'Étoiles jusqu’à la mag. {mag} · 1 poing ≈ 10° · zénith au centre',
+  'chart.legend-track': 'Trajet ○ {first} → ● {last}, à la même heure sidérale',
+  'chart.legend-still': '{name} bouge à peine parmi les étoiles cette semaine',
+  'chart.sky-legend': 'Tout le ciel : zénith au centre, {north} en haut, {east} à gauche',
+  'chart.sky-stars': 'Étoiles jusqu’à la mag. {mag} · cercles à 30° et 60° de hauteur',
+  'chart.sky-not-up': '{name} sous l’horizon',
+  'chart.sky-title': 'Carte de tout le ciel depuis {site} à {clock}',
+  'chart.title': 'Carte de repérage : {name} depuis {site} à {clock}',
 };
