@@ -123,3 +123,35 @@ describe('sentences', () => {
     expect(tidyPunctuation('Júpiter , visible ,, alto .')).toBe('Júpiter, visible, alto.');
   });
 });
+
+describe('dates through Intl, with the first of the month as French writes it', () => {
+  it('a long date per language (CLDR patterns; French "1er" is common usage, from memory)', () => {
+    expect(en.day('2026-12-01', { weekday: 'long', month: 'long' })).toBe('Tuesday 1 December');
+    expect(es.day('2026-12-01', { weekday: 'long', month: 'long' })).toBe('martes, 1 de diciembre');
+    expect(de.day('2026-12-01', { weekday: 'long', month: 'long' })).toBe('Dienstag, 1. Dezember');
+    expect(fr.day('2026-12-01', { weekday: 'long', month: 'long' })).toBe('mardi 1er décembre');
+    expect(fr.day('2026-12-02', { weekday: 'long', month: 'long' })).toBe('mercredi 2 décembre');
+    expect(fr.dayRange('2026-12-01', '2026-12-07', { month: 'long', year: true })).toBe('1er–7 décembre 2026');
+    expect(de.dayRange('2026-11-30', '2026-12-06', { month: 'long', year: true })).toMatch(/^30\. November\s–\s6\. Dezember 2026$/);
+  });
+});
+
+describe('a fixed night in four languages: Jupiter beside Regulus, 30 November 2026, from a site in Chile', () => {
+  // Jupiter stands in Leo, a few degrees from Regulus, in the mornings of late 2026 (its 2026–27
+  // apparition in Leo; from memory, and checked here through the guide's own choice of star and
+  // pattern). The sentence must come out with each language's preposition, article and case.
+  it('the guide phrase names the star (IAU name unchanged) and the Sickle with the right grammar', async () => {
+    const { defineSite } = await import('../lib/core/site.ts');
+    const { builtInBody } = await import('../lib/core/body.ts');
+    const { computeNight } = await import('../lib/models/night.ts');
+    const { guidePhrase } = await import('../lib/models/stars/guide.ts');
+    const site = defineSite({ id: 'norte-chico', name: 'Norte Chico', latitude: -30.72, longitude: -70.95, elevation: 1150, timeZone: 'America/Santiago', locale: 'es-CL', sky: { bortle: 2 } });
+    const jupiter = builtInBody('jupiter');
+    const g = computeNight(site, '2026-11-30', [jupiter]).body(jupiter).guide!;
+    expect(g.anchorStar).toBe('Regulus');
+    expect(g.pattern?.id).toBe('leo');
+    expect(guidePhrase(g.said, es)).toMatch(/^a unos \d+° \(unos? \d* ?dedos?\) (a la (izquierda|derecha)|(arriba|abajo) a la (izquierda|derecha)|por (encima|debajo)) de Regulus, en la Hoz de Leo$/);
+    expect(guidePhrase(g.said, de)).toMatch(/^etwa \d+° \(etwa (ein|\d+) Finger\) (links|rechts|über|unter|(links|rechts) (ober|unter)halb von)( von)? Regulus, in der Sichel des Löwen$/);
+    expect(guidePhrase(g.said, fr)).toMatch(/^à environ \d+° \(environ (un|\d+) doigts?\) (à (gauche|droite)|en (haut|bas) à (gauche|droite)|au-dessus|au-dessous) de Regulus, dans la Faucille du Lion$/);
+  });
+});

@@ -19,8 +19,7 @@ function utcNoon(date: string): Date {
 
 /** "30 Nov – 6 Dec 2026" (the week's Monday to Sunday, in the site's locale). */
 export function weekLabel(week: IsoWeek, locale: string): string {
-  const f = new Intl.DateTimeFormat(locale, { timeZone: 'UTC', day: 'numeric', month: 'short', year: 'numeric' });
-  return f.formatRange(utcNoon(week.days[0]!), utcNoon(week.days[6]!));
+  return wordsFor(locale).dayRange(week.days[0]!, week.days[6]!, { month: 'short', year: true });
 }
 
 /** "52.9° N, 1.4° W" ("33,4° S, 70,5° O" in Spanish). */

@@ -57,6 +57,14 @@ export interface Words {
   number(value: number, digits?: number): string;
   /** A fraction (0–1) as a percentage in the locale's style ("42%", "42 %"), with `digits` decimals. */
   percent(fraction: number, digits?: number): string;
+  /**
+   * A calendar date (`YYYY-MM-DD`, no zone shift) in words: "Tuesday 1 December", "martes, 1 de
+   * diciembre", "Dienstag, 1. Dezember", "mardi 1er décembre" (French writes the first of the
+   * month as an ordinal; common usage, from memory).
+   */
+  day(date: string, options: { weekday?: 'long' | 'short'; month: 'long' | 'short'; year?: boolean }): string;
+  /** A span of calendar dates in the locale's range style: "7–13 December 2026", "1er–7 décembre 2026". */
+  dayRange(first: string, last: string, options: { month: 'long' | 'short'; year?: boolean }): string;
   /** A list joined the locale's way ("A, B and C", "A, B y C"). */
   list(items: readonly string[]): string;
   /** The 16-point compass word of an azimuth (degrees from north through east), and its abbreviation. */
@@ -105,6 +113,24 @@ function makeWords(locale: string): Words {
     return text.replace(/^[-\u2212]/, '\u2212');
   };
   const listFormat = new Intl.ListFormat(locale, { type: 'conjunction', style: 'long' });
+  const dateFormats = new Map<string, Intl.DateTimeFormat>();
+  const dateFormat = (options: Intl.DateTimeFormatOptions): Intl.DateTimeFormat => {
+    const key = JSON.stringify(options);
+    let f = dateFormats.get(key);
+    if (!f) {
+      f = new Intl.DateTimeFormat(locale, { timeZone: 'UTC', ...options });
+      dateFormats.set(key, f);
+    }
+    return f;
+  };
+  const noon = (date: string): Date => {
+    const m = /^(\d{4})-(\d{2})-(\d{2})$/.exec(date);
+    if (!m) throw new GloamingError('invalid-date', `'${date}' is not a date YYYY-MM-DD`, { actual: date, expected: 'a date YYYY-MM-DD' });
+    return new Date(Date.UTC(Number(m[1]), Number(m[2]) - 1, Number(m[3]), 12));
+  };
+  // French: the first of the month is an ordinal ("1er décembre").
+  const joinParts = (parts: Intl.DateTimeFormatPart[]): string =>
+    parts.map((p) => (p.type === 'day' && language === 'fr' && p.value === '1' ? '1er' : p.value)).join('');
   const context = { plural, number: (v: number) => number(v, Number.isInteger(v) ? 0 : 1) };
   const t: Words['t'] = (key, args = {}) => {
     const source = catalogue[key];
@@ -130,6 +156,12 @@ function makeWords(locale: string): Words {
     t,
     number,
     list: (items) => listFormat.format(items),
+    day(date, options) {
+      return joinParts(dateFormat({ ...(options.weekday ? { weekday: options.weekday } : {}), day: 'numeric', month: options.month, ...(options.year ? { year: 'numeric' } : {}) }).formatToParts(noon(date)));
+    },
+    dayRange(first, last, options) {
+      return joinParts(dateFormat({ day: 'numeric', month: options.month, ...(options.year ? { year: 'numeric' } : {}) }).formatRangeToParts(noon(first), noon(last)));
+    },
     percent(fraction, digits = 0) {
       if (!Number.isFinite(fraction)) throw new GloamingError('invalid-value', 'a percentage to print is not finite', { actual: fraction, expected: 'a finite number' });
       const key = -1 - digits;

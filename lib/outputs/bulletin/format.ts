@@ -3,6 +3,7 @@
  * (`Intl.DateTimeFormat`), numbers with a true minus sign, and small HAST element builders.
  * Everything here is deterministic for a given input (no clock, no environment locale).
  */
+import { wordsFor } from '../../core/language/index.ts';
 import type { Element, ElementContent, Properties } from 'hast';
 import type { Site } from '../../core/site.ts';
 import { defaultClock, formatClock, roundInstant, type Clock, type TimePrecision } from '../../core/time.ts';
@@ -10,29 +11,14 @@ import { defaultClock, formatClock, roundInstant, type Clock, type TimePrecision
 export type { Clock, TimePrecision };
 export { defaultClock, formatClock, roundInstant };
 
-const formatters = new Map<string, Intl.DateTimeFormat>();
-
-function cached(key: string, make: () => Intl.DateTimeFormat): Intl.DateTimeFormat {
-  let f = formatters.get(key);
-  if (!f) {
-    f = make();
-    formatters.set(key, f);
-  }
-  return f;
-}
-
 /** A local date (`YYYY-MM-DD`) in words in the site's locale, e.g. `Monday 7 December`. */
 export function formatDay(date: string, site: Site, options: { weekday: 'long' | 'short' }): string {
-  const f = cached(`day|${site.locale}|${options.weekday}`, () =>
-    new Intl.DateTimeFormat(site.locale, { timeZone: 'UTC', weekday: options.weekday, day: 'numeric', month: options.weekday === 'long' ? 'long' : 'short' }),
-  );
-  return f.format(new Date(`${date}T12:00:00Z`));
+  return wordsFor(site.locale).day(date, { weekday: options.weekday, month: options.weekday === 'long' ? 'long' : 'short' });
 }
 
 /** A span of local dates in words, e.g. `7–13 December 2026` (locale's own range style). */
 export function formatDayRange(first: string, last: string, site: Site): string {
-  const f = cached(`range|${site.locale}`, () => new Intl.DateTimeFormat(site.locale, { timeZone: 'UTC', day: 'numeric', month: 'long', year: 'numeric' }));
-  return f.formatRange(new Date(`${first}T12:00:00Z`), new Date(`${last}T12:00:00Z`));
+  return wordsFor(site.locale).dayRange(first, last, { month: 'long', year: true });
 }
 
 /** A number with `digits` decimals and a typographic minus sign (U+2212); −0 prints as 0. */
