@@ -10,6 +10,8 @@
  * the words are checked against astronomy-engine in test/patterns-guide.test.ts and
  * test/guide.test.ts); the boxes are the placer's estimates of the text extents.
  */
+import { wordsFor } from '../lib/core/language/index.ts';
+import { bodyLabel, bodyPhrase, patternLabel } from '../lib/core/language/names/index.ts';
 import { describe, expect, it } from 'vitest';
 import { BUILT_IN_IDS, builtInBody, type Body } from '../lib/core/body.ts';
 import { horizonAltText, horizonChart, wholeSkyAltText, wholeSkyChart, eveningMoment, type HorizonChart, type WholeSkyChart } from '../lib/outputs/chart/index.ts';
@@ -42,13 +44,17 @@ function checkChart(chart: HorizonChart | WholeSkyChart, what: string): string[]
     checked.push(name);
   };
   // The target, and every star, pattern and body the guide phrase names.
-  if (chart.body && chart.marks.some((m) => m.kind === 'target')) expectLabel(chartLabel(chart.body), 'target');
-  for (const name of chart.guide?.names ?? []) expectLabel(name.name, name.kind === 'star' ? 'star' : name.kind === 'pattern' ? 'pattern' : 'body');
+  // Names in the chart's language (lib/core/language/names): "Luna", "Carro de la Osa Mayor"; star names are IAU names in every language.
+  const language = wordsFor(chart.site.locale).language;
+  const localName = (n: NonNullable<typeof chart.guide>['names'][number]): string =>
+    n.kind === 'pattern' ? patternLabel(language, { ...n, sentenceName: n.name }) : n.kind === 'body' ? bodyLabel(language, n) : n.name;
+  if (chart.body && chart.marks.some((m) => m.kind === 'target')) expectLabel(chartLabel(chart.body, chart.site), 'target');
+  for (const name of chart.guide?.names ?? []) expectLabel(localName(name), name.kind === 'star' ? 'star' : name.kind === 'pattern' ? 'pattern' : 'body');
   // Every body the alt text names ("Also in view: …").
   const alt = chart.kind === 'horizon' ? horizonAltText(chart) : wholeSkyAltText(chart);
   for (const m of chart.marks) {
     if (m.kind !== 'moon' && m.kind !== 'planet') continue;
-    expect(alt, what).toContain(m.kind === 'moon' ? 'the Moon' : m.label);
+    expect(alt, what).toContain(m.kind === 'moon' ? bodyPhrase(language, { id: 'moon', name: m.label }).text : m.label);
     expectLabel(m.label, 'body');
   }
   // Where the Sun set, when the words measure from it.
@@ -80,7 +86,7 @@ function checkChart(chart: HorizonChart | WholeSkyChart, what: string): string[]
     expect(t.x > 0 && t.x < chart.width && t.y > 0 && t.y < 262, `${what}: target inside the scene`).toBe(true);
     // Altitude labels on the vertical through the target: within 45 units of where their circle crosses it.
     for (const l of labels.filter((x) => x.role === 'altitude')) {
-      const deg = /^(\d+)°$/.exec(l.text)?.[1] ?? String(Number(/^(\d+) fist/.exec(l.text)![1]) * 10);
+      const deg = /^(\d+)°$/.exec(l.text)?.[1] ?? String(Number(/^(\d+) (fist|puño|Faust|Fäuste|poing)/.exec(l.text)![1]) * 10);
       const q = chart.layout.toChart(Number(deg), chart.facing.azimuthDeg)!;
       const dx = Math.max(l.x0 - q.x, 0, q.x - l.x1), dy = Math.max(l.y0 - q.y, 0, q.y - l.y1);
       expect(Math.hypot(dx, dy), `${what}: "${l.text}" beside its crossing`).toBeLessThan(12);

@@ -158,7 +158,7 @@ describe('the weekly workflow', () => {
     expect(shardSites(['c', 'a', 'b'], 2)).toEqual(['a,b', 'c']);
     const r = run(['sites', '--shards', '2']);
     expect(r.code).toBe(0);
-    expect(JSON.parse(r.out)).toEqual(['harbour-roof,northern-outpost', 'southern-station']);
+    expect(JSON.parse(r.out)).toEqual(['cerro-lucero,harbour-roof', 'northern-outpost,southern-station']);
     expect(run(['sites', '--shards', '0']).err).toMatch(/--shards: not a whole number of at least 1/);
   });
 });

@@ -415,7 +415,7 @@ export function horizonChart(input: { site: Site; body: Body; time: Date; option
   parts.push(`<circle cx="${n(tq.x)}" cy="${n(tq.y)}" r="8" fill="none" stroke="${COLOURS.target}" stroke-width="2.2"/>`);
   parts.push(`<circle cx="${n(tq.x)}" cy="${n(tq.y)}" r="2.6" fill="${COLOURS.target}" stroke="none"/>`);
   placer.reserve(tq.x - 9, tq.y - 9, tq.x + 9, tq.y + 9);
-  const targetMark: ChartMark = { kind: 'target', id: body.id, label: `${chartLabel(body)} · mag ${formatMagnitude(target.magnitude.value)}`, altitudeDeg: target.altitudeDeg, azimuthDeg: target.azimuthDeg, x: tq.x, y: tq.y, labelled: false };
+  const targetMark: ChartMark = { kind: 'target', id: body.id, label: words.t('chart.target-mag', { name: chartLabel(body, site), value: formatMagnitude(target.magnitude.value, site) }), altitudeDeg: target.altitudeDeg, azimuthDeg: target.azimuthDeg, x: tq.x, y: tq.y, labelled: false };
   marks.unshift(targetMark);
   labelQueue.unshift({ x: tq.x, y: tq.y, text: targetMark.label, size: FONT.target, gap: 9, fill: COLOURS.target, mark: targetMark, force: true, weight: 'bold', role: 'target' });
 

@@ -24,7 +24,7 @@ function bestTime(call: PlaceholderCall): ElementContent {
   const time = timeElement(call, v.best.time, { dataBody: body.id, ...visibilityData(v) });
   // A morning object: say so, so a reader does not plan on it during the evening viewing hours.
   if (!v.outsideViewingHours) return time;
-  return el('span', { className: ['gl-after-hours'] }, [time, { type: 'text', value: ' (after the viewing hours)' }]);
+  return el('span', { className: ['gl-after-hours'] }, [time, { type: 'text', value: ` ${wordsOf(call).t('ph.after-hours')}` }]);
 }
 
 function viewingWindow(call: PlaceholderCall): ElementContent {
