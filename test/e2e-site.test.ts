@@ -131,12 +131,16 @@ interface Measures {
 // never does: there a missing browser fails the run.
 const available = existsSync(CHROMIUM) || process.env.CI === 'true';
 
+/** The shared demo build's output folder. */
+let dist: string;
+
 beforeAll(async () => {
   if (!available) return;
   // The suite's shared demo build (test/setup/demo-build.ts), read only.
   const demo = inject('demoBuild');
   expect(demo.today).toBe(TODAY);
-  server = await serve(realpathSync(demo.dist));
+  dist = realpathSync(demo.dist);
+  server = await serve(dist);
   const address = server.address() as { port: number };
   origin = `http://127.0.0.1:${address.port}`;
   browser = await chromium.launch({ executablePath: CHROMIUM, args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-background-networking'] });
@@ -301,7 +305,7 @@ describe.skipIf(!available)('a site in Spanish (the invented Observatorio Cerro 
 
   it('its pages (bulletin, site, archive, week pages) contain no word of the English catalogue', () => {
     const centre = loadCentre(join(ROOT, 'content'));
-    const dir = join(work, 'dist', 'cerro-lucero');
+    const dir = join(dist, 'cerro-lucero');
     // Not yet translated: the embeddable tonight.html fragment (site/gloaming/fragment.ts), still English.
     const pages = htmlFiles(dir).filter((f) => !/\/weekly\.en\//.test(f) && !f.endsWith('/tonight.html'));
     expect(pages.length).toBeGreaterThan(10);
@@ -327,8 +331,8 @@ describe.skipIf(!available)('a site in Spanish (the invented Observatorio Cerro 
   });
 
   it('says its language (<html lang="es-CL">) and links the English version of the bulletin both ways with hreflang', () => {
-    const es = readFileSync(join(work, 'dist', 'cerro-lucero', '2026-W49', 'weekly', 'index.html'), 'utf8');
-    const en = readFileSync(join(work, 'dist', 'cerro-lucero', '2026-W49', 'weekly.en', 'index.html'), 'utf8');
+    const es = readFileSync(join(dist, 'cerro-lucero', '2026-W49', 'weekly', 'index.html'), 'utf8');
+    const en = readFileSync(join(dist, 'cerro-lucero', '2026-W49', 'weekly.en', 'index.html'), 'utf8');
     expect(es).toMatch(/<html lang="es-CL"/);
     expect(en).toMatch(/<html lang="en-CL"/);
     expect(es).toMatch(/<link rel="alternate" hreflang="en-CL" href="[^"]*\/cerro-lucero\/2026-W49\/weekly\.en\/"/);
@@ -337,10 +341,10 @@ describe.skipIf(!available)('a site in Spanish (the invented Observatorio Cerro 
   });
 
   it('draws its finder charts with Spanish labels (compass letters with O for oeste, fists as puños)', () => {
-    const page = readFileSync(join(work, 'dist', 'cerro-lucero', '2026-W49', 'weekly', 'index.html'), 'utf8');
+    const page = readFileSync(join(dist, 'cerro-lucero', '2026-W49', 'weekly', 'index.html'), 'utf8');
     const src = /<img src="(\/charts\/[^"]+\.svg)"/.exec(page)?.[1];
     expect(src, 'the Spanish weekly page has a finder chart').toBeDefined();
-    const svg = readFileSync(join(work, 'dist', src!), 'utf8');
+    const svg = readFileSync(join(dist, src!), 'utf8');
     const labels = [...svg.matchAll(/<text[^>]*>([^<]*)<\/text>/g)].map((m) => m[1]!);
     expect(labels.some((l) => /puños?$/.test(l))).toBe(true);
     expect(labels.some((l) => /mirando al/.test(l))).toBe(true);
