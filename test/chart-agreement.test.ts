@@ -15,7 +15,11 @@ import { bodyLabel, bodyPhrase, patternLabel } from '../lib/core/language/names/
 import { describe, expect, it } from 'vitest';
 import { BUILT_IN_IDS, builtInBody, type Body } from '../lib/core/body.ts';
 import { horizonAltText, horizonChart, wholeSkyAltText, wholeSkyChart, eveningMoment, type HorizonChart, type WholeSkyChart } from '../lib/outputs/chart/index.ts';
-import { chartLabel } from '../lib/outputs/chart/words.ts';
+import { chartLabel, formatChartTime } from '../lib/outputs/chart/words.ts';
+import { chartPassOf } from '../lib/outputs/chart/pass.ts';
+import { compass } from '../lib/core/describe.ts';
+import { loadSatellites } from '../lib/models/satellite/catalogue.ts';
+import { passNights, recommendedPasses } from '../lib/models/satellite/nights.ts';
 import { FAINT_STAR_MAG } from '../lib/outputs/chart/style.ts';
 import type { PlacedLabel } from '../lib/outputs/chart/svg.ts';
 import { loadBodies, loadSites } from '../lib/models/content.ts';
@@ -124,6 +128,33 @@ describe('every demo chart labels what its words name, with no overlapping label
       checkChart(wholeSkyChart({ site, time: eveningMoment(night), body: bodies.get('comet-lumen') }), `${site.id} whole sky 2027-01-13`);
     }
     expect(charts).toBeGreaterThan(30);
+  });
+});
+
+describe('satellite pass charts mark the pass where its words put it', () => {
+  it('every naked-eye pass of the demo week at every demo site: the ends labelled with their times, drawn at the alt-az the words give', () => {
+    const satellites = loadSatellites('content/satellites');
+    let charts = 0;
+    for (const site of demoSites) {
+      const monday = isoWeekOf(TODAY).days[0]!;
+      for (const pass of recommendedPasses(passNights({ site, satellites, from: monday, to: addDays(monday, 6) }))) {
+        const chart = wholeSkyChart({ site, time: pass.visible!.best.time, options: { pass: chartPassOf(pass) } });
+        const what = `${site.id} ${pass.satellite.id} ${pass.visible!.start.time.toISOString()}`;
+        checkChart(chart, what);
+        const alt = wholeSkyAltText(chart);
+        for (const [kind, point] of [['appears', pass.visible!.start], ['disappears', pass.visible!.end]] as const) {
+          const mark = chart.marks.find((m) => m.id === `pass:${kind}`)!;
+          expect(mark.labelled, `${what}: ${kind} labelled`).toBe(true);
+          expect(mark.label, what).toContain(formatChartTime(point.time, site));
+          expect(alt, what).toContain(`${kind} at ${formatChartTime(point.time, site)}, ${Math.round(point.altitudeDeg)}° up in the ${compass(point.azimuthDeg).word}`);
+          // Where it is drawn: the projection of the pass's own alt-az (the track is interpolated between points 1/40 of the pass apart).
+          const q = chart.layout.toChart(point.altitudeDeg, point.azimuthDeg)!;
+          expect(Math.hypot(mark.x - q.x, mark.y - q.y), `${what}: ${kind} drawn at its place`).toBeLessThan(1.5);
+        }
+        charts++;
+      }
+    }
+    expect(charts).toBeGreaterThan(40);
   });
 });
 

@@ -17,6 +17,7 @@ import { lambertPhaseFunction, satelliteMagnitude } from '../lib/models/satellit
 import { findPasses, MAX_ELEMENT_AGE_DAYS, type Satellite } from '../lib/models/satellite/passes.ts';
 import { stateAt, StateTrack } from '../lib/models/satellite/propagate.ts';
 import { utDays } from '../lib/core/track.ts';
+import { passNights } from '../lib/models/satellite/nights.ts';
 import { errorStats, expectWithin, SECOND_MS } from './helpers/tolerance.ts';
 
 const KM_PER_AU = 149_597_870.7;
@@ -140,7 +141,19 @@ describe('element freshness', () => {
     expect(error).toBeInstanceOf(GloamingError);
     expect((error as GloamingError).code).toBe('stale-elements');
     expect((error as GloamingError).message).toMatch(/demo\.tle:\d+: the element set of Demo station \(epoch 2026-12-03T12:00Z\) is 40 days from the requested dates/);
-    expect(findPasses({ site, satellites: [station], from: '2027-01-10', to: '2027-01-11', skipStale: true })).toEqual([]);
+    // Night by night, the same dates are unavailable, not refused.
+    const nights = passNights({ site, satellites: [station], from: '2027-01-10', to: '2027-01-11' });
+    expect(nights.map((n) => [n.date, n.passes.length, n.unavailable.map((u) => u.id)])).toEqual([
+      ['2027-01-10', 0, ['demo-station']],
+      ['2027-01-11', 0, ['demo-station']],
+    ]);
+  });
+
+  it(`predicts a night only when the elements are within ${MAX_ELEMENT_AGE_DAYS} days of all of it`, () => {
+    // Epoch 2026-12-03 12:00 UT: the night of 16 December (noon to noon, UT+0) ends 14.0 days later, that of the 17th 15 days later.
+    const nights = passNights({ site, satellites: [station], from: '2026-12-15', to: '2026-12-17' });
+    expect(nights.map((n) => n.unavailable.length)).toEqual([0, 0, 1]);
+    expect(nights[0]!.passes.length + nights[1]!.passes.length).toBeGreaterThan(0);
   });
 });
 

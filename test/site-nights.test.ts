@@ -9,6 +9,7 @@ import { loadSites } from '../lib/models/content.ts';
 import { computeNight } from '../lib/models/night.ts';
 import { addDays, zonedTime } from '../lib/core/time.ts';
 import { moonUpAt, nextNights } from '../site/gloaming/nights.ts';
+import { loadSatellites } from '../lib/models/satellite/catalogue.ts';
 
 const sites = loadSites(new URL('../content/sites', import.meta.url).pathname);
 const DATES = Array.from({ length: 24 }, (_, k) => addDays('2026-01-03', 15 * k + (k % 5)));
@@ -72,5 +73,21 @@ describe('next nights panel', () => {
   it('rows are in the site locale: 24-hour for en-GB, 12-hour for en-AU', () => {
     expect(nextNights(sites.get('harbour-roof')!, '2026-12-04', 1)[0]!.sunset.text).toMatch(/^\d{2}:\d{2}$/);
     expect(nextNights(sites.get('southern-station')!, '2026-12-04', 1)[0]!.sunset.text).toMatch(/^\d{1,2}:\d{2}\s?pm$/);
+  });
+
+  it("tonight's satellite passes: the naked-eye passes of the night, or a plain sentence when the element sets do not reach it", () => {
+    const satellites = loadSatellites('content/satellites');
+    const harbour = sites.get('harbour-roof')!;
+    // The demo's element sets (epochs 3–4 December 2026): tonight's two evening passes of the demo station and a morning pass of the rocket stage.
+    const tonight = nextNights(harbour, '2026-12-04', 2, satellites);
+    expect(tonight[0]!.passes!.items.map((p) => p.time.text)).toEqual(['16:15', '17:50', '05:37']);
+    expect(tonight[0]!.passes!.items[0]!.text).toMatch(/^Demo station, west-northwest to east-southeast, up to \d+°, magnitude −\d\.\d$/);
+    expect(tonight[1]!.passes).toBeNull();
+    // Two months later the elements are 60 days old: no stale pass, a sentence.
+    const later = nextNights(harbour, '2027-02-01', 1, satellites)[0]!.passes!;
+    expect(later.items).toEqual([]);
+    expect(later.text).toBe('predictions not available (orbital elements out of date)');
+    // A site that follows no satellites says nothing about them.
+    expect(nextNights(harbour, '2026-12-04', 1)[0]!.passes).toBeNull();
   });
 });

@@ -16,6 +16,8 @@ import type { Site } from '../core/site.ts';
 import { isoWeekOf, localMidnight, parseLocalDate, type IsoWeek } from '../core/time.ts';
 import { computeNight, type BodyNight, type NightReport } from './night.ts';
 import type { Visibility } from './visibility.ts';
+import { passNights, type PassNight } from './satellite/nights.ts';
+import type { Satellite } from './satellite/passes.ts';
 
 /** A change across the week smaller than this is not worth a sentence, magnitudes. */
 const MAGNITUDE_STEP = 0.2;
@@ -147,17 +149,27 @@ export class WeekData {
   readonly week: IsoWeek;
   /** The bodies placeholders and events may name (built-in ones plus loaded objects). */
   readonly bodies: BodyRegistry;
+  /** The satellites followed (content/satellites/), for passes and `satellite-pass` events. */
+  readonly satellites: readonly Satellite[];
   #nights: readonly NightReport[] | undefined;
+  #passes: PassNight[] | undefined;
   readonly #observations = new Map<string, Observation>();
   readonly #magnitudes = new Map<string, WeekMagnitudes>();
   readonly #elongations = new Map<string, number>();
   readonly #summaries = new Map<string, BodyWeek>();
   readonly #derived = new Map<string, unknown>();
 
-  constructor(site: Site, week: IsoWeek, bodies: BodyRegistry = new BodyRegistry()) {
+  constructor(site: Site, week: IsoWeek, bodies: BodyRegistry = new BodyRegistry(), satellites: readonly Satellite[] = []) {
     this.site = site;
     this.week = week;
     this.bodies = bodies;
+    this.satellites = satellites;
+  }
+
+  /** The satellite passes of the week's seven nights, night by night (lib/models/satellite/nights.ts), computed once. */
+  passNights(): PassNight[] {
+    this.#passes ??= passNights({ site: this.site, satellites: this.satellites, from: this.week.days[0]!, to: this.week.days[6]! });
+    return this.#passes;
   }
 
   /** The seven nights, Monday evening first (`week.days[i]` is `nights[i].night.date`), computed on first use. */
@@ -249,15 +261,15 @@ export class WeekCache {
   hits = 0;
   misses = 0;
 
-  get(site: Site, week: IsoWeek, bodies?: BodyRegistry): WeekData {
+  get(site: Site, week: IsoWeek, bodies?: BodyRegistry, satellites?: readonly Satellite[]): WeekData {
     const key = `${site.id}/${week.id}`;
     const found = this.#weeks.get(key);
-    if (found && found.site === site && (bodies === undefined || found.bodies === bodies)) {
+    if (found && found.site === site && (bodies === undefined || found.bodies === bodies) && (satellites === undefined || found.satellites === satellites)) {
       this.hits++;
       return found;
     }
     this.misses++;
-    const data = new WeekData(site, week, bodies);
+    const data = new WeekData(site, week, bodies, satellites);
     this.#weeks.set(key, data);
     return data;
   }

@@ -12,6 +12,9 @@ import type { NightRowEntry as NightRow, ShownTimeEntry as ShownTime } from './s
 
 /** One shown time and one row of the panel: their shapes are the schemas' (schema.ts). */
 export type { NightRow, ShownTime };
+import { passNights, recommendedPasses, type PassNight } from '../../lib/models/satellite/nights.ts';
+import type { Satellite } from '../../lib/models/satellite/passes.ts';
+import { PASS_WORDS } from '../../lib/models/satellite/words.ts';
 
 /** "Fri 4 Dec" for a local date, in the site's locale (the date is a calendar date; no zone shift). */
 export function dayLabel(date: string, locale: string): string {
@@ -61,8 +64,16 @@ function moonSummary(report: NightReport): NightRow['moon'] {
   return { verb: w.t(up ? 'ui.moon-up-all-night' : 'ui.moon-down-all-night'), time: null };
 }
 
-/** One row from a computed night. */
-export function nightRow(report: NightReport): NightRow {
+/** A night's satellite passes as the tonight card shows them (lib/satellite/nights.ts). */
+export function passesRow(night: PassNight, site: Site, followed: number): NightRow['passes'] {
+  if (followed === 0) return null;
+  const items = recommendedPasses([night]).map((p) => ({ time: shown({ time: p.visible!.start.time }, site, {}), text: PASS_WORDS.short(p) }));
+  if (items.length) return { items, text: null };
+  return { items, text: night.unavailable.length === followed ? PASS_WORDS.unavailableShort : PASS_WORDS.noneTonight };
+}
+
+/** One row from a computed night (and its satellite passes, when given). */
+export function nightRow(report: NightReport, passes: NightRow['passes'] = null): NightRow {
   const site = report.site;
   return {
     date: report.night.date,
@@ -75,10 +86,15 @@ export function nightRow(report: NightReport): NightRow {
     moon: moonSummary(report),
     moonPhase: report.moon.phase.name,
     moonLitPercent: Math.round(report.moon.phase.illuminatedFraction * 100),
+    passes,
   };
 }
 
-/** The `count` nights starting on the evening of `today` (local date) at `site`. */
-export function nextNights(site: Site, today: string, count: number): NightRow[] {
-  return Array.from({ length: count }, (_, i) => nightRow(computeNight(site, addDays(today, i), [])));
+/**
+ * The `count` nights starting on the evening of `today` (local date) at `site`; the first
+ * (tonight) with the passes of `satellites`.
+ */
+export function nextNights(site: Site, today: string, count: number, satellites: readonly Satellite[] = []): NightRow[] {
+  const tonight = passNights({ site, satellites, from: today, to: today })[0]!;
+  return Array.from({ length: count }, (_, i) => nightRow(computeNight(site, addDays(today, i), []), i === 0 ? passesRow(tonight, site, satellites.length) : null));
 }

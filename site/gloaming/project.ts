@@ -46,7 +46,7 @@ export interface Project {
   /** SHA-256 of each template's text, by template file. */
   templateDigests: Map<string, string>;
   bodies: BodyRegistry;
-  /** Satellites followed (content/satellites/), for the calendar feed's passes. */
+  /** Satellites followed (content/satellites/): the tonight card, bulletin passes and the calendar feed. */
   satellites: Satellite[];
   /** Hash of every object file. */
   objectsDigest: string;

@@ -32,6 +32,11 @@ export const nightRowSchema = z.object({
   moonPhase: z.string(),
   /** Lit fraction of the Moon's disc at local midnight, whole per cent. */
   moonLitPercent: z.number(),
+  /**
+   * Satellite passes to recommend this night (naked eye, at least a minute), or why there are none
+   * (`text`); null when the site follows no satellites (only tonight's row has them).
+   */
+  passes: z.object({ items: z.array(z.object({ time: shownTime, text: z.string() })), text: z.string().nullable() }).nullable(),
 });
 
 export const siteEntrySchema = z.object({

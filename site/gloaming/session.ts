@@ -228,7 +228,7 @@ export class GloamingSession {
       horizon: s.horizon.map((p) => ({ azimuthDeg: p.azimuthDeg, altitudeDeg: p.altitudeDeg })),
       built,
       currentWeek: isoWeekOf(project.today).id,
-      nights: built ? nextNights(s, project.today, NIGHTS_SHOWN) : [],
+      nights: built ? nextNights(s, project.today, NIGHTS_SHOWN, project.satellites) : [],
       calendar: built ? siteCalendar(s, { bodies: project.bodies, today: project.today, satellites: project.satellites, centreName: project.centre.name }) : '',
     };
   }
@@ -243,7 +243,7 @@ export class GloamingSession {
     const output = { cache: chartCache, url: (file: string) => (charts.add(file), `/charts/${file}`) };
     const found = new ProblemList();
     let rendered: RenderedBulletin | undefined;
-    checkPages([spec], { bodies: project.bodies, charts: output, cache: this.#weeks, problems: found, onRendered: (_, r) => (rendered = r) });
+    checkPages([spec], { bodies: project.bodies, satellites: project.satellites, charts: output, cache: this.#weeks, problems: found, onRendered: (_, r) => (rendered = r) });
     if (!rendered) return { path: spec.path, data: null, problems: found.items }; // an error, among the problems
     const oneOff = spec.template.frontMatter.date !== undefined;
     const data: PageEntry = {

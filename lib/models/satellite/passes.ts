@@ -36,7 +36,7 @@ import { darkSkyFromQuality } from '../sky/quality.ts';
 import { DEFAULT_INSTRUMENTS, limitingMagnitude, type Instrument } from '../sky/threshold.ts';
 import { addDays, localMidnight, nightOf } from '../../core/time.ts';
 import { separationDeg } from '../../core/geometry.ts';
-import { dateFromUt, NightFrame } from '../../core/track.ts';
+import { dateFromUt, NightFrame, utDays } from '../../core/track.ts';
 import type { ElementSet } from './elements.ts';
 import { satelliteMagnitude } from './magnitude.ts';
 import { epochUt, SatelliteObserver, StateTrack, type LookAngles, type Vec3 } from './propagate.ts';
@@ -71,6 +71,17 @@ export interface PassPoint {
   sunlit: boolean;
   /** Expected V magnitude outside the atmosphere (dimmed in the penumbra); null in the umbra. */
   magnitude: number | null;
+}
+
+/** A point of a pass's track across the sky (for charts). */
+export interface TrackPoint {
+  time: Date;
+  /** Apparent altitude, degrees. */
+  altitudeDeg: number;
+  /** Degrees from north through east. */
+  azimuthDeg: number;
+  /** At least half of the Sun's disc seen from the satellite. */
+  sunlit: boolean;
 }
 
 export interface ShadowCrossing {
@@ -108,6 +119,12 @@ export interface SatellitePass {
   /** A naked-eye pass visible for at least a minute: one to recommend to the public. */
   recommended: boolean;
   shadow: ShadowCrossing[];
+  /**
+   * The track from `start` to `end` in `TRACK_POINTS` equal steps (with the visible part's start,
+   * best moment and end and the shadow crossings),
+   * for passes with a verdict (seen with the naked eye or binoculars); empty for the others.
+   */
+  track: TrackPoint[];
   /** The observer's sky at the best moment (or at culmination when not visible). */
   sky: { sunAltitudeDeg: number; darkness: Darkness; limitingMagnitude: number; margin: number };
   elements: { epoch: Date; ageDays: number; source: Place };
@@ -116,8 +133,7 @@ export interface SatellitePass {
 /** Raises `stale-elements` unless every instant of [ut0, ut1] is within the age limit of the elements. */
 export function assertFreshElements(satellite: Satellite, ut0: number, ut1: number): void {
   const epoch = epochUt(satellite.elements);
-  const worst = Math.max(Math.abs(ut0 - epoch), Math.abs(ut1 - epoch));
-  if (worst > MAX_ELEMENT_AGE_DAYS) {
+  if (!elementsCover(satellite, ut0, ut1)) {
     const days = Math.round(Math.max(ut1 - epoch, epoch - ut0));
     throw new GloamingError('stale-elements', `the element set of ${satellite.name} (epoch ${satellite.elements.epoch.toISOString().slice(0, 16)}Z) is ${days} days from the requested dates`, {
       place: satellite.elements.source,
@@ -127,12 +143,10 @@ export function assertFreshElements(satellite: Satellite, ut0: number, ut1: numb
   }
 }
 
-/** The UT days of [ut0, ut1] within the age limit of the satellite's elements, or null. */
-export function freshSpan(satellite: Satellite, ut0: number, ut1: number): { ut0: number; ut1: number } | null {
+/** Whether every instant of [ut0, ut1] (UT days) is within the age limit of the satellite's elements. */
+export function elementsCover(satellite: Satellite, ut0: number, ut1: number): boolean {
   const epoch = epochUt(satellite.elements);
-  const a = Math.max(ut0, epoch - MAX_ELEMENT_AGE_DAYS);
-  const b = Math.min(ut1, epoch + MAX_ELEMENT_AGE_DAYS);
-  return b > a ? { ut0: a, ut1: b } : null;
+  return Math.max(Math.abs(ut0 - epoch), Math.abs(ut1 - epoch)) <= MAX_ELEMENT_AGE_DAYS;
 }
 
 const SHADOW_HALF = 0.5;
@@ -146,6 +160,8 @@ const NODE_DAYS = 2 / 1440;
 const PEAK_TOLERANCE_DAYS = 0.01 / 86_400;
 /** Sampling step inside a pass: shadow and visibility crossings closer together than this may merge. */
 const PASS_STEP_DAYS = 30 / 86_400;
+/** Points of a visible pass's `track`, start to end (a whole-sky chart needs no more for a smooth curve). */
+const TRACK_POINTS = 41;
 /** Sampling step for the skyline crossings around a highest point. */
 const EDGE_STEP_DAYS = 1 / 1440;
 
@@ -264,6 +280,18 @@ class SatelliteTrack {
     return { margin: lim - (this.magnitude(s) + extinctionMag(this.night.kV, s.look.altitudeDeg)), limitingMagnitude: lim, sunAltitudeDeg: sunAlt };
   }
 
+  /** The track from `ut0` to `ut1`: `TRACK_POINTS` equal steps plus the instants `also` (exactly), in time order. */
+  track(ut0: number, ut1: number, also: readonly number[]): TrackPoint[] {
+    const uts = Array.from({ length: TRACK_POINTS }, (_, i) => ut0 + ((ut1 - ut0) * i) / (TRACK_POINTS - 1));
+    uts.push(...also);
+    return uts
+      .sort((a, b) => a - b)
+      .map((ut) => {
+        const s = this.sample(ut)!;
+        return { time: dateFromUt(ut), altitudeDeg: s.look.altitudeDeg, azimuthDeg: s.look.azimuthDeg, sunlit: s.lit >= SHADOW_HALF };
+      });
+  }
+
   point(ut: number): PassPoint {
     const s = this.sample(ut)!;
     const sunlit = s.lit >= SHADOW_HALF;
@@ -350,7 +378,7 @@ class SatelliteTrack {
     };
     const naked = DEFAULT_INSTRUMENTS['naked-eye'];
     if (!anyLight) {
-      return { ...base, visible: null, verdict: 'not-visible', reason: 'earth-shadow', recommended: false, sky: skyAt(culminationUt, naked) };
+      return { ...base, visible: null, verdict: 'not-visible', reason: 'earth-shadow', recommended: false, track: [], sky: skyAt(culminationUt, naked) };
     }
     for (const instrument of [naked, DEFAULT_INSTRUMENTS.binoculars]) {
       const f = (ut: number): number => this.margin(ut, instrument);
@@ -364,11 +392,11 @@ class SatelliteTrack {
       }
       const verdict = instrument.kind === 'naked-eye' ? 'naked-eye' : 'binoculars';
       const recommended = verdict === 'naked-eye' && ve - vs >= MIN_RECOMMENDED_DAYS;
-      return { ...base, visible: { start: this.point(vs), best: this.point(best.ut), end: this.point(ve) }, verdict, reason: null, recommended, sky: skyAt(best.ut, instrument) };
+      return { ...base, visible: { start: this.point(vs), best: this.point(best.ut), end: this.point(ve) }, verdict, reason: null, recommended, track: this.track(ut0, ut1, [vs, best.ut, ve, ...shadow.map((c) => utDays(c.point.time))]), sky: skyAt(best.ut, instrument) };
     }
     const visibleWithout = (without: 'twilight' | 'moon'): boolean => (findMaximum((ut) => this.margin(ut, naked, without), ut0, ut1, { stepDays: PASS_STEP_DAYS })?.value ?? -1) > 0;
     const reason: PassReason = visibleWithout('twilight') ? 'twilight' : visibleWithout('moon') ? 'moonlight' : 'too-faint';
-    return { ...base, visible: null, verdict: 'not-visible', reason, recommended: false, sky: skyAt(culminationUt, naked) };
+    return { ...base, visible: null, verdict: 'not-visible', reason, recommended: false, track: [], sky: skyAt(culminationUt, naked) };
   }
 }
 
@@ -409,14 +437,12 @@ export interface PassSearch {
   /** First and last local evening (YYYY-MM-DD), inclusive: the nights that begin on those dates. */
   from: string;
   to: string;
-  /** Keep passes of dates outside the elements' age limit out silently (for feeds) instead of refusing. */
-  skipStale?: boolean;
 }
 
 /**
  * All passes of `satellites` over the site during the nights from `from` to `to`, in time order.
- * Refuses (`stale-elements`) a satellite whose elements are too far from those nights, unless
- * `skipStale`, which keeps only the nights within the limit.
+ * Refuses (`stale-elements`) a satellite whose elements are too far from those nights (see
+ * `passNights` in `nights.ts` for the nights that can be predicted).
  */
 export function findPasses(search: PassSearch): SatellitePass[] {
   const { site } = search;
@@ -427,13 +453,10 @@ export function findPasses(search: PassSearch): SatellitePass[] {
   const last = nights[nights.length - 1]?.frame.ut1 ?? 0;
   const out: SatellitePass[] = [];
   for (const satellite of search.satellites) {
-    if (!search.skipStale) assertFreshElements(satellite, first, last);
+    assertFreshElements(satellite, first, last);
     for (const night of nights) {
       const track = new SatelliteTrack(satellite, night);
-      for (const dark of night.darkSpans) {
-        const span = search.skipStale ? freshSpan(satellite, dark.ut0, dark.ut1) : dark;
-        if (span) out.push(...track.passes(span));
-      }
+      for (const dark of night.darkSpans) out.push(...track.passes(dark));
     }
   }
   return out.sort((a, b) => a.start.time.getTime() - b.start.time.getTime() || a.satellite.id.localeCompare(b.satellite.id));

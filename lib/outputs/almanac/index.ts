@@ -145,9 +145,16 @@ export function eventsOfWeek(input: { site: Site; date: string; bodies?: BodyReg
 export function eventsBetween(week: WeekData, firstNight: string = week.week.days[0]!, lastNight: string = week.week.days[6]!): AlmanacEvent[] {
   return week.derived(`events:${firstNight}/${lastNight}`, (w) => {
     const zone = w.site.timeZone;
-    return findEvents({ site: w.site, from: nightOf(firstNight, zone).start, to: nightOf(lastNight, zone).end, bodies: w.bodies, frames: w.nights.map((n) => n.frame) });
+    return findEvents({ site: w.site, from: nightOf(firstNight, zone).start, to: nightOf(lastNight, zone).end, bodies: w.bodies, satellites: w.satellites, frames: w.nights.map((n) => n.frame) });
   });
 }
+
+/**
+ * Event types too many to list with the rest (satellite passes, a dozen a week at a mid-latitude
+ * site): `::events` and an `:::every-event` without `type` leave them out, and
+ * `type=satellite-pass` asks for them.
+ */
+export const OWN_LIST_EVENT_TYPES: ReadonlySet<AlmanacEventType> = new Set(['satellite-pass']);
 
 /**
  * The one event an inline placeholder refers to: the first (in time) of `type` that involves every

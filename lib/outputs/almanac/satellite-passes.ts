@@ -9,11 +9,8 @@ import type { AlmanacEvent } from './types.ts';
 import { compass } from '../../core/describe.ts';
 import type { Site } from '../../core/site.ts';
 import { addDays, formatClock, localDateOf } from '../../core/time.ts';
-import { epochUt } from '../../models/satellite/propagate.ts';
-import { findPasses, MAX_ELEMENT_AGE_DAYS, type PassPoint, type Satellite, type SatellitePass } from '../../models/satellite/passes.ts';
-
-const DAY_MS = 86_400_000;
-const UT0_MS = Date.UTC(2000, 0, 1, 12);
+import { passNights, recommendedPasses } from '../../models/satellite/nights.ts';
+import type { PassPoint, Satellite, SatellitePass } from '../../models/satellite/passes.ts';
 
 /** One recommended pass as an event: from the moment it can be seen to the moment it cannot. */
 export function passEvent(pass: SatellitePass, site: Site): AlmanacEvent {
@@ -60,20 +57,15 @@ export function passEvent(pass: SatellitePass, site: Site): AlmanacEvent {
 
 /**
  * The recommended passes of `satellites` over the site with their visible start in [from, to),
- * as events; nights too far from the element sets' epochs are skipped.
+ * as events; nights the element sets do not cover are left out (see `passNights`).
  */
 export function satellitePassEvents(input: { site: Site; satellites: readonly Satellite[]; from: Date; to: Date }): AlmanacEvent[] {
   const { site, satellites } = input;
   if (satellites.length === 0) return [];
-  // Only the nights some element set is good for.
-  const epochs = satellites.map((s) => UT0_MS + epochUt(s.elements) * DAY_MS);
-  const fresh0 = Math.max(input.from.getTime(), Math.min(...epochs) - MAX_ELEMENT_AGE_DAYS * DAY_MS);
-  const fresh1 = Math.min(input.to.getTime(), Math.max(...epochs) + MAX_ELEMENT_AGE_DAYS * DAY_MS);
-  if (fresh1 <= fresh0) return [];
   // Nights run from local noon: the night holding `from` began on the evening before its date.
-  const from = addDays(localDateOf(new Date(fresh0), site.timeZone), -1);
-  const to = localDateOf(new Date(fresh1), site.timeZone);
-  return findPasses({ site, satellites, from, to, skipStale: true })
-    .filter((p) => p.recommended && p.visible!.start.time >= input.from && p.visible!.start.time < input.to)
+  const from = addDays(localDateOf(input.from, site.timeZone), -1);
+  const to = localDateOf(input.to, site.timeZone);
+  return recommendedPasses(passNights({ site, satellites, from, to }))
+    .filter((p) => p.visible!.start.time >= input.from && p.visible!.start.time < input.to)
     .map((p) => passEvent(p, site));
 }

@@ -9,6 +9,7 @@ import type { BodyRegistry } from '../../core/body.ts';
 import { GloamingError } from '../../core/errors.ts';
 import type { Site } from '../../core/site.ts';
 import { addDays, isoWeekOf, type IsoWeek } from '../../core/time.ts';
+import type { Satellite } from '../../models/satellite/passes.ts';
 import { sitesFor } from './pages.ts';
 import { ProblemList, errorsOf, problemOfError } from './problems.ts';
 import { renderBulletinSync } from './render.ts';
@@ -28,6 +29,8 @@ export const LAYOUT_BYTES = 10 * 1024;
 
 export interface CheckOptions {
   bodies: BodyRegistry;
+  /** Satellites followed (content/satellites/), for passes; default none. */
+  satellites?: readonly Satellite[];
   /** Finder chart output for `::chart` (default: the library's default chart cache). */
   charts?: ChartOutput;
   /** Shared week data (pass the build's own). */
@@ -61,7 +64,7 @@ export function checkPages(pages: readonly Pick<PageSpec, 'template' | 'site' | 
     }
     const context = { site: page.site.id, week: weekLabel(page) };
     try {
-      const r = renderBulletinSync(page.template, { site: page.site, week: page.week, bodies: options.bodies, ...(options.charts ? { charts: options.charts } : {}) }, cache);
+      const r = renderBulletinSync(page.template, { site: page.site, week: page.week, bodies: options.bodies, ...(options.satellites ? { satellites: options.satellites } : {}), ...(options.charts ? { charts: options.charts } : {}) }, cache);
       for (const p of r.problems) problems.add(p);
       options.onRendered?.(page, r);
       const bytes = Buffer.byteLength(r.html) + layout;

@@ -37,6 +37,7 @@ import { errorsOnFile, reportError, reportWarning, throwErrors, type ProblemKind
 import type { ShownBody } from './safety.ts';
 import { OTHERWISE, SECTIONS, type Binding, type SectionSpec } from './sections.ts';
 import { WeekCache, type WeekData } from '../../models/week.ts';
+import type { Satellite } from '../../models/satellite/passes.ts';
 import type { ChartOutput } from './types.ts';
 
 /** What the placeholders of one document are about. */
@@ -44,6 +45,8 @@ export interface PlaceholderScope {
   site: Site;
   week: IsoWeek;
   bodies: BodyRegistry;
+  /** Satellites followed, for passes and `satellite-pass` events (default none). */
+  satellites?: readonly Satellite[];
   /** Local date (inside `week`) of the default night; Monday of the week when absent. */
   defaultNight?: string;
   /**
@@ -359,7 +362,7 @@ class Pass {
   }
 
   get week(): WeekData {
-    this.#week ??= (this.scope.cache ?? new WeekCache()).get(this.scope.site, this.scope.week, this.scope.bodies);
+    this.#week ??= (this.scope.cache ?? new WeekCache()).get(this.scope.site, this.scope.week, this.scope.bodies, this.scope.satellites);
     return this.#week;
   }
 

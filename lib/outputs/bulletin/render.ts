@@ -108,6 +108,7 @@ export function renderBulletinSync(template: BulletinTemplate, context: RenderCo
     site: context.site,
     week: context.week,
     bodies: context.bodies,
+    ...(context.satellites ? { satellites: context.satellites } : {}),
     cache,
     ...(context.charts ? { charts: context.charts } : {}),
     ...nights,
@@ -118,7 +119,7 @@ export function renderBulletinSync(template: BulletinTemplate, context: RenderCo
   const html = String(file);
   assertPublishable(html, template.file);
   const shown = file.data.placeholders?.shown ?? [];
-  const week = cache.get(context.site, context.week, context.bodies);
+  const week = cache.get(context.site, context.week, context.bodies, context.satellites);
   const days = context.week.days;
   const events = eventsBetween(week, nights.eventNights?.first ?? days[0]!, nights.eventNights?.last ?? days[6]!);
   return {

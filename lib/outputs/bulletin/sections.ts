@@ -21,7 +21,7 @@
  */
 import type { Body } from '../../core/body.ts';
 import { GloamingError } from '../../core/errors.ts';
-import { EVENT_TYPES, pickEvent, type AlmanacEvent, type AlmanacEventType } from '../almanac/index.ts';
+import { EVENT_TYPES, OWN_LIST_EVENT_TYPES, pickEvent, type AlmanacEvent, type AlmanacEventType } from '../almanac/index.ts';
 import { dateFromUt } from '../../core/track.ts';
 import { viewingSpan } from '../../models/visibility.ts';
 import { moonInterferes, type WeekData } from '../../models/week.ts';
@@ -196,7 +196,7 @@ function targets(call: SectionCall): Binding[] {
 function events(call: SectionCall): Binding[] {
   const type = call.attrs.get('type') as AlmanacEventType | undefined;
   const visible = call.attrs.get('visible') === 'only';
-  const list = call.events().filter((e) => (!type || e.type === type) && (!visible || e.visible));
+  const list = call.events().filter((e) => (type ? e.type === type : !OWN_LIST_EVENT_TYPES.has(e.type)) && (!visible || e.visible));
   if (call.attrs.get('order') === 'interest') list.sort((a, b) => b.score - a.score || a.time.getTime() - b.time.getTime());
   const limit = call.attrs.get('limit') as number | undefined;
   const zone = call.week.site.timeZone;
@@ -253,7 +253,7 @@ const DEFINITIONS: SectionSpec[] = [
     example: ':::every-event{type=meteor-shower-peak}',
     binds: 'event',
     attributes: {
-      type: { type: { kind: 'choice', values: EVENT_TYPES }, doc: 'only events of this type (default: all)' },
+      type: { type: { kind: 'choice', values: EVENT_TYPES }, doc: 'only events of this type (default: all but satellite passes, a dozen a week)' },
       visible: { type: { kind: 'choice', values: ['only', 'any'] }, default: 'any', doc: 'only events visible from the site, or all' },
       order: { type: { kind: 'choice', values: ['time', 'interest'] }, default: 'time', doc: 'in time order, or most interesting first' },
       limit: { type: { kind: 'integer', min: 1, max: 50 }, doc: 'at most this many (default: all)' },

@@ -8,6 +8,7 @@ import type { BodyRegistry } from '../../core/body.ts';
 import type { ChartCache } from '../chart/cache.ts';
 import type { Site } from '../../core/site.ts';
 import type { IsoWeek } from '../../core/time.ts';
+import type { Satellite } from '../../models/satellite/passes.ts';
 import type { Problem } from './problems.ts';
 
 /** A bulletin template's front matter, validated (see `parseBulletin`). */
@@ -87,6 +88,8 @@ export interface RenderContext {
   site: Site;
   week: IsoWeek;
   bodies: BodyRegistry;
+  /** Satellites followed (content/satellites/), for passes and `satellite-pass` events; default none. */
+  satellites?: readonly Satellite[];
   /**
    * Finder charts (`::chart`): the build's chart cache and links. Default: charts kept in memory for
    * this one render (nothing is written), linked as `/charts/<file>`.

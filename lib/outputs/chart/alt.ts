@@ -7,6 +7,7 @@
  *    in the Sickle of Leo. Also in view: the Moon, Saturn."
  */
 import type { ChartMark, HorizonChart } from './horizon.ts';
+import { passAltSentence } from './pass.ts';
 import type { WholeSkyChart } from './whole-sky.ts';
 import { guidePhrase } from '../../models/stars/guide.ts';
 import type { Words } from '../../core/language/index.ts';
@@ -38,11 +39,16 @@ export function horizonAltText(chart: HorizonChart): string {
 export function wholeSkyAltText(chart: WholeSkyChart): string {
   const words = chartWords(chart.site);
   const clock = formatChartTime(chart.time, chart.site);
-  const up = chart.marks.filter((m) => m.kind !== 'star' && m.kind !== 'track');
+  const up = chart.marks.filter((m) => m.kind !== 'star' && m.kind !== 'track' && m.kind !== 'pass');
   const phrases = up.map((m) =>
     words.t('chart.whole-sky-body', { name: m.kind === 'target' ? chartLabel(chart.body!, chart.site) : bodyName(m, words), degrees: Math.round(m.altitudeDeg), direction: words.compass(m.azimuthDeg).word }),
   );
   let out = words.t('chart.whole-sky', { site: chart.site.name, clock });
+  if (chart.pass) {
+    out += `. ${passAltSentence(chart.pass, chart.site)}`;
+    out += phrases.length ? ` Also in view: ${phrases.join('; ')}.` : '';
+    return out;
+  }
   out += phrases.length ? `: ${phrases.join('; ')}.` : '.';
   if (chart.body && chart.target && !up.some((m) => m.kind === 'target')) out += ` ${words.t('chart.not-above-skyline', { name: chartLabel(chart.body, chart.site) })}`;
   else if (chart.guide && chart.body) out += ` ${words.t('chart.is-where', { name: chartLabel(chart.body, chart.site), guide: guidePhrase(chart.guide.said, words) })}`;

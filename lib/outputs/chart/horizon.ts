@@ -69,8 +69,8 @@ export interface HorizonChartOptions {
 
 /** A body, star or track point drawn on a chart, with where it was drawn. */
 export interface ChartMark {
-  kind: 'target' | 'moon' | 'planet' | 'star' | 'track' | 'sun';
-  /** Body id, `hip:<n>` for stars, or `track:<offset>`. */
+  kind: 'target' | 'moon' | 'planet' | 'star' | 'track' | 'sun' | 'pass';
+  /** Body id, `hip:<n>` for stars, `track:<offset>`, or `pass:appears` / `pass:disappears` for a satellite pass's ends. */
   id: string;
   label: string;
   altitudeDeg: number;

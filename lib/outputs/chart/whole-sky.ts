@@ -24,6 +24,7 @@ import type { GuideResult } from '../../models/stars/guide.ts';
 import { patternById, type StarPattern } from '../../models/stars/patterns.ts';
 import { zonedTime } from '../../core/time.ts';
 import type { ChartMark } from './horizon.ts';
+import { drawPass, type ChartPass } from './pass.ts';
 import { patternLabel, patternLinesMarkup, SkyAt } from './place.ts';
 import { brightLimbAngle, moonMarkup } from './moon.ts';
 import { makeLayout, type ChartLayout } from './projection.ts';
@@ -44,6 +45,8 @@ export interface WholeSkyChartOptions {
   magnitudeLimit?: number;
   /** Bodies drawn when above the horizon (default: the Moon and the planets). */
   otherBodies?: readonly Body[];
+  /** A satellite pass to draw: its track, where it appears and disappears, the way it moves (`pass.ts`). */
+  pass?: ChartPass;
 }
 
 export interface WholeSkyChart {
@@ -54,6 +57,8 @@ export interface WholeSkyChart {
   site: Site;
   /** The highlighted target, if any. */
   body: Body | null;
+  /** The satellite pass drawn, if any. */
+  pass: ChartPass | null;
   time: Date;
   target: Observation | null;
   guide: GuideResult | null;
@@ -165,7 +170,7 @@ export function wholeSkyChart(input: { site: Site; time: Date; body?: Body; opti
   }
 
   // Bodies.
-  const labels: { x: number; y: number; text: string; fill: string; gap: number; mark: ChartMark; bold?: boolean; role: 'target' | 'body' | 'star' | 'sun' }[] = [];
+  const labels: { x: number; y: number; text: string; lines?: string[]; fill: string; gap: number; mark: ChartMark; bold?: boolean; role: 'target' | 'body' | 'star' | 'sun' | 'track' }[] = [];
   for (const other of options.otherBodies ?? BUILT_IN_IDS.filter((id) => id !== 'sun').map((id) => builtInBody(id))) {
     if (other.id === body?.id || other.kind === 'sun') continue;
     const o = observe(site, other, time);
@@ -201,6 +206,19 @@ export function wholeSkyChart(input: { site: Site; time: Date; body?: Body; opti
       labels.unshift({ x: q.x, y: q.y, text: chartLabel(body, site), fill: COLOURS.target, gap: 8, mark, bold: true, role: 'target' });
     }
   }
+  // A satellite pass: the track, its ends labelled with their times first (they are the chart's subject).
+  const pass = options.pass ?? null;
+  if (pass) {
+    const drawing = drawPass(pass, layout, site);
+    parts.push(drawing.markup);
+    for (const [x1, y1, x2, y2] of drawing.segments) placer.avoidLine(x1, y1, x2, y2);
+    drawing.ends.forEach((end, i) => {
+      placer.reserve(end.x - 7, end.y - 7, end.x + 7, end.y + 7);
+      const mark: ChartMark = { kind: 'pass', id: `pass:${end.kind}`, label: end.label, altitudeDeg: end.altitudeDeg, azimuthDeg: end.azimuthDeg, x: end.x, y: end.y, labelled: false };
+      marks.splice(i, 0, mark);
+      labels.splice(i, 0, { x: end.x, y: end.y, text: end.label, lines: end.lines, fill: COLOURS.target, gap: 8, mark, bold: end.kind === 'appears', role: 'track' });
+    });
+  }
   const labelMarkup: string[] = [];
   // Stars the guide names are labelled right after the target and the bodies it names.
   const namedStarLabels: typeof labels = placed
@@ -211,14 +229,15 @@ export function wholeSkyChart(input: { site: Site; time: Date; body?: Body; opti
       marks.push(mark);
       return { x: q.x, y: q.y, text: s.star.name, fill: COLOURS.text, gap: starRadius(s.star.vMag) + 1, mark, role: 'star' as const };
     });
-  const firstOthers = labels.findIndex((l) => l.role !== 'target' && !(l.role === 'body' && namedBodies.has(l.mark.id)));
+  const firstOthers = labels.findIndex((l) => l.role !== 'target' && l.role !== 'track' && !(l.role === 'body' && namedBodies.has(l.mark.id)));
   const split = firstOthers < 0 ? labels.length : firstOthers;
   for (const l of [...labels.slice(0, split), ...namedStarLabels, ...labels.slice(split)]) {
-    const spot = placer.place(l.x, l.y, [l.text], l.bold ? FONT.target : FONT.label, l.gap, { force: true, bold: l.bold ?? false, role: l.role });
+    const lines = l.lines ?? [l.text];
+    const spot = placer.place(l.x, l.y, lines, l.bold ? FONT.target : FONT.label, l.gap, { force: true, bold: l.bold ?? false, role: l.role });
     if (!spot) continue;
     l.mark.labelled = true;
     labelMarkup.push(leaderLine(l.x, l.y, l.gap, spot.box, l.fill));
-    labelMarkup.push(text(spot.x, spot.y, l.text, { size: l.bold ? FONT.target : FONT.label, fill: l.fill, anchor: spot.anchor, ...(l.bold ? { weight: 'bold' as const } : {}) }));
+    labelMarkup.push(text(spot.x, spot.y, lines, { size: l.bold ? FONT.target : FONT.label, fill: l.fill, anchor: spot.anchor, ...(l.bold ? { weight: 'bold' as const } : {}) }));
   }
   // The guide pattern's name, by its figure (centred on it when there is room), never on a star.
   if (guidePat) {
@@ -244,9 +263,9 @@ export function wholeSkyChart(input: { site: Site; time: Date; body?: Body; opti
   const words = chartWords(site);
   parts.push(text(6, DISC_HEIGHT + 14, words.t('chart.sky-legend', { north: words.compass(0).abbreviation, east: words.compass(90).abbreviation }), { size: FONT.small, fill: COLOURS.dimText, halo: COLOURS.skyEdge }));
   const hidden = target && body && !visible(target) ? ` · ${words.t('chart.sky-not-up', { name: chartLabel(body, site) })}` : '';
-  parts.push(text(6, DISC_HEIGHT + 30, `${words.t('chart.sky-stars', { mag: words.number(magnitudeLimit, 1) })}${hidden}`, { size: FONT.small, fill: COLOURS.dimText, halo: COLOURS.skyEdge }));
+  parts.push(text(6, DISC_HEIGHT + 30, `${words.t('chart.sky-stars', { mag: words.number(magnitudeLimit, 1) })}${pass ? ' · ring: appears, bar: disappears' : ''}${hidden}`, { size: FONT.small, fill: COLOURS.dimText, halo: COLOURS.skyEdge }));
 
-  const title = words.t('chart.sky-title', { site: site.name, clock });
+  const title = pass ? `${pass.name} crossing the sky from ${site.name}, chart at ${clock}` : words.t('chart.sky-title', { site: site.name, clock });
   return {
     kind: 'sky',
     svg: svgOpen(W, H, title) + parts.join('') + SVG_CLOSE,
@@ -254,6 +273,7 @@ export function wholeSkyChart(input: { site: Site; time: Date; body?: Body; opti
     height: H,
     site,
     body,
+    pass,
     time,
     target,
     guide,

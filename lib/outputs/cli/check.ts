@@ -18,6 +18,8 @@ import { PAGE_BUDGET_BYTES, checkPages, pagesToCheck } from '../bulletin/check.t
 import { parseBulletin } from '../bulletin/frontmatter.ts';
 import { ProblemList, formatProblem, problemOfError, type Problem } from '../bulletin/problems.ts';
 import type { BulletinTemplate } from '../bulletin/types.ts';
+import { loadSatellites } from '../../models/satellite/catalogue.ts';
+import type { Satellite } from '../../models/satellite/passes.ts';
 import { argumentError } from './args.ts';
 
 export const CHECK_HELP = `gloaming check — find the weeks where a template would print gibberish or a gap
@@ -49,7 +51,7 @@ function collect<T>(problems: ProblemList, load: () => T): T | null {
 }
 
 /** Every site file and template of the content folder; each file's error is a problem, the others still load. */
-function loadContent(contentDir: string, problems: ProblemList): { sites: Map<string, Site>; templates: BulletinTemplate[]; bodies: BodyRegistry } {
+function loadContent(contentDir: string, problems: ProblemList): { sites: Map<string, Site>; templates: BulletinTemplate[]; bodies: BodyRegistry; satellites: Satellite[] } {
   const sites = new Map<string, Site>();
   // The centre (content/centre.yaml) stops a build when it is missing or wrong, so the check reports it too.
   const centre = collect(problems, () => loadCentre(contentDir));
@@ -58,6 +60,7 @@ function loadContent(contentDir: string, problems: ProblemList): { sites: Map<st
     if (site) sites.set(site.id, site);
   }
   const bodies = collect(problems, () => loadBodies(join(contentDir, 'objects'))) ?? new BodyRegistry();
+  const satellites = collect(problems, () => loadSatellites(join(contentDir, 'satellites'))) ?? [];
   const dir = join(contentDir, 'bulletins');
   let names: string[];
   try {
@@ -70,7 +73,7 @@ function loadContent(contentDir: string, problems: ProblemList): { sites: Map<st
     const t = collect(problems, () => parseBulletin(readFileSync(file, 'utf8'), file));
     return t ? [t] : [];
   });
-  return { sites, templates, bodies };
+  return { sites, templates, bodies, satellites };
 }
 
 function problemJson(p: Problem): Record<string, unknown> {
@@ -110,7 +113,7 @@ export function runCheck(args: string[], out: (s: string) => void, context: { to
   const problems = new ProblemList();
   const content = loadContent(contentDir, problems);
   const pages = pagesToCheck(content.templates, { sites: content.sites, today, weeks, problems });
-  checkPages(pages, { bodies: content.bodies, problems });
+  checkPages(pages, { bodies: content.bodies, satellites: content.satellites, problems });
 
   const list = problems.items;
   if (values.json) {

@@ -3,7 +3,7 @@ import type { ElementContent } from 'hast';
 import type { Body } from '../../../core/body.ts';
 import { GloamingError } from '../../../core/errors.ts';
 import { formatInstant, localDateOf } from '../../../core/time.ts';
-import { EVENT_TYPES, pickEvent, type AlmanacEvent, type AlmanacEventType } from '../../almanac/index.ts';
+import { EVENT_TYPES, OWN_LIST_EVENT_TYPES, pickEvent, type AlmanacEvent, type AlmanacEventType } from '../../almanac/index.ts';
 import { el, exact, formatClock, formatDay } from '../format.ts';
 import { bodyPhrase } from '../../../core/language/names/index.ts';
 import { BODY, CLOCK, classes, noValue, labelOf, wordsOf, type PlaceholderCall, type PlaceholderSpec } from './call.ts';
@@ -25,7 +25,7 @@ function eventItem(call: PlaceholderCall, e: AlmanacEvent): ElementContent {
 /** `::events`: the week's events for the site. */
 function weekEvents(call: PlaceholderCall): ElementContent {
   const order = call.attrs.get('order') as 'time' | 'interest';
-  const events = [...call.events()];
+  const events = call.events().filter((e) => !OWN_LIST_EVENT_TYPES.has(e.type));
   if (order === 'interest') events.sort((a, b) => b.score - a.score || a.time.getTime() - b.time.getTime());
   if (events.length === 0) return el('p', { ...classes(call, 'gl-none') }, wordsOf(call).t('ph.no-events', { span: call.eventSpan }));
   return el('ul', { ...classes(call), dataOrder: order }, events.map((e) => eventItem(call, e)));
@@ -70,7 +70,7 @@ export const EVENT_PLACEHOLDERS: PlaceholderSpec[] = [
   {
     name: 'events',
     form: 'block',
-    summary: "the week's events for the site (Moon phases, close approaches, oppositions, showers, eclipses …) with a sentence and a visibility note each",
+    summary: "the week's events for the site (Moon phases, close approaches, oppositions, showers, eclipses …) with a sentence and a visibility note each; satellite passes are listed by gloaming events and the calendar feed",
     attributes: { order: { type: { kind: 'choice', values: ['time', 'interest'] }, default: 'time', doc: 'in time order, or most interesting first' }, clock: CLOCK },
     example: '::events{order=interest}',
     render: weekEvents,
@@ -81,8 +81,7 @@ export const EVENT_PLACEHOLDERS: PlaceholderSpec[] = [
     summary: "one event of the week (or around a one-off's date), found by type (and body), or the event of an enclosing :::every-event: its time, date, separation, sentence or title",
     slot: true,
     attributes: {
-      // Bulletin weeks carry no satellites yet: satellite passes are in `gloaming events` and the calendar feed.
-      type: { type: { kind: 'choice', values: EVENT_TYPES.filter((t) => t !== 'satellite-pass') }, required: true, bound: 'event', doc: 'the event type' },
+      type: { type: { kind: 'choice', values: EVENT_TYPES }, required: true, bound: 'event', doc: 'the event type' },
       body: { ...BODY, required: false, doc: 'a body the event must involve' },
       show: { type: { kind: 'choice', values: ['time', 'date', 'separation', 'sentence', 'title'] }, default: 'time', doc: 'what to show' },
       clock: CLOCK,
