@@ -12,6 +12,7 @@ import { BodyRegistry } from '../lib/core/body.ts';
 import { loadSites, parseSite } from '../lib/models/content.ts';
 import { GloamingError } from '../lib/core/errors.ts';
 import { isoWeekOf } from '../lib/core/time.ts';
+import { loadSatellites } from '../lib/models/satellite/catalogue.ts';
 import { ECLIPSE_CAUTION, WeekCache, assertPublishable, formatProblem, pagesFor, parseBulletin, placeholderTable, renderBulletin } from '../lib/outputs/bulletin/index.ts';
 
 const ROOT = 'test/fixtures';
@@ -25,7 +26,9 @@ async function renderCase(name: string, cache = new WeekCache()): Promise<{ html
   const template = parseBulletin(readFileSync(join(dir, 'template.md'), 'utf8'), join(dir, 'template.md'));
   const pages = pagesFor([template], { sites: new Map([[site.id, site]]), today });
   const page = pages.find((p) => p.week.id === isoWeekOf(today).id) ?? pages[0]!;
-  const r = await renderBulletin(template, { site, week: page.week, bodies: new BodyRegistry() }, cache);
+  // A case with a satellites/ folder follows those satellites (its element sets and satellites.yaml).
+  const satellites = existsSync(join(dir, 'satellites')) ? loadSatellites(join(dir, 'satellites')) : [];
+  const r = await renderBulletin(template, { site, week: page.week, bodies: new BodyRegistry(), satellites }, cache);
   return { html: r.html + '\n', meta: { path: page.path, pages: pages.map((p) => p.path), title: r.title, description: r.description, cautions: r.cautions, problems: r.problems.map(formatProblem) } };
 }
 
@@ -140,7 +143,7 @@ describe('assertPublishable', () => {
 describe('docs', () => {
   it('lib/outputs/bulletin/PLACEHOLDERS.md equals the table generated from the registry (UPDATE_FIXTURES=1 rewrites it)', () => {
     const file = 'lib/outputs/bulletin/PLACEHOLDERS.md';
-    const table = placeholderTable();
+    const table = placeholderTable({ satellites: loadSatellites('content/satellites') });
     if (UPDATE) writeFileSync(file, table);
     expect(readFileSync(file, 'utf8')).toBe(table);
   });

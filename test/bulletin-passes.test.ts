@@ -1,0 +1,44 @@
+/**
+ * Satellite passes on bulletin pages over a year of weeks: a page never shows a pass predicted
+ * from elements more than 14 days away (MAX_ELEMENT_AGE_DAYS, the refusal limit of
+ * `gloaming passes`), and a week the element sets do not reach says so in a sentence instead of
+ * warning or failing. The passes themselves are checked against astronomy-engine in
+ * test/satellite-passes.test.ts.
+ */
+import { describe, expect, it } from 'vitest';
+import { BodyRegistry } from '../lib/core/body.ts';
+import { addDays, isoWeekOf } from '../lib/core/time.ts';
+import { loadSites } from '../lib/models/content.ts';
+import { loadSatellites } from '../lib/models/satellite/catalogue.ts';
+import { MAX_ELEMENT_AGE_DAYS } from '../lib/models/satellite/passes.ts';
+import { parseBulletin, renderBulletinSync, WeekCache } from '../lib/outputs/bulletin/index.ts';
+
+const TEMPLATE = parseBulletin('---\ntitle: Passes\nsites: all\nschedule: { every: week, past: 0, future: 0 }\n---\n\n::passes{limit=50}\n\n:::provided{has=brightest-pass}\n:brightest-pass{show=sentence}\n:::\n', 'passes.md');
+
+describe('satellite passes over 52 weeks of bulletin pages', () => {
+  it('list only passes within the element-age limit; weeks out of reach say so, without a warning', () => {
+    const satellites = loadSatellites('content/satellites');
+    const sites = [...loadSites('content/sites').values()];
+    const cache = new WeekCache();
+    let listed = 0;
+    let unavailable = 0;
+    for (const site of sites) {
+      for (let w = -26; w < 26; w++) {
+        const week = isoWeekOf(addDays('2026-12-04', 7 * w));
+        const r = renderBulletinSync(TEMPLATE, { site, week, bodies: new BodyRegistry(), satellites }, cache);
+        expect(r.problems, `${site.id} ${week.id}`).toEqual([]);
+        const ages = [...r.html.matchAll(/data-element-age-days="(-?[\d.]+)"/g)].map((m) => Number(m[1]));
+        for (const age of ages) expect(Math.abs(age), `${site.id} ${week.id}`).toBeLessThanOrEqual(MAX_ELEMENT_AGE_DAYS);
+        listed += ages.length;
+        if (r.html.includes('data-reason="unavailable"')) {
+          unavailable++;
+          expect(ages, `${site.id} ${week.id}: no pass in an unavailable week`).toEqual([]);
+          expect(r.html).toContain('Satellite pass predictions are not available for this week');
+        }
+      }
+    }
+    // The demo's element sets (epochs 3–4 December 2026) reach about five weeks of the 52.
+    expect(listed).toBeGreaterThan(30);
+    expect(unavailable).toBeGreaterThan(40 * sites.length);
+  }, 120_000);
+});
