@@ -16,6 +16,8 @@ import type { Site } from '../lib/core/site.ts';
 import { formatInstant, isoWeekOf, localMidnight, nightOf, type IsoWeek } from '../lib/core/time.ts';
 import { PLACEHOLDERS, WeekCache, parseBulletin, renderBulletinSync } from '../lib/outputs/bulletin/index.ts';
 import { MINUTE_MS, expectWithin } from './helpers/tolerance.ts';
+import { loadSatellites } from '../lib/models/satellite/catalogue.ts';
+import { brightestPass, passNights, recommendedPasses } from '../lib/models/satellite/nights.ts';
 
 // The English-speaking demo sites: the expected words below are English (other languages: test/language-golden.test.ts and the e2e scan).
 const sites = new Map([...loadSites('content/sites')].filter(([, s]) => s.locale.startsWith('en')));
@@ -46,7 +48,7 @@ function clock(instant: Date, site: Site): string {
 
 describe('every placeholder covered', () => {
   it('each placeholder of the table is exercised by this file', () => {
-    const covered = ['week', 'date', 'sunset', 'sunrise', 'dark', 'dawn', 'rise', 'transit', 'set', 'direction', 'altitude', 'magnitude', 'moon-phase', 'moon-lit', 'moon-and-twilight', 'best-time', 'window', 'verdict', 'targets', 'guide', 'chart', 'events', 'event', 'name'];
+    const covered = ['week', 'date', 'sunset', 'sunrise', 'dark', 'dawn', 'rise', 'transit', 'set', 'direction', 'altitude', 'magnitude', 'moon-phase', 'moon-lit', 'moon-and-twilight', 'best-time', 'window', 'verdict', 'targets', 'guide', 'chart', 'events', 'event', 'name', 'passes', 'brightest-pass', 'pass-chart'];
     for (const spec of PLACEHOLDERS.values()) expect(covered, spec.name).toContain(spec.name);
   });
 });
@@ -242,3 +244,25 @@ describe('eye safety', () => {
     expect(quiet.cautions.join(' ')).not.toContain('ISO 12312-2');
   });
 });
+
+describe('satellite pass placeholders equal lib/models/satellite/nights.ts (demo element sets, week 2026-W49)', () => {
+  const satellites = loadSatellites('content/satellites');
+  const week = isoWeekOf('2026-12-02');
+  it.each(SITE_IDS)('site %s: ::passes lists the recommended passes (brightest up to the limit, in time order), :brightest-pass and ::pass-chart the brightest', (siteId) => {
+    const site = sites.get(siteId)!;
+    const template = parseBulletin('---\ntitle: T\nsites: all\nschedule: { every: week }\n---\n::passes{limit=3}\n\n:brightest-pass{show=magnitude} at :brightest-pass\n\n::pass-chart\n', 'grid.md');
+    const html = renderBulletinSync(template, { site, week, bodies, satellites }, cache).html;
+    const nights = passNights({ site, satellites, from: week.days[0]!, to: week.days[6]! });
+    const all = recommendedPasses(nights);
+    const best = brightestPass(nights)!;
+    expect(all.length).toBeGreaterThan(3);
+    const listed = [...html.matchAll(/<li[^>]*><time datetime="([^"]+)"/g)].map((m) => m[1]!);
+    const expected = [...all].sort((a, b) => a.visible!.best.magnitude! - b.visible!.best.magnitude!).slice(0, 3).sort((a, b) => a.visible!.start.time.getTime() - b.visible!.start.time.getTime());
+    expect(listed).toEqual(expected.map((p) => formatInstant(p.visible!.start.time, site.timeZone)));
+    expect(html).toContain(`${all.length - 3} fainter passes`);
+    expect(element(html, 'brightest-pass').attrs['data-satellite']).toBe(best.satellite.id);
+    expect(html).toContain(`datetime="${formatInstant(best.visible!.start.time, site.timeZone)}"`);
+    expect(element(html, 'pass-chart').tag).toBe('figure');
+  });
+});
+
