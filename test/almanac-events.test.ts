@@ -191,12 +191,12 @@ describe('gloaming events (runEvents)', () => {
 });
 
 describe('week helpers for the bulletin placeholders', () => {
-  it('eventsOfWeek covers Monday 00:00 to the next Monday 00:00 local time (week of 2023-03-01, UK winter time)', async () => {
+  it('eventsOfWeek covers Monday noon to the next Monday noon local time, the seven nights (week of 2023-03-01, UK winter time)', async () => {
     const { eventsOfWeek, pickEvent } = await import('../lib/outputs/almanac/index.ts');
     const week = eventsOfWeek({ site: london, date: '2023-03-01' });
     for (const e of week) {
-      expect(e.time.getTime()).toBeGreaterThanOrEqual(Date.parse('2023-02-27T00:00:00Z'));
-      expect(e.time.getTime()).toBeLessThan(Date.parse('2023-03-06T00:00:00Z'));
+      expect(e.time.getTime()).toBeGreaterThanOrEqual(Date.parse('2023-02-27T12:00:00Z'));
+      expect(e.time.getTime()).toBeLessThan(Date.parse('2023-03-06T12:00:00Z'));
     }
     const vj = pickEvent(week, { type: 'close-approach', bodies: ['venus', 'jupiter'] });
     expect(vj?.bodies).toEqual(['venus', 'jupiter']);

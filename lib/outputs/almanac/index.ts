@@ -24,6 +24,8 @@ import { seasonEvents } from './seasons.ts';
 import { showerEvents } from './showers.ts';
 import { smallBodyEvents } from './small-bodies.ts';
 import { satellitePassEvents } from './satellite-passes.ts';
+import { variableStarEvents } from './variables.ts';
+import { occultationEvents } from './occultations.ts';
 import type { Satellite } from '../../models/satellite/passes.ts';
 import { EVENT_TYPES, type AlmanacEvent, type AlmanacEventType, type FindEventsOptions } from './types.ts';
 
@@ -108,6 +110,8 @@ export function findEvents(input: FindEventsInput): AlmanacEvent[] {
   if (want('lunar-eclipse')) events.push(...lunarEclipseEvents(ctx, from, to));
   if (want('solar-eclipse')) events.push(...solarEclipseEvents(ctx, from, to));
   if (want('perihelion', 'closest-approach-to-earth', 'peak-brightness')) events.push(...smallBodyEvents(ctx, from, to, small));
+  if (want('variable-minimum')) events.push(...variableStarEvents(ctx, from, to));
+  if (want('occultation')) events.push(...occultationEvents(ctx, from, to));
   if (want('satellite-pass') && input.satellites) events.push(...satellitePassEvents({ site, satellites: input.satellites, from, to }));
   const kept = events.filter((e) => wanted.has(e.type) && e.time >= from && e.time < to);
   for (const e of kept) e.score = interestScore(e);

@@ -74,6 +74,16 @@ export function interestScore(event: AlmanacEvent): number {
       s = 30 + (mag <= -1 ? 15 : mag <= 1 ? 8 : 0);
       break;
     }
+    case 'variable-minimum':
+      // A naked-eye change anyone can follow over an evening, every few days.
+      s = 25;
+      break;
+    case 'occultation': {
+      // A planet or a first-magnitude star winking out is memorable; fainter stars need optics. Grazes are rarer still.
+      const mag = Number(event.data?.magnitude ?? 4);
+      s = (mag <= 1.5 ? 65 : mag <= 3 ? 45 : 35) + (event.data?.graze === 'yes' ? 10 : 0);
+      break;
+    }
     default:
       break;
   }

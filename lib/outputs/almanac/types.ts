@@ -27,6 +27,8 @@ export const EVENT_TYPES = [
   'closest-approach-to-earth',
   'peak-brightness',
   'satellite-pass',
+  'variable-minimum',
+  'occultation',
 ] as const;
 
 export type AlmanacEventType = (typeof EVENT_TYPES)[number];

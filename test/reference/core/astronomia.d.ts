@@ -28,6 +28,10 @@ declare module 'astronomia/solar' {
   import type { Planet } from 'astronomia/planetposition';
   /** Apparent geocentric RA/Dec of the Sun from VSOP87 (Meeus ch. 25), range in AU. */
   export function apparentEquatorialVSOP87(earth: Planet, jde: number): { ra: number; dec: number; range: number };
+  /** True geometric longitude of the Sun referred to the J2000 ecliptic, radians (Meeus ch. 25, low precision); T in Julian centuries from J2000. */
+  export function true2000(T: number): { lon: number; ano: number };
+  /** The Sun's distance, AU (Meeus eq. 25.5). */
+  export function radius(T: number): number;
 }
 declare module 'astronomia/moonposition' {
   /** Geocentric ecliptic position of the Moon, mean equinox of date, no nutation (Meeus ch. 47); range in km. */
