@@ -88,6 +88,8 @@ export const de: Catalogue = {
   'event-type.closest-approach-to-earth': 'größte Erdnähe',
   'event-type.peak-brightness': 'größte Helligkeit',
   'event-type.satellite-pass': 'Satellitenüberflug',
+  'event-type.variable-minimum': 'Minimum eines Veränderlichen',
+  'event-type.occultation': 'Sternbedeckung durch den Mond',
   'span.week': 'in dieser Woche',
   'span.around-date': 'um dieses Datum',
   'span.on-day': 'am {date}',

@@ -98,6 +98,8 @@ export const en = {
   'event-type.closest-approach-to-earth': 'closest approach to earth',
   'event-type.peak-brightness': 'peak brightness',
   'event-type.satellite-pass': 'satellite pass',
+  'event-type.variable-minimum': 'minimum of a variable star',
+  'event-type.occultation': 'lunar occultation',
   'span.week': 'this week',
   'span.around-date': 'around this date',
   'span.on-day': 'on {date}',

@@ -90,6 +90,8 @@ export const es: Catalogue = {
   'event-type.closest-approach-to-earth': 'máximo acercamiento a la Tierra',
   'event-type.peak-brightness': 'brillo máximo',
   'event-type.satellite-pass': 'paso de satélite',
+  'event-type.variable-minimum': 'mínimo de una estrella variable',
+  'event-type.occultation': 'ocultación lunar',
   'span.week': 'esta semana',
   'span.around-date': 'en torno a esta fecha',
   'span.on-day': 'el {date}',

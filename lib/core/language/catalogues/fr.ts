@@ -91,6 +91,8 @@ export const fr: Catalogue = {
   'event-type.closest-approach-to-earth': 'plus courte distance à la Terre',
   'event-type.peak-brightness': 'pic de luminosité',
   'event-type.satellite-pass': 'passage de satellite',
+  'event-type.variable-minimum': 'minimum d’une étoile variable',
+  'event-type.occultation': 'occultation lunaire',
   'span.week': 'cette semaine',
   'span.around-date': 'autour de cette date',
   'span.on-day': 'le {date}',
