@@ -376,7 +376,7 @@ function describe(observer: Astronomy.Observer, approach: Approach, target: Targ
 /** Reader-facing words for occultations, in one place (for message catalogues). */
 const WORDS = {
   title: (name: string): string => `The Moon covers ${name}`,
-  contact: (verb: string, c: OccultationContact, clock: string): string => `${verb} at the Moon's ${c.limb} edge at ${clock} (position angle ${Math.round(c.positionAngleDeg)}°, Moon ${Math.round(c.moonAltitudeDeg)}° up)`,
+  contact: (verb: string, c: OccultationContact, clock: string): string => `${verb} at the Moon's ${c.limb} edge at ${clock} (position angle ${Math.round(c.positionAngleDeg)}°, ${c.moonAltitudeDeg >= 0 ? `Moon ${Math.round(c.moonAltitudeDeg)}° up` : 'Moon below the horizon'})`,
   graze: ' This is a graze: it passes so near the Moon\'s edge that lunar mountains decide when (and how often) it blinks out, and the times may be off by a minute or more.',
   aid: (magnitude: number): string => (magnitude <= 1.5 ? 'Binoculars show it best.' : 'Binoculars or a small telescope are needed against the Moon\'s glare.'),
 } as const;
@@ -413,7 +413,7 @@ export function occultationEvents(ctx: AlmanacContext, from: Date, to: Date): Al
         ? { visible: true, moment: 'event' as const, time: first.time, altitudeDeg: first.moonAltitudeDeg, azimuthDeg: first.moonAzimuthDeg, reason: null, note }
         : { visible: false, moment: 'none' as const, time: null, altitudeDeg: null, azimuthDeg: null, reason, note },
       title: WORDS.title(o.target.name),
-      description: first ? `${sentence} ${WORDS.aid(magnitude)}` : sentence,
+      description: first ? `${sentence} ${WORDS.aid(magnitude)}` : `${sentence} ${note}`,
       score: 0,
       data: {
         disappearancePositionAngleDeg: Math.round(o.disappearance.positionAngleDeg),
