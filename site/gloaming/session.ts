@@ -228,7 +228,8 @@ export class GloamingSession {
       horizon: s.horizon.map((p) => ({ azimuthDeg: p.azimuthDeg, altitudeDeg: p.altitudeDeg })),
       built,
       currentWeek: isoWeekOf(project.today).id,
-      nights: built ? nextNights(s, project.today, NIGHTS_SHOWN, project.satellites) : [],
+      // Tonight's passes are worded in English only so far (PASS_WORDS): other languages leave the line out.
+      nights: built ? nextNights(s, project.today, NIGHTS_SHOWN, s.locale.startsWith('en') ? project.satellites : []) : [],
       calendar: built ? siteCalendar(s, { bodies: project.bodies, today: project.today, satellites: project.satellites, centreName: project.centre.name }) : '',
     };
   }
