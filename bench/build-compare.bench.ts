@@ -3,7 +3,7 @@
  *
  * In a temporary folder it generates
  * - a gloaming project: the code of this checkout, the demo's centre, bulletins, objects and satellites,
- *   and `BENCH_SITES` (default 30) invented sites spread over the globe — about 480 pages;
+ *   and `BENCH_SITES` (default 30) invented sites spread over the globe beside the demo's own — about 500 pages;
  * - a plain Astro 7 site with as many Markdown pages as gloaming wrote HTML pages, each with ten
  *   values computed by a remark directive plugin with astronomy-engine (sunset, sunrise, moonrise,
  *   moonset, the Moon's phase angle, Jupiter's rise, altitude, azimuth and magnitude, Venus's
@@ -55,10 +55,9 @@ function siteYaml(i: number): string {
 /** The gloaming project: this checkout's code, the demo's templates and objects, `sites` invented sites. */
 function gloamingProject(dir: string, sites: number): void {
   for (const p of ['lib', 'site', 'scripts', 'astro.config.mjs', 'package.json', 'package-lock.json', 'tsconfig.json']) cpSync(join(ROOT, p), join(dir, p), { recursive: true });
-  // The demo's centre, templates, objects and satellites; the sites are the benchmark's own.
+  // The demo's centre, templates, objects, satellites and sites (its bulletins name some of them),
+  // and the benchmark's own sites beside them.
   cpSync(join(ROOT, 'content'), join(dir, 'content'), { recursive: true });
-  rmSync(join(dir, 'content/sites'), { recursive: true });
-  mkdirSync(join(dir, 'content/sites'), { recursive: true });
   for (let i = 0; i < sites; i++) writeFileSync(join(dir, `content/sites/bench-${String(i + 1).padStart(2, '0')}.yaml`), siteYaml(i));
   symlinkSync(join(ROOT, 'node_modules'), join(dir, 'node_modules'), 'dir');
 }

@@ -22,12 +22,20 @@ export interface PassNight {
 
 /**
  * The passes of `satellites` over `site` for each night from the evening of `from` to that of
- * `to` (local dates, inclusive). Nights no satellite's elements cover cost nothing.
+ * `to` (local dates, inclusive). Nights no satellite's elements cover cost nothing. `known` holds
+ * nights already computed for the same site and satellites (a bulletin week's, see
+ * `WeekData.passNights`): those are reused, not computed again.
  */
-export function passNights(input: { site: Site; satellites: readonly Satellite[]; from: string; to: string }): PassNight[] {
+export function passNights(input: { site: Site; satellites: readonly Satellite[]; from: string; to: string; known?: readonly PassNight[] }): PassNight[] {
   const { site, satellites } = input;
+  const known = new Map((input.known ?? []).map((n) => [n.date, n]));
   const out: PassNight[] = [];
   for (let date = input.from; date <= input.to; date = addDays(date, 1)) {
+    const reused = known.get(date);
+    if (reused) {
+      out.push(reused);
+      continue;
+    }
     const night = nightOf(date, site.timeZone);
     const ut0 = utDays(night.start);
     const ut1 = utDays(night.end);

@@ -27,6 +27,7 @@ import { satellitePassEvents } from './satellite-passes.ts';
 import { variableStarEvents } from './variables.ts';
 import { occultationEvents } from './occultations.ts';
 import type { Satellite } from '../../models/satellite/passes.ts';
+import type { PassNight } from '../../models/satellite/nights.ts';
 import { EVENT_TYPES, type AlmanacEvent, type AlmanacEventType, type FindEventsOptions } from './types.ts';
 
 export * from './types.ts';
@@ -53,6 +54,8 @@ export interface FindEventsInput {
   frames?: Iterable<NightFrame>;
   /** Satellites for `satellite-pass` events (lib/models/satellite; default none). */
   satellites?: readonly Satellite[];
+  /** Pass nights already computed for this site and these satellites (e.g. a bulletin week's), reused instead of computed again. */
+  passNights?: readonly PassNight[];
 }
 
 function smallBodiesOf(registry: BodyRegistry | undefined): Body[] {
@@ -112,7 +115,7 @@ export function findEvents(input: FindEventsInput): AlmanacEvent[] {
   if (want('perihelion', 'closest-approach-to-earth', 'peak-brightness')) events.push(...smallBodyEvents(ctx, from, to, small));
   if (want('variable-minimum')) events.push(...variableStarEvents(ctx, from, to));
   if (want('occultation')) events.push(...occultationEvents(ctx, from, to));
-  if (want('satellite-pass') && input.satellites) events.push(...satellitePassEvents({ site, satellites: input.satellites, from, to }));
+  if (want('satellite-pass') && input.satellites) events.push(...satellitePassEvents({ site, satellites: input.satellites, from, to, ...(input.passNights ? { known: input.passNights } : {}) }));
   const kept = events.filter((e) => wanted.has(e.type) && e.time >= from && e.time < to);
   for (const e of kept) e.score = interestScore(e);
   const typeOrder = (t: AlmanacEventType): number => EVENT_TYPES.indexOf(t);
@@ -149,7 +152,16 @@ export function eventsOfWeek(input: { site: Site; date: string; bodies?: BodyReg
 export function eventsBetween(week: WeekData, firstNight: string = week.week.days[0]!, lastNight: string = week.week.days[6]!): AlmanacEvent[] {
   return week.derived(`events:${firstNight}/${lastNight}`, (w) => {
     const zone = w.site.timeZone;
-    return findEvents({ site: w.site, from: nightOf(firstNight, zone).start, to: nightOf(lastNight, zone).end, bodies: w.bodies, satellites: w.satellites, frames: w.nights.map((n) => n.frame) });
+    return findEvents({
+      site: w.site,
+      from: nightOf(firstNight, zone).start,
+      to: nightOf(lastNight, zone).end,
+      bodies: w.bodies,
+      satellites: w.satellites,
+      frames: w.nights.map((n) => n.frame),
+      // The week's own pass nights (the passes list reads the same), computed once for both.
+      ...(w.satellites.length ? { passNights: w.passNights() } : {}),
+    });
   });
 }
 

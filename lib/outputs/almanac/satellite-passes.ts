@@ -9,7 +9,7 @@ import type { AlmanacEvent } from './types.ts';
 import { compass } from '../../core/describe.ts';
 import type { Site } from '../../core/site.ts';
 import { addDays, formatClock, localDateOf } from '../../core/time.ts';
-import { passNights, recommendedPasses } from '../../models/satellite/nights.ts';
+import { passNights, recommendedPasses, type PassNight } from '../../models/satellite/nights.ts';
 import type { PassPoint, Satellite, SatellitePass } from '../../models/satellite/passes.ts';
 
 /** One recommended pass as an event: from the moment it can be seen to the moment it cannot. */
@@ -57,15 +57,16 @@ export function passEvent(pass: SatellitePass, site: Site): AlmanacEvent {
 
 /**
  * The recommended passes of `satellites` over the site with their visible start in [from, to),
- * as events; nights the element sets do not cover are left out (see `passNights`).
+ * as events; nights the element sets do not cover are left out (see `passNights`). Nights in
+ * `known` (already computed for this site and these satellites) are reused.
  */
-export function satellitePassEvents(input: { site: Site; satellites: readonly Satellite[]; from: Date; to: Date }): AlmanacEvent[] {
+export function satellitePassEvents(input: { site: Site; satellites: readonly Satellite[]; from: Date; to: Date; known?: readonly PassNight[] }): AlmanacEvent[] {
   const { site, satellites } = input;
   if (satellites.length === 0) return [];
   // Nights run from local noon: the night holding `from` began on the evening before its date.
   const from = addDays(localDateOf(input.from, site.timeZone), -1);
   const to = localDateOf(input.to, site.timeZone);
-  return recommendedPasses(passNights({ site, satellites, from, to }))
+  return recommendedPasses(passNights({ site, satellites, from, to, ...(input.known ? { known: input.known } : {}) }))
     .filter((p) => p.visible!.start.time >= input.from && p.visible!.start.time < input.to)
     .map((p) => passEvent(p, site));
 }
