@@ -7,7 +7,8 @@
  * `visibilityMargin` for each instrument. Everything is pure: no clock, no ephemeris.
  */
 import { extinctionMag } from './extinction.ts';
-import { limitingMagnitude, type Instrument, type Observer } from './threshold.ts';
+import { limitingMagnitude, type Instrument, type LimitingMagnitudeInput, type Observer } from './threshold.ts';
+import { extendedLimitingMagnitude } from './extended.ts';
 
 export { airmassKastenYoung, airmassRozenberg, airmassScattering } from './airmass.ts';
 export {
@@ -60,6 +61,28 @@ export {
   type Observer,
 } from './threshold.ts';
 
+export {
+  ARCMIN2_TO_SR,
+  NL_TO_CD_M2,
+  contrastThresholdCrumey,
+  extendedLimitingMagnitude,
+  meanSurfaceBrightness,
+  thresholdIncrementCdM2,
+  type ExtendedLimitInput,
+} from './extended.ts';
+
+/**
+ * The limiting magnitude for an object: Crumey's extended-object threshold when it has an area
+ * (`areaArcmin2`, deep-sky objects; `./extended.ts`), else Schaefer's point-source threshold (with
+ * the coma penalty for a diffuse comet; `./threshold.ts`).
+ */
+export function objectLimitingMagnitude(input: LimitingMagnitudeInput & { areaArcmin2?: number }): number {
+  if (input.areaArcmin2 !== undefined && input.areaArcmin2 > 0) {
+    return extendedLimitingMagnitude({ skyNl: input.skyNl, areaArcmin2: input.areaArcmin2, instrument: input.instrument, observer: input.observer });
+  }
+  return limitingMagnitude(input);
+}
+
 /** Inputs of `visibilityMargin`. */
 export interface VisibilityMarginInput {
   /** The object's V magnitude outside the atmosphere (a comet's total magnitude). */
@@ -75,6 +98,8 @@ export interface VisibilityMarginInput {
   observer?: Observer;
   /** Coma diameter of a diffuse comet, arcminutes; omit for point sources (see `extendedSourcePenaltyMag`). */
   comaDiameterArcmin?: number;
+  /** Area of an extended object (cluster, nebula, galaxy), square arcminutes: Crumey's threshold applies. */
+  areaArcmin2?: number;
 }
 
 /**
@@ -86,11 +111,12 @@ export function visibilityMargin(input: VisibilityMarginInput): number {
   const extinction = extinctionMag(input.kV, input.altitudeDeg);
   if (extinction === Infinity) return -Infinity;
   return (
-    limitingMagnitude({
+    objectLimitingMagnitude({
       skyNl: input.skyNl,
       instrument: input.instrument,
       observer: input.observer,
       comaDiameterArcmin: input.comaDiameterArcmin,
+      areaArcmin2: input.areaArcmin2,
     }) -
     (input.magnitude + extinction)
   );
