@@ -1,6 +1,6 @@
 /**
  * The message catalogues: one per language, each a table from a message key to an ICU
- * MessageFormat text (lib/core/language/message.ts). English (`catalogues/en.ts`) is the reference:
+ * MessageFormat text (formatted by `intl-messageformat` in lib/core/language/index.ts). English (`catalogues/en.ts`) is the reference:
  * its keys are the type every other catalogue must fill, so a missing key fails the type check,
  * and test/language-catalogues.test.ts checks that every translation reads the same arguments.
  *

@@ -14,11 +14,15 @@ import { de } from './catalogues/de.ts';
 import { es } from './catalogues/es.ts';
 import { fr } from './catalogues/fr.ts';
 import { applyGrammar } from './grammar.ts';
-import { formatParts, parseMessage, type MessageArguments, type MessagePart } from './message.ts';
+import { isPluralElement, isSelectElement, type MessageFormatElement } from '@formatjs/icu-messageformat-parser';
+import { IntlMessageFormat, type Formatters } from 'intl-messageformat';
 import { endSentence, firstSentence, splitSentences, tidyPunctuation } from './sentences.ts';
 
 export { LANGUAGES, LANGUAGE_NAMES, endSentence, firstSentence, splitSentences, tidyPunctuation };
-export type { Catalogue, Language, MessageKey, MessageArguments };
+export type { Catalogue, Language, MessageKey };
+
+/** The arguments of a catalogue message once names are spelled out (text, or numbers the message formats). */
+export type MessageArguments = Readonly<Record<string, string | number>>;
 
 export const CATALOGUES: Readonly<Record<Language, Catalogue>> = { en, es, de, fr };
 
@@ -75,7 +79,30 @@ export interface Words {
   altitude(altitudeDeg: number): string;
 }
 
-const parsed = new Map<string, MessagePart[]>();
+/** Compiled messages, per (locale, key): plural rules and number formats follow the whole locale. */
+const compiled = new Map<string, Compiled>();
+
+interface Compiled {
+  format: IntlMessageFormat;
+  /** Arguments read as a plural count (other numbers are written before formatting). */
+  plurals: ReadonlySet<string>;
+  /** Arguments a `select` reads: their ids ('new-moon', 'plural-feminine') are matched as ICU keys ('new_moon', 'plural_feminine'). */
+  selects: ReadonlySet<string>;
+}
+
+function compiledMessage(format: IntlMessageFormat): Compiled {
+  const plurals = new Set<string>();
+  const selects = new Set<string>();
+  const walk = (elements: readonly MessageFormatElement[]): void => {
+    for (const e of elements) {
+      if (isPluralElement(e)) plurals.add(e.value);
+      if (isSelectElement(e)) selects.add(e.value);
+      if (isPluralElement(e) || isSelectElement(e)) for (const o of Object.values(e.options)) walk(o.value);
+    }
+  };
+  walk(format.getAst());
+  return { format, plurals, selects };
+}
 const words = new Map<string, Words>();
 
 /** Degrees covered by a fist at arm's length (common practice). */
@@ -131,24 +158,55 @@ function makeWords(locale: string): Words {
   // French: the first of the month is an ordinal ("1er décembre").
   const joinParts = (parts: Intl.DateTimeFormatPart[]): string =>
     parts.map((p) => (p.type === 'day' && language === 'fr' && p.value === '1' ? '1er' : p.value)).join('');
-  const context = { plural, number: (v: number) => number(v, Number.isInteger(v) ? 0 : 1) };
-  const t: Words['t'] = (key, args = {}) => {
-    const source = catalogue[key];
-    const cacheKey = `${language}|${key}`;
-    let parts = parsed.get(cacheKey);
-    if (!parts) {
-      parts = parseMessage(source);
-      parsed.set(cacheKey, parts);
+  // intl-messageformat asks for these when it formats `#` and picks a plural case; the count is
+  // written like every other number here (no grouping, one decimal at most).
+  const countFormat = new Intl.NumberFormat(locale, { useGrouping: false, maximumFractionDigits: 1 });
+  const formatters: Formatters = {
+    getNumberFormat: (_l, options) => (options ? new Intl.NumberFormat(locale, options as Intl.NumberFormatOptions) : countFormat),
+    getDateTimeFormat: (...a) => new Intl.DateTimeFormat(...a),
+    getPluralRules: (_l, options) => (options?.type === 'ordinal' ? new Intl.PluralRules(locale, options) : plural),
+  };
+  const compile = (key: MessageKey): Compiled => {
+    const cacheKey = `${locale}|${key}`;
+    let c = compiled.get(cacheKey);
+    if (!c) {
+      let format: IntlMessageFormat;
+      try {
+        format = new IntlMessageFormat(catalogue[key], locale, undefined, { formatters, ignoreTag: true });
+      } catch (cause) {
+        throw new GloamingError('invalid-value', `message '${key}' of the ${language} catalogue cannot be read: ${(cause as Error).message}`, {
+          expected: 'ICU MessageFormat text: {name}, {n, plural, one {…} other {…}} or {g, select, feminine {…} other {…}}',
+          cause,
+        });
+      }
+      c = compiledMessage(format);
+      compiled.set(cacheKey, c);
     }
+    return c;
+  };
+  const t: Words['t'] = (key, args = {}) => {
+    const { format, plurals, selects } = compile(key);
     const flat: Record<string, string | number> = {};
     for (const [name, value] of Object.entries(args)) {
       if (typeof value === 'object') {
         flat[name] = value.text;
         flat[`${name}_gender`] = value.gender;
         flat[`${name}_dative`] = value.dative ?? value.text;
+      } else if (typeof value === 'number' && !plurals.has(name)) {
+        // A number shown as it is: the locale's digits, a true minus sign, no grouping (as `number`).
+        flat[name] = number(value, Number.isInteger(value) ? 0 : 1);
       } else flat[name] = value;
     }
-    return applyGrammar(formatParts(parts, flat as MessageArguments, context, key), language);
+    // ICU select keys are identifiers without hyphens: gloaming's ids are matched with '_' for '-'.
+    for (const name of selects) if (typeof flat[name] === 'string') flat[name] = (flat[name] as string).replaceAll('-', '_');
+    let text: unknown;
+    try {
+      text = format.format(flat);
+    } catch (cause) {
+      throw new GloamingError('invalid-value', `message '${key}' cannot be written: ${(cause as Error).message}`, { actual: Object.keys(args), cause });
+    }
+    if (typeof text !== 'string') throw new GloamingError('invalid-value', `message '${key}' did not format to text`, { actual: text });
+    return applyGrammar(text, language);
   };
   const self: Words = {
     locale,

@@ -276,7 +276,7 @@ export const de: Catalogue = {
   'ui.page-title': '{title} · {site} · {when}',
   'ui.card-alt': '{title}: {site}, {when}',
   'ui.row-lit': '{percent} beleuchtet',
-  'ui.moon-phase-line': '{phase, select, new-moon {Neumond} full-moon {Vollmond} waxing-crescent {Zunehmende Mondsichel} first-quarter {Erstes Viertel} waxing-gibbous {Zunehmender Mond} waning-gibbous {Abnehmender Mond} last-quarter {Letztes Viertel} other {Abnehmende Mondsichel}}',
+  'ui.moon-phase-line': '{phase, select, new_moon {Neumond} full_moon {Vollmond} waxing_crescent {Zunehmende Mondsichel} first_quarter {Erstes Viertel} waxing_gibbous {Zunehmender Mond} waning_gibbous {Abnehmender Mond} last_quarter {Letztes Viertel} other {Abnehmende Mondsichel}}',
   'ui.hreflang': 'Auch auf {languages}',
 
   'phase.new-moon': 'Neumond',

@@ -1,12 +1,13 @@
 /**
  * English: the reference catalogue. Every other catalogue has exactly these keys and, for each,
  * the same arguments (test/language-catalogues.test.ts). Messages are ICU MessageFormat
- * (lib/core/language/message.ts): {name}, {n, plural, one {…} other {…}}, {g, select, … other {…}}.
+ * (formatted by intl-messageformat): {name}, {n, plural, one {…} other {…}}, {g, select, … other {…}}.
  *
  * Arguments used across families:
  *   name, pattern, star, what — names already in the sentence's language (see lib/core/language/names.ts)
- *   gender — a name's grammatical gender and number: masculine, feminine, neuter, plural-masculine,
- *            plural-feminine, elided (French l'); English ignores it
+ *   gender — a name's grammatical gender and number: masculine, feminine, neuter, plural_masculine,
+ *            plural_feminine, elided (French l'); English ignores it. Select keys are ICU identifiers
+ *            (no hyphen): an id such as 'plural-feminine' or 'new-moon' is matched as plural_feminine, new_moon
  *   degrees — a whole number of degrees; hand — a hand measure from 'hand.*'
  *   direction — a compass word from 'compass.*'; clock — a clock time; date — a date in words
  */
@@ -290,7 +291,7 @@ export const en = {
   'ui.page-title': '{title} · {site} · {when}',
   'ui.card-alt': '{title}: {site}, {when}',
   'ui.row-lit': '{percent} lit',
-  'ui.moon-phase-line': '{phase, select, new-moon {New Moon} full-moon {Full Moon} waxing-crescent {Waxing crescent Moon} first-quarter {First quarter Moon} waxing-gibbous {Waxing gibbous Moon} waning-gibbous {Waning gibbous Moon} last-quarter {Last quarter Moon} other {Waning crescent Moon}}',
+  'ui.moon-phase-line': '{phase, select, new_moon {New Moon} full_moon {Full Moon} waxing_crescent {Waxing crescent Moon} first_quarter {First quarter Moon} waxing_gibbous {Waxing gibbous Moon} waning_gibbous {Waning gibbous Moon} last_quarter {Last quarter Moon} other {Waning crescent Moon}}',
   'ui.hreflang': 'Also in {languages}',
 
   // Moon phases.

@@ -5,7 +5,11 @@
  */
 import type { Catalogue } from '../catalogue.ts';
 
-const hidden = (m: string, f: string): string => `{gender, select, feminine {${f}} plural-feminine {${f}s} plural-masculine {${m}s} other {${m}}}`;
+/** An adjective agreeing with the name: masculine, feminine and their plurals (plurals add -s, or -es after a consonant). */
+const hidden = (m: string, f: string): string => {
+  const plural = (w: string): string => (/[aeiouáéíóú]$/.test(w) ? `${w}s` : `${w}es`);
+  return `{gender, select, feminine {${f}} plural_feminine {${plural(f)}} plural_masculine {${plural(m)}} other {${m}}}`;
+};
 
 export const es: Catalogue = {
   'compass.n': 'norte',
@@ -278,7 +282,7 @@ export const es: Catalogue = {
   'ui.page-title': '{title} · {site} · {when}',
   'ui.card-alt': '{title}: {site}, {when}',
   'ui.row-lit': '{percent} iluminada',
-  'ui.moon-phase-line': '{phase, select, new-moon {Luna nueva} full-moon {Luna llena} waxing-crescent {Luna creciente} first-quarter {Cuarto creciente} waxing-gibbous {Luna gibosa creciente} waning-gibbous {Luna gibosa menguante} last-quarter {Cuarto menguante} other {Luna menguante}}',
+  'ui.moon-phase-line': '{phase, select, new_moon {Luna nueva} full_moon {Luna llena} waxing_crescent {Luna creciente} first_quarter {Cuarto creciente} waxing_gibbous {Luna gibosa creciente} waning_gibbous {Luna gibosa menguante} last_quarter {Cuarto menguante} other {Luna menguante}}',
   'ui.hreflang': 'También en {languages}',
 
   'phase.new-moon': 'Luna nueva',

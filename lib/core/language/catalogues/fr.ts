@@ -6,7 +6,7 @@
  */
 import type { Catalogue } from '../catalogue.ts';
 
-const agree = (m: string, f: string): string => `{gender, select, feminine {${f}} plural-feminine {${f}s} plural-masculine {${m}s} other {${m}}}`;
+const agree = (m: string, f: string): string => `{gender, select, feminine {${f}} plural_feminine {${f}s} plural_masculine {${m}s} other {${m}}}`;
 
 export const fr: Catalogue = {
   'compass.n': 'le nord',
@@ -279,7 +279,7 @@ export const fr: Catalogue = {
   'ui.page-title': '{title} · {site} · {when}',
   'ui.card-alt': '{title} : {site}, {when}',
   'ui.row-lit': 'éclairée à {percent}',
-  'ui.moon-phase-line': '{phase, select, new-moon {Nouvelle Lune} full-moon {Pleine Lune} waxing-crescent {Premier croissant de Lune} first-quarter {Premier quartier de Lune} waxing-gibbous {Lune gibbeuse croissante} waning-gibbous {Lune gibbeuse décroissante} last-quarter {Dernier quartier de Lune} other {Dernier croissant de Lune}}',
+  'ui.moon-phase-line': '{phase, select, new_moon {Nouvelle Lune} full_moon {Pleine Lune} waxing_crescent {Premier croissant de Lune} first_quarter {Premier quartier de Lune} waxing_gibbous {Lune gibbeuse croissante} waning_gibbous {Lune gibbeuse décroissante} last_quarter {Dernier quartier de Lune} other {Dernier croissant de Lune}}',
   'ui.hreflang': 'Aussi en {languages}',
 
   'phase.new-moon': 'Nouvelle Lune',
