@@ -131,3 +131,48 @@ export function findMaximum(f: (ut: number) => number, ut0: number, ut1: number,
   const fm = f(mid);
   return Number.isFinite(fm) && fm >= bestValue ? { ut: mid, value: fm } : { ut: ut0 + best * h, value: bestValue };
 }
+
+/** Length of the fixed UT buckets of `sharedSearch`, days. */
+const SHARED_BUCKET_DAYS = 8;
+/** Buckets kept per owner before they are dropped (about 40 years of 8-day buckets). */
+const SHARED_BUCKETS_KEPT = 2000;
+const sharedResults = new WeakMap<object, Map<string, readonly unknown[]>>();
+
+/**
+ * The results of a search that does not depend on the site (the instants of the Moon's phases,
+ * of planets' oppositions, of close approaches seen from the Earth's centre) with their times in
+ * [from, to), found once per fixed bucket of 8 UT days (bucket k covers UT days [8k, 8k + 8)) and
+ * kept: every site and week of a build that asks for the same bucket reads the same results. A
+ * bucket's results depend only on `owner`, `key` and k, never on which site asked first, so builds
+ * stay deterministic.
+ *
+ * `find(from, to)` must return every result with its time in [from, to) (more is filtered out);
+ * `key` names everything the search depends on besides the bucket; `owner` is the object the
+ * results belong to (a body loaded from content, or the searching function for built-in bodies):
+ * when it is collected, so are its results.
+ */
+export function sharedSearch<T>(owner: object, key: string, from: Date, to: Date, find: (from: Date, to: Date) => T[], timeOf: (result: T) => Date): T[] {
+  let buckets = sharedResults.get(owner);
+  if (!buckets) {
+    buckets = new Map();
+    sharedResults.set(owner, buckets);
+  }
+  const bucketMs = SHARED_BUCKET_DAYS * 86_400_000;
+  const origin = Date.UTC(2000, 0, 1, 12);
+  const first = Math.floor((from.getTime() - origin) / bucketMs);
+  const last = Math.floor((to.getTime() - 1 - origin) / bucketMs);
+  const out: T[] = [];
+  for (let k = first; k <= last; k++) {
+    const id = `${key}#${k}`;
+    let found = buckets.get(id) as readonly T[] | undefined;
+    if (!found) {
+      const a = new Date(origin + k * bucketMs);
+      const b = new Date(origin + (k + 1) * bucketMs);
+      found = find(a, b).filter((r) => timeOf(r) >= a && timeOf(r) < b);
+      if (buckets.size >= SHARED_BUCKETS_KEPT) buckets.clear();
+      buckets.set(id, found);
+    }
+    for (const r of found) if (timeOf(r) >= from && timeOf(r) < to) out.push(r);
+  }
+  return out;
+}

@@ -13,7 +13,7 @@ import * as Astronomy from 'astronomy-engine';
 import type { Body } from '../../core/body.ts';
 import { builtInBody } from '../../core/body.ts';
 import { compass } from '../../core/describe.ts';
-import { findCrossings } from '../../core/search.ts';
+import { findCrossings, sharedSearch } from '../../core/search.ts';
 import { offsetInSky, separationDeg, type OffsetDirection } from '../../core/geometry.ts';
 import { distanceWords } from '../../models/stars/guide.ts';
 import { starByHip, stars, type Star } from '../../models/stars/catalogue.ts';
@@ -118,28 +118,38 @@ export function approachEvents(ctx: AlmanacContext, from: Date, to: Date, option
   const moon = new Directions(builtInBody('moon'));
   const planets = planetIds.map((id) => new Directions(builtInBody(id as 'mercury')));
   const small = (options.smallBodies ?? []).map((b) => new Directions(b));
-  const ut0 = utDays(from);
-  const ut1 = utDays(to);
-  const pairs: { a: Directions; b: Directions; limit: number }[] = [];
+  type Pair = { a: Directions; b: Directions; limit: number };
+  // The built-in bodies' pairs: the same from every site, found once per range for the whole build.
+  const pairs: Pair[] = [];
   if (options.moon !== false) {
-    for (const p of [...planets, ...small]) pairs.push({ a: moon, b: p, limit: limits.moonPlanetDeg });
+    for (const p of planets) pairs.push({ a: moon, b: p, limit: limits.moonPlanetDeg });
     for (const s of eclipticStars) pairs.push({ a: moon, b: s, limit: limits.moonStarDeg });
   }
-  const movers = [...planets, ...small];
-  for (let i = 0; i < movers.length; i++) {
-    for (let j = i + 1; j < movers.length; j++) pairs.push({ a: movers[i]!, b: movers[j]!, limit: limits.planetPlanetDeg });
+  for (let i = 0; i < planets.length; i++) {
+    for (let j = i + 1; j < planets.length; j++) pairs.push({ a: planets[i]!, b: planets[j]!, limit: limits.planetPlanetDeg });
   }
   for (const p of planets) for (const s of eclipticStars) pairs.push({ a: p, b: s, limit: limits.planetStarDeg });
-  // Comets and asteroids also against every star of a pattern: a comet passing a familiar figure
-  // is news even when the star is faint.
+  // Each comet or asteroid with the Moon, the planets, the small bodies after it and the stars;
+  // also every star of a pattern: a comet passing a familiar figure is news even when the star is faint.
   const brightHips = new Set(bright.map((s) => s.hip));
   const patternStars = [...PATTERN_OF_STAR.keys()].filter((hip) => !brightHips.has(hip)).map((hip) => starDirections(starByHip(hip)!));
-  for (const c of small) for (const s of [...allStars, ...patternStars]) pairs.push({ a: c, b: s, limit: limits.planetStarDeg });
+  const ofSmall = small.map((c, i): Pair[] => [
+    ...(options.moon !== false ? [{ a: moon, b: c, limit: limits.moonPlanetDeg }] : []),
+    ...planets.map((p) => ({ a: p, b: c, limit: limits.planetPlanetDeg })),
+    ...small.slice(i + 1).map((d) => ({ a: c, b: d, limit: limits.planetPlanetDeg })),
+    ...[...allStars, ...patternStars].map((s) => ({ a: c, b: s, limit: limits.planetStarDeg })),
+  ]);
 
+  type Minimum = { first: Body; second: Body; ut: number; separationDeg: number };
+  const minimaOf = (list: readonly Pair[]) => (a: Date, b: Date): Minimum[] =>
+    list.flatMap((p) => separationMinima(p.a, p.b, utDays(a), utDays(b), p.limit).map((m) => ({ first: p.a.body, second: p.b.body, ...m })));
+  const key = JSON.stringify([limits, planetIds, magLimit, latLimit, options.moon !== false]);
+  const found = [
+    ...sharedSearch(approachEvents, key, from, to, minimaOf(pairs), (m) => dateFromUt(m.ut)),
+    ...small.flatMap((c, i) => sharedSearch(c.body, `${key}:${small.slice(i + 1).map((d) => d.body.id).join()}`, from, to, minimaOf(ofSmall[i]!), (m) => dateFromUt(m.ut))),
+  ];
   const out: AlmanacEvent[] = [];
-  for (const { a, b, limit } of pairs) {
-    for (const m of separationMinima(a, b, ut0, ut1, limit)) out.push(describeApproach(ctx, a.body, b.body, dateFromUt(m.ut), m.separationDeg));
-  }
+  for (const m of found) out.push(describeApproach(ctx, m.first, m.second, dateFromUt(m.ut), m.separationDeg));
   return out;
 }
 

@@ -10,7 +10,7 @@ import * as Astronomy from 'astronomy-engine';
 import { builtInBody } from '../../core/body.ts';
 import { compass } from '../../core/describe.ts';
 import { observe } from '../../core/observe.ts';
-import { findMaximum } from '../../core/search.ts';
+import { findMaximum, sharedSearch } from '../../core/search.ts';
 import { dateFromUt, utDays } from '../../core/track.ts';
 import type { AlmanacContext } from './context.ts';
 import type { AlmanacEvent, EclipseContact, EclipseDetails, EventVisibility } from './types.ts';
@@ -37,12 +37,26 @@ function highest(altitudeAt: (t: Date) => number, t0: Date, t1: Date): { time: D
   return top ? { time: dateFromUt(top.ut), altitudeDeg: top.value } : { time: t0, altitudeDeg: altitudeAt(t0) };
 }
 
+/** Lunar eclipses with their peak in [from, to) (the same from every site). */
+function findLunarEclipses(from: Date, to: Date): Astronomy.LunarEclipseInfo[] {
+  const out: Astronomy.LunarEclipseInfo[] = [];
+  for (let e = Astronomy.SearchLunarEclipse(from); e.peak.date < to; e = Astronomy.NextLunarEclipse(e.peak)) out.push(e);
+  return out;
+}
+
+/** Solar eclipses anywhere on the Earth with their greatest moment in [from, to). */
+function findGlobalSolarEclipses(from: Date, to: Date): Astronomy.GlobalSolarEclipseInfo[] {
+  const out: Astronomy.GlobalSolarEclipseInfo[] = [];
+  for (let e = Astronomy.SearchGlobalSolarEclipse(from); e.peak.date < to; e = Astronomy.NextGlobalSolarEclipse(e.peak)) out.push(e);
+  return out;
+}
+
 /** Lunar eclipses with their peak in [from, to). */
 export function lunarEclipseEvents(ctx: AlmanacContext, from: Date, to: Date): AlmanacEvent[] {
   const out: AlmanacEvent[] = [];
   const moon = builtInBody('moon');
   const altitudeAt = (t: Date): number => observe(ctx.site, moon, t).altitudeDeg;
-  for (let e = Astronomy.SearchLunarEclipse(from); e.peak.date < to; e = Astronomy.NextLunarEclipse(e.peak)) {
+  for (const e of sharedSearch(lunarEclipseEvents, 'lunar', from, to, findLunarEclipses, (e) => e.peak.date)) {
     const peak = e.peak;
     const at = (minutes: number): Date => peak.AddDays(minutes * MINUTE_DAYS).date;
     const contacts: EclipseContact[] = [];
@@ -111,7 +125,12 @@ export function solarEclipseEvents(ctx: AlmanacContext, from: Date, to: Date): A
   const out: AlmanacEvent[] = [];
   const sun = builtInBody('sun');
   const altitudeAt = (t: Date): number => observe(ctx.site, sun, t).altitudeDeg;
-  for (let e = Astronomy.SearchLocalSolarEclipse(from, ctx.site.observer); e.peak.time.date < to; e = Astronomy.NextLocalSolarEclipse(e.peak.time, ctx.site.observer)) {
+  // The Moon's shadow crosses the Earth within hours of the eclipse's greatest (global) moment: with
+  // no eclipse anywhere within a day of the range, the site sees none and its own search is skipped.
+  const global = sharedSearch(solarEclipseEvents, 'global', new Date(from.getTime() - 86_400_000), new Date(to.getTime() + 86_400_000), findGlobalSolarEclipses, (e) => e.peak.date);
+  if (global.length === 0) return out;
+  const start = new Date(Math.max(from.getTime(), global[0]!.peak.date.getTime() - 86_400_000));
+  for (let e = Astronomy.SearchLocalSolarEclipse(start, ctx.site.observer); e.peak.time.date < to; e = Astronomy.NextLocalSolarEclipse(e.peak.time, ctx.site.observer)) {
     const contacts: EclipseContact[] = [{ name: 'C1', time: e.partial_begin.time.date, altitudeDeg: e.partial_begin.altitude }];
     if (e.total_begin) contacts.push({ name: 'C2', time: e.total_begin.time.date, altitudeDeg: e.total_begin.altitude });
     contacts.push({ name: 'max', time: e.peak.time.date, altitudeDeg: e.peak.altitude });

@@ -8,6 +8,7 @@ import * as Astronomy from 'astronomy-engine';
 import { builtInBody } from '../../core/body.ts';
 import { compass } from '../../core/describe.ts';
 import { riseTransitSet } from '../../core/events.ts';
+import { sharedSearch } from '../../core/search.ts';
 import { utDays } from '../../core/track.ts';
 import type { AlmanacContext } from './context.ts';
 import { apparentPlace, eventVisibility } from './visibility.ts';
@@ -31,11 +32,25 @@ function moonriseWords(ctx: AlmanacContext, time: Date): string | null {
   return `at ${ctx.clock(rise)} in the ${compass(apparentPlace(frame, frame.moon.body, utDays(rise)).azimuthDeg).word}`;
 }
 
+/** The Moon's quarters with instants in [from, to) (the same from every site). */
+function findQuarters(from: Date, to: Date): Astronomy.MoonQuarter[] {
+  const out: Astronomy.MoonQuarter[] = [];
+  for (let q = Astronomy.SearchMoonQuarter(from); q.time.date < to; q = Astronomy.NextMoonQuarter(q)) out.push(q);
+  return out;
+}
+
+/** The Moon's perigees and apogees with instants in [from, to) (the same from every site). */
+function findApsides(from: Date, to: Date): Astronomy.Apsis[] {
+  const out: Astronomy.Apsis[] = [];
+  for (let a = Astronomy.SearchLunarApsis(from); a.time.date < to; a = Astronomy.NextLunarApsis(a)) out.push(a);
+  return out;
+}
+
 /** The principal phases with instants in [from, to). */
 export function moonPhaseEvents(ctx: AlmanacContext, from: Date, to: Date): AlmanacEvent[] {
   const out: AlmanacEvent[] = [];
   const moon = builtInBody('moon');
-  for (let q = Astronomy.SearchMoonQuarter(from); q.time.date < to; q = Astronomy.NextMoonQuarter(q)) {
+  for (const q of sharedSearch(moonPhaseEvents, 'quarters', from, to, findQuarters, (q) => q.time.date)) {
     const time = q.time.date;
     const type = QUARTERS[q.quarter]!;
     const visibility = eventVisibility(ctx, [moon], time);
@@ -65,7 +80,7 @@ export function moonPhaseEvents(ctx: AlmanacContext, from: Date, to: Date): Alma
 export function lunarApsisEvents(ctx: AlmanacContext, from: Date, to: Date): AlmanacEvent[] {
   const out: AlmanacEvent[] = [];
   const moon = builtInBody('moon');
-  for (let a = Astronomy.SearchLunarApsis(from); a.time.date < to; a = Astronomy.NextLunarApsis(a)) {
+  for (const a of sharedSearch(lunarApsisEvents, 'apsides', from, to, findApsides, (a) => a.time.date)) {
     const time = a.time.date;
     const perigee = a.kind === Astronomy.ApsisKind.Pericenter;
     const km = Math.round(a.dist_km / 100) * 100;

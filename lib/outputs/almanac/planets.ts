@@ -8,7 +8,7 @@
 import * as Astronomy from 'astronomy-engine';
 import { builtInBody, type EngineBody } from '../../core/body.ts';
 import { compass } from '../../core/describe.ts';
-import { findCrossings } from '../../core/search.ts';
+import { findCrossings, sharedSearch, type Crossing } from '../../core/search.ts';
 import { dateFromUt, utDays } from '../../core/track.ts';
 import type { AlmanacContext } from './context.ts';
 import { eventVisibility, hidden } from './visibility.ts';
@@ -69,7 +69,8 @@ export function oppositionAndConjunctionEvents(ctx: AlmanacContext, from: Date, 
       ? [{ relLon: 0, kind: 'inferior' }, { relLon: 180, kind: 'superior' }]
       : [{ relLon: 0, kind: 'opposition' }, { relLon: 180, kind: 'superior' }];
     for (const target of targets) {
-      for (const t of repeat(from, to, (s) => Astronomy.SearchRelativeLongitude(body.engineBody, target.relLon, s), (r) => r)) {
+      const find = (a: Date, b: Date): Astronomy.AstroTime[] => repeat(a, b, (s) => Astronomy.SearchRelativeLongitude(body.engineBody, target.relLon, s), (r) => r);
+      for (const t of sharedSearch(oppositionAndConjunctionEvents, `${id}:${target.relLon}`, from, to, find, (r) => r.date)) {
         const time = t.date;
         const mag = magnitudeAt(body, t);
         if (target.kind === 'opposition') {
@@ -118,7 +119,8 @@ export function elongationEvents(ctx: AlmanacContext, from: Date, to: Date, ids:
   for (const id of INFERIOR) {
     if (!ids.includes(id)) continue;
     const body = builtInBody(id);
-    for (const e of repeat(from, to, (s) => Astronomy.SearchMaxElongation(body.engineBody, s), (r) => r.time)) {
+    const find = (a: Date, b: Date): Astronomy.ElongationEvent[] => repeat(a, b, (s) => Astronomy.SearchMaxElongation(body.engineBody, s), (r) => r.time);
+    for (const e of sharedSearch(elongationEvents, id, from, to, find, (r) => r.time.date)) {
       const time = e.time.date;
       const evening = e.visibility === 'evening';
       const visibility = eventVisibility(ctx, [body], time);
@@ -145,7 +147,8 @@ export function elongationEvents(ctx: AlmanacContext, from: Date, to: Date, ids:
 /** Venus at greatest brilliancy (peak magnitude), instants in [from, to). */
 export function brilliancyEvents(ctx: AlmanacContext, from: Date, to: Date): AlmanacEvent[] {
   const venus = builtInBody('venus');
-  return repeat(from, to, (s) => Astronomy.SearchPeakMagnitude(Astronomy.Body.Venus, s), (r) => r.time).map((info) => {
+  const find = (a: Date, b: Date): Astronomy.IlluminationInfo[] => repeat(a, b, (s) => Astronomy.SearchPeakMagnitude(Astronomy.Body.Venus, s), (r) => r.time);
+  return sharedSearch(brilliancyEvents, 'venus', from, to, find, (r) => r.time.date).map((info) => {
     const time = info.time.date;
     const visibility = eventVisibility(ctx, [venus], time);
     const look = lookWords(ctx, visibility);
@@ -179,7 +182,8 @@ export function stationEvents(ctx: AlmanacContext, from: Date, to: Date, ids: re
     const body = builtInBody(id);
     const lon = (ut: number): number => eclipticLongitudeJ2000Deg(Astronomy.GeoVector(body.engineBody, Astronomy.MakeTime(dateFromUt(ut)), true));
     const rate = (ut: number): number => wrap180(lon(ut + delta) - lon(ut - delta)) / (2 * delta);
-    for (const c of findCrossings(rate, utDays(from), utDays(to), { stepDays: 1, toleranceDays: 1 / 1440 })) {
+    const find = (a: Date, b: Date): Crossing[] => findCrossings(rate, utDays(a), utDays(b), { stepDays: 1, toleranceDays: 1 / 1440 });
+    for (const c of sharedSearch(stationEvents, id, from, to, find, (r) => dateFromUt(r.ut))) {
       const time = dateFromUt(c.ut);
       const retrograde = c.direction === -1;
       const visibility = eventVisibility(ctx, [body], time);

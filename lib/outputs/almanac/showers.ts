@@ -15,7 +15,7 @@
 import * as Astronomy from 'astronomy-engine';
 import { builtInBody } from '../../core/body.ts';
 import { compass } from '../../core/describe.ts';
-import { findCrossings, findMaximum } from '../../core/search.ts';
+import { findCrossings, findMaximum, sharedSearch } from '../../core/search.ts';
 import { darkSkyFromQuality, nelmFromSkyBrightness } from '../../models/sky/quality.ts';
 import { extinctionCoefficientGreen } from '../../models/sky/extinction.ts';
 import { skyBrightness } from '../../models/sky/brightness.ts';
@@ -89,7 +89,8 @@ export function showerEvents(ctx: AlmanacContext, from: Date, to: Date, showers:
   const darkNl = darkSkyFromQuality(ctx.site.sky).zenithNl;
   const kV = extinctionCoefficientGreen(ctx.site.elevationM);
   for (const shower of showers) {
-    for (const time of solarLongitudeCrossings(shower.peakSolarLongitudeDeg, from, to)) {
+    const peaks = (a: Date, b: Date): Date[] => solarLongitudeCrossings(shower.peakSolarLongitudeDeg, a, b);
+    for (const time of sharedSearch(showerEvents, `${shower.code}:${shower.peakSolarLongitudeDeg}`, from, to, peaks, (t) => t)) {
       const frame = ctx.frameAt(time);
       const radiant = fixedPointBody({ id: `shower:${shower.code}`, name: `${shower.name} radiant`, raDeg: shower.radiantRaDeg, decDeg: shower.radiantDecDeg, vMag: 99 });
       const moonPhaseAngleDeg = Astronomy.Illumination(Astronomy.Body.Moon, Astronomy.MakeTime(time)).phase_angle;

@@ -9,7 +9,7 @@
 import * as Astronomy from 'astronomy-engine';
 import type { Body, Illumination } from '../../core/body.ts';
 import { compass } from '../../core/describe.ts';
-import { findCrossings } from '../../core/search.ts';
+import { findCrossings, sharedSearch } from '../../core/search.ts';
 import { dateFromUt, utDays } from '../../core/track.ts';
 import { KM_PER_AU } from '../../core/observe.ts';
 import { nightDateOf, type AlmanacContext } from './context.ts';
@@ -60,7 +60,7 @@ export function smallBodyEvents(ctx: AlmanacContext, from: Date, to: Date, bodie
       { type: 'peak-brightness', quantity: (ut) => illum(ut).magnitude.value },
     ];
     for (const { type, quantity } of kinds) {
-      for (const time of minima(quantity, from, to)) {
+      for (const time of sharedSearch(body, type, from, to, (a, b) => minima(quantity, a, b), (t) => t)) {
         const i = body.illumination(Astronomy.MakeTime(time));
         const m = i.magnitude;
         const mag = Math.round(m.value * 10) / 10;
