@@ -23,6 +23,9 @@ export interface TailInSky {
   direction: OffsetDirection;
   /** "points up and to the left". */
   words: string;
+  /** Where the head and the tail's tip (at the length asked) are in the site's sky: apparent altitude and azimuth, degrees. */
+  head: { altitudeDeg: number; azimuthDeg: number };
+  tip: { altitudeDeg: number; azimuthDeg: number };
 }
 
 const WORDS: Record<OffsetDirection, string> = {
@@ -48,17 +51,25 @@ function altAz(site: Site, frame: SkyFrame, geo: Astronomy.Vector): { altitudeDe
   return { altitudeDeg: apparentAltitudeDeg(altitudeOfHor(hor)), azimuthDeg: azimuthOfHor(hor) };
 }
 
-/** The tail direction of `body` for `site` at `instant`: where the tail's tip lies from the head in the site's sky (`offsetInSky`). */
-export function tailInSky(site: Site, body: SmallBody, instant: Instant): TailInSky {
+/**
+ * The tail direction of `body` for `site` at `instant`: where the tail's tip lies from the head in
+ * the site's sky (`offsetInSky`). `lengthAu` is how far along the anti-solar line the tip is taken
+ * (default 0.01 AU, see `tailPointGeoVector`); charts draw a longer stub in the same direction.
+ * The one computation of the tail's direction: the command line's words and the finder chart's
+ * drawn tail both come from here.
+ */
+export function tailInSky(site: Site, body: SmallBody, instant: Instant, options: { lengthAu?: number } = {}): TailInSky {
   const time = astroTime(instant);
   const frame = new SkyFrame(site, time);
   const head = altAz(site, frame, body.geoVector(time, { aberration: true }));
-  const tip = altAz(site, frame, tailPointGeoVector(body, time));
+  const tip = altAz(site, frame, tailPointGeoVector(body, time, options));
   const off = offsetInSky({ fromAltitudeDeg: head.altitudeDeg, fromAzimuthDeg: head.azimuthDeg, toAltitudeDeg: tip.altitudeDeg, toAzimuthDeg: tip.azimuthDeg });
   return {
     positionAngleDeg: tailPositionAngleDeg(body, time),
     skyAngleDeg: off.positionAngleDeg,
     direction: off.offsetDirection,
     words: WORDS[off.offsetDirection],
+    head,
+    tip,
   };
 }

@@ -26,7 +26,7 @@ import { compass, FIST_DEG } from '../../core/describe.ts';
 import { GloamingError } from '../../core/errors.ts';
 import { SIDEREAL_DAY_DAYS } from '../../core/geometry.ts';
 import { observe, type Observation } from '../../core/observe.ts';
-import { tailPointGeoVector, type SmallBody } from '../../models/orbit/body.ts';
+import { isSmallBody, tailInSky } from '../../models/orbit/tail.ts';
 import { skylineAltitudeDeg, type Site } from '../../core/site.ts';
 import { guideFor } from '../../models/guide.ts';
 import type { GuideResult } from '../../models/stars/guide.ts';
@@ -111,10 +111,6 @@ export interface HorizonChart {
   layout: ChartLayout;
 }
 
-
-function isComet(body: Body): body is SmallBody {
-  return body.kind === 'comet' && 'sighting' in body;
-}
 
 function checkOptions(options: HorizonChartOptions): void {
   const check = (value: number | undefined, field: string, min: number, max: number): void => {
@@ -386,14 +382,10 @@ export function horizonChart(input: { site: Site; body: Body; time: Date; option
   // Target: a ring with a dot; a comet gets a short indicative tail (anti-solar direction).
   const tq = layout.toChart(target.altitudeDeg, target.azimuthDeg) ?? { x: W / 2, y: SCENE_HEIGHT / 2 };
   let tail: HorizonChart['tail'] = null;
-  if (isComet(body)) {
-    const t = target.time;
-    const head = body.geoVector(t, { aberration: true });
-    const tip = tailPointGeoVector(body, t, { lengthAu: 0.05 });
-    const a = sky.fromEqj(head.x, head.y, head.z);
-    const b = sky.fromEqj(tip.x, tip.y, tip.z);
-    const qa = layout.toChart(a.altitudeDeg, a.azimuthDeg);
-    const qb = layout.toChart(b.altitudeDeg, b.azimuthDeg);
+  if (body.kind === 'comet' && isSmallBody(body)) {
+    const { head, tip } = tailInSky(site, body, target.time, { lengthAu: 0.05 });
+    const qa = layout.toChart(head.altitudeDeg, head.azimuthDeg);
+    const qb = layout.toChart(tip.altitudeDeg, tip.azimuthDeg);
     if (qa && qb) {
       const len = Math.hypot(qb.x - qa.x, qb.y - qa.y);
       if (len > 1e-9) {
