@@ -16,7 +16,7 @@ const input: CardInput = {
     { azimuthDeg: 120, altitudeDeg: 12 },
     { azimuthDeg: 280, altitudeDeg: 4 },
   ],
-  caution: true,
+  caution: 'Eye-safety notice inside',
 };
 const dir = mkdtempSync(join(tmpdir(), 'gloaming-card-'));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));

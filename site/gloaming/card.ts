@@ -10,6 +10,7 @@ import { createRequire } from 'node:module';
 import { crc32 } from 'node:zlib';
 import { Resvg } from '@resvg/resvg-js';
 import satori from 'satori';
+import { wordsFor } from '../../lib/core/language/index.ts';
 import { entryDigest } from './digest.ts';
 
 export const CARD_WIDTH = 1200;
@@ -22,8 +23,8 @@ export interface CardInput {
   weekLabel: string;
   /** The site's skyline, sorted by azimuth (degrees). Empty for a flat horizon. */
   horizon: { azimuthDeg: number; altitudeDeg: number }[];
-  /** Whether to show a caution badge. */
-  caution: boolean;
+  /** The caution badge's words in the page's language ("Eye-safety notice inside"), or null for none. */
+  caution: string | null;
 }
 
 /**
@@ -31,7 +32,7 @@ export interface CardInput {
  * it beside the page, the card route reads it back from the cache by this input's hash).
  */
 export function cardInputOf(
-  page: { title: string; when: string; cautions: readonly string[] },
+  page: { title: string; when: string; cautions: readonly string[]; language: string },
   site: { name: string; horizon: readonly { azimuthDeg: number; altitudeDeg: number }[] },
   centreName: string,
 ): CardInput {
@@ -41,7 +42,7 @@ export function cardInputOf(
     siteName: site.name,
     weekLabel: page.when,
     horizon: site.horizon.map((p) => ({ azimuthDeg: p.azimuthDeg, altitudeDeg: p.altitudeDeg })),
-    caution: page.cautions.length > 0,
+    caution: page.cautions.length > 0 ? wordsFor(page.language).t('ui.card-caution') : null,
   };
 }
 
@@ -109,7 +110,7 @@ export async function cardSvg(input: CardInput): Promise<string> {
         h('div', { display: 'flex', fontSize: input.title.length > 40 ? 62 : 76, fontWeight: 700, lineHeight: 1.1, maxWidth: 1056 }, input.title),
         h('div', { display: 'flex', fontSize: 38, color: '#f3b962', fontWeight: 700 }, `${input.siteName} · ${input.weekLabel}`),
         ...(input.caution
-          ? [h('div', { display: 'flex', fontSize: 28, color: '#ffe0b8', border: '3px solid #ef8a3a', borderRadius: 14, padding: '6px 16px', alignSelf: 'flex-start', background: '#35190b' }, 'Eye-safety notice inside')]
+          ? [h('div', { display: 'flex', fontSize: 28, color: '#ffe0b8', border: '3px solid #ef8a3a', borderRadius: 14, padding: '6px 16px', alignSelf: 'flex-start', background: '#35190b' }, input.caution)]
           : []),
       ]),
     ],
@@ -121,7 +122,7 @@ export async function cardSvg(input: CardInput): Promise<string> {
 
 /** The words on the card, one line each (also stored in the PNG, see `withDescription`). */
 export function cardText(input: CardInput): string {
-  return [input.centre, input.title, `${input.siteName} · ${input.weekLabel}`, ...(input.caution ? ['Eye-safety notice inside'] : [])].join('\n');
+  return [input.centre, input.title, `${input.siteName} · ${input.weekLabel}`, ...(input.caution ? [input.caution] : [])].join('\n');
 }
 
 /**

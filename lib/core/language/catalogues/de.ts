@@ -244,6 +244,7 @@ export const de: Catalogue = {
   'ui.choose-site': 'Wählen Sie Ihren Standort',
   'ui.bulletins': 'Bulletins zum Nachthimmel',
   'ui.other-language': 'Dieses Bulletin auf {language}',
+  'ui.card-caution': 'Mit Warnhinweis zum Augenschutz',
   'ui.sky-bortle': 'Bortle {value}',
   'ui.sky-sqm': 'SQM {value} mag/arcsec²',
   'ui.sky-nelm': 'Grenzgröße mit bloßem Auge {value}',

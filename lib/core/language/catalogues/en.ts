@@ -259,6 +259,8 @@ export const en = {
   'ui.choose-site': 'Choose your site',
   'ui.bulletins': 'Night-sky bulletins',
   'ui.other-language': 'This bulletin in {language}',
+  // The badge on a page's social card when the page carries an eye-safety caution.
+  'ui.card-caution': 'Eye-safety notice inside',
   'ui.sky-bortle': 'Bortle {value}',
   'ui.sky-sqm': 'SQM {value} mag/arcsec²',
   'ui.sky-nelm': 'naked-eye limit {value}',

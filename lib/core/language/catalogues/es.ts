@@ -250,6 +250,7 @@ export const es: Catalogue = {
   'ui.choose-site': 'Elija su lugar',
   'ui.bulletins': 'Boletines del cielo nocturno',
   'ui.other-language': 'Este boletín en {language}',
+  'ui.card-caution': 'Incluye un aviso de seguridad para los ojos',
   'ui.sky-bortle': 'Bortle {value}',
   'ui.sky-sqm': 'SQM {value} mag/arcsec²',
   'ui.sky-nelm': 'magnitud límite a simple vista {value}',

@@ -247,6 +247,7 @@ export const fr: Catalogue = {
   'ui.choose-site': 'Choisissez votre site',
   'ui.bulletins': 'Bulletins du ciel nocturne',
   'ui.other-language': 'Ce bulletin en {language}',
+  'ui.card-caution': 'Contient une mise en garde pour les yeux',
   'ui.sky-bortle': 'Bortle {value}',
   'ui.sky-sqm': 'SQM {value} mag/arcsec²',
   'ui.sky-nelm': 'magnitude limite à l’œil nu {value}',
