@@ -8,6 +8,7 @@ import { CARD_HEIGHT, CARD_WIDTH, renderCard, renderCardCached, type CardInput }
 
 const input: CardInput = {
   centre: 'Quayside Lantern Science Centre',
+  accent: '#f3b962',
   title: 'A very long bulletin title about a comet low in the west-southwest after sunset',
   siteName: 'Northern Fjord Outpost',
   weekLabel: '28 Dec 2026 – 3 Jan 2027',
@@ -33,6 +34,23 @@ describe('social card', () => {
     expect([...probe.pixels.subarray(0, 4)]).toEqual([0x0c, 0x10, 0x19, 255]);
     expect(Buffer.from(png).readUInt32BE(16)).toBe(CARD_WIDTH);
     expect(Buffer.from(png).readUInt32BE(20)).toBe(CARD_HEIGHT);
+  });
+
+  it("draws the site and week line in the centre's accent colour", async () => {
+    const pixels = async (accent: string): Promise<Uint8Array> => {
+      const png = await renderCard({ ...input, accent });
+      return new Resvg(
+        `<svg xmlns="http://www.w3.org/2000/svg" width="${CARD_WIDTH}" height="${CARD_HEIGHT}"><image href="data:image/png;base64,${Buffer.from(png).toString('base64')}" width="${CARD_WIDTH}" height="${CARD_HEIGHT}"/></svg>`,
+      ).render().pixels;
+    };
+    const count = (p: Uint8Array, [r, g, b]: number[]): number => {
+      let n = 0;
+      for (let i = 0; i < p.length; i += 4) if (p[i] === r && p[i + 1] === g && p[i + 2] === b) n++;
+      return n;
+    };
+    // Solid text strokes of a 38 px bold line cover thousands of pixels in exactly the accent colour.
+    expect(count(await pixels('#3fd0a0'), [0x3f, 0xd0, 0xa0])).toBeGreaterThan(1000);
+    expect(count(await pixels('#f3b962'), [0x3f, 0xd0, 0xa0])).toBe(0);
   });
 
   it('is served from the cache on a hit and recomputed when an input or the code changes', async () => {

@@ -18,6 +18,8 @@ export const CARD_HEIGHT = 630;
 
 export interface CardInput {
   centre: string;
+  /** The centre's accent colour on the dark background (content/centre.yaml `accent`, checked for contrast there), for the site and week line. */
+  accent: string;
   title: string;
   siteName: string;
   weekLabel: string;
@@ -34,10 +36,11 @@ export interface CardInput {
 export function cardInputOf(
   page: { title: string; when: string; cautions: readonly string[]; language: string },
   site: { name: string; horizon: readonly { azimuthDeg: number; altitudeDeg: number }[] },
-  centreName: string,
+  centre: { name: string; accentDark: string },
 ): CardInput {
   return {
-    centre: centreName,
+    centre: centre.name,
+    accent: centre.accentDark,
     title: page.title,
     siteName: site.name,
     weekLabel: page.when,
@@ -108,7 +111,7 @@ export async function cardSvg(input: CardInput): Promise<string> {
       h('div', { display: 'flex', flexDirection: 'column', padding: '56px 72px 0', gap: 18 }, [
         h('div', { display: 'flex', fontSize: 30, color: '#b9b3a6' }, input.centre),
         h('div', { display: 'flex', fontSize: input.title.length > 40 ? 62 : 76, fontWeight: 700, lineHeight: 1.1, maxWidth: 1056 }, input.title),
-        h('div', { display: 'flex', fontSize: 38, color: '#f3b962', fontWeight: 700 }, `${input.siteName} · ${input.weekLabel}`),
+        h('div', { display: 'flex', fontSize: 38, color: input.accent, fontWeight: 700 }, `${input.siteName} · ${input.weekLabel}`),
         ...(input.caution
           ? [h('div', { display: 'flex', fontSize: 28, color: '#ffe0b8', border: '3px solid #ef8a3a', borderRadius: 14, padding: '6px 16px', alignSelf: 'flex-start', background: '#35190b' }, input.caution)]
           : []),

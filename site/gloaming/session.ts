@@ -268,7 +268,7 @@ export class GloamingSession {
       charts: [...charts].sort(),
       warnings: found.warnings as PageWarning[],
     };
-    await renderCardCached(cardInputOf(data, spec.site, project.centre.name), { cacheDir: this.cardDir, codeDigest: project.codeDigest });
+    await renderCardCached(cardInputOf(data, spec.site, project.centre), { cacheDir: this.cardDir, codeDigest: project.codeDigest });
     return { path: spec.path, data, problems: found.items };
   }
 

@@ -18,6 +18,6 @@ export const getStaticPaths = (async () => {
 
 export const GET: APIRoute = async ({ props }) => {
   const { page, site } = props as { page: PageEntry; site: SiteEntry };
-  const png = await renderCardCached(cardInputOf(page, site, (await centre()).name), { cacheDir: cards.dir, codeDigest: cards.codeDigest });
+  const png = await renderCardCached(cardInputOf(page, site, await centre()), { cacheDir: cards.dir, codeDigest: cards.codeDigest });
   return new Response(Buffer.from(png), { headers: { 'Content-Type': 'image/png' } });
 };
