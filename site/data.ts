@@ -1,5 +1,8 @@
 /** Reading the content collections, and the site's URL scheme, in one place. */
+import { readFileSync } from 'node:fs';
+import { join } from 'node:path';
 import { getCollection, getEntry } from 'astro:content';
+import { texts } from 'virtual:gloaming';
 import type { CentreEntry, PageEntry, SiteEntry } from './gloaming/schema.ts';
 
 export type { CentreEntry, PageEntry, SiteEntry };
@@ -28,6 +31,11 @@ export async function allPages(): Promise<PageEntry[]> {
   return entries
     .map((e) => e.data)
     .sort((a, b) => (a.weekStart === b.weekStart ? (a.slug < b.slug ? -1 : 1) : a.weekStart < b.weekStart ? -1 : 1));
+}
+
+/** A long text of an entry (a page's `htmlFile`, a site's `calendarFile`), kept beside the content store (see `GloamingSession.textDir`). */
+export function entryText(file: string): string {
+  return readFileSync(join(texts.dir, file), 'utf8');
 }
 
 /** The pages of one site in its own language, oldest first (versions in other languages are linked from these). */

@@ -4,4 +4,6 @@ declare module 'virtual:gloaming' {
   export const cards: { dir: string; codeDigest: string };
   /** Finder charts: `<dir>/<key>.svg`. */
   export const charts: { dir: string };
+  /** The entries' long texts: `<dir>/<sha256>.html` (a page entry's `htmlFile`), `<dir>/<sha256>.ics` (a site entry's `calendarFile`). */
+  export const texts: { dir: string };
 }

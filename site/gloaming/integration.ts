@@ -4,7 +4,7 @@
  * (content.config.ts) — and adds:
  *
  * - `virtual:gloaming`: the session's cache folders and code digest for the routes that serve
- *   social cards and finder charts (`/[site]/[week]/[slug]/card.png`, `/charts/[chart].svg`);
+ *   bulletin pages' HTML and calendar feeds, social cards and finder charts (`/[site]/[week]/[slug]/card.png`, `/charts/[chart].svg`);
  * - in `astro dev`, the session watches the content folder: an edited site, template, object or
  *   satellite file reloads the project and both collections, so the next request shows it;
  * - after a build (`astro:build:done`), the output checks (scripts/output-check.ts): nothing
@@ -30,7 +30,7 @@ export interface GloamingOptions {
   session?: GloamingSession;
 }
 
-/** The id pages import: `import { cards, charts } from 'virtual:gloaming'`. */
+/** The id pages import: `import { cards, charts, texts } from 'virtual:gloaming'`. */
 export const VIRTUAL_MODULE = 'virtual:gloaming';
 
 /** The session of the `gloaming()` integration in `config`; throws when the integration is missing. */
@@ -68,7 +68,7 @@ export default function gloaming(options: GloamingOptions = {}): AstroIntegratio
                 resolveId: (id: string) => (id === VIRTUAL_MODULE ? resolved : undefined),
                 load: (id: string) =>
                   id === resolved
-                    ? `export const cards = ${JSON.stringify({ dir: s.cardDir, codeDigest: s.project().codeDigest })};\nexport const charts = ${JSON.stringify({ dir: s.chartDir })};\n`
+                    ? `export const cards = ${JSON.stringify({ dir: s.cardDir, codeDigest: s.project().codeDigest })};\nexport const charts = ${JSON.stringify({ dir: s.chartDir })};\nexport const texts = ${JSON.stringify({ dir: s.textDir })};\n`
                     : undefined,
               },
             ],

@@ -58,8 +58,8 @@ export const siteEntrySchema = z.object({
   /** ISO week id of the build date, e.g. 2026-W49. */
   currentWeek: z.string(),
   nights: z.array(nightRowSchema),
-  /** The site's iCalendar feed of sky events (empty for sites of other CI shards). */
-  calendar: z.string(),
+  /** The site's iCalendar feed of sky events: a file of the session's text folder, read with `entryText()` (site/data.ts); null for sites of other CI shards. */
+  calendarFile: z.string().regex(/^[0-9a-f]{32}\.ics$/).nullable(),
 });
 
 /** A warning found while rendering a page (errors stop the build and are never stored). */
@@ -97,7 +97,8 @@ export const pageEntrySchema = z.object({
   when: z.string(),
   title: z.string(),
   description: z.string(),
-  html: z.string(),
+  /** The page's bulletin HTML: a file of the session's text folder (`GloamingSession.textDir`), read with `entryText()` (site/data.ts). */
+  htmlFile: z.string().regex(/^[0-9a-f]{32}\.html$/),
   cautions: z.array(z.string()),
   /** File names of the finder charts the page links (served by `/charts/[file]`). */
   charts: z.array(z.string()),

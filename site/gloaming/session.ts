@@ -7,6 +7,9 @@
  * Everything here runs in Node's own module graph (not Vite's), so errors are the library's own
  * `GloamingError` objects with their places, untouched on their way out.
  */
+import { createHash } from 'node:crypto';
+import { existsSync, mkdirSync, renameSync, writeFileSync } from 'node:fs';
+import { threadId } from 'node:worker_threads';
 import { join, resolve, sep } from 'node:path';
 import type { DataStore, LoaderContext } from 'astro/loaders';
 import { checkPages, ProblemList, WeekCache, formatProblem, type Problem, type RenderedBulletin } from '../../lib/outputs/bulletin/index.ts';
@@ -147,6 +150,16 @@ export class GloamingSession {
     return join(this.cacheDir, 'gloaming', 'charts');
   }
 
+  /**
+   * The entries' long texts, named by their content hash (bulletin pages' HTML `<sha256>.html`,
+   * sites' calendar feeds `<sha256>.ics`), inside Astro's cache folder beside the charts: the
+   * content store keeps the file names, not the texts, so the store Astro loads and compiles on
+   * every build stays small (16.6 MB → under 1 MB for 34 sites).
+   */
+  get textDir(): string {
+    return join(this.cacheDir, 'gloaming', 'texts');
+  }
+
   /** Social cards are kept in `<cardDir>/cards/`, keyed by content hash. */
   get cardDir(): string {
     return join(this.cacheDir, 'gloaming');
@@ -230,7 +243,7 @@ export class GloamingSession {
       currentWeek: isoWeekOf(project.today).id,
       // Tonight's passes are worded in English only so far (PASS_WORDS): other languages leave the line out.
       nights: built ? nextNights(s, project.today, NIGHTS_SHOWN, s.locale.startsWith('en') ? project.satellites : []) : [],
-      calendar: built ? siteCalendar(s, { bodies: project.bodies, today: project.today, satellites: project.satellites, centreName: project.centre.name }) : '',
+      calendarFile: built ? keepText(this.textDir, siteCalendar(s, { bodies: project.bodies, today: project.today, satellites: project.satellites, centreName: project.centre.name }), 'ics') : null,
     };
   }
 
@@ -263,7 +276,7 @@ export class GloamingSession {
       when: oneOff ? dateLabel(spec.template.frontMatter.date!, spec.site.locale) : weekLabel(spec.week, spec.site.locale),
       title: rendered.title,
       description: rendered.description,
-      html: rendered.html,
+      htmlFile: keepText(this.textDir, rendered.html, 'html'),
       cautions: rendered.cautions,
       charts: [...charts].sort(),
       warnings: found.warnings as PageWarning[],
@@ -334,7 +347,12 @@ export class GloamingSession {
     const { store, logger, parseData } = context;
     const project = this.project();
     const builtIds = new Set(project.selected.map((s) => s.site.id));
-    const todo = [...project.sites].filter(([id, source]) => store.get(id)?.digest !== siteDigest(project, source, builtIds.has(id))).map(([id]) => id);
+    const stale = (id: string, source: SiteSource): boolean => {
+      const stored = store.get<SiteEntry>(id);
+      // Unchanged, and its calendar still in the cache folder (else it is made again).
+      return stored?.digest !== siteDigest(project, source, builtIds.has(id)) || (stored.data.calendarFile !== null && !existsSync(join(this.textDir, stored.data.calendarFile)));
+    };
+    const todo = [...project.sites].filter(([id, source]) => stale(id, source)).map(([id]) => id);
     const results = await this.#compute(todo.map((id) => ({ kind: 'sites', ids: [id] })), todo.length);
     for (const result of results) {
       if (result.kind !== 'sites') continue;
@@ -358,7 +376,8 @@ export class GloamingSession {
     const todo: PageSpec[] = [];
     for (const spec of project.pages) {
       const stored = store.get<PageEntry>(spec.path);
-      if (stored?.digest === pageDigest(project, spec)) for (const w of stored.data.warnings) problems.add(w);
+      // Unchanged, and its HTML still in the cache folder (else it is made again).
+      if (stored?.digest === pageDigest(project, spec) && existsSync(join(this.textDir, stored.data.htmlFile))) for (const w of stored.data.warnings) problems.add(w);
       else todo.push(spec);
     }
     // One job per site: the pages of a site share its weeks (WeekCache).
@@ -389,4 +408,17 @@ export class GloamingSession {
     stopOnProblems(problems, this.strict);
   }
 
+}
+
+/** Writes `text` into `dir` under its content hash (once; atomically) and returns the file name, `<hash>.<ext>`. */
+function keepText(dir: string, text: string, ext: 'html' | 'ics'): string {
+  const name = `${createHash('sha256').update(text).digest('hex').slice(0, 32)}.${ext}`;
+  const file = join(dir, name);
+  if (!existsSync(file)) {
+    mkdirSync(dir, { recursive: true });
+    const tmp = `${file}.${process.pid}.${threadId}.tmp`;
+    writeFileSync(tmp, text);
+    renameSync(tmp, file); // a concurrent build or worker never reads half a file
+  }
+  return name;
 }

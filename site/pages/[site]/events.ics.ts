@@ -1,6 +1,6 @@
 /** One iCalendar feed per site (computed with the site in the content layer, see site/gloaming/calendar.ts). */
 import type { APIRoute, GetStaticPaths } from 'astro';
-import { builtSites, type SiteEntry } from '../../data.ts';
+import { builtSites, entryText, type SiteEntry } from '../../data.ts';
 
 export const getStaticPaths = (async () => {
   return (await builtSites()).map((site) => ({ params: { site: site.id }, props: { site } }));
@@ -8,5 +8,5 @@ export const getStaticPaths = (async () => {
 
 export const GET: APIRoute = ({ props }) => {
   const { site } = props as { site: SiteEntry };
-  return new Response(site.calendar, { headers: { 'Content-Type': 'text/calendar; charset=utf-8' } });
+  return new Response(entryText(site.calendarFile!), { headers: { 'Content-Type': 'text/calendar; charset=utf-8' } });
 };
