@@ -8,7 +8,9 @@
 import { describe, expect, it } from 'vitest';
 import { BodyRegistry } from '../lib/core/body.ts';
 import { addDays, isoWeekOf } from '../lib/core/time.ts';
+import { wordsFor } from '../lib/core/language/index.ts';
 import { loadSites } from '../lib/models/content.ts';
+import { passWords } from '../lib/models/satellite/words.ts';
 import { loadSatellites } from '../lib/models/satellite/catalogue.ts';
 import { MAX_ELEMENT_AGE_DAYS } from '../lib/models/satellite/passes.ts';
 import { parseBulletin, renderBulletinSync, WeekCache } from '../lib/outputs/bulletin/index.ts';
@@ -33,7 +35,12 @@ describe('satellite passes over 52 weeks of bulletin pages', () => {
         if (r.html.includes('data-reason="unavailable"')) {
           unavailable++;
           expect(ages, `${site.id} ${week.id}: no pass in an unavailable week`).toEqual([]);
-          expect(r.html).toContain('Satellite pass predictions are not available for this week');
+          // The sentence in the site's language (the English one reads "Satellite pass predictions are not available for this week: …").
+          const words = passWords(wordsFor(site.locale));
+          const said = words.unavailable(words.thisWeek);
+          expect(r.html).toContain(said.charAt(0).toUpperCase() + said.slice(1));
+          if (site.locale.startsWith('en')) expect(r.html).toContain('Satellite pass predictions are not available for this week');
+          if (site.locale.startsWith('es')) expect(r.html).toContain('No hay predicciones de pasos de satélites para esta semana');
         }
       }
     }

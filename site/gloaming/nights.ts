@@ -14,7 +14,7 @@ import type { NightRowEntry as NightRow, ShownTimeEntry as ShownTime } from './s
 export type { NightRow, ShownTime };
 import { passNights, recommendedPasses, type PassNight } from '../../lib/models/satellite/nights.ts';
 import type { Satellite } from '../../lib/models/satellite/passes.ts';
-import { PASS_WORDS } from '../../lib/models/satellite/words.ts';
+import { passWords } from '../../lib/models/satellite/words.ts';
 
 /** "Fri 4 Dec" for a local date, in the site's locale (the date is a calendar date; no zone shift). */
 export function dayLabel(date: string, locale: string): string {
@@ -67,9 +67,10 @@ function moonSummary(report: NightReport): NightRow['moon'] {
 /** A night's satellite passes as the tonight card shows them (lib/satellite/nights.ts). */
 export function passesRow(night: PassNight, site: Site, followed: number): NightRow['passes'] {
   if (followed === 0) return null;
-  const items = recommendedPasses([night]).map((p) => ({ time: shown({ time: p.visible!.start.time }, site, {}), text: PASS_WORDS.short(p) }));
+  const words = passWords(wordsFor(site.locale));
+  const items = recommendedPasses([night]).map((p) => ({ time: shown({ time: p.visible!.start.time }, site, {}), text: words.short(p) }));
   if (items.length) return { items, text: null };
-  return { items, text: night.unavailable.length === followed ? PASS_WORDS.unavailableShort : PASS_WORDS.noneTonight };
+  return { items, text: night.unavailable.length === followed ? words.unavailableShort : words.noneTonight };
 }
 
 /** One row from a computed night (and its satellite passes, when given). */

@@ -241,8 +241,7 @@ export class GloamingSession {
       horizon: s.horizon.map((p) => ({ azimuthDeg: p.azimuthDeg, altitudeDeg: p.altitudeDeg })),
       built,
       currentWeek: isoWeekOf(project.today).id,
-      // Tonight's passes are worded in English only so far (PASS_WORDS): other languages leave the line out.
-      nights: built ? nextNights(s, project.today, NIGHTS_SHOWN, s.locale.startsWith('en') ? project.satellites : []) : [],
+      nights: built ? nextNights(s, project.today, NIGHTS_SHOWN, project.satellites) : [],
       calendarFile: built ? keepText(this.textDir, siteCalendar(s, { bodies: project.bodies, today: project.today, satellites: project.satellites, centreName: project.centre.name }), 'ics') : null,
     };
   }

@@ -1,42 +1,78 @@
 /**
- * Every reader-facing phrase about satellite passes on pages (bulletin placeholders, the site's
- * "tonight" card), in one place so they can move into message catalogues together. Values come
- * in already formatted (clock times and dates in the site's zone and locale).
+ * Every reader-facing phrase about satellite passes (bulletin placeholders, the `satellite-pass`
+ * event, the site's "tonight" card), worded from the message catalogues (`pass.*` in
+ * lib/core/language/catalogues/) in the language of the `Words` given. Clock times and dates come
+ * in already formatted in the site's zone and locale.
  */
-import { compass } from '../../core/describe.ts';
+import type { Words } from '../../core/language/index.ts';
 import { MAX_ELEMENT_AGE_DAYS, type PassPoint, type SatellitePass } from './passes.ts';
 
-/** A magnitude to one decimal with a true minus sign ("−3.8", "2.1"). */
-function magnitudeText(value: number): string {
-  const r = Math.round(value * 10) / 10;
-  return (r < 0 ? '\u2212' : '') + Math.abs(r).toFixed(1);
-}
+/** How a pass starts or ends being seen: at the skyline, at the Earth's shadow, or by fading (distance, twilight). */
+export type PassEdge = 'skyline' | 'shadow' | 'fade';
 
-export const PASS_WORDS = {
-  /** Heading-free lead of the site's tonight line. */
-  tonight: "Tonight's satellite passes",
-  /** No satellites followed: nothing is said (pages leave passes out). */
-  noneThisWeek: 'no bright satellite passes this week',
-  noneTonight: 'no bright passes',
-  noneThisNight: 'no bright satellite pass this night',
-  noSatellites: 'no satellites are followed for this site',
-  /** The whole span past the element sets' reach. */
-  unavailable: (span: string): string => `satellite pass predictions are not available for ${span}: our orbital elements for the satellites are more than ${MAX_ELEMENT_AGE_DAYS} days from it`,
-  unavailableShort: 'predictions not available (orbital elements out of date)',
-  /** Some nights past the reach of every element set (`none`), or of some (`some`): day lists, or null. */
-  partly: (none: string | null, some: string | null): string =>
-    [none ? `No predictions for ${none}` : null, some ? `${none ? 'only' : 'Only'} some satellites are predicted for ${some}` : null].filter(Boolean).join('; ') +
-    `: the orbital elements are more than ${MAX_ELEMENT_AGE_DAYS} days from ${none && some ? 'those nights' : 'then'}.`,
-  /** "and 12 fainter passes" after a shortened list. */
-  more: (count: number): string => `… and ${count} fainter pass${count === 1 ? '' : 'es'}.`,
-  noChart: (why: string): string => `No pass chart (${why}).`,
-  /** One pass in a few words: "Demo station, west-northwest to east, up to 77°, magnitude −3.8". */
-  short: (pass: SatellitePass): string => {
-    const seen = pass.visible!;
-    return `${pass.satellite.name}, ${compass(seen.start.azimuthDeg).word} to ${compass(seen.end.azimuthDeg).word}, up to ${Math.round(maxAltitude(pass))}°, magnitude ${magnitudeText(seen.best.magnitude!)}`;
-  },
-  magnitude: magnitudeText,
-} as const;
+/** The pass phrases in one language. */
+export function passWords(w: Words) {
+  const magnitude = (value: number): string => w.number(Math.round(value * 10) / 10, 1);
+  const where = (p: PassPoint): string => w.t('pass.where', { degrees: Math.round(p.altitudeDeg), direction: w.compass(p.azimuthDeg).word });
+  return {
+    /** Lead of the site's tonight line. */
+    tonight: w.t('pass.tonight'),
+    noneThisWeek: w.t('pass.none-week'),
+    noneTonight: w.t('pass.none-tonight'),
+    noneThisNight: w.t('pass.none-night'),
+    noSatellites: w.t('pass.no-satellites'),
+    thisWeek: w.t('pass.this-week'),
+    /** The whole span past the element sets' reach. */
+    unavailable: (span: string): string => w.t('pass.unavailable', { span, days: MAX_ELEMENT_AGE_DAYS }),
+    unavailableShort: w.t('pass.unavailable-short'),
+    /** Some nights past the reach of every element set (`none`), or of some (`some`): day lists, or null. */
+    partly: (none: string | null, some: string | null): string => {
+      const age = MAX_ELEMENT_AGE_DAYS;
+      if (none && some) return w.t('pass.partly-both', { none, some, age });
+      return none ? w.t('pass.partly-none', { none, age }) : w.t('pass.partly-some', { some: some ?? '', age });
+    },
+    /** Two days as a span ("Mon to Wed"). */
+    days: (first: string, last: string): string => w.t('window.span', { start: first, end: last }),
+    /** "… and 12 fainter passes." after a shortened list. */
+    more: (count: number): string => w.t('pass.more', { count }),
+    noChart: (why: string): string => w.t('pass.no-chart', { why }),
+    /** One pass in a few words: "Demo station, west-northwest to east, up to 77°, magnitude −3.8". */
+    short: (pass: SatellitePass): string => {
+      const seen = pass.visible!;
+      return w.t('pass.short', {
+        satellite: pass.satellite.name,
+        from: w.compass(seen.start.azimuthDeg).word,
+        to: w.compass(seen.end.azimuthDeg).word,
+        degrees: Math.round(maxAltitude(pass)),
+        magnitude: magnitude(seen.best.magnitude!),
+      });
+    },
+    magnitude,
+    where,
+    title: (pass: SatellitePass): string => w.t('pass.title', { satellite: pass.satellite.name }),
+    /** The note: when it can be seen and where it is best. */
+    note: (pass: SatellitePass, clock: (p: PassPoint) => string): string => {
+      const seen = pass.visible!;
+      return w.t('pass.note', { start: clock(seen.start), end: clock(seen.end), best: clock(seen.best), where: where(seen.best) });
+    },
+    /** The whole sentence: where it appears and how, how high it climbs, where and how it goes. */
+    description: (pass: SatellitePass, clock: (p: PassPoint) => string, edges: { appears: PassEdge; leaves: PassEdge }): string => {
+      const seen = pass.visible!;
+      return w.t('pass.description', {
+        satellite: pass.satellite.name,
+        appears: edges.appears,
+        start: clock(seen.start),
+        start_where: where(seen.start),
+        top: Math.round(pass.culmination.altitudeDeg),
+        top_direction: w.compass(pass.culmination.azimuthDeg).word,
+        leaves: edges.leaves,
+        end: clock(seen.end),
+        end_where: where(seen.end),
+        magnitude: magnitude(seen.best.magnitude!),
+      });
+    },
+  };
+}
 
 /** The highest apparent altitude of the visible part of a pass, degrees. */
 export function maxAltitude(pass: SatellitePass): number {

@@ -6,23 +6,24 @@
  * feed covering many weeks simply shows passes for the weeks the elements are good for.
  */
 import type { AlmanacEvent } from './types.ts';
-import { compass } from '../../core/describe.ts';
+import { wordsFor } from '../../core/language/index.ts';
 import type { Site } from '../../core/site.ts';
 import { addDays, formatClock, localDateOf } from '../../core/time.ts';
 import { passNights, recommendedPasses, type PassNight } from '../../models/satellite/nights.ts';
 import type { PassPoint, Satellite, SatellitePass } from '../../models/satellite/passes.ts';
+import { passWords, type PassEdge } from '../../models/satellite/words.ts';
 
-/** One recommended pass as an event: from the moment it can be seen to the moment it cannot. */
-export function passEvent(pass: SatellitePass, site: Site): AlmanacEvent {
+/** One recommended pass as an event, worded in the language of `locale` (default the site's): from the moment it can be seen to the moment it cannot. */
+export function passEvent(pass: SatellitePass, site: Site, locale: string = site.locale): AlmanacEvent {
   const seen = pass.visible!;
+  const words = passWords(wordsFor(locale));
   const clock = (p: PassPoint): string => formatClock(p.time, site);
-  const where = (p: PassPoint): string => `${Math.round(p.altitudeDeg)}° up in the ${compass(p.azimuthDeg).word}`;
   const name = pass.satellite.name;
   // What starts and ends the sighting: the skyline, the Earth's shadow (its penumbra dims the
   // satellite for some seconds around the crossing), or distance and twilight.
   const near = (a: PassPoint, b: PassPoint, seconds: number): boolean => Math.abs(a.time.getTime() - b.time.getTime()) <= seconds * 1000;
-  const appears = near(seen.start, pass.start, 1) ? 'rises over the skyline' : pass.shadow.some((s) => s.kind === 'leaves-shadow' && near(s.point, seen.start, 30)) ? "comes out of the Earth's shadow" : 'appears';
-  const leaves = near(seen.end, pass.end, 1) ? 'sinks below the skyline' : pass.shadow.some((s) => s.kind === 'enters-shadow' && near(s.point, seen.end, 30)) ? "fades into the Earth's shadow" : 'fades from view';
+  const appears: PassEdge = near(seen.start, pass.start, 1) ? 'skyline' : pass.shadow.some((s) => s.kind === 'leaves-shadow' && near(s.point, seen.start, 30)) ? 'shadow' : 'fade';
+  const leaves: PassEdge = near(seen.end, pass.end, 1) ? 'skyline' : pass.shadow.some((s) => s.kind === 'enters-shadow' && near(s.point, seen.end, 30)) ? 'shadow' : 'fade';
   const magnitude = seen.best.magnitude!;
   return {
     type: 'satellite-pass',
@@ -38,13 +39,10 @@ export function passEvent(pass: SatellitePass, site: Site): AlmanacEvent {
       altitudeDeg: seen.best.altitudeDeg,
       azimuthDeg: seen.best.azimuthDeg,
       reason: null,
-      note: `Visible from ${clock(seen.start)} to ${clock(seen.end)}, best at ${clock(seen.best)}, ${where(seen.best)}.`,
+      note: words.note(pass, clock),
     },
-    title: `${name} passes over`,
-    description:
-      `${name} ${appears} at ${clock(seen.start)}, ${where(seen.start)}; ` +
-      `it climbs to ${Math.round(pass.culmination.altitudeDeg)}° in the ${compass(pass.culmination.azimuthDeg).word} ` +
-      `and ${leaves} at ${clock(seen.end)}, ${where(seen.end)}. Magnitude ${magnitude.toFixed(1).replace('-', '−')} at its brightest.`,
+    title: words.title(pass),
+    description: words.description(pass, clock, { appears, leaves }),
     score: 0,
     data: {
       magnitude: Math.round(magnitude * 10) / 10,

@@ -148,6 +148,27 @@ export const de: Catalogue = {
   'event-hidden.too-faint': 'in dieser Nacht von hier aus zu lichtschwach',
   'event-hidden.note': 'Von {site} aus nicht sichtbar: {reason}.',
 
+  // Satellitenüberflüge.
+  'pass.tonight': 'Satellitenüberflüge heute Nacht',
+  'pass.none-week': 'keine hellen Satellitenüberflüge in dieser Woche',
+  'pass.none-tonight': 'keine hellen Überflüge',
+  'pass.none-night': 'kein heller Satellitenüberflug in dieser Nacht',
+  'pass.no-satellites': 'für diesen Standort werden keine Satelliten verfolgt',
+  'pass.this-week': 'diese Woche',
+  'pass.unavailable': 'für {span} gibt es keine Vorhersagen für Satellitenüberflüge: unsere Bahnelemente der Satelliten liegen mehr als {days} Tage davon entfernt',
+  'pass.unavailable-short': 'keine Vorhersagen (Bahnelemente veraltet)',
+  'pass.partly-none': 'Keine Vorhersagen für {none}: die Bahnelemente liegen mehr als {age} Tage davon entfernt.',
+  'pass.partly-some': 'Für {some} nur Vorhersagen für einige Satelliten: die Bahnelemente liegen mehr als {age} Tage davon entfernt.',
+  'pass.partly-both': 'Keine Vorhersagen für {none}, für {some} nur für einige Satelliten: die Bahnelemente liegen mehr als {age} Tage von diesen Nächten entfernt.',
+  'pass.more': '… und {count, plural, one {ein schwächerer Überflug} other {# schwächere Überflüge}}.',
+  'pass.no-chart': 'Keine Karte des Überflugs ({why}).',
+  'pass.short': '{satellite}, von {from} nach {to}, bis {degrees}° hoch, Helligkeit {magnitude} mag',
+  'pass.where': '{degrees}° hoch im {direction}',
+  'pass.title': 'Überflug: {satellite}',
+  'pass.note': 'Sichtbar von {start} bis {end}, am besten um {best}, {where}.',
+  'pass.description':
+    '{satellite} {appears, select, skyline {steigt über den Horizont} shadow {tritt aus dem Erdschatten} other {erscheint}} um {start}, {start_where}, steigt bis {top}° im {top_direction} und {leaves, select, skyline {sinkt unter den Horizont} shadow {verschwindet im Erdschatten} other {verblasst}} um {end}, {end_where}. Größte Helligkeit {magnitude} mag.',
+
   'window-end.optics-safety': 'die Sonne zu nah am Horizont steht, um Fernglas oder Teleskop gefahrlos zu benutzen',
   'window-end.sunrise': 'die Sonne aufgeht',
   'window-end.dawn': 'der Morgenhimmel zu hell wird',

@@ -159,6 +159,27 @@ export const en = {
   'event-hidden.too-faint': 'too faint to see from here that night',
   'event-hidden.note': 'Not visible from {site}: {reason}.',
 
+  // Satellite passes (lib/models/satellite/words.ts). appears/leaves: skyline, shadow or fade.
+  'pass.tonight': "Tonight's satellite passes",
+  'pass.none-week': 'no bright satellite passes this week',
+  'pass.none-tonight': 'no bright passes',
+  'pass.none-night': 'no bright satellite pass this night',
+  'pass.no-satellites': 'no satellites are followed for this site',
+  'pass.this-week': 'this week',
+  'pass.unavailable': 'satellite pass predictions are not available for {span}: our orbital elements for the satellites are more than {days} days from it',
+  'pass.unavailable-short': 'predictions not available (orbital elements out of date)',
+  'pass.partly-none': 'No predictions for {none}: the orbital elements are more than {age} days from then.',
+  'pass.partly-some': 'Only some satellites are predicted for {some}: the orbital elements are more than {age} days from then.',
+  'pass.partly-both': 'No predictions for {none}; only some satellites are predicted for {some}: the orbital elements are more than {age} days from those nights.',
+  'pass.more': '… and {count, plural, one {# fainter pass} other {# fainter passes}}.',
+  'pass.no-chart': 'No pass chart ({why}).',
+  'pass.short': '{satellite}, {from} to {to}, up to {degrees}°, magnitude {magnitude}',
+  'pass.where': '{degrees}° up in the {direction}',
+  'pass.title': '{satellite} passes over',
+  'pass.note': 'Visible from {start} to {end}, best at {best}, {where}.',
+  'pass.description':
+    "{satellite} {appears, select, skyline {rises over the skyline} shadow {comes out of the Earth's shadow} other {appears}} at {start}, {start_where}; it climbs to {top}° in the {top_direction} and {leaves, select, skyline {sinks below the skyline} shadow {fades into the Earth's shadow} other {fades from view}} at {end}, {end_where}. Magnitude {magnitude} at its brightest.",
+
   // Why a viewing window ends, to follow "until 21:40, when …".
   'window-end.optics-safety': 'the Sun is too near the horizon to use binoculars or a telescope safely',
   'window-end.sunrise': 'the Sun rises',

@@ -154,6 +154,27 @@ export const es: Catalogue = {
   'event-hidden.too-faint': 'demasiado débil para verse desde aquí esa noche',
   'event-hidden.note': 'No visible desde {site}: {reason}.',
 
+  // Pasos de satélites.
+  'pass.tonight': 'Pasos de satélites esta noche',
+  'pass.none-week': 'no hay pasos brillantes de satélites esta semana',
+  'pass.none-tonight': 'no hay pasos brillantes',
+  'pass.none-night': 'no hay ningún paso brillante de satélites esa noche',
+  'pass.no-satellites': 'no se sigue ningún satélite para este lugar',
+  'pass.this-week': 'esta semana',
+  'pass.unavailable': 'no hay predicciones de pasos de satélites para {span}: nuestros elementos orbitales de los satélites distan más de {days} días de esas fechas',
+  'pass.unavailable-short': 'sin predicciones (elementos orbitales desactualizados)',
+  'pass.partly-none': 'No hay predicciones para {none}: los elementos orbitales distan más de {age} días de esas fechas.',
+  'pass.partly-some': 'Solo hay predicciones de algunos satélites para {some}: los elementos orbitales distan más de {age} días de esas fechas.',
+  'pass.partly-both': 'No hay predicciones para {none}, y solo de algunos satélites para {some}: los elementos orbitales distan más de {age} días de esas noches.',
+  'pass.more': '… y {count, plural, one {# paso más débil} other {# pasos más débiles}}.',
+  'pass.no-chart': 'Sin carta del paso ({why}).',
+  'pass.short': '{satellite}, de {from} a {to}, hasta {degrees}°, magnitud {magnitude}',
+  'pass.where': 'a {degrees}° de altura en el {direction}',
+  'pass.title': 'Paso de {satellite}',
+  'pass.note': 'Visible de {start} a {end}, mejor a las {best}, {where}.',
+  'pass.description':
+    '{satellite} {appears, select, skyline {asoma sobre el horizonte} shadow {sale de la sombra de la Tierra} other {aparece}} a las {start}, {start_where}; sube hasta {top}° en el {top_direction} y {leaves, select, skyline {se oculta tras el horizonte} shadow {se apaga al entrar en la sombra de la Tierra} other {se pierde de vista}} a las {end}, {end_where}. Magnitud {magnitude} en su máximo brillo.',
+
   'window-end.optics-safety': 'el Sol está demasiado cerca del horizonte para usar binoculares o telescopio con seguridad',
   'window-end.sunrise': 'sale el Sol',
   'window-end.dawn': 'el cielo del amanecer se vuelve demasiado claro',

@@ -151,6 +151,27 @@ export const fr: Catalogue = {
   'event-hidden.too-faint': 'trop faible pour être vu d’ici cette nuit-là',
   'event-hidden.note': 'Invisible depuis {site} : {reason}.',
 
+  // Passages de satellites.
+  'pass.tonight': 'Passages de satellites ce soir',
+  'pass.none-week': 'aucun passage brillant de satellite cette semaine',
+  'pass.none-tonight': 'aucun passage brillant',
+  'pass.none-night': 'aucun passage brillant de satellite cette nuit-là',
+  'pass.no-satellites': 'aucun satellite n’est suivi pour ce site',
+  'pass.this-week': 'cette semaine',
+  'pass.unavailable': 'les prévisions de passages de satellites ne sont pas disponibles pour {span}\u00a0: nos éléments orbitaux des satellites datent de plus de {days} jours par rapport à cette période',
+  'pass.unavailable-short': 'pas de prévisions (éléments orbitaux périmés)',
+  'pass.partly-none': 'Aucune prévision pour {none}\u00a0: les éléments orbitaux sont éloignés de plus de {age} jours de cette période.',
+  'pass.partly-some': 'Prévisions pour quelques satellites seulement pour {some}\u00a0: les éléments orbitaux sont éloignés de plus de {age} jours de cette période.',
+  'pass.partly-both': 'Aucune prévision pour {none}, et pour quelques satellites seulement pour {some}\u00a0: les éléments orbitaux sont éloignés de plus de {age} jours de ces nuits.',
+  'pass.more': '… et {count, plural, one {# passage plus faible} other {# passages plus faibles}}.',
+  'pass.no-chart': 'Pas de carte du passage ({why}).',
+  'pass.short': '{satellite}, de {from} à {to}, jusqu’à {degrees}°, magnitude {magnitude}',
+  'pass.where': 'à {degrees}° de hauteur vers {direction}',
+  'pass.title': 'Passage de {satellite}',
+  'pass.note': 'Visible de {start} à {end}, au mieux à {best}, {where}.',
+  'pass.description':
+    '{satellite} {appears, select, skyline {se lève au-dessus de l’horizon} shadow {sort de l’ombre de la Terre} other {apparaît}} à {start}, {start_where}, monte jusqu’à {top}° vers {top_direction} et {leaves, select, skyline {passe sous l’horizon} shadow {s’éteint dans l’ombre de la Terre} other {disparaît}} à {end}, {end_where}. Magnitude {magnitude} au plus brillant.',
+
   'window-end.optics-safety': 'le Soleil est trop près de l’horizon pour utiliser des jumelles ou un télescope sans danger',
   'window-end.sunrise': 'le Soleil se lève',
   'window-end.dawn': 'le ciel de l’aube devient trop clair',

@@ -1,12 +1,13 @@
 /**
  * Satellite passes (lib/models/satellite): the week's list, the brightest pass, its chart. Nights
- * the element sets do not reach say so in a sentence (PASS_WORDS), never with a stale pass.
+ * the element sets do not reach say so in a sentence, never with a stale pass. Words from the catalogues (`pass.*`, lib/models/satellite/words.ts).
  */
 import type { ElementContent, Properties } from 'hast';
+import { wordsFor } from '../../../core/language/index.ts';
 import { formatInstant, localDateOf } from '../../../core/time.ts';
 import { brightestPass, recommendedPasses, type PassNight } from '../../../models/satellite/nights.ts';
 import type { SatellitePass } from '../../../models/satellite/passes.ts';
-import { maxAltitude, PASS_WORDS } from '../../../models/satellite/words.ts';
+import { maxAltitude, passWords } from '../../../models/satellite/words.ts';
 import { passEvent } from '../../almanac/satellite-passes.ts';
 import { chartPassOf, passAltSentence } from '../../chart/pass.ts';
 import type { AttributeSpec } from '../attributes.ts';
@@ -19,17 +20,23 @@ function passNightsOf(call: PlaceholderCall): PassNight[] {
   return call.given.has('night') ? [nights[call.night]!] : nights;
 }
 
+/** The pass phrases in the page's language. */
+function wordsOf(call: PlaceholderCall): ReturnType<typeof passWords> {
+  return passWords(wordsFor(call.site.locale));
+}
+
 /** How the nights of a pass placeholder are named in sentences. */
 function passSpan(call: PlaceholderCall): string {
-  return call.given.has('night') ? formatDay(nightDate(call), call.site, { weekday: 'long' }) : 'this week';
+  return call.given.has('night') ? formatDay(nightDate(call), call.site, { weekday: 'long' }) : wordsOf(call).thisWeek;
 }
 
 /** Why the nights have no pass to show (a phrase): none followed, elements out of reach, or no bright pass. */
 function noPassReason(call: PlaceholderCall, nights: readonly PassNight[]): { id: 'no-satellites' | 'unavailable' | 'none'; text: string } {
   const followed = call.week.satellites.length;
-  if (followed === 0) return { id: 'no-satellites', text: PASS_WORDS.noSatellites };
-  if (nights.every((n) => n.unavailable.length === followed)) return { id: 'unavailable', text: PASS_WORDS.unavailable(passSpan(call)) };
-  return { id: 'none', text: call.given.has('night') ? PASS_WORDS.noneThisNight : PASS_WORDS.noneThisWeek };
+  const words = wordsOf(call);
+  if (followed === 0) return { id: 'no-satellites', text: words.noSatellites };
+  if (nights.every((n) => n.unavailable.length === followed)) return { id: 'unavailable', text: words.unavailable(passSpan(call)) };
+  return { id: 'none', text: call.given.has('night') ? words.noneThisNight : words.noneThisWeek };
 }
 
 /** The sentence for nights the element sets (all, or some) do not reach when others are predicted; null when every night is. */
@@ -40,9 +47,9 @@ function partlyUnavailable(call: PlaceholderCall, nights: readonly PassNight[]):
   const days = (ns: PassNight[]): string | null => {
     if (ns.length === 0) return null;
     const day = (n: PassNight): string => formatDay(n.date, call.site, { weekday: 'short' });
-    return ns.length === 1 ? day(ns[0]!) : `${day(ns[0]!)} to ${day(ns[ns.length - 1]!)}`;
+    return ns.length === 1 ? day(ns[0]!) : wordsOf(call).days(day(ns[0]!), day(ns[ns.length - 1]!));
   };
-  return PASS_WORDS.partly(days(nights.filter((n) => n.unavailable.length === followed)), days(nights.filter((n) => n.unavailable.length > 0 && n.unavailable.length < followed)));
+  return wordsOf(call).partly(days(nights.filter((n) => n.unavailable.length === followed)), days(nights.filter((n) => n.unavailable.length > 0 && n.unavailable.length < followed)));
 }
 
 /** A phrase as a sentence: capital first letter, full stop. */
@@ -77,7 +84,7 @@ function passList(call: PlaceholderCall): ElementContent {
     ]);
   });
   const more = all.length - shown.length;
-  return el('div', { ...classes(call), dataCount: String(all.length) }, [el('ul', {}, items), ...(more > 0 ? [note(PASS_WORDS.more(more))] : []), ...(partly ? [note(partly)] : [])]);
+  return el('div', { ...classes(call), dataCount: String(all.length) }, [el('ul', {}, items), ...(more > 0 ? [note(wordsOf(call).more(more))] : []), ...(partly ? [note(partly)] : [])]);
 }
 
 /** `:brightest-pass`: the brightest pass to recommend of the week (or night): its time, date, sentence, magnitude or satellite. */
@@ -97,7 +104,7 @@ function brightestPassOf(call: PlaceholderCall): ElementContent {
     case 'sentence':
       return el('span', data, passEvent(pass, call.site).description);
     case 'magnitude':
-      return el('data', { ...data, value: exact(pass.visible!.best.magnitude!, 2) }, PASS_WORDS.magnitude(pass.visible!.best.magnitude!));
+      return el('data', { ...data, value: exact(pass.visible!.best.magnitude!, 2) }, wordsOf(call).magnitude(pass.visible!.best.magnitude!));
     case 'satellite':
       return el('span', data, pass.satellite.name);
     default:
@@ -111,7 +118,7 @@ function passChart(call: PlaceholderCall): ElementContent {
   const pass = brightestPass(nights);
   if (!pass) {
     const why = noPassReason(call, nights);
-    return el('p', { ...classes(call, 'gl-none'), dataReason: why.id }, PASS_WORDS.noChart(why.text));
+    return el('p', { ...classes(call, 'gl-none'), dataReason: why.id }, wordsOf(call).noChart(why.text));
   }
   const output = call.charts;
   const drawn = chartPassOf(pass);
