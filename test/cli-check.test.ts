@@ -63,7 +63,7 @@ describe('gloaming check', () => {
     ]);
     expect(problems[0]!.message).toMatch(/unknown front matter field 'shedule'.*did you mean 'schedule'/);
     expect(problems[1]!.message).toMatch(/unknown placeholder ':sunsett'/);
-    expect(problems[2]!.message).toMatch(/unknown body 'jupyter'/);
+    expect(problems[2]!.message).toMatch(/unknown object 'jupyter'/);
     // The text form: one compiler-style line per problem, then a summary.
     const text = run(['check', '--content', content, '--today', '2027-06-21', '--weeks', '2']);
     expect(text.code).toBe(1);

@@ -8,7 +8,7 @@ import * as Astronomy from 'astronomy-engine';
 import { GloamingError, didYouMean } from './errors.ts';
 import { localMidnight, type Night } from './time.ts';
 
-export type BodyKind = 'sun' | 'moon' | 'planet' | 'comet' | 'asteroid';
+export type BodyKind = 'sun' | 'moon' | 'planet' | 'comet' | 'asteroid' | 'deep-sky';
 
 /** An expected visual magnitude, possibly as a range when the model is uncertain (comets). */
 export interface MagnitudeEstimate {
@@ -43,6 +43,15 @@ export interface Body {
   readonly radiusKm: number;
   /** Apparent coma diameter of a diffuse comet, arcminutes; absent for point-like bodies. */
   readonly comaDiameterArcmin?: number;
+  /**
+   * Size of an extended deep-sky object (cluster, nebula, galaxy) on the sky, arcminutes: the axes
+   * of the ellipse its total magnitude is spread over. Absent for point-like bodies.
+   */
+  readonly extentArcmin?: { readonly major: number; readonly minor: number };
+  /** Angle between the two stars of a double star, arcseconds: seeing it means seeing both apart. */
+  readonly pairSeparationArcsec?: number;
+  /** The body's name in other languages (language code → name), when it has one there; else `name`. */
+  readonly localNames?: Readonly<Partial<Record<string, string>>>;
   /**
    * Geocentric position, J2000 mean equator (EQJ), AU, at observation time `time`, corrected for
    * light travel time τ: the body is taken where it was when the light left it (t − τ). With
@@ -169,9 +178,32 @@ export function venusMagnitude(r: number, delta: number, phaseAngleDeg: number):
 
 const BUILT_IN = new Map<string, EngineBody>(BUILT_IN_IDS.map((id) => [id, engineBody(id)]));
 
-/** A registry of bodies: the built-in ones plus any objects loaded from `content/objects/`. */
+/**
+ * A catalogue a registry can also look ids up in (the deep-sky table): its bodies are found by id
+ * but not listed by `ids()`, so lists of every target stay the planets, the Moon and loaded objects.
+ */
+export interface BodyCatalogue {
+  /** The body with this lower-case id (or alias), or undefined. */
+  find(id: string): Body | undefined;
+  /** Every id it knows, for "did you mean" hints. */
+  ids(): readonly string[];
+  /** What its ids look like, for error messages ("a Messier or NGC id from the deep-sky catalogue, such as m31 or ngc869"). */
+  readonly expected: string;
+}
+
+/** A registry of bodies: the built-in ones plus any objects loaded from `content/objects/`, and catalogues looked up by id. */
 export class BodyRegistry {
   readonly #extra = new Map<string, Body>();
+  readonly #catalogues: readonly BodyCatalogue[];
+
+  constructor(options: { catalogues?: readonly BodyCatalogue[] } = {}) {
+    this.#catalogues = options.catalogues ?? [];
+  }
+
+  /** The catalogues this registry looks ids up in (a registry built from this one can share them). */
+  get catalogues(): readonly BodyCatalogue[] {
+    return this.#catalogues;
+  }
 
   /** Adds an object; its id must not clash with a built-in body or another object. */
   add(body: Body): this {
@@ -196,10 +228,15 @@ export class BodyRegistry {
     const key = id.trim().toLowerCase();
     const found = BUILT_IN.get(key) ?? this.#extra.get(key);
     if (found) return found;
-    const hint = didYouMean(key, this.ids());
-    throw new GloamingError('unknown-body', `unknown body '${id}'`, {
+    for (const c of this.#catalogues) {
+      const b = c.find(key);
+      if (b) return b;
+    }
+    const hint = didYouMean(key, [...this.ids(), ...this.#catalogues.flatMap((c) => c.ids())]);
+    const catalogued = this.#catalogues.map((c) => ` or ${c.expected}`).join('');
+    throw new GloamingError('unknown-body', `unknown ${this.#catalogues.length ? 'object' : 'body'} '${id}'`, {
       ...(place ? { place } : {}),
-      expected: `one of ${this.ids().join(', ')}`,
+      expected: `one of ${this.ids().join(', ')}${catalogued}`,
       ...(hint ? { hint } : {}),
     });
   }

@@ -2,6 +2,7 @@
  * Content loading: sites from `content/sites/*.yaml`. Each file is parsed with positions, so a
  * bad value is reported as `file:line:column field '…': what is wrong; what is expected`.
  */
+import { DEEP_SKY } from './deep-sky/catalogue.ts';
 import { readFileSync } from 'node:fs';
 import { basename } from 'node:path';
 import { BodyRegistry } from '../core/body.ts';
@@ -50,9 +51,17 @@ export function findSite(sites: Map<string, Site>, id: string, place?: { field?:
   });
 }
 
-/** The built-in bodies plus every object of `content/objects/` (or another folder). */
+/**
+ * A registry of the built-in bodies that also finds the deep-sky table's objects by id (`m31`,
+ * `ngc869`, `albireo`); content objects are added to it.
+ */
+export function projectRegistry(): BodyRegistry {
+  return new BodyRegistry({ catalogues: [DEEP_SKY] });
+}
+
+/** The built-in bodies plus every object of `content/objects/` (or another folder), and the deep-sky table by id. */
 export function loadBodies(objectsDir: string): BodyRegistry {
-  const registry = new BodyRegistry();
+  const registry = projectRegistry();
   for (const body of loadObjects(objectsDir)) registry.add(body);
   return registry;
 }

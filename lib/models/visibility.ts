@@ -32,8 +32,8 @@ import { skylineAltitudeDeg, type InstrumentKind, type Site } from '../core/site
 import { darkSkyFromQuality } from './sky/quality.ts';
 import { extinctionCoefficientGreen, extinctionMag } from './sky/extinction.ts';
 import { skyBrightness, type SkyBrightness } from './sky/brightness.ts';
-import { limitingMagnitude, DEFAULT_INSTRUMENTS, type Instrument } from './sky/threshold.ts';
-import { visibilityMargin } from './sky/index.ts';
+import { DEFAULT_INSTRUMENTS, pairResolutionArcsec, type Instrument } from './sky/threshold.ts';
+import { objectLimitingMagnitude, visibilityMargin } from './sky/index.ts';
 import { findCrossings, findMaximum } from '../core/search.ts';
 import { separationDeg } from '../core/geometry.ts';
 import { OPTICS_SUN_DEPRESSION_DEG, OPTICS_SUN_MINUTES, TOO_CLOSE_TO_SUN_DEG } from './near-sun.ts';
@@ -191,6 +191,15 @@ interface MarginOptions {
   ignoreSafety?: boolean;
 }
 
+/**
+ * What the threshold needs to know of a body's size: a comet's coma diameter (Schaefer's
+ * extended-image penalty) or a deep-sky object's area, π a b / 4 (Crumey's extended-object threshold).
+ */
+function extentOf(body: Body): { comaDiameterArcmin?: number; areaArcmin2?: number } {
+  if (body.extentArcmin) return { areaArcmin2: (Math.PI * body.extentArcmin.major * body.extentArcmin.minor) / 4 };
+  return body.comaDiameterArcmin ? { comaDiameterArcmin: body.comaDiameterArcmin } : {};
+}
+
 /** A per-night evaluator of margins, with the Moon's phase and the body's brightness fixed for the night. */
 export class NightVisibility {
   readonly report: NightSky;
@@ -250,14 +259,16 @@ export class NightVisibility {
    */
   marginFunction(body: Body, instrument: Instrument, magnitude: number, options: MarginOptions = {}): (ut: number) => number {
     const track = this.report.frame.track(body);
-    const coma = body.comaDiameterArcmin;
+    const extent = extentOf(body);
     const required = this.requiredMargin(instrument);
     const guarded = instrument.kind !== 'naked-eye' && !options.ignoreSafety;
+    // A double star counts only in an instrument that shows its two stars apart.
+    if (body.pairSeparationArcsec !== undefined && body.pairSeparationArcsec < pairResolutionArcsec(instrument)) return () => -Infinity;
     return (ut) => {
       if (guarded && !this.opticsAllowed(ut)) return NaN;
       const s = this.state(track, ut, options.without);
       if (!s) return NaN;
-      return visibilityMargin({ magnitude, altitudeDeg: s.altitudeDeg, kV: this.kV, skyNl: s.sky.totalNl, instrument, ...(coma ? { comaDiameterArcmin: coma } : {}) }) - required;
+      return visibilityMargin({ magnitude, altitudeDeg: s.altitudeDeg, kV: this.kV, skyNl: s.sky.totalNl, instrument, ...extent }) - required;
     };
   }
 
@@ -337,8 +348,7 @@ export class NightVisibility {
 
   #moment(body: Body, instrument: Instrument, magnitude: number, ut: number): BestMoment {
     const s = this.state(this.report.frame.track(body), ut)!;
-    const coma = body.comaDiameterArcmin;
-    const lim = limitingMagnitude({ skyNl: s.sky.totalNl, instrument, ...(coma ? { comaDiameterArcmin: coma } : {}) });
+    const lim = objectLimitingMagnitude({ skyNl: s.sky.totalNl, instrument, ...extentOf(body) });
     const extincted = magnitude + extinctionMag(this.kV, s.altitudeDeg);
     return {
       time: dateFromUt(ut),

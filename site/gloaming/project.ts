@@ -5,11 +5,11 @@
  */
 import { readFileSync } from 'node:fs';
 import { join, relative, resolve } from 'node:path';
-import { BodyRegistry } from '../../lib/core/body.ts';
+import type { BodyRegistry } from '../../lib/core/body.ts';
 import { errorsOf, pagesFor, parseBulletin, throwErrors } from '../../lib/outputs/bulletin/index.ts';
 import type { BulletinTemplate, PageSpec } from '../../lib/outputs/bulletin/types.ts';
 import { CENTRE_FILE, loadCentre, type Centre } from '../../lib/outputs/centre.ts';
-import { findSite, parseSite, yamlFiles } from '../../lib/models/content.ts';
+import { findSite, parseSite, projectRegistry, yamlFiles } from '../../lib/models/content.ts';
 import { GloamingError } from '../../lib/core/errors.ts';
 import { loadObjects } from '../../lib/models/orbit/body.ts';
 import { loadSatellites } from '../../lib/models/satellite/catalogue.ts';
@@ -114,7 +114,7 @@ export function loadProject(root: string, options: SiteBuildOptions): Project {
     });
   }
 
-  const bodies = new BodyRegistry();
+  const bodies = projectRegistry();
   each(() => {
     for (const body of loadObjects(shown(content, CONTENT_DIRS.objects))) bodies.add(body);
   });

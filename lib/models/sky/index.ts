@@ -54,6 +54,7 @@ export {
   eyePupilMm,
   limitingMagnitude,
   magnitudeFromIlluminanceFtcd,
+  pairResolutionArcsec,
   thresholdIlluminanceFtcd,
   type Instrument,
   type InstrumentSpec,

@@ -195,6 +195,17 @@ export function extendedSourcePenaltyMag(apparentDiameterArcmin: number): number
   return apparentDiameterArcmin > 15 ? (1.25 * Math.log(apparentDiameterArcmin / 15)) / LOG10 : 0;
 }
 
+/**
+ * The closest pair of stars an instrument shows as two, arcseconds: the unaided eye's 4′ divided by
+ * the magnification, but never closer than Dawes' limit of the aperture, 116″ / D(mm) (Dawes 1867,
+ * MNRAS 27:217, 4.56″ per inch; from memory). The eye's 4′ is common practice for a pair of
+ * unequal, moderately bright stars: Mizar and Alcor (11.8′) are an easy naked-eye pair, ε Lyr
+ * (3.5′) only for keen eyes.
+ */
+export function pairResolutionArcsec(instrument: Instrument): number {
+  return Math.max(240 / instrument.magnification, instrument.apertureMm > 0 ? 116 / instrument.apertureMm : 0);
+}
+
 /** Inputs of `limitingMagnitude`. */
 export interface LimitingMagnitudeInput {
   /** Sky brightness at the target, nanolamberts (from `skyBrightness(...).totalNl`). */

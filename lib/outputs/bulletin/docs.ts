@@ -4,7 +4,7 @@
  * example's output for a fixed, invented example site and week. `lib/outputs/bulletin/PLACEHOLDERS.md`
  * holds the committed copy; a test checks it equals this function's output.
  */
-import { BodyRegistry } from '../../core/body.ts';
+import { projectRegistry } from '../../models/content.ts';
 import { defineSite, type Site } from '../../core/site.ts';
 import { isoWeekOf, type IsoWeek } from '../../core/time.ts';
 import { describeType, type AttributeSpec } from './attributes.ts';
@@ -31,7 +31,7 @@ function cell(text: string): string {
 
 function outputOf(example: string, cache: WeekCache, satellites: readonly Satellite[]): string {
   const template = { file: 'example.md', slug: 'example', language: 'en' as const, frontMatter: { title: 'Example', sites: 'all' as const, schedule: { every: 'week' as const, past: 0, future: 0 } }, body: example, bodyLine: 1 };
-  const { html } = renderBulletinSync(template, { site: EXAMPLE_SITE, week: EXAMPLE_WEEK, bodies: new BodyRegistry(), satellites }, cache);
+  const { html } = renderBulletinSync(template, { site: EXAMPLE_SITE, week: EXAMPLE_WEEK, bodies: projectRegistry(), satellites }, cache);
   if (html.includes('<table')) return 'a table, one row per night';
   if (html.includes('<ul')) return `a list, one line per ${html.includes('gl-passes') ? 'pass' : 'target'}`;
   if (html.includes('gl-pass-chart')) return `a chart; caption: ${html.replace(/^[\s\S]*<figcaption>|<\/figcaption>[\s\S]*$/g, '')}`;

@@ -10,7 +10,7 @@ import { join } from 'node:path';
 import { parseArgs } from 'node:util';
 import { BodyRegistry } from '../../core/body.ts';
 import { loadCentre } from '../centre.ts';
-import { loadBodies, parseSite, yamlFiles } from '../../models/content.ts';
+import { loadBodies, parseSite, projectRegistry, yamlFiles } from '../../models/content.ts';
 import { GloamingError } from '../../core/errors.ts';
 import type { Site } from '../../core/site.ts';
 import { parseLocalDate } from '../../core/time.ts';
@@ -59,7 +59,7 @@ function loadContent(contentDir: string, problems: ProblemList): { sites: Map<st
     const site = collect(problems, () => parseSite(readFileSync(file, 'utf8'), file, centre ? { defaultLocale: centre.locale } : {}));
     if (site) sites.set(site.id, site);
   }
-  const bodies = collect(problems, () => loadBodies(join(contentDir, 'objects'))) ?? new BodyRegistry();
+  const bodies = collect(problems, () => loadBodies(join(contentDir, 'objects'))) ?? projectRegistry();
   const satellites = collect(problems, () => loadSatellites(join(contentDir, 'satellites'))) ?? [];
   const dir = join(contentDir, 'bulletins');
   let names: string[];

@@ -134,7 +134,7 @@ function registry(values: Record<string, unknown>): BodyRegistry {
   if (typeof values.elements === 'string') {
     const body = smallBody(loadObjectFile(fileFlag(values.elements, '--elements', 'an object file (comet or asteroid elements, YAML)')));
     // An object file loaded from anywhere replaces a content object of the same id.
-    return reg.ids().includes(body.id) ? new BodyRegistry().add(body) : reg.add(body);
+    return reg.ids().includes(body.id) ? new BodyRegistry({ catalogues: reg.catalogues }).add(body) : reg.add(body);
   }
   return reg;
 }

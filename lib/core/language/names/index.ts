@@ -45,6 +45,8 @@ export function partPhrase(language: Language, pattern: EnglishPattern, part: st
 export interface EnglishBody {
   id: string;
   name: string;
+  /** The body's own names in other languages (deep-sky objects carry theirs), used when the table has none. */
+  localNames?: Readonly<Partial<Record<string, string>>>;
 }
 
 const ENGLISH_PHRASE: Readonly<Record<string, string>> = { sun: 'the Sun', moon: 'the Moon' };
@@ -52,11 +54,11 @@ const ENGLISH_PHRASE: Readonly<Record<string, string>> = { sun: 'the Sun', moon:
 /** A body's phrase inside a sentence ("the Moon", "la Luna", "Júpiter"); other bodies keep their own name. */
 export function bodyPhrase(language: Language, body: EnglishBody): NamePhrase {
   const entry = language === 'en' ? undefined : NAMES[language].bodies[body.id];
-  if (!entry) return { text: ENGLISH_PHRASE[body.id] ?? body.name, gender: 'masculine' };
+  if (!entry) return { text: ENGLISH_PHRASE[body.id] ?? body.localNames?.[language] ?? body.name, gender: 'masculine' };
   return { text: entry.phrase, gender: entry.gender, ...(entry.dative ? { dative: entry.dative } : {}) };
 }
 
 /** A body's label ("Moon", "Luna", "Júpiter"). */
 export function bodyLabel(language: Language, body: EnglishBody): string {
-  return (language === 'en' ? undefined : NAMES[language].bodies[body.id]?.name) ?? body.name;
+  return (language === 'en' ? undefined : NAMES[language].bodies[body.id]?.name ?? body.localNames?.[language]) ?? body.name;
 }
