@@ -11,6 +11,7 @@ import { BodyRegistry, builtInBody } from '../lib/core/body.ts';
 import { loadSites } from '../lib/models/content.ts';
 import { compass } from '../lib/core/describe.ts';
 import { computeNight } from '../lib/models/night.ts';
+import { wellPlaced } from '../lib/models/deep-sky/placed.ts';
 import { observe } from '../lib/core/observe.ts';
 import type { Site } from '../lib/core/site.ts';
 import { formatInstant, isoWeekOf, localMidnight, nightOf, type IsoWeek } from '../lib/core/time.ts';
@@ -48,7 +49,7 @@ function clock(instant: Date, site: Site): string {
 
 describe('every placeholder covered', () => {
   it('each placeholder of the table is exercised by this file', () => {
-    const covered = ['week', 'date', 'sunset', 'sunrise', 'dark', 'dawn', 'rise', 'transit', 'set', 'direction', 'altitude', 'magnitude', 'moon-phase', 'moon-lit', 'moon-and-twilight', 'best-time', 'window', 'verdict', 'targets', 'guide', 'chart', 'events', 'event', 'name', 'passes', 'brightest-pass', 'pass-chart'];
+    const covered = ['week', 'date', 'sunset', 'sunrise', 'dark', 'dawn', 'rise', 'transit', 'set', 'direction', 'altitude', 'magnitude', 'moon-phase', 'moon-lit', 'moon-and-twilight', 'best-time', 'window', 'verdict', 'targets', 'deep-sky', 'guide', 'chart', 'events', 'event', 'name', 'passes', 'brightest-pass', 'pass-chart'];
     for (const spec of PLACEHOLDERS.values()) expect(covered, spec.name).toContain(spec.name);
   });
 });
@@ -203,6 +204,14 @@ describe.each(SITE_IDS)('site %s', (siteId) => {
       expect(element(render(site, week, ':name{body=moon}'), 'name').text).toBe('the Moon');
       const html = render(site, week, '::targets{night=fri}');
       expect(html).toMatch(/class="gl gl-targets/);
+    });
+
+    it('the deep-sky list is wellPlaced of the night, item by item, with its verdicts', () => {
+      const html = render(site, week, '::deep-sky{night=fri limit=4}');
+      const expected = wellPlaced(cache.get(site, week, bodies).nights[4]!, { limit: 4 });
+      const items = [...html.matchAll(/<li data-body="([^"]+)" data-verdict="([^"]+)"/g)].map((m) => [m[1], m[2]]);
+      expect(items).toEqual(expected.objects.map((p) => [p.night.body.id, p.night.visibility.verdict]));
+      if (!items.length) expect(element(html, 'deep-sky').attrs.class).toContain('gl-none');
     });
   });
 });

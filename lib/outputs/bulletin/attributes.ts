@@ -49,7 +49,7 @@ const WEEKDAYS = ['mon', 'tue', 'wed', 'thu', 'fri', 'sat', 'sun'] as const;
 export function describeType(type: AttributeType): string {
   switch (type.kind) {
     case 'body':
-      return 'a body id (jupiter, moon, …)';
+      return 'a body id (jupiter, moon, …) or a deep-sky id (m31, ngc869, albireo, …)';
     case 'night':
       return 'mon…sun, 1–7 or a YYYY-MM-DD date in the week';
     case 'clock':

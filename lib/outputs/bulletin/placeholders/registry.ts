@@ -1,6 +1,6 @@
 /**
  * The placeholder vocabulary: one table, one entry per placeholder, gathered from the families
- * (times, positions, the Moon, visibility, charts, events, satellite passes). An entry names the placeholder, says
+ * (times, positions, the Moon, visibility, deep-sky objects, charts, events, satellite passes). An entry names the placeholder, says
  * whether it is written inline (`:name{…}`) or as a block on its own line (`::name{…}`), lists
  * its attributes with types and defaults, gives an example for the docs, says which bodies it
  * shows (for the eye-safety pass), and renders from the shared week data (`WeekData`). Adding a
@@ -11,6 +11,7 @@
  */
 import type { PlaceholderSpec } from './call.ts';
 import { CHART_PLACEHOLDERS } from './charts.ts';
+import { DEEP_SKY_PLACEHOLDERS } from './deep-sky.ts';
 import { EVENT_PLACEHOLDERS } from './events.ts';
 import { MOON_PLACEHOLDERS } from './moon.ts';
 import { PASS_PLACEHOLDERS } from './passes.ts';
@@ -22,5 +23,5 @@ export type { PlaceholderCall, PlaceholderSpec } from './call.ts';
 
 /** Every placeholder by name, in the order of the documentation table. */
 export const PLACEHOLDERS: ReadonlyMap<string, PlaceholderSpec> = new Map(
-  [...TIME_PLACEHOLDERS, ...POSITION_PLACEHOLDERS, ...MOON_PLACEHOLDERS, ...VISIBILITY_PLACEHOLDERS, ...CHART_PLACEHOLDERS, ...EVENT_PLACEHOLDERS, ...PASS_PLACEHOLDERS].map((d) => [d.name, d]),
+  [...TIME_PLACEHOLDERS, ...POSITION_PLACEHOLDERS, ...MOON_PLACEHOLDERS, ...VISIBILITY_PLACEHOLDERS, ...DEEP_SKY_PLACEHOLDERS, ...CHART_PLACEHOLDERS, ...EVENT_PLACEHOLDERS, ...PASS_PLACEHOLDERS].map((d) => [d.name, d]),
 );

@@ -5,6 +5,7 @@ import { bodyPhrase } from '../../../core/language/names/index.ts';
 import { guidePhrase } from '../../../models/stars/guide.ts';
 import { formatInstant } from '../../../core/time.ts';
 import type { BodyNight } from '../../../models/night.ts';
+import type { InstrumentKind } from '../../../core/site.ts';
 import { reasonText, verdictWords, windowEndText, type Visibility } from '../../../models/visibility.ts';
 import { el, exact, formatClock } from '../format.ts';
 import { BODY, NIGHT, TIME_ATTRS, bodyOf, classes, nightDate, noValue, notVisible, precisionOf, showsBody, timeElement, labelOf, wordsOf, type PlaceholderCall, type PlaceholderSpec } from './call.ts';
@@ -74,27 +75,33 @@ function targetNights(call: PlaceholderCall): BodyNight[] {
     .sort((a, b) => a.visibility.best!.time.getTime() - b.visibility.best!.time.getTime() || (a.body.id < b.body.id ? -1 : 1));
 }
 
-/** Every naked-eye or binocular target of the night, by best time. */
-function targets(call: PlaceholderCall): ElementContent {
+/**
+ * One target of a list, as `<li>`: its name (and what it is, `kind`), best time, direction, altitude,
+ * magnitude, nearby pattern and verdict. Shared by the night's targets and the deep-sky list.
+ */
+export function targetItem(call: PlaceholderCall, bn: BodyNight, kind?: string): ElementContent {
   const zone = call.site.timeZone;
   const format = { clock: call.clock, precision: precisionOf(call) };
+  const words = wordsOf(call);
+  const v = bn.visibility;
+  const best = v.best!;
+  return el('li', { dataBody: bn.body.id, ...visibilityData(v) }, [
+    el('strong', {}, labelOf(call, bn.body)),
+    { type: 'text', value: `${kind ? `, ${kind}` : ''}${words.t('ph.target-best-at')} ` },
+    el('time', { dateTime: formatInstant(best.time, zone) }, formatClock(best.time, call.site, format)),
+    { type: 'text', value: `${words.t('ph.target-where', { direction: compass(best.azimuthDeg, words).word, degrees: words.number(best.altitudeDeg, 0), hand: words.handMeasure(best.altitudeDeg) })} ` },
+    el('data', { value: exact(best.magnitude, 2) }, words.number(best.magnitude, 1)),
+    { type: 'text', value: `${bn.guide ? `, ${guidePhrase(bn.guide.said, words)}` : ''} \u2014 ${verdictWords(v.verdict as InstrumentKind, words, bodyPhrase(words.language, bn.body).gender)}${v.outsideViewingHours ? ` ${words.t('verdict.outside-hours')}` : ''}` },
+  ]);
+}
+
+/** Every naked-eye or binocular target of the night, by best time. */
+function targets(call: PlaceholderCall): ElementContent {
   const rows = targetNights(call);
   if (rows.length === 0) {
     return el('p', { ...classes(call, 'gl-none'), dataNight: nightDate(call) }, wordsOf(call).t('ph.no-targets'));
   }
-  const words = wordsOf(call);
-  const items = rows.map((bn) => {
-    const v = bn.visibility;
-    const best = v.best!;
-    return el('li', { dataBody: bn.body.id, ...visibilityData(v) }, [
-      el('strong', {}, labelOf(call, bn.body)),
-      { type: 'text', value: `${words.t('ph.target-best-at')} ` },
-      el('time', { dateTime: formatInstant(best.time, zone) }, formatClock(best.time, call.site, format)),
-      { type: 'text', value: `${words.t('ph.target-where', { direction: compass(best.azimuthDeg, words).word, degrees: words.number(best.altitudeDeg, 0), hand: words.handMeasure(best.altitudeDeg) })} ` },
-      el('data', { value: exact(best.magnitude, 2) }, words.number(best.magnitude, 1)),
-      { type: 'text', value: `${bn.guide ? `, ${guidePhrase(bn.guide.said, words)}` : ''} \u2014 ${verdictWords(v.verdict as 'naked-eye' | 'binoculars', words, bodyPhrase(words.language, bn.body).gender)}${v.outsideViewingHours ? ` ${words.t('verdict.outside-hours')}` : ''}` },
-    ]);
-  });
+  const items = rows.map((bn) => targetItem(call, bn));
   return el('ul', { ...classes(call), dataNight: nightDate(call) }, items);
 }
 
