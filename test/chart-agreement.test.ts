@@ -146,7 +146,10 @@ describe('satellite pass charts mark the pass where its words put it', () => {
           const mark = chart.marks.find((m) => m.id === `pass:${kind}`)!;
           expect(mark.labelled, `${what}: ${kind} labelled`).toBe(true);
           expect(mark.label, what).toContain(formatChartTime(point.time, site));
-          expect(alt, what).toContain(`${kind} at ${formatChartTime(point.time, site)}, ${Math.round(point.altitudeDeg)}° up in the ${compass(point.azimuthDeg).word}`);
+          // The place in the site's language (the English words: "appears at 21:40, 35° up in the west-northwest").
+          const w = wordsFor(site.locale);
+          expect(alt, what).toContain(`${formatChartTime(point.time, site)}, ${w.t('pass.where', { degrees: Math.round(point.altitudeDeg), direction: w.compass(point.azimuthDeg).word })}`);
+          if (site.locale.startsWith('en')) expect(alt, what).toContain(`${kind} at ${formatChartTime(point.time, site)}, ${Math.round(point.altitudeDeg)}° up in the ${compass(point.azimuthDeg).word}`);
           // Where it is drawn: the projection of the pass's own alt-az (the track is interpolated between points 1/40 of the pass apart).
           const q = chart.layout.toChart(point.altitudeDeg, point.azimuthDeg)!;
           expect(Math.hypot(mark.x - q.x, mark.y - q.y), `${what}: ${kind} drawn at its place`).toBeLessThan(1.5);

@@ -15,6 +15,8 @@ import { readdirSync, statSync } from 'node:fs';
 import { CATALOGUES } from '../lib/core/language/index.ts';
 import { NAMES } from '../lib/core/language/names/index.ts';
 import { loadCentre } from '../lib/outputs/centre.ts';
+import { loadSatellites } from '../lib/models/satellite/catalogue.ts';
+import { loadBodies } from '../lib/models/content.ts';
 
 const ROOT = resolve(import.meta.dirname, '..');
 const CHROMIUM = '/usr/bin/chromium';
@@ -303,31 +305,62 @@ describe.skipIf(!available)('a site in Spanish (the invented Observatorio Cerro 
   const spanish = catalogueWords([...Object.values(CATALOGUES.es), ...Object.values(NAMES.es.patterns).flatMap((p) => [p.name, p.phrase, ...Object.values(p.parts ?? {}).map((x) => x.phrase)])]);
   const englishOnly = [...catalogueWords(Object.values(CATALOGUES.en))].filter((w) => w.length >= 4 && !spanish.has(w));
 
-  it('its pages (bulletin, site, archive, week pages) contain no word of the English catalogue', () => {
-    const centre = loadCentre(join(ROOT, 'content'));
+  const centre = loadCentre(join(ROOT, 'content'));
+  // Names from the content (the centre's, written in its language; the invented satellites' and comet's own names) are not catalogue messages.
+  const objects = loadBodies(join(ROOT, 'content', 'objects'));
+  const contentNames = [
+    centre.name,
+    centre.shortName,
+    ...loadSatellites(join(ROOT, 'content', 'satellites')).map((s) => s.name),
+    ...objects.ids().map((id) => objects.get(id).name).filter((n) => /\s/.test(n)),
+  ];
+  /** Words of the English catalogue only, in a text a reader sees or hears. */
+  const englishWordsIn = (text: string): string[] => {
+    let t = text;
+    for (const name of contentNames) t = t.replaceAll(name, ' ');
+    const words = new Set(t.toLowerCase().match(/\p{L}+/gu) ?? []);
+    return englishOnly.filter((w) => words.has(w));
+  };
+
+  it('its pages (bulletin with its events and satellite passes, site, archive, week pages, the tonight.html fragment) contain no word of the English catalogue', () => {
     const dir = join(dist, 'cerro-lucero');
-    // Not yet translated: the embeddable tonight.html fragment (site/gloaming/fragment.ts), still English.
-    const pages = htmlFiles(dir).filter((f) => !/\/weekly\.en\//.test(f) && !f.endsWith('/tonight.html'));
+    const pages = htmlFiles(dir).filter((f) => !/\/weekly\.en\//.test(f));
     expect(pages.length).toBeGreaterThan(10);
+    expect(pages.some((f) => f.endsWith('/tonight.html'))).toBe(true);
     expect(englishOnly.length).toBeGreaterThan(200);
     const found: string[] = [];
     for (const file of pages) {
-      // The centre's own name, footer and links come from content/centre.yaml, written in the centre's language: not catalogue messages.
+      // The centre's footer and links come from content/centre.yaml, written in the centre's language: not catalogue messages.
       const html = readFileSync(file, 'utf8')
         .replace(/<div class="centre-footer">[\s\S]*?<\/div>/g, ' ')
-        .replace(/<ul class="centre-links">[\s\S]*?<\/ul>/g, ' ')
-        .replaceAll(centre.name, ' ')
-        .replaceAll(centre.shortName, ' ');
+        .replace(/<ul class="centre-links">[\s\S]*?<\/ul>/g, ' ');
       // What a reader sees or hears: text, alt text, titles, labels, descriptions (not class names or URLs).
       const said = [
         ...html.replace(/<style[^>]*>[\s\S]*?<\/style>/g, ' ').replace(/<[^>]+>/g, ' ').split(/\s+/),
         ...[...html.matchAll(/\s(?:alt|title|aria-label)="([^"]*)"/g)].map((m) => m[1]!),
         ...[...html.matchAll(/<meta (?:name|property)="(?:description|og:title|og:description|og:image:alt)" content="([^"]*)"/g)].map((m) => m[1]!),
       ].join(' ');
-      const words = new Set(said.toLowerCase().match(/\p{L}+/gu) ?? []);
-      for (const w of englishOnly) if (words.has(w)) found.push(`${file.slice(dir.length)}: ${w}`);
+      for (const w of englishWordsIn(said)) found.push(`${file.slice(dir.length)}: ${w}`);
     }
     expect(found).toEqual([]);
+  });
+
+  it("the Spanish weekly bulletin lists the week's events and satellite passes, in Spanish", () => {
+    const page = readFileSync(join(dist, 'cerro-lucero', '2026-W49', 'weekly', 'index.html'), 'utf8');
+    expect(page).toMatch(/<ul class="gl gl-events"/);
+    expect(page).toMatch(/class="gl gl-passes"/);
+    // A Moon phase of the week (last quarter on 1 December 2026, from the almanac) in the Spanish catalogue's words.
+    expect(page).toContain('Cuarto menguante el mar, 1 dic a las');
+  });
+
+  it('its calendar feed (events.ics) and RSS feed are in Spanish', () => {
+    const ics = readFileSync(join(dist, 'cerro-lucero', 'events.ics'), 'utf8').replace(/\r\n[ \t]/g, '');
+    const values = [...ics.matchAll(/^(?:SUMMARY|DESCRIPTION|X-WR-CALNAME):(.*)$/gm)].map((m) => m[1]!.replace(/\\n/g, ' ').replace(/\\([,;\\])/g, '$1'));
+    expect(values.length).toBeGreaterThan(20);
+    expect(englishWordsIn(values.join(' '))).toEqual([]);
+    // The feed's text, without its markup and addresses.
+    const rss = readFileSync(join(dist, 'cerro-lucero', 'rss.xml'), 'utf8').replace(/<[^>]+>/g, ' ').replace(/https?:\/\/\S+/g, ' ');
+    expect(englishWordsIn(rss)).toEqual([]);
   });
 
   it('says its language (<html lang="es-CL">) and links the English version of the bulletin both ways with hreflang', () => {

@@ -27,7 +27,8 @@ export function siteCalendar(site: Site, options: { bodies: BodyRegistry; today:
   });
   return eventsToICalendar(events, {
     site,
-    prodId: `-//${options.centreName}//gloaming night-sky diary//EN`,
+    // The PRODID's last field names the language of its text (RFC 5545 §3.7.3).
+    prodId: `-//${options.centreName}//gloaming night-sky diary//${wordsFor(site.locale).language.toUpperCase()}`,
     now: new Date(`${today}T00:00:00Z`),
     name: wordsFor(site.locale).t('ui.diary-title', { site: site.name }),
   });

@@ -6,6 +6,7 @@
  * let the host style it; every link is absolute (the centre's public address), so it works on
  * another site. Rebuilt with the site every week, like the pages.
  */
+import { wordsFor } from '../../lib/core/language/index.ts';
 import { escapeXml } from '../../lib/outputs/chart/svg.ts';
 import type { NightRow, ShownTime } from './nights.ts';
 
@@ -18,7 +19,7 @@ function time(t: ShownTime): string {
 
 export interface TonightInput {
   siteName: string;
-  /** BCP 47 language of the site. */
+  /** BCP 47 locale of the site: the fragment's words and its `lang`. */
   lang: string;
   tonight: NightRow;
   /** Absolute address of the site's page, and of this week's bulletin (or null). */
@@ -27,22 +28,30 @@ export interface TonightInput {
   centreName: string;
 }
 
-/** The fragment's HTML (one `<section>`). */
+/** A catalogue sentence as HTML with one link in it: the words escaped, the link's markup kept. */
+function withLink(sentence: (link: string) => string, href: string, label: string): string {
+  const mark = '\u0000link\u0000';
+  return text(sentence(mark)).replace(mark, `<a href="${text(href)}">${text(label)}</a>`);
+}
+
+/** The fragment's HTML (one `<section>`), in the site's language. */
 export function tonightFragment(input: TonightInput): string {
   const n = input.tonight;
+  const w = wordsFor(input.lang);
   const moonTime = n.moon.time ? ` ${time(n.moon.time)}` : '';
-  const phase = /Moon$/.test(n.moonPhase) ? n.moonPhase : `${n.moonPhase} Moon`;
+  const phase = w.t('ui.moon-phase-line', { phase: n.moonPhase });
+  const centre = input.centreName;
   return [
     `<section class="gloaming-tonight" lang="${text(input.lang)}">`,
-    `<h2 class="gloaming-tonight-title">Tonight at ${text(input.siteName)}, ${text(n.label)}</h2>`,
+    `<h2 class="gloaming-tonight-title">${text(w.t('ui.fragment-title', { site: input.siteName, date: n.label }))}</h2>`,
     '<dl class="gloaming-tonight-facts">',
-    `<dt>Sunset</dt><dd>${time(n.sunset)}</dd>`,
-    `<dt>Dark (Sun 18° down)</dt><dd>${time(n.darkness)}</dd>`,
-    `<dt>Moon</dt><dd>${text(n.moon.verb)}${moonTime} · ${text(phase)}, ${n.moonLitPercent}% lit</dd>`,
+    `<dt>${text(w.t('ui.sunset'))}</dt><dd>${time(n.sunset)}</dd>`,
+    `<dt>${text(w.t('ui.dark'))}</dt><dd>${time(n.darkness)}</dd>`,
+    `<dt>${text(w.t('ui.moon'))}</dt><dd>${text(n.moon.verb)}${moonTime} · ${text(phase)}, ${text(w.t('ui.row-lit', { percent: w.percent(n.moonLitPercent / 100) }))}</dd>`,
     '</dl>',
     input.bulletin
-      ? `<p class="gloaming-tonight-more"><a href="${text(input.bulletin.url)}">${text(input.bulletin.title)}</a>: what to look for this week, from ${text(input.centreName)}.</p>`
-      : `<p class="gloaming-tonight-more"><a href="${text(input.siteUrl)}">The sky at ${text(input.siteName)}</a>, from ${text(input.centreName)}.</p>`,
+      ? `<p class="gloaming-tonight-more">${withLink((link) => w.t('ui.fragment-bulletin', { link, centre }), input.bulletin.url, input.bulletin.title)}</p>`
+      : `<p class="gloaming-tonight-more">${withLink((link) => w.t('ui.fragment-site', { link, centre }), input.siteUrl, w.t('ui.fragment-site-link', { site: input.siteName }))}</p>`,
     '</section>',
     '',
   ].join('\n');

@@ -22,8 +22,8 @@ const RULES: Readonly<Record<Language, readonly Rule[]>> = {
   es: [
     [words('([Dd])e el'), '$1el'],
     [words('([Aa]) el'), '$1l'],
-    [words('([Aa]) las (0?1[:.]\\d)'), '$1 la $2'],
-    [words('([Dd])esde las (0?1[:.]\\d)'), '$1esde la $2'],
+    // "las 1:05" is always a clock time: a las, desde las, entre las, y las → la 1:05.
+    [words('([Ll])as (0?1[:.]\\d)'), '$1a $2'],
   ],
   fr: [
     [words('à le'), 'au'],

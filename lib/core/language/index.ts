@@ -206,7 +206,8 @@ function makeWords(locale: string): Words {
       throw new GloamingError('invalid-value', `message '${key}' cannot be written: ${(cause as Error).message}`, { actual: Object.keys(args), cause });
     }
     if (typeof text !== 'string') throw new GloamingError('invalid-value', `message '${key}' did not format to text`, { actual: text });
-    return applyGrammar(text, language);
+    // Pieces joined by a message can double a stop: "a las 6:06 a. m." + "." reads "a. m." once.
+    return tidyPunctuation(applyGrammar(text, language));
   };
   const self: Words = {
     locale,

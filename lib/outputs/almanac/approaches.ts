@@ -12,12 +12,13 @@
 import * as Astronomy from 'astronomy-engine';
 import type { Body } from '../../core/body.ts';
 import { builtInBody } from '../../core/body.ts';
-import { compass } from '../../core/describe.ts';
 import { findCrossings, sharedSearch } from '../../core/search.ts';
-import { offsetInSky, separationDeg, type OffsetDirection } from '../../core/geometry.ts';
-import { distanceWords } from '../../models/stars/guide.ts';
+import { offsetInSky, separationDeg } from '../../core/geometry.ts';
+import { distanceWords, offsetWords } from '../../models/stars/guide.ts';
 import { starByHip, stars, type Star } from '../../models/stars/catalogue.ts';
-import { patterns } from '../../models/stars/patterns.ts';
+import { patterns, type StarPattern as Pattern } from '../../models/stars/patterns.ts';
+import type { NamePhrase } from '../../core/language/index.ts';
+import { patternPhrase } from '../../core/language/names/index.ts';
 import { dateFromUt, utDays } from '../../core/track.ts';
 import type { AlmanacContext } from './context.ts';
 import { starBody } from './context.ts';
@@ -90,10 +91,6 @@ function starDirections(star: Star): Directions {
   return new Directions(starBody(star), [Math.cos(d) * Math.cos(a), Math.cos(d) * Math.sin(a), Math.sin(d)]);
 }
 
-function relation(direction: OffsetDirection, what: string): string {
-  return direction === 'above' || direction === 'below' ? `${direction} ${what}` : `to the ${direction} of ${what}`;
-}
-
 export interface ApproachOptions {
   limits?: ApproachLimits;
   /** Planets taking part (default Mercury–Saturn). */
@@ -153,15 +150,15 @@ export function approachEvents(ctx: AlmanacContext, from: Date, to: Date, option
   return out;
 }
 
-/** Star id (`star:<HIP>`) → how its pattern reads in a sentence (the first pattern that uses the star). */
-const PATTERN_OF_STAR = new Map<number, string>();
-for (const pattern of patterns()) for (const hip of pattern.stars) if (!PATTERN_OF_STAR.has(hip)) PATTERN_OF_STAR.set(hip, pattern.sentenceName);
+/** Star id (`star:<HIP>`) → the first pattern that uses the star. */
+const PATTERN_OF_STAR = new Map<number, Pattern>();
+for (const pattern of patterns()) for (const hip of pattern.stars) if (!PATTERN_OF_STAR.has(hip)) PATTERN_OF_STAR.set(hip, pattern);
 
-/** ", in the Great Square of Pegasus" for a pattern star, else nothing. */
-function patternWords(body: Body): string {
+/** The pattern a star belongs to, as the sentence's `inPattern` and `pattern` arguments ("…, in the Great Square of Pegasus"). */
+function patternArgs(ctx: AlmanacContext, body: Body): { inPattern: 'yes' | 'no'; pattern: NamePhrase } {
   const hip = /^star:(\d+)$/.exec(body.id)?.[1];
   const pattern = hip ? PATTERN_OF_STAR.get(Number(hip)) : undefined;
-  return pattern ? `, in ${pattern}` : '';
+  return pattern ? { inPattern: 'yes', pattern: patternPhrase(ctx.words.language, pattern) } : { inPattern: 'no', pattern: { text: '', gender: 'masculine' } };
 }
 
 function magnitudeOf(body: Body, time: Date): number {
@@ -178,7 +175,8 @@ export function describeApproach(ctx: AlmanacContext, first: Body, second: Body,
   if (!lead(a, b)) [a, b] = [b, a];
   const visibility = eventVisibility(ctx, [a, b], time, { preferNear: true });
   const day = ctx.day(time);
-  const geo = separationDeg < 1 ? separationDeg.toFixed(1) : String(Math.round(separationDeg));
+  const w = ctx.words;
+  const names = { a: ctx.phrase(a), b: ctx.phrase(b), day };
   let description: string;
   if (visibility.visible && visibility.time) {
     const frame = ctx.frameAt(visibility.time);
@@ -186,14 +184,17 @@ export function describeApproach(ctx: AlmanacContext, first: Body, second: Body,
     const pa = apparentPlace(frame, a, ut);
     const pb = apparentPlace(frame, b, ut);
     const off = offsetInSky({ fromAltitudeDeg: pb.altitudeDeg, fromAzimuthDeg: pb.azimuthDeg, toAltitudeDeg: pa.altitudeDeg, toAzimuthDeg: pa.azimuthDeg });
-    const look = `look ${compass(pb.azimuthDeg).word} at ${ctx.clock(visibility.time)}${visibility.moment === 'night' && ctx.day(visibility.time) !== day ? ` (${ctx.day(visibility.time)})` : ''}`;
+    const lookNow = w.t('ev.look', { direction: ctx.direction(pb.azimuthDeg), clock: ctx.clock(visibility.time) });
+    const look = visibility.moment === 'night' && ctx.day(visibility.time) !== day ? w.t('ev.look-day', { look: lookNow, day: ctx.day(visibility.time) }) : lookNow;
+    const offset = offsetWords(off.separationDeg, off.offsetDirection, names.b, w);
     description =
       a.kind === 'moon'
-        ? `The Moon passes ${distanceWords(off.separationDeg)} ${relation(off.offsetDirection, b.name)} on ${day}; ${look}.`
-        : `${a.name} and ${b.name} are only ${distanceWords(off.separationDeg)} apart on ${day}, ${a.name} ${relation(off.offsetDirection, b.name)}${patternWords(b)}; ${look}.`;
+        ? w.t('ev.approach-moon', { offset, day, look })
+        : w.t('ev.approach', { ...names, distance: distanceWords(off.separationDeg, w), offset, look, ...patternArgs(ctx, b) });
   } else {
-    const why = visibility.reason === 'too-close-to-sun' ? 'too close to the Sun to be seen' : 'not up together in a dark sky from here';
-    description = a.kind === 'moon' ? `The Moon passes ${geo}° from ${b.name} on ${day}, but the pair is ${why}.` : `${a.name} and ${b.name}${patternWords(b)} pass ${geo}° apart on ${day}, but the pair is ${why}.`;
+    const why = visibility.reason === 'too-close-to-sun' ? 'sun' : 'apart';
+    const degrees = w.number(separationDeg, separationDeg < 1 ? 1 : 0);
+    description = a.kind === 'moon' ? w.t('ev.approach-moon-hidden', { ...names, degrees, why }) : w.t('ev.approach-hidden', { ...names, degrees, why, ...patternArgs(ctx, b) });
   }
   return {
     type: 'close-approach',
@@ -203,7 +204,7 @@ export function describeApproach(ctx: AlmanacContext, first: Body, second: Body,
     separationDeg,
     visible: visibility.visible,
     visibility,
-    title: `${a.name} near ${b.name}`,
+    title: w.t('ev.title.approach', { a: ctx.label(a), b: ctx.label(b) }),
     description,
     score: 0,
     data: { magnitudeA: Math.round(magnitudeOf(a, time) * 10) / 10, magnitudeB: Math.round(magnitudeOf(b, time) * 10) / 10 },

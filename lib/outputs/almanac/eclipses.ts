@@ -8,21 +8,18 @@
  */
 import * as Astronomy from 'astronomy-engine';
 import { builtInBody } from '../../core/body.ts';
-import { compass } from '../../core/describe.ts';
 import { observe } from '../../core/observe.ts';
 import { findMaximum, sharedSearch } from '../../core/search.ts';
 import { dateFromUt, utDays } from '../../core/track.ts';
+import { wordsFor } from '../../core/language/index.ts';
 import type { AlmanacContext } from './context.ts';
 import type { AlmanacEvent, EclipseContact, EclipseDetails, EventVisibility } from './types.ts';
 import { hidden } from './visibility.ts';
 
-/** Eye-safety text shown with every solar eclipse (gloaming's own wording). */
-export const SOLAR_ECLIPSE_CAUTION =
-  'Eye safety: never look straight at the Sun, however much of it is covered, and never through binoculars, a telescope or a camera ' +
-  'unless a proper solar filter is fixed securely over the front of it; use only eclipse glasses or hand viewers certified to ISO 12312-2 ' +
-  '(or project the Sun onto a card), check them for scratches first, supervise children, and follow the advice of local health authorities.';
-/** Added for a total eclipse: the only moment the filter may come off. */
-export const TOTALITY_NOTE = 'Only during totality itself, where the eclipse is total, may the filter come off; put it back the moment the Sun starts to reappear.';
+/** Eye-safety text shown with every solar eclipse (gloaming's own wording; `ev.solar-caution` in each catalogue, English here). */
+export const SOLAR_ECLIPSE_CAUTION = wordsFor('en').t('ev.solar-caution');
+/** Added for a total eclipse: the only moment the filter may come off (`ev.totality-note`). */
+export const TOTALITY_NOTE = wordsFor('en').t('ev.totality-note');
 
 const MINUTE_DAYS = 1 / 1440;
 const STEP_MINUTES = 5;
@@ -86,23 +83,31 @@ export function lunarEclipseEvents(ctx: AlmanacContext, from: Date, to: Date): A
         azimuthDeg: az,
         reason: null,
         note: visibleAtMax
-          ? `At maximum (${ctx.clock(peak.date)}) the Moon is ${Math.round(maxAlt)}° up in the ${compass(az).word}.`
-          : `The Moon is below the horizon at maximum; it is highest during the eclipse at ${ctx.clock(seenAt.time)}, ${Math.round(seenAt.altitudeDeg)}° up in the ${compass(az).word}.`,
+          ? ctx.words.t('ev.lunar-note-max', { clock: ctx.clock(peak.date), degrees: Math.round(maxAlt), direction: ctx.direction(az) })
+          : ctx.words.t('ev.lunar-note-highest', { clock: ctx.clock(seenAt.time), degrees: Math.round(seenAt.altitudeDeg), direction: ctx.direction(az) }),
       };
     } else {
       visibility = hidden(ctx, 'below-horizon');
     }
-    const c = (name: string): string => ctx.clock(contacts.find((x) => x.name === name)!.time);
-    const day = ctx.day(peak.date);
-    const where = visibility.visible && visibility.azimuthDeg !== null && visibility.altitudeDeg !== null
-      ? `, with the Moon ${Math.round(visibility.altitudeDeg)}° up in the ${compass(visibility.azimuthDeg).word} at ${ctx.clock(visibility.time!)}`
-      : '';
-    const description =
-      kind === 'total'
-        ? `Total eclipse of the Moon on ${day}: the Moon enters the Earth's shadow at ${c('U1')}, is fully eclipsed from ${c('U2')} to ${c('U3')} and leaves the shadow at ${c('U4')}${where}; safe to watch with the naked eye.`
-        : kind === 'partial'
-          ? `Partial eclipse of the Moon on ${day}: the Earth's shadow covers up to ${pct(e.obscuration)}% of the Moon between ${c('U1')} and ${c('U4')}, most at ${c('max')}${where}; safe to watch with the naked eye.`
-          : `Penumbral eclipse of the Moon on ${day}, deepest at ${c('max')}: only a faint shading on one side of the Moon, easy to miss${where}.`;
+    const c = (name: string): string => {
+      const contact = contacts.find((x) => x.name === name);
+      return contact ? ctx.clock(contact.time) : '';
+    };
+    const seen = visibility.visible && visibility.azimuthDeg !== null && visibility.altitudeDeg !== null;
+    const description = ctx.words.t('ev.lunar-eclipse', {
+      kind,
+      day: ctx.day(peak.date),
+      u1: c('U1'),
+      u2: c('U2'),
+      u3: c('U3'),
+      u4: c('U4'),
+      max: c('max'),
+      percent: ctx.words.percent(pct(e.obscuration) / 100),
+      seen: seen ? 'yes' : 'no',
+      degrees: seen ? Math.round(visibility.altitudeDeg!) : 0,
+      direction: seen ? ctx.direction(visibility.azimuthDeg!) : '',
+      clock: seen ? ctx.clock(visibility.time!) : '',
+    });
     out.push({
       type: 'lunar-eclipse',
       time: peak.date,
@@ -111,8 +116,8 @@ export function lunarEclipseEvents(ctx: AlmanacContext, from: Date, to: Date): A
       names: ['Moon'],
       visible: visibility.visible,
       visibility,
-      title: `${kind[0]!.toUpperCase()}${kind.slice(1)} eclipse of the Moon`,
-      description: visibility.visible ? description : `${description.replace(/;[^;]*$|\.$/, '')}, but from here the Moon is below the horizon throughout.`,
+      title: ctx.words.t('ev.title.lunar-eclipse', { kind }),
+      description,
       score: 0,
       eclipse: { kind, obscuration: e.obscuration, contacts },
     });
@@ -139,10 +144,11 @@ export function solarEclipseEvents(ctx: AlmanacContext, from: Date, to: Date): A
     const kind = e.kind as EclipseDetails['kind'];
     const top = e.peak.altitude > 0 ? { time: e.peak.time.date, altitudeDeg: e.peak.altitude } : highest(altitudeAt, e.partial_begin.time.date, e.partial_end.time.date);
     const day = ctx.day(e.peak.time.date);
-    const caution = kind === 'total' ? `${SOLAR_ECLIPSE_CAUTION} ${TOTALITY_NOTE}` : SOLAR_ECLIPSE_CAUTION;
+    const w = ctx.words;
+    const caution = kind === 'total' ? `${w.t('ev.solar-caution')} ${w.t('ev.totality-note')}` : w.t('ev.solar-caution');
     let visibility: EventVisibility;
     let description: string;
-    const covered = `${pct(e.obscuration)}% of the Sun's disc covered`;
+    const percent = w.percent(pct(e.obscuration) / 100);
     if (top.altitudeDeg > 0) {
       const az = observe(ctx.site, sun, top.time).azimuthDeg;
       visibility = {
@@ -152,14 +158,25 @@ export function solarEclipseEvents(ctx: AlmanacContext, from: Date, to: Date): A
         altitudeDeg: top.altitudeDeg,
         azimuthDeg: az,
         reason: null,
-        note: e.peak.altitude > 0 ? `At maximum the Sun is ${Math.round(top.altitudeDeg)}° up in the ${compass(az).word}.` : `The Sun is down at maximum; it is highest during the eclipse at ${ctx.clock(top.time)}, ${Math.round(top.altitudeDeg)}° up.`,
+        note:
+          e.peak.altitude > 0
+            ? w.t('ev.solar-note-max', { degrees: Math.round(top.altitudeDeg), direction: ctx.direction(az) })
+            : w.t('ev.solar-note-highest', { clock: ctx.clock(top.time), degrees: Math.round(top.altitudeDeg) }),
       };
-      const what = kind === 'total' ? 'Total eclipse of the Sun' : kind === 'annular' ? 'Annular eclipse of the Sun' : 'Partial eclipse of the Sun';
-      const phase = e.total_begin && e.total_end ? `, ${kind === 'total' ? 'totality' : 'the ring phase'} ${ctx.clock(e.total_begin.time.date)}–${ctx.clock(e.total_end.time.date)}` : '';
-      description = `${what} from here on ${day}, ${ctx.clock(e.partial_begin.time.date)}–${ctx.clock(e.partial_end.time.date)}, greatest at ${ctx.clock(e.peak.time.date)} with ${covered}${phase}: watch only through certified eclipse viewers or by projection.`;
+      description = w.t('ev.solar-eclipse', {
+        kind,
+        day,
+        begin: ctx.clock(e.partial_begin.time.date),
+        end: ctx.clock(e.partial_end.time.date),
+        max: ctx.clock(e.peak.time.date),
+        percent,
+        phase: e.total_begin && e.total_end ? (kind === 'total' ? 'total' : 'annular') : 'none',
+        p1: e.total_begin ? ctx.clock(e.total_begin.time.date) : '',
+        p2: e.total_end ? ctx.clock(e.total_end.time.date) : '',
+      });
     } else {
       visibility = hidden(ctx, 'sun-below-horizon');
-      description = `A solar eclipse (${covered} at best) happens on ${day} while the Sun is below the horizon here, so it cannot be seen from this site.`;
+      description = w.t('ev.solar-eclipse-hidden', { percent, day });
     }
     out.push({
       type: 'solar-eclipse',
@@ -169,7 +186,7 @@ export function solarEclipseEvents(ctx: AlmanacContext, from: Date, to: Date): A
       names: ['Sun', 'Moon'],
       visible: visibility.visible,
       visibility,
-      title: `${kind[0]!.toUpperCase()}${kind.slice(1)} eclipse of the Sun`,
+      title: w.t('ev.title.solar-eclipse', { kind }),
       description,
       score: 0,
       caution,

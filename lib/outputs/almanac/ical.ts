@@ -9,6 +9,7 @@
  * a UTF-8 sequence; TEXT values escape backslash, semicolon, comma and newline (§3.3.11).
  */
 import { createHash } from 'node:crypto';
+import { wordsFor } from '../../core/language/index.ts';
 import type { Site } from '../../core/site.ts';
 import type { AlmanacEvent } from './types.ts';
 
@@ -18,7 +19,7 @@ export interface ICalendarOptions {
   prodId: string;
   /** The build instant, used as every DTSTAMP (lib/ never reads the clock). */
   now: Date;
-  /** Calendar name shown by clients (X-WR-CALNAME); default "<site name>: night-sky diary". */
+  /** Calendar name shown by clients (X-WR-CALNAME); default "<site name>: night-sky diary" in the site's language. */
   name?: string;
 }
 
@@ -71,6 +72,7 @@ export function eventUid(event: AlmanacEvent, site: Site): string {
 /** The full text of a feed: one VEVENT per event, CRLF line ends. */
 export function eventsToICalendar(events: readonly AlmanacEvent[], options: ICalendarOptions): string {
   const { site } = options;
+  const words = wordsFor(site.locale);
   const stamp = icalUtc(options.now);
   const lines: string[] = [
     'BEGIN:VCALENDAR',
@@ -79,7 +81,7 @@ export function eventsToICalendar(events: readonly AlmanacEvent[], options: ICal
     `PRODID:${escapeText(options.prodId)}`,
     'CALSCALE:GREGORIAN',
     'METHOD:PUBLISH',
-    `X-WR-CALNAME:${escapeText(options.name ?? `${site.name}: night-sky diary`)}`,
+    `X-WR-CALNAME:${escapeText(options.name ?? words.t('ui.diary-title', { site: site.name }))}`,
     `X-WR-TIMEZONE:${site.timeZone}`,
   ];
   for (const e of events) {
@@ -90,7 +92,7 @@ export function eventsToICalendar(events: readonly AlmanacEvent[], options: ICal
       `DTSTAMP:${stamp}`,
       `DTSTART:${icalUtc(e.time)}`,
       ...(e.end && e.end > e.time ? [`DTEND:${icalUtc(e.end)}`] : []),
-      `SUMMARY:${escapeText(e.visible ? e.title : `${e.title} (not visible from here)`)}`,
+      `SUMMARY:${escapeText(e.visible ? e.title : words.t('ev.title-hidden', { title: e.title }))}`,
       `DESCRIPTION:${escapeText(text)}`,
       `LOCATION:${escapeText(site.name)}`,
       `GEO:${site.latitudeDeg.toFixed(6)};${site.longitudeDeg.toFixed(6)}`,

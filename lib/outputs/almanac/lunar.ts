@@ -6,21 +6,14 @@
  */
 import * as Astronomy from 'astronomy-engine';
 import { builtInBody } from '../../core/body.ts';
-import { compass } from '../../core/describe.ts';
 import { riseTransitSet } from '../../core/events.ts';
 import { sharedSearch } from '../../core/search.ts';
 import { utDays } from '../../core/track.ts';
 import type { AlmanacContext } from './context.ts';
 import { apparentPlace, eventVisibility } from './visibility.ts';
-import type { AlmanacEvent, AlmanacEventType } from './types.ts';
+import type { AlmanacEvent } from './types.ts';
 
-const QUARTERS: AlmanacEventType[] = ['new-moon', 'first-quarter', 'full-moon', 'last-quarter'];
-const TITLES: Record<string, string> = {
-  'new-moon': 'New Moon',
-  'first-quarter': 'First-quarter Moon',
-  'full-moon': 'Full Moon',
-  'last-quarter': 'Last-quarter Moon',
-};
+const QUARTERS = ['new-moon', 'first-quarter', 'full-moon', 'last-quarter'] as const;
 /** Mean Earth–Moon distance, km (semi-major axis of the lunar orbit, 384 400 km; from memory, standard value). */
 export const MEAN_MOON_DISTANCE_KM = 384_400;
 
@@ -29,7 +22,7 @@ function moonriseWords(ctx: AlmanacContext, time: Date): string | null {
   const frame = ctx.frameAt(time);
   const rise = riseTransitSet(frame, frame.moon).rise.time;
   if (!rise) return null;
-  return `at ${ctx.clock(rise)} in the ${compass(apparentPlace(frame, frame.moon.body, utDays(rise)).azimuthDeg).word}`;
+  return ctx.words.t('ev.moon-rise', { clock: ctx.clock(rise), direction: ctx.direction(apparentPlace(frame, frame.moon.body, utDays(rise)).azimuthDeg) });
 }
 
 /** The Moon's quarters with instants in [from, to) (the same from every site). */
@@ -55,23 +48,24 @@ export function moonPhaseEvents(ctx: AlmanacContext, from: Date, to: Date): Alma
     const type = QUARTERS[q.quarter]!;
     const visibility = eventVisibility(ctx, [moon], time);
     const when = ctx.when(time);
-    const where = visibility.azimuthDeg !== null ? `look ${compass(visibility.azimuthDeg).word} at ${ctx.clock(visibility.time!)}` : null;
+    const w = ctx.words;
+    const look = ctx.look(visibility);
     const rise = type === 'full-moon' || type === 'last-quarter' ? moonriseWords(ctx, time) : null;
     let description: string;
     switch (type) {
       case 'new-moon':
-        description = `New Moon on ${when}: the nights around it have no moonlight, the best of the month for faint objects and the Milky Way.`;
+        description = w.t('ev.new-moon', { when });
         break;
       case 'first-quarter':
-        description = `First-quarter Moon on ${when}: ${where ? `${where} for` : 'the evening sky has'} a half-lit Moon, and binoculars show craters along the line between light and dark.`;
+        description = look ? w.t('ev.first-quarter', { when, look }) : w.t('ev.first-quarter-evening', { when });
         break;
       case 'full-moon':
-        description = `Full Moon on ${when}: ${rise ? `it rises ${rise} and` : 'it'} stays up all night, so its glare hides faint stars and comets.`;
+        description = rise ? w.t('ev.full-moon', { when, rise }) : w.t('ev.full-moon-no-rise', { when });
         break;
       default:
-        description = `Last-quarter Moon on ${when}: ${rise ? `it rises ${rise}, so` : 'it rises late, so'} the evening sky stays dark for faint objects.`;
+        description = rise ? w.t('ev.last-quarter', { when, rise }) : w.t('ev.last-quarter-late', { when });
     }
-    out.push({ type, time, bodies: ['moon'], names: ['Moon'], visible: visibility.visible, visibility, title: TITLES[type]!, description, score: 0 });
+    out.push({ type, time, bodies: ['moon'], names: ['Moon'], visible: visibility.visible, visibility, title: w.t(`ev.title.${type}`), description, score: 0 });
   }
   return out;
 }
@@ -89,12 +83,10 @@ export function lunarApsisEvents(ctx: AlmanacContext, from: Date, to: Date): Alm
     const daysFromFull = Math.abs(elongation - 180) / 12.19;
     const sizePct = Math.round((MEAN_MOON_DISTANCE_KM / a.dist_km - 1) * 100);
     const visibility = eventVisibility(ctx, [moon], time);
-    const kmText = km.toLocaleString('en-GB');
-    const description = perigee
-      ? `The Moon is at perigee, its closest to Earth this month (${kmText} km), on ${ctx.when(time)}` +
-        (daysFromFull < 1.5 ? `; so near Full Moon it looks about ${sizePct}% wider than at its average distance.` : '; the difference in size is too small to notice by eye.')
-      : `The Moon is at apogee, its farthest from Earth this month (${kmText} km), on ${ctx.when(time)}` +
-        (daysFromFull < 1.5 ? `; this Full Moon looks about ${-sizePct}% narrower than at its average distance.` : '.');
+    const w = ctx.words;
+    const args = { km: new Intl.NumberFormat(ctx.site.locale).format(km), when: ctx.when(time), percent: w.percent(Math.abs(sizePct) / 100) };
+    const nearFull = daysFromFull < 1.5;
+    const description = perigee ? w.t(nearFull ? 'ev.perigee-full' : 'ev.perigee', args) : w.t(nearFull ? 'ev.apogee-full' : 'ev.apogee', args);
     out.push({
       type: perigee ? 'perigee' : 'apogee',
       time,
@@ -102,7 +94,7 @@ export function lunarApsisEvents(ctx: AlmanacContext, from: Date, to: Date): Alm
       names: ['Moon'],
       visible: visibility.visible,
       visibility,
-      title: perigee ? 'Moon at perigee' : 'Moon at apogee',
+      title: w.t(perigee ? 'ev.title.perigee' : 'ev.title.apogee'),
       description,
       score: 0,
       data: { distanceKm: Math.round(a.dist_km), daysFromFullMoon: Math.round(daysFromFull * 100) / 100 },

@@ -28,7 +28,6 @@
  */
 import * as Astronomy from 'astronomy-engine';
 import { builtInBody, type Body } from '../../core/body.ts';
-import { compass } from '../../core/describe.ts';
 import { findCrossings, findMaximum } from '../../core/search.ts';
 import { skylineAltitudeDeg } from '../../core/site.ts';
 import { dateFromUt, utDays } from '../../core/track.ts';
@@ -373,35 +372,41 @@ function describe(observer: Astronomy.Observer, approach: Approach, target: Targ
   };
 }
 
-/** Reader-facing words for occultations, in one place (for message catalogues). */
-const WORDS = {
-  title: (name: string): string => `The Moon covers ${name}`,
-  contact: (verb: string, c: OccultationContact, clock: string): string => `${verb} at the Moon's ${c.limb} edge at ${clock} (position angle ${Math.round(c.positionAngleDeg)}°, ${c.moonAltitudeDeg >= 0 ? `Moon ${Math.round(c.moonAltitudeDeg)}° up` : 'Moon below the horizon'})`,
-  graze: ' This is a graze: it passes so near the Moon\'s edge that lunar mountains decide when (and how often) it blinks out, and the times may be off by a minute or more.',
-  aid: (magnitude: number): string => (magnitude <= 1.5 ? 'Binoculars show it best.' : 'Binoculars or a small telescope are needed against the Moon\'s glare.'),
-} as const;
-
 /** The site's occultations in [from, to) as almanac events, visible or not. */
 export function occultationEvents(ctx: AlmanacContext, from: Date, to: Date): AlmanacEvent[] {
   return findOccultations(ctx, from, to).map((o) => {
     const watchable = (c: OccultationContact): boolean => c.sunAltitudeDeg <= OCCULTATION_DARK_SUN_DEG && c.moonAltitudeDeg >= Math.max(ctx.site.minAltitudeDeg, skylineAltitudeDeg(ctx.site, c.moonAzimuthDeg));
     const seen = [o.disappearance, o.reappearance].filter(watchable);
     const first = seen[0] ?? null;
-    const lit = Math.round(o.moonIlluminatedFraction * 100);
+    const w = ctx.words;
+    const contact = (c: OccultationContact, n: 1 | 2): Record<string, string | number> => ({
+      [`limb${n}`]: c.limb,
+      [`clock${n}`]: ctx.clock(c.time),
+      [`pa${n}`]: Math.round(c.positionAngleDeg),
+      [`up${n}`]: c.moonAltitudeDeg >= 0 ? 'yes' : 'no',
+      [`alt${n}`]: Math.round(c.moonAltitudeDeg),
+    });
     const magnitude = o.target.magnitude;
-    const sentence =
-      `The Moon (${lit}% lit) covers ${o.target.name} on ${ctx.day(o.disappearance.time)}: it ` +
-      `${WORDS.contact('disappears', o.disappearance, ctx.clock(o.disappearance.time))} and ` +
-      `${WORDS.contact('reappears', o.reappearance, ctx.clock(o.reappearance.time))}.` +
-      (o.graze ? WORDS.graze : '');
+    const sentence = w.t('ev.occultation', {
+      percent: w.percent(o.moonIlluminatedFraction),
+      name: ctx.phrase(o.target),
+      day: ctx.day(o.disappearance.time),
+      ...contact(o.disappearance, 1),
+      ...contact(o.reappearance, 2),
+      graze: o.graze ? 'yes' : 'no',
+    });
     let reason: EventHiddenReason | null = null;
     if (!first) {
       const dark = [o.disappearance, o.reappearance].some((c) => c.sunAltitudeDeg <= OCCULTATION_DARK_SUN_DEG);
       reason = dark ? 'below-horizon' : 'daylight';
     }
     const note = first
-      ? `Visible from here: ${first === o.disappearance ? 'the disappearance' : 'the reappearance'}${seen.length === 2 ? ' and the reappearance' : ''}, Moon ${Math.round(first.moonAltitudeDeg)}° up in the ${compass(first.moonAzimuthDeg).word}.`
-      : `Not visible from ${ctx.site.name}: ${reason === 'daylight' ? 'it happens in daylight' : 'the Moon is below the horizon (or too low) then'}.`;
+      ? w.t('ev.occultation-note', {
+          which: seen.length === 2 ? 'both' : first === o.disappearance ? 'disappearance' : 'reappearance',
+          degrees: Math.round(first.moonAltitudeDeg),
+          direction: ctx.direction(first.moonAzimuthDeg),
+        })
+      : w.t('ev.occultation-hidden', { site: ctx.site.name, why: reason === 'daylight' ? 'daylight' : 'low' });
     return {
       type: 'occultation' as const,
       time: o.disappearance.time,
@@ -412,8 +417,8 @@ export function occultationEvents(ctx: AlmanacContext, from: Date, to: Date): Al
       visibility: first
         ? { visible: true, moment: 'event' as const, time: first.time, altitudeDeg: first.moonAltitudeDeg, azimuthDeg: first.moonAzimuthDeg, reason: null, note }
         : { visible: false, moment: 'none' as const, time: null, altitudeDeg: null, azimuthDeg: null, reason, note },
-      title: WORDS.title(o.target.name),
-      description: first ? `${sentence} ${WORDS.aid(magnitude)}` : `${sentence} ${note}`,
+      title: w.t('ev.title.occultation', { name: ctx.phrase(o.target) }),
+      description: `${sentence} ${first ? w.t('ev.occultation-aid', { bright: magnitude <= 1.5 ? 'yes' : 'no' }) : note}`,
       score: 0,
       data: {
         disappearancePositionAngleDeg: Math.round(o.disappearance.positionAngleDeg),

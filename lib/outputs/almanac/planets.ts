@@ -7,7 +7,6 @@
  */
 import * as Astronomy from 'astronomy-engine';
 import { builtInBody, type EngineBody } from '../../core/body.ts';
-import { compass } from '../../core/describe.ts';
 import { findCrossings, sharedSearch, type Crossing } from '../../core/search.ts';
 import { dateFromUt, utDays } from '../../core/track.ts';
 import type { AlmanacContext } from './context.ts';
@@ -54,10 +53,6 @@ function magnitudeAt(body: EngineBody, time: Astronomy.AstroTime): number {
   return Math.round(Astronomy.Illumination(body.engineBody, time).mag * 10) / 10;
 }
 
-function lookWords(ctx: AlmanacContext, v: { azimuthDeg: number | null; time: Date | null }): string | null {
-  return v.azimuthDeg !== null && v.time ? `look ${compass(v.azimuthDeg).word} at ${ctx.clock(v.time)}` : null;
-}
-
 /** Oppositions of Mars–Neptune and conjunctions of every planet with the Sun, instants in [from, to). */
 export function oppositionAndConjunctionEvents(ctx: AlmanacContext, from: Date, to: Date, ids: readonly string[] = ALL): AlmanacEvent[] {
   const out: AlmanacEvent[] = [];
@@ -75,7 +70,7 @@ export function oppositionAndConjunctionEvents(ctx: AlmanacContext, from: Date, 
         const mag = magnitudeAt(body, t);
         if (target.kind === 'opposition') {
           const visibility = eventVisibility(ctx, [body], time);
-          const look = lookWords(ctx, visibility);
+          const look = ctx.look(visibility);
           out.push({
             type: 'opposition',
             time,
@@ -83,17 +78,16 @@ export function oppositionAndConjunctionEvents(ctx: AlmanacContext, from: Date, 
             names: [body.name],
             visible: visibility.visible,
             visibility,
-            title: `${body.name} at opposition`,
-            description: `${body.name} is at opposition on ${ctx.day(time)}: opposite the Sun, it rises at sunset, stays up all night and is at its brightest this year (magnitude ${mag})${look ? `; ${look}` : ', but from here it stays too low to see'}.`,
+            title: ctx.words.t('ev.title.opposition', { name: ctx.label(body) }),
+            description: look
+              ? ctx.words.t('ev.opposition', { name: ctx.phrase(body), day: ctx.day(time), magnitude: mag, look })
+              : ctx.words.t('ev.opposition-low', { name: ctx.phrase(body), day: ctx.day(time), magnitude: mag }),
             score: 0,
             data: { magnitude: mag },
           });
         } else {
-          const where = inferior
-            ? target.kind === 'inferior'
-              ? 'passes between the Earth and the Sun (inferior conjunction) and moves from the evening to the morning sky'
-              : 'passes behind the Sun (superior conjunction) and moves from the morning to the evening sky'
-            : 'passes behind the Sun and moves from the evening to the morning sky';
+          // An inner planet's conjunctions are inferior or superior; an outer planet only passes behind the Sun.
+          const kind = inferior ? target.kind : 'outer';
           out.push({
             type: 'conjunction',
             time,
@@ -101,8 +95,8 @@ export function oppositionAndConjunctionEvents(ctx: AlmanacContext, from: Date, 
             names: [body.name, 'Sun'],
             visible: false,
             visibility: hidden(ctx, 'too-close-to-sun'),
-            title: `${body.name} in conjunction with the Sun`,
-            description: `${body.name} ${where} on ${ctx.day(time)}; it is lost in the Sun's glare for a while and leaves these pages until it reappears.`,
+            title: ctx.words.t('ev.title.conjunction', { name: ctx.label(body) }),
+            description: ctx.words.t('ev.conjunction', { name: ctx.phrase(body), kind, day: ctx.day(time) }),
             score: 0,
             data: { kind: target.kind, magnitude: mag },
           });
@@ -124,7 +118,7 @@ export function elongationEvents(ctx: AlmanacContext, from: Date, to: Date, ids:
       const time = e.time.date;
       const evening = e.visibility === 'evening';
       const visibility = eventVisibility(ctx, [body], time);
-      const look = lookWords(ctx, visibility);
+      const look = ctx.look(visibility);
       const elongation = Math.round(e.elongation * 10) / 10;
       out.push({
         type: 'greatest-elongation',
@@ -134,8 +128,10 @@ export function elongationEvents(ctx: AlmanacContext, from: Date, to: Date, ids:
         separationDeg: e.elongation,
         visible: visibility.visible,
         visibility,
-        title: `${body.name} at greatest ${evening ? 'eastern' : 'western'} elongation`,
-        description: `${body.name} is at its greatest distance ${evening ? 'east' : 'west'} of the Sun (${elongation}°) on ${ctx.day(time)}, the best time to find it in the ${evening ? 'evening' : 'morning'} sky${look ? `: ${look}` : ', though from here it stays too low in the twilight'}.`,
+        title: ctx.words.t('ev.title.elongation', { name: ctx.label(body), side: e.visibility }),
+        description: look
+          ? ctx.words.t('ev.elongation', { name: ctx.phrase(body), side: e.visibility, degrees: elongation, day: ctx.day(time), look })
+          : ctx.words.t('ev.elongation-low', { name: ctx.phrase(body), side: e.visibility, degrees: elongation, day: ctx.day(time) }),
         score: 0,
         data: { elongationDeg: elongation, side: evening ? 'evening' : 'morning', magnitude: magnitudeAt(body, e.time) },
       });
@@ -151,7 +147,7 @@ export function brilliancyEvents(ctx: AlmanacContext, from: Date, to: Date): Alm
   return sharedSearch(brilliancyEvents, 'venus', from, to, find, (r) => r.time.date).map((info) => {
     const time = info.time.date;
     const visibility = eventVisibility(ctx, [venus], time);
-    const look = lookWords(ctx, visibility);
+    const look = ctx.look(visibility);
     const mag = Math.round(info.mag * 10) / 10;
     const evening = Astronomy.Elongation(Astronomy.Body.Venus, info.time).visibility === 'evening';
     return {
@@ -161,8 +157,10 @@ export function brilliancyEvents(ctx: AlmanacContext, from: Date, to: Date): Alm
       names: ['Venus'],
       visible: visibility.visible,
       visibility,
-      title: 'Venus at its brightest',
-      description: `Venus is at its brightest (magnitude ${mag}) on ${ctx.day(time)}, outshining everything but the Sun and Moon in the ${evening ? 'evening' : 'morning'} sky${look ? `: ${look}` : ', though from here it stays too low to see'}.`,
+      title: ctx.words.t('ev.title.brilliancy', { name: ctx.label(venus) }),
+      description: look
+        ? ctx.words.t('ev.brilliancy', { name: ctx.phrase(venus), magnitude: mag, day: ctx.day(time), side: evening ? 'evening' : 'morning', look })
+        : ctx.words.t('ev.brilliancy-low', { name: ctx.phrase(venus), magnitude: mag, day: ctx.day(time), side: evening ? 'evening' : 'morning' }),
       score: 0,
       data: { magnitude: mag, side: evening ? 'evening' : 'morning' },
     };
@@ -194,10 +192,8 @@ export function stationEvents(ctx: AlmanacContext, from: Date, to: Date, ids: re
         names: [body.name],
         visible: visibility.visible,
         visibility,
-        title: `${body.name} stationary`,
-        description: retrograde
-          ? `${body.name} stands still against the stars on ${ctx.day(time)} and then drifts westward (retrograde) for some weeks, a slow loop you can follow night by night.`
-          : `${body.name} stands still against the stars on ${ctx.day(time)} and then resumes its usual eastward drift.`,
+        title: ctx.words.t('ev.title.stationary', { name: ctx.label(body) }),
+        description: ctx.words.t(retrograde ? 'ev.stationary-retrograde' : 'ev.stationary-direct', { name: ctx.phrase(body), day: ctx.day(time) }),
         score: 0,
         data: { motion: retrograde ? 'retrograde' : 'direct' },
       });

@@ -13,24 +13,26 @@ export function seasonEvents(ctx: AlmanacContext, from: Date, to: Date): Almanac
   const north = ctx.site.latitudeDeg >= 0;
   for (let year = from.getUTCFullYear(); year <= to.getUTCFullYear(); year++) {
     const s = Astronomy.Seasons(year);
+    const w = ctx.words;
     const items = [
-      { time: s.mar_equinox.date, type: 'equinox' as const, title: 'March equinox', text: north ? 'spring begins in the northern hemisphere and from now the nights get shorter than the days' : 'autumn begins in the southern hemisphere and from now the nights get longer than the days' },
-      { time: s.jun_solstice.date, type: 'solstice' as const, title: 'June solstice', text: north ? 'the longest day and the shortest night of the year here, with the least darkness for stargazing' : 'the shortest day and the longest night of the year here, the most hours of darkness for stargazing' },
-      { time: s.sep_equinox.date, type: 'equinox' as const, title: 'September equinox', text: north ? 'autumn begins in the northern hemisphere and from now the nights get longer than the days' : 'spring begins in the southern hemisphere and from now the nights get shorter than the days' },
-      { time: s.dec_solstice.date, type: 'solstice' as const, title: 'December solstice', text: north ? 'the shortest day and the longest night of the year here, the most hours of darkness for stargazing' : 'the longest day and the shortest night of the year here, with the least darkness for stargazing' },
+      { time: s.mar_equinox.date, type: 'equinox' as const, month: 'march', text: w.t(north ? 'ev.season.spring-north' : 'ev.season.autumn-south') },
+      { time: s.jun_solstice.date, type: 'solstice' as const, month: 'june', text: w.t(north ? 'ev.season.longest-day' : 'ev.season.shortest-day') },
+      { time: s.sep_equinox.date, type: 'equinox' as const, month: 'september', text: w.t(north ? 'ev.season.autumn-north' : 'ev.season.spring-south') },
+      { time: s.dec_solstice.date, type: 'solstice' as const, month: 'december', text: w.t(north ? 'ev.season.shortest-day' : 'ev.season.longest-day') },
     ];
     for (const item of items) {
       if (item.time < from || item.time >= to) continue;
-      const what = item.type === 'equinox' ? 'the Sun crosses the celestial equator' : `the Sun reaches its ${item.title.startsWith('June') ? 'northernmost' : 'southernmost'} point in the sky`;
+      const what = w.t(item.type === 'equinox' ? 'ev.season.equinox' : item.month === 'june' ? 'ev.season.solstice-north' : 'ev.season.solstice-south');
+      const title = w.t('ev.title.season', { month: item.month });
       out.push({
         type: item.type,
         time: item.time,
         bodies: ['sun'],
         names: ['Sun'],
         visible: true,
-        visibility: { visible: true, moment: 'event', time: item.time, altitudeDeg: null, azimuthDeg: null, reason: null, note: 'A turning point of the seasons, not a sight: nothing to look for in the sky.' },
-        title: item.title,
-        description: `${item.title} on ${ctx.when(item.time)}: ${what}; ${item.text}.`,
+        visibility: { visible: true, moment: 'event', time: item.time, altitudeDeg: null, azimuthDeg: null, reason: null, note: w.t('ev.season.note') },
+        title,
+        description: w.t('ev.season', { title, when: ctx.when(item.time), what, text: item.text }),
         score: 0,
       });
     }

@@ -14,7 +14,6 @@
  */
 import * as Astronomy from 'astronomy-engine';
 import { builtInBody } from '../../core/body.ts';
-import { compass } from '../../core/describe.ts';
 import { findCrossings, findMaximum, sharedSearch } from '../../core/search.ts';
 import { darkSkyFromQuality, nelmFromSkyBrightness } from '../../models/sky/quality.ts';
 import { extinctionCoefficientGreen } from '../../models/sky/extinction.ts';
@@ -77,10 +76,9 @@ export function solarLongitudeCrossings(longitudeDeg: number, from: Date, to: Da
     .map((c) => dateFromUt(c.ut));
 }
 
-/** Rounds a count for a reader: whole numbers below 10, then to the nearest 5. */
-function countWords(n: number): string {
-  if (n < 1) return 'fewer than one';
-  return String(n < 10 ? Math.round(n) : Math.round(n / 5) * 5);
+/** Rounds a count for a reader: whole numbers below 10, then to the nearest 5 (at least 1: callers word counts under one themselves). */
+function readerCount(n: number): number {
+  return n < 10 ? Math.max(1, Math.round(n)) : Math.round(n / 5) * 5;
 }
 
 /** Peaks of the given showers with instants in [from, to), with the site's expected counts. */
@@ -130,17 +128,25 @@ export function showerEvents(ctx: AlmanacContext, from: Date, to: Date, showers:
         moonIlluminatedFraction: moonFraction,
         moonInterferes: !!moonless && (!best || best.value < (2 / 3) * moonless.value),
       };
-      const night = `the night of ${ctx.day(frame.night.start)}`;
+      const w = ctx.words;
+      const name = ctx.label({ id: `shower:${shower.code}`, name: shower.name });
+      const night = w.t('ev.shower-night', { day: ctx.day(frame.night.start) });
       let description: string;
       let visibility;
       if (details.best && details.best.hourlyRate >= 1) {
         const b = details.best;
-        const moonText = details.moonInterferes
-          ? `; the ${Math.round(moonFraction * 100)}% lit Moon cuts that from about ${countWords(details.moonlessHourlyRate)}`
-          : moonFraction < 0.3
-            ? '; little moonlight to spoil it'
-            : '';
-        description = `The ${shower.name} peak on ${night}: from here expect about ${countWords(b.hourlyRate)} meteors an hour around ${ctx.clock(b.time)}, when the radiant in ${shower.constellation} is ${Math.round(b.radiantAltitudeDeg)}° up in the ${compass(b.radiantAzimuthDeg).word}${moonText}.`;
+        const moon = details.moonInterferes ? 'cuts' : moonFraction < 0.3 ? 'little' : 'none';
+        const place = { degrees: Math.round(b.radiantAltitudeDeg), direction: ctx.direction(b.radiantAzimuthDeg), clock: ctx.clock(b.time) };
+        description = w.t('ev.shower', {
+          name,
+          night,
+          count: readerCount(b.hourlyRate),
+          constellation: shower.constellation,
+          moon,
+          percent: w.percent(moonFraction),
+          moonless: readerCount(details.moonlessHourlyRate),
+          ...place,
+        });
         visibility = {
           visible: true,
           moment: 'night' as const,
@@ -148,14 +154,14 @@ export function showerEvents(ctx: AlmanacContext, from: Date, to: Date, showers:
           altitudeDeg: b.radiantAltitudeDeg,
           azimuthDeg: b.radiantAzimuthDeg,
           reason: null,
-          note: `Best at ${ctx.clock(b.time)}, radiant ${Math.round(b.radiantAltitudeDeg)}° up in the ${compass(b.radiantAzimuthDeg).word}; look anywhere in the sky, about 40° from the radiant.`,
+          note: w.t('ev.shower-note', place),
         };
       } else {
         // Dark at some moment: the Sun's lowest point of the night (geometric, as `isDark`) is below the darkness altitude.
         const lowest = -findMaximum((ut) => -frame.sun.at(ut).geometricAltitudeDeg, frame.ut0, frame.ut1, { stepDays: 10 / 1440 })!.value;
         const dark = lowest <= ctx.darkSunAltitudeDeg;
         visibility = hidden(ctx, dark ? 'radiant-below-horizon' : 'no-darkness');
-        description = `The ${shower.name} peak on ${night}, but ${dark ? `from here the radiant in ${shower.constellation} stays too low in the dark hours to see more than a stray meteor` : 'the sky here does not get dark enough'}.`;
+        description = dark ? w.t('ev.shower-low', { name, night, constellation: shower.constellation }) : w.t('ev.shower-no-dark', { name, night });
       }
       out.push({
         type: 'meteor-shower-peak',
@@ -164,7 +170,7 @@ export function showerEvents(ctx: AlmanacContext, from: Date, to: Date, showers:
         names: [shower.name],
         visible: visibility.visible,
         visibility,
-        title: `${shower.name} peak`,
+        title: w.t('ev.title.shower', { name }),
         description,
         score: 0,
         shower: details,

@@ -8,7 +8,6 @@
  */
 import * as Astronomy from 'astronomy-engine';
 import type { Body, Illumination } from '../../core/body.ts';
-import { compass } from '../../core/describe.ts';
 import { findCrossings, sharedSearch } from '../../core/search.ts';
 import { dateFromUt, utDays } from '../../core/track.ts';
 import { KM_PER_AU } from '../../core/observe.ts';
@@ -25,11 +24,18 @@ const DELTA_DAYS = 0.01;
  * for the same night: the verdict of the visibility model (lib/models/visibility.ts: twilight, moonlight,
  * the site's sky, skyline and findability margin) with its best time and direction, or why not.
  */
-function siteWords(ctx: AlmanacContext, body: Body, time: Date): { words: string; seen: boolean } {
+function siteWords(ctx: AlmanacContext, body: Body, time: Date): { seen: 'yes' | 'no'; verdict: string; look: string; reason: string } {
   const v = computeNight(ctx.site, nightDateOf(time, ctx.site.timeZone), [body]).body(body).visibility;
-  if (v.verdict === 'not-visible' || !v.best) return { words: `; from here it is not visible that night: ${reasonText(v.reason ?? 'too-faint', ctx.site)}`, seen: false };
-  const day = ctx.day(v.best.time) === ctx.day(time) ? '' : ` (${ctx.day(v.best.time)})`;
-  return { words: `, ${verdictWords(v.verdict)} from here; look ${compass(v.best.azimuthDeg).word} at ${ctx.clock(v.best.time)}${day}`, seen: true };
+  const w = ctx.words;
+  const gender = ctx.phrase(body).gender;
+  if (v.verdict === 'not-visible' || !v.best) return { seen: 'no', verdict: '', look: '', reason: reasonText(v.reason ?? 'too-faint', ctx.site, w, gender) };
+  const look = w.t('ev.look', { direction: ctx.direction(v.best.azimuthDeg), clock: ctx.clock(v.best.time) });
+  return {
+    seen: 'yes',
+    verdict: verdictWords(v.verdict, w, gender),
+    look: ctx.day(v.best.time) === ctx.day(time) ? look : w.t('ev.look-day', { look, day: ctx.day(v.best.time) }),
+    reason: '',
+  };
 }
 
 /** Minima of `quantity` over [from, to) as instants. */
@@ -64,17 +70,19 @@ export function smallBodyEvents(ctx: AlmanacContext, from: Date, to: Date, bodie
         const i = body.illumination(Astronomy.MakeTime(time));
         const m = i.magnitude;
         const mag = Math.round(m.value * 10) / 10;
-        const band = m.brightest !== undefined && m.faintest !== undefined ? ` (between ${m.brightest.toFixed(1)} and ${m.faintest.toFixed(1)})` : '';
+        const w = ctx.words;
+        const band = m.brightest !== undefined && m.faintest !== undefined ? { band: 'yes', brightest: w.number(m.brightest, 1), faintest: w.number(m.faintest, 1) } : { band: 'no', brightest: '', faintest: '' };
         const placed = eventVisibility(ctx, [body], time);
         const site = siteWords(ctx, body, time);
-        const visibility = placed.visible && !site.seen ? hidden(ctx, 'too-faint') : placed;
+        const visibility = placed.visible && site.seen === 'no' ? hidden(ctx, 'too-faint') : placed;
         const day = ctx.day(time);
+        const name = ctx.phrase(body);
         const what =
           type === 'perihelion'
-            ? `${body.name} is closest to the Sun (perihelion, ${i.heliocentricDistanceAu.toFixed(2)} AU) on ${day}`
+            ? w.t('ev.perihelion', { name, au: w.number(i.heliocentricDistanceAu, 2), day })
             : type === 'closest-approach-to-earth'
-              ? `${body.name} is closest to the Earth (${i.geocentricDistanceAu.toFixed(2)} AU, ${Math.round((i.geocentricDistanceAu * KM_PER_AU) / 1e6)} million km) on ${day}`
-              : `${body.name} should be at its brightest on ${day}`;
+              ? w.t('ev.closest-to-earth', { name, au: w.number(i.geocentricDistanceAu, 2), million: Math.round((i.geocentricDistanceAu * KM_PER_AU) / 1e6), day })
+              : w.t('ev.peak-brightness', { name, day });
         out.push({
           type,
           time,
@@ -82,8 +90,8 @@ export function smallBodyEvents(ctx: AlmanacContext, from: Date, to: Date, bodie
           names: [body.name],
           visible: visibility.visible,
           visibility,
-          title: type === 'perihelion' ? `${body.name} at perihelion` : type === 'closest-approach-to-earth' ? `${body.name} closest to Earth` : `${body.name} at its brightest`,
-          description: `${what}: expected magnitude ${mag}${band}${site.words}.`,
+          title: w.t('ev.title.small-body', { name: ctx.label(body), type: type === 'perihelion' ? 'perihelion' : type === 'closest-approach-to-earth' ? 'closest' : 'brightest' }),
+          description: w.t('ev.small-body', { what, magnitude: mag, ...band, ...site }),
           score: 0,
           data: { magnitude: mag, heliocentricDistanceAu: Number(i.heliocentricDistanceAu.toFixed(4)), geocentricDistanceAu: Number(i.geocentricDistanceAu.toFixed(4)) },
         });

@@ -10,7 +10,6 @@
  * near the horizon and the different heights of the comparison stars spoil the comparison). Within
  * an hour of minimum an Algol-type star is within a few tenths of a magnitude of its faintest.
  */
-import { compass } from '../../core/describe.ts';
 import { findMaximum } from '../../core/search.ts';
 import { skylineAltitudeDeg } from '../../core/site.ts';
 import { starByHip } from '../../models/stars/catalogue.ts';
@@ -29,16 +28,6 @@ export const MIN_STAR_ALTITUDE_DEG = 20;
 export const WATCH_WINDOW_HOURS = 1;
 
 /** Reader-facing words for variable-star minima, in one place (for message catalogues). */
-const WORDS = {
-  title: (star: VariableStar): string => `${star.name} at its faintest`,
-  description: (star: VariableStar, when: string, watch: string): string =>
-    `${star.name} fades from magnitude ${star.maxMagnitude.toFixed(1)} to ${star.minMagnitude.toFixed(1)} around ${when}, as its dim companion passes in front of it; ${watch}`,
-  watch: (clock: string, altitudeDeg: number, azimuthDeg: number, hours: number): string =>
-    `look ${compass(azimuthDeg).word}, ${Math.round(altitudeDeg)}° up, at ${clock} and compare it with the stars around it; it takes about ${Math.round(hours / 2)} hours to fade and as long to recover.`,
-  hidden: (reason: string): string => `from here it cannot be watched: ${reason}.`,
-  note: (clock: string, altitudeDeg: number, azimuthDeg: number): string => `Best watched at ${clock}, ${Math.round(altitudeDeg)}° up in the ${compass(azimuthDeg).word}.`,
-} as const;
-
 /** The predicted minima of every variable star in [from, to), with their visibility from the site. */
 export function variableStarEvents(ctx: AlmanacContext, from: Date, to: Date, stars: readonly VariableStar[] = VARIABLE_STARS): AlmanacEvent[] {
   const out: AlmanacEvent[] = [];
@@ -58,29 +47,31 @@ export function variableStarEvents(ctx: AlmanacContext, from: Date, to: Date, st
       // The predicted instant itself when it will do; else the watchable moment nearest to it.
       const atMinimum = margin(ut);
       const best = atMinimum >= 0 ? { ut, value: atMinimum } : findMaximum(margin, u0, u1, { stepDays: 5 / 1440 });
-      const when = `${ctx.clock(time)} on ${ctx.day(time)}`;
+      const w = ctx.words;
+      const said = { name: star.name, max: w.number(star.maxMagnitude, 1), min: w.number(star.minMagnitude, 1), when: w.t('ev.variable-when', { clock: ctx.clock(time), day: ctx.day(time) }) };
       let event: Pick<AlmanacEvent, 'visible' | 'visibility' | 'description'>;
       if (best && best.value >= 0) {
         const at = dateFromUt(best.ut);
         const p = apparentPlace(frame, body, best.ut);
+        const place = { clock: ctx.clock(at), degrees: Math.round(p.altitudeDeg), direction: ctx.direction(p.azimuthDeg) };
         event = {
           visible: true,
-          visibility: { visible: true, moment: 'event', time: at, altitudeDeg: p.altitudeDeg, azimuthDeg: p.azimuthDeg, reason: null, note: WORDS.note(ctx.clock(at), p.altitudeDeg, p.azimuthDeg) },
-          description: WORDS.description(star, when, WORDS.watch(ctx.clock(at), p.altitudeDeg, p.azimuthDeg, star.eclipseHours)),
+          visibility: { visible: true, moment: 'event', time: at, altitudeDeg: p.altitudeDeg, azimuthDeg: p.azimuthDeg, reason: null, note: w.t('ev.variable-note', place) },
+          description: w.t('ev.variable-watch', { ...said, ...place, hours: Math.round(star.eclipseHours / 2) }),
         };
       } else {
         const dark = [u0, ut, u1].some((u) => apparentPlace(frame, frame.sun.body, u).altitudeDeg <= DARK_SUN_ALTITUDE_DEG);
         const reason: EventHiddenReason = dark ? 'below-horizon' : 'daylight';
         const visibility = hidden(ctx, reason);
-        const words = reason === 'below-horizon' ? `it stands lower than ${Math.max(MIN_STAR_ALTITUDE_DEG, ctx.site.minAltitudeDeg)}° (or behind the skyline) while the sky is dark` : 'the sky is not dark then';
-        event = { visible: false, visibility: { ...visibility, note: `Not visible from ${ctx.site.name}: ${words}.` }, description: WORDS.description(star, when, WORDS.hidden(words)) };
+        const words = reason === 'below-horizon' ? w.t('ev.variable-low', { degrees: Math.max(MIN_STAR_ALTITUDE_DEG, ctx.site.minAltitudeDeg) }) : w.t('ev.variable-daylight');
+        event = { visible: false, visibility: { ...visibility, note: w.t('event-hidden.note', { site: ctx.site.name, reason: words }) }, description: w.t('ev.variable-hidden', { ...said, reason: words }) };
       }
       out.push({
         type: 'variable-minimum',
         time,
         bodies: [`variable:${star.id}`, body.id],
         names: [star.name],
-        title: WORDS.title(star),
+        title: w.t('ev.title.variable', { name: star.name }),
         score: 0,
         ...event,
         data: { maxMagnitude: star.maxMagnitude, minMagnitude: star.minMagnitude, eclipseHours: star.eclipseHours, uncertaintyMinutes: star.uncertaintyMinutes, ephemeris: star.source },

@@ -7,7 +7,7 @@
  * lowest of the bodies stands highest above its limit (`findMaximum` of lib/core/search.ts).
  */
 import type { Body } from '../../core/body.ts';
-import { compass } from '../../core/describe.ts';
+import { wordsFor } from '../../core/language/index.ts';
 import { findMaximum } from '../../core/search.ts';
 import { skylineAltitudeDeg } from '../../core/site.ts';
 import { separationDeg } from '../../core/geometry.ts';
@@ -18,16 +18,12 @@ import type { EventHiddenReason, EventVisibility } from './types.ts';
 
 /** Sampling step of the best-moment search, days (10 minutes; refined to 1 s). */
 const STEP_DAYS = 10 / 1440;
+const ENGLISH = wordsFor('en');
+const EVENT_HIDDEN_REASONS: readonly EventHiddenReason[] = ['below-horizon', 'daylight', 'too-close-to-sun', 'no-darkness', 'radiant-below-horizon', 'sun-below-horizon', 'too-faint'];
 
-export const HIDDEN_REASON_TEXT: Record<EventHiddenReason, string> = {
-  'below-horizon': 'below the horizon while the sky is dark',
-  daylight: 'it happens in daylight',
-  'too-close-to-sun': 'too close to the Sun, lost in its glare',
-  'no-darkness': 'the sky does not get dark that night',
-  'radiant-below-horizon': 'the radiant stays below the horizon during the dark hours',
-  'sun-below-horizon': 'the Sun is below the horizon for the whole eclipse',
-  'too-faint': 'too faint to see from here that night',
-};
+export const HIDDEN_REASON_TEXT: Record<EventHiddenReason, string> = Object.fromEntries(
+  EVENT_HIDDEN_REASONS.map((r) => [r, ENGLISH.t(`event-hidden.${r}`)]),
+) as Record<EventHiddenReason, string>;
 
 /** Apparent (refracted) altitude and azimuth of a body on a night's track, degrees. */
 export function apparentPlace(frame: NightFrame, body: Body, ut: number): { altitudeDeg: number; azimuthDeg: number } {
@@ -63,7 +59,7 @@ export function elongationDeg(frame: NightFrame, body: Body, ut: number): number
 
 /** The note for a moment: "21:10, 25° up in the south-west". */
 function placeWords(ctx: AlmanacContext, time: Date, altitudeDeg: number, azimuthDeg: number): string {
-  return `${ctx.clock(time)}, ${Math.round(altitudeDeg)}° up in the ${compass(azimuthDeg).word}`;
+  return ctx.words.t('ev.place', { clock: ctx.clock(time), degrees: Math.round(altitudeDeg), direction: ctx.direction(azimuthDeg) });
 }
 
 /** Cap on the altitude margin that still improves a moment near the event, degrees. */
@@ -88,7 +84,7 @@ export function eventVisibility(ctx: AlmanacContext, bodies: readonly Body[], ti
   const ut = utDays(time);
   if (isDark(ctx, frame, ut) && lowestMargin(ctx, frame, bodies, ut) >= 0) {
     const p = apparentPlace(frame, first, ut);
-    return { visible: true, moment: 'event', time, altitudeDeg: p.altitudeDeg, azimuthDeg: p.azimuthDeg, reason: null, note: `Visible at the time: ${placeWords(ctx, time, p.altitudeDeg, p.azimuthDeg)}.` };
+    return { visible: true, moment: 'event', time, altitudeDeg: p.altitudeDeg, azimuthDeg: p.azimuthDeg, reason: null, note: ctx.words.t('ev.visible-at-time', { place: placeWords(ctx, time, p.altitudeDeg, p.azimuthDeg) }) };
   }
   let anyDark = false;
   const frames = [frame];
@@ -114,7 +110,7 @@ export function eventVisibility(ctx: AlmanacContext, bodies: readonly Body[], ti
   if (best && (options.preferNear || best.value >= 0)) {
     const at = dateFromUt(best.ut);
     const p = apparentPlace(best.frame, first, best.ut);
-    const day = ctx.day(at) === ctx.day(time) ? '' : ` (${ctx.day(at)})`;
+    const day = ctx.day(at) === ctx.day(time) ? '' : ` (${ctx.day(at)})`; // the day in brackets when the best moment is on another date
     return {
       visible: true,
       moment: 'night',
@@ -122,7 +118,7 @@ export function eventVisibility(ctx: AlmanacContext, bodies: readonly Body[], ti
       altitudeDeg: p.altitudeDeg,
       azimuthDeg: p.azimuthDeg,
       reason: null,
-      note: `Not in a dark sky at that moment; best seen at ${placeWords(ctx, at, p.altitudeDeg, p.azimuthDeg)}${day}.`,
+      note: ctx.words.t('ev.best-seen-at', { place: placeWords(ctx, at, p.altitudeDeg, p.azimuthDeg) + day }),
     };
   }
   let reason: EventHiddenReason = 'below-horizon';
@@ -133,5 +129,5 @@ export function eventVisibility(ctx: AlmanacContext, bodies: readonly Body[], ti
 
 /** A not-visible verdict with its note. */
 export function hidden(ctx: AlmanacContext, reason: EventHiddenReason): EventVisibility {
-  return { visible: false, moment: 'none', time: null, altitudeDeg: null, azimuthDeg: null, reason, note: `Not visible from ${ctx.site.name}: ${HIDDEN_REASON_TEXT[reason]}.` };
+  return { visible: false, moment: 'none', time: null, altitudeDeg: null, azimuthDeg: null, reason, note: ctx.words.t('event-hidden.note', { site: ctx.site.name, reason: ctx.words.t(`event-hidden.${reason}`) }) };
 }

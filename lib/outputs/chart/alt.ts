@@ -46,7 +46,7 @@ export function wholeSkyAltText(chart: WholeSkyChart): string {
   let out = words.t('chart.whole-sky', { site: chart.site.name, clock });
   if (chart.pass) {
     out += `. ${passAltSentence(chart.pass, chart.site)}`;
-    out += phrases.length ? ` Also in view: ${phrases.join('; ')}.` : '';
+    out += phrases.length ? ` ${words.t('chart.also-in-view', { names: phrases.join('; ') })}` : '';
     return out;
   }
   out += phrases.length ? `: ${phrases.join('; ')}.` : '.';

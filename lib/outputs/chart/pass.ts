@@ -5,7 +5,7 @@
  * the visible part pointing the way it moves. The words are in `passAltSentence`, from the same
  * points.
  */
-import { compass } from '../../core/describe.ts';
+import { wordsFor } from '../../core/language/index.ts';
 import type { SatellitePass } from '../../models/satellite/passes.ts';
 import type { Site } from '../../core/site.ts';
 import type { ChartLayout } from './projection.ts';
@@ -113,8 +113,16 @@ export function passAltSentence(pass: ChartPass, site: Site): string {
   const p1 = passPointAt(pass, pass.visible.end);
   const seen = pass.track.filter((p) => p.time >= pass.visible.start && p.time <= pass.visible.end);
   const top = [p0, ...seen, p1].reduce((a, b) => (b.altitudeDeg > a.altitudeDeg ? b : a));
-  const where = (p: { altitudeDeg: number; azimuthDeg: number }): string => `${Math.round(p.altitudeDeg)}° up in the ${compass(p.azimuthDeg).word}`;
+  const w = wordsFor(site.locale);
+  const where = (p: { altitudeDeg: number; azimuthDeg: number }): string => w.t('pass.where', { degrees: Math.round(p.altitudeDeg), direction: w.compass(p.azimuthDeg).word });
   const clock = (t: Date): string => formatChartTime(t, site);
-  const highest = top === p0 || top === p1 ? '' : `, highest ${where(top)}`;
-  return `${pass.name} appears at ${clock(pass.visible.start)}, ${where(p0)}${highest}, and disappears at ${clock(pass.visible.end)}, ${where(p1)}.`;
+  return w.t('pass.alt', {
+    satellite: pass.name,
+    start: clock(pass.visible.start),
+    start_where: where(p0),
+    top: top === p0 || top === p1 ? 'no' : 'yes',
+    top_where: where(top),
+    end: clock(pass.visible.end),
+    end_where: where(p1),
+  });
 }

@@ -103,6 +103,17 @@ export const de: LanguageNames = {
     circlet: pattern('Ring der Fische', 'der Ring der Fische', 'masculine', 'dem Ring der Fische'),
   },
   bodies: {
+    // Meteor showers by IAU code (common usage, from memory).
+    'shower:QUA': body('Quadrantiden', 'die Quadrantiden', 'plural-feminine', 'den Quadrantiden'),
+    'shower:LYR': body('Lyriden', 'die Lyriden', 'plural-feminine', 'den Lyriden'),
+    'shower:ETA': body('Eta-Aquariiden', 'die Eta-Aquariiden', 'plural-feminine', 'den Eta-Aquariiden'),
+    'shower:SDA': body('Südliche Delta-Aquariiden', 'die Südliche Delta-Aquariiden', 'plural-feminine', 'den Südliche Delta-Aquariiden'),
+    'shower:PER': body('Perseiden', 'die Perseiden', 'plural-feminine', 'den Perseiden'),
+    'shower:DRA': body('Draconiden', 'die Draconiden', 'plural-feminine', 'den Draconiden'),
+    'shower:ORI': body('Orioniden', 'die Orioniden', 'plural-feminine', 'den Orioniden'),
+    'shower:LEO': body('Leoniden', 'die Leoniden', 'plural-feminine', 'den Leoniden'),
+    'shower:GEM': body('Geminiden', 'die Geminiden', 'plural-feminine', 'den Geminiden'),
+    'shower:URS': body('Ursiden', 'die Ursiden', 'plural-feminine', 'den Ursiden'),
     sun: body('Sonne', 'die Sonne', 'feminine', 'der Sonne'),
     moon: body('Mond', 'der Mond', 'masculine', 'dem Mond'),
     mercury: body('Merkur', 'Merkur', 'masculine'),

@@ -95,6 +95,17 @@ export const es: LanguageNames = {
     circlet: pattern('Anillo de Piscis', 'el Anillo de Piscis', 'masculine'),
   },
   bodies: {
+    // Meteor showers by IAU code (common usage, from memory).
+    'shower:QUA': body('Cuadrántidas', 'las Cuadrántidas', 'plural-feminine'),
+    'shower:LYR': body('Líridas', 'las Líridas', 'plural-feminine'),
+    'shower:ETA': body('eta Acuáridas', 'las eta Acuáridas', 'plural-feminine'),
+    'shower:SDA': body('delta Acuáridas del Sur', 'las delta Acuáridas del Sur', 'plural-feminine'),
+    'shower:PER': body('Perseidas', 'las Perseidas', 'plural-feminine'),
+    'shower:DRA': body('Dracónidas', 'las Dracónidas', 'plural-feminine'),
+    'shower:ORI': body('Oriónidas', 'las Oriónidas', 'plural-feminine'),
+    'shower:LEO': body('Leónidas', 'las Leónidas', 'plural-feminine'),
+    'shower:GEM': body('Gemínidas', 'las Gemínidas', 'plural-feminine'),
+    'shower:URS': body('Úrsidas', 'las Úrsidas', 'plural-feminine'),
     sun: body('Sol', 'el Sol', 'masculine'),
     moon: body('Luna', 'la Luna', 'feminine'),
     mercury: body('Mercurio', 'Mercurio', 'masculine'),

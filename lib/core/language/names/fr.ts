@@ -94,6 +94,17 @@ export const fr: LanguageNames = {
     circlet: pattern('Cercle des Poissons', 'le Cercle des Poissons', 'masculine'),
   },
   bodies: {
+    // Meteor showers by IAU code (common usage, from memory).
+    'shower:QUA': body('Quadrantides', 'les Quadrantides', 'plural-feminine'),
+    'shower:LYR': body('Lyrides', 'les Lyrides', 'plural-feminine'),
+    'shower:ETA': body('êta Aquarides', 'les êta Aquarides', 'plural-feminine'),
+    'shower:SDA': body('delta Aquarides du Sud', 'les delta Aquarides du Sud', 'plural-feminine'),
+    'shower:PER': body('Perséides', 'les Perséides', 'plural-feminine'),
+    'shower:DRA': body('Draconides', 'les Draconides', 'plural-feminine'),
+    'shower:ORI': body('Orionides', 'les Orionides', 'plural-feminine'),
+    'shower:LEO': body('Léonides', 'les Léonides', 'plural-feminine'),
+    'shower:GEM': body('Géminides', 'les Géminides', 'plural-feminine'),
+    'shower:URS': body('Ursides', 'les Ursides', 'plural-feminine'),
     sun: body('Soleil', 'le Soleil', 'masculine'),
     moon: body('Lune', 'la Lune', 'feminine'),
     mercury: body('Mercure', 'Mercure', 'masculine'),
