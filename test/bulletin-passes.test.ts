@@ -10,7 +10,9 @@ import { BodyRegistry } from '../lib/core/body.ts';
 import { addDays, isoWeekOf } from '../lib/core/time.ts';
 import { wordsFor } from '../lib/core/language/index.ts';
 import { loadSites } from '../lib/models/content.ts';
-import { passWords } from '../lib/models/satellite/words.ts';
+import { OVERHEAD_ALTITUDE_DEG, passWhere, passWords } from '../lib/models/satellite/words.ts';
+import { passNights } from '../lib/models/satellite/nights.ts';
+import { chartPassOf, passAltSentence } from '../lib/outputs/chart/pass.ts';
 import { loadSatellites } from '../lib/models/satellite/catalogue.ts';
 import { MAX_ELEMENT_AGE_DAYS } from '../lib/models/satellite/passes.ts';
 import { parseBulletin, renderBulletinSync, WeekCache } from '../lib/outputs/bulletin/index.ts';
@@ -48,4 +50,41 @@ describe('satellite passes over 52 weeks of bulletin pages', () => {
     expect(listed).toBeGreaterThan(30);
     expect(unavailable).toBeGreaterThan(40 * sites.length);
   }, 120_000);
+});
+
+describe('a pass through the zenith', () => {
+  // Near the zenith a compass word sends the eyes the wrong way: the sentence and the pass chart's
+  // caption both say "almost straight overhead" from OVERHEAD_ALTITUDE_DEG (our own choice) up, and
+  // both name the same highest point.
+  const satellites = loadSatellites('content/satellites');
+  const sites = [...loadSites('content/sites').values()];
+  /** The words of each catalogue's sentence for a pass through the zenith (golden). */
+  const OVERHEAD_WORDS: Record<string, string> = { en: 'it passes almost straight overhead', es: 'pasa casi por el cenit', de: 'zieht fast durch den Zenit', fr: 'passe presque au zénith' };
+  it('is "almost straight overhead" in the sentence and in the chart caption, never a compass direction', () => {
+    let overhead = 0;
+    let lower = 0;
+    for (const site of sites) {
+      const words = passWords(wordsFor(site.locale));
+      for (const night of passNights({ site, satellites, from: '2026-11-30', to: '2026-12-06' })) {
+        for (const pass of night.passes.filter((p) => p.recommended)) {
+          const c = pass.culmination;
+          const text = words.description(pass, (p) => p.time.toISOString(), { appears: 'fade', leaves: 'fade' });
+          const caption = passAltSentence(chartPassOf(pass), site);
+          const seenTop = c.time > pass.visible!.start.time && c.time < pass.visible!.end.time;
+          if (c.altitudeDeg >= OVERHEAD_ALTITUDE_DEG) {
+            overhead++;
+            expect(text).toContain(OVERHEAD_WORDS[wordsFor(site.locale).language]);
+            if (seenTop) expect(caption).toContain(passWhere(wordsFor(site.locale), c));
+          } else {
+            lower++;
+            expect(text).toContain(`${Math.round(c.altitudeDeg)}°`);
+            expect(text).not.toMatch(/overhead|cenit|Zenit|zénith/);
+          }
+        }
+      }
+    }
+    // The demo week has both kinds at its sites (invented element sets, content/satellites/).
+    expect(overhead).toBeGreaterThan(0);
+    expect(lower).toBeGreaterThan(0);
+  });
 });

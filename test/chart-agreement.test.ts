@@ -11,6 +11,7 @@
  * test/guide.test.ts); the boxes are the placer's estimates of the text extents.
  */
 import { wordsFor } from '../lib/core/language/index.ts';
+import { OVERHEAD_ALTITUDE_DEG, passWhere } from '../lib/models/satellite/words.ts';
 import { bodyLabel, bodyPhrase, patternLabel } from '../lib/core/language/names/index.ts';
 import { describe, expect, it } from 'vitest';
 import { BUILT_IN_IDS, builtInBody, type Body } from '../lib/core/body.ts';
@@ -148,8 +149,8 @@ describe('satellite pass charts mark the pass where its words put it', () => {
           expect(mark.label, what).toContain(formatChartTime(point.time, site));
           // The place in the site's language (the English words: "appears at 21:40, 35° up in the west-northwest").
           const w = wordsFor(site.locale);
-          expect(alt, what).toContain(`${formatChartTime(point.time, site)}, ${w.t('pass.where', { degrees: Math.round(point.altitudeDeg), direction: w.compass(point.azimuthDeg).word })}`);
-          if (site.locale.startsWith('en')) expect(alt, what).toContain(`${kind} at ${formatChartTime(point.time, site)}, ${Math.round(point.altitudeDeg)}° up in the ${compass(point.azimuthDeg).word}`);
+          expect(alt, what).toContain(`${formatChartTime(point.time, site)}, ${passWhere(w, point)}`);
+          if (site.locale.startsWith('en') && point.altitudeDeg < OVERHEAD_ALTITUDE_DEG) expect(alt, what).toContain(`${kind} at ${formatChartTime(point.time, site)}, ${Math.round(point.altitudeDeg)}° up in the ${compass(point.azimuthDeg).word}`);
           // Where it is drawn: the projection of the pass's own alt-az (the track is interpolated between points 1/40 of the pass apart).
           const q = chart.layout.toChart(point.altitudeDeg, point.azimuthDeg)!;
           expect(Math.hypot(mark.x - q.x, mark.y - q.y), `${what}: ${kind} drawn at its place`).toBeLessThan(1.5);

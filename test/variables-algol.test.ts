@@ -8,6 +8,9 @@ import * as Astronomy from 'astronomy-engine';
 import * as solar from 'astronomia/solar';
 import { describe, expect, it } from 'vitest';
 import { findEvents } from '../lib/outputs/almanac/index.ts';
+import { parseBulletin, renderBulletinSync, WeekCache } from '../lib/outputs/bulletin/index.ts';
+import { BodyRegistry } from '../lib/core/body.ts';
+import { isoWeekOf } from '../lib/core/time.ts';
 import { DARK_SUN_ALTITUDE_DEG, MIN_STAR_ALTITUDE_DEG } from '../lib/outputs/almanac/variables.ts';
 import { loadSites } from '../lib/models/content.ts';
 import { starByHip } from '../lib/models/stars/catalogue.ts';
@@ -120,5 +123,20 @@ describe('variable-minimum events', () => {
         expect(e.visibility.reason).toMatch(/^(daylight|below-horizon)$/);
       }
     }
+  });
+
+  it('a hidden minimum says once why it cannot be watched, in its sentence and in the bulletin list', () => {
+    const hiddenOnes = events.filter((e) => !e.visible);
+    expect(hiddenOnes.length).toBeGreaterThan(0);
+    const count = (text: string, part: string): number => text.split(part).length - 1;
+    for (const e of hiddenOnes) {
+      expect(count(e.description, 'Not visible from Harbour Roof Terrace: '), e.description).toBe(1);
+      expect(e.description.endsWith(e.visibility.note), e.description).toBe(true);
+    }
+    // The week of 30 November 2026 has a minimum in daylight (Sat 5 Dec, 15:24 local).
+    const page = renderBulletinSync(parseBulletin('---\ntitle: Events\nsites: all\nschedule: { every: week, past: 0, future: 0 }\n---\n\n::events\n', 'events.md'), { site: harbour, week: isoWeekOf('2026-12-04'), bodies: new BodyRegistry() }, new WeekCache());
+    const items = [...page.html.matchAll(/<li data-type="variable-minimum" data-visible="false"[^>]*>(.*?)<\/li>/g)].map((m) => m[1]!.replace(/<[^>]+>/g, ''));
+    expect(items.length).toBeGreaterThan(0);
+    for (const item of items) expect(count(item, 'the sky is not dark then') + count(item, 'while the sky is dark'), item).toBe(1);
   });
 });

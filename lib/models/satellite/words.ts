@@ -10,10 +10,22 @@ import { MAX_ELEMENT_AGE_DAYS, type PassPoint, type SatellitePass } from './pass
 /** How a pass starts or ends being seen: at the skyline, at the Earth's shadow, or by fading (distance, twilight). */
 export type PassEdge = 'skyline' | 'shadow' | 'fade';
 
+/**
+ * Above this apparent altitude a point of a pass is "almost straight overhead" rather than "in the
+ * north-west": near the zenith a compass direction sends the reader's eyes the wrong way (at 88°
+ * the azimuth swings through half the horizon within seconds). Our own choice, degrees.
+ */
+export const OVERHEAD_ALTITUDE_DEG = 85;
+
+/** Where a point of a pass is, in words: "40° up in the south", or "88° up, almost straight overhead". */
+export function passWhere(w: Words, p: { altitudeDeg: number; azimuthDeg: number }): string {
+  return w.t('pass.where', { degrees: Math.round(p.altitudeDeg), direction: w.compass(p.azimuthDeg).word, overhead: p.altitudeDeg >= OVERHEAD_ALTITUDE_DEG ? 'yes' : 'no' });
+}
+
 /** The pass phrases in one language. */
 export function passWords(w: Words) {
   const magnitude = (value: number): string => w.number(Math.round(value * 10) / 10, 1);
-  const where = (p: PassPoint): string => w.t('pass.where', { degrees: Math.round(p.altitudeDeg), direction: w.compass(p.azimuthDeg).word });
+  const where = (p: PassPoint): string => passWhere(w, p);
   return {
     /** Lead of the site's tonight line. */
     tonight: w.t('pass.tonight'),
@@ -65,6 +77,7 @@ export function passWords(w: Words) {
         start_where: where(seen.start),
         top: Math.round(pass.culmination.altitudeDeg),
         top_direction: w.compass(pass.culmination.azimuthDeg).word,
+        top_overhead: pass.culmination.altitudeDeg >= OVERHEAD_ALTITUDE_DEG ? 'yes' : 'no',
         leaves: edges.leaves,
         end: clock(seen.end),
         end_where: where(seen.end),

@@ -64,7 +64,10 @@ export function variableStarEvents(ctx: AlmanacContext, from: Date, to: Date, st
         const reason: EventHiddenReason = dark ? 'below-horizon' : 'daylight';
         const visibility = hidden(ctx, reason);
         const words = reason === 'below-horizon' ? w.t('ev.variable-low', { degrees: Math.max(MIN_STAR_ALTITUDE_DEG, ctx.site.minAltitudeDeg) }) : w.t('ev.variable-daylight');
-        event = { visible: false, visibility: { ...visibility, note: w.t('event-hidden.note', { site: ctx.site.name, reason: words }) }, description: w.t('ev.variable-hidden', { ...said, reason: words }) };
+        // What happens, then why it cannot be watched from here: the note ends the sentence (as an
+        // occultation's does), so a list that adds a hidden event's note does not say it twice.
+        const note = w.t('event-hidden.note', { site: ctx.site.name, reason: words });
+        event = { visible: false, visibility: { ...visibility, note }, description: `${w.t('ev.variable-hidden', said)} ${note}` };
       }
       out.push({
         type: 'variable-minimum',

@@ -7,6 +7,7 @@
  */
 import { wordsFor } from '../../core/language/index.ts';
 import type { SatellitePass } from '../../models/satellite/passes.ts';
+import { passWhere } from '../../models/satellite/words.ts';
 import type { Site } from '../../core/site.ts';
 import type { ChartLayout } from './projection.ts';
 import { COLOURS } from './style.ts';
@@ -23,12 +24,14 @@ export interface ChartPass {
   visible: { start: Date; best: Date; end: Date };
   /** Expected magnitude at its best moment. */
   magnitude: number;
+  /** The highest point of the whole pass (seen or not). */
+  culmination: { time: Date; altitudeDeg: number; azimuthDeg: number };
 }
 
 /** The chart's view of a pass with a verdict (one with a `visible` span and a track). */
 export function chartPassOf(pass: SatellitePass): ChartPass {
   const seen = pass.visible!;
-  return { name: pass.satellite.name, track: pass.track, visible: { start: seen.start.time, best: seen.best.time, end: seen.end.time }, magnitude: seen.best.magnitude ?? Number.NaN };
+  return { name: pass.satellite.name, track: pass.track, visible: { start: seen.start.time, best: seen.best.time, end: seen.end.time }, magnitude: seen.best.magnitude ?? Number.NaN, culmination: { time: pass.culmination.time, altitudeDeg: pass.culmination.altitudeDeg, azimuthDeg: pass.culmination.azimuthDeg } };
 }
 
 /** The point of the track at `time`, interpolated linearly in altitude and azimuth (the track is dense). */
@@ -112,9 +115,12 @@ export function passAltSentence(pass: ChartPass, site: Site): string {
   const p0 = passPointAt(pass, pass.visible.start);
   const p1 = passPointAt(pass, pass.visible.end);
   const seen = pass.track.filter((p) => p.time >= pass.visible.start && p.time <= pass.visible.end);
-  const top = [p0, ...seen, p1].reduce((a, b) => (b.altitudeDeg > a.altitudeDeg ? b : a));
+  // The highest point seen: the culmination when it is seen (as the pass's sentence says), else the highest point drawn.
+  const c = pass.culmination;
+  const culminates = c.time > pass.visible.start && c.time < pass.visible.end;
+  const top = culminates ? c : [p0, ...seen, p1].reduce((a, b) => (b.altitudeDeg > a.altitudeDeg ? b : a));
   const w = wordsFor(site.locale);
-  const where = (p: { altitudeDeg: number; azimuthDeg: number }): string => w.t('pass.where', { degrees: Math.round(p.altitudeDeg), direction: w.compass(p.azimuthDeg).word });
+  const where = (p: { altitudeDeg: number; azimuthDeg: number }): string => passWhere(w, p);
   const clock = (t: Date): string => formatChartTime(t, site);
   return w.t('pass.alt', {
     satellite: pass.name,

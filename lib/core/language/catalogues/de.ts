@@ -171,12 +171,12 @@ export const de: Catalogue = {
   'pass.more': '… und {count, plural, one {ein schwächerer Überflug} other {# schwächere Überflüge}}.',
   'pass.no-chart': 'Keine Karte des Überflugs ({why}).',
   'pass.short': '{satellite}, von {from} nach {to}, bis {degrees}° hoch, Helligkeit {magnitude} mag',
-  'pass.where': '{degrees}° hoch im {direction}',
+  'pass.where': '{overhead, select, yes {{degrees}° hoch, fast im Zenit} other {{degrees}° hoch im {direction}}}',
   'pass.title': 'Überflug: {satellite}',
   'pass.note': 'Sichtbar von {start} bis {end}, am besten um {best}, {where}.',
   'pass.alt': '{satellite} erscheint um {start}, {start_where}{top, select, yes {, am höchsten {top_where}} other {}}, und verschwindet um {end}, {end_where}.',
   'pass.description':
-    '{satellite} {appears, select, skyline {steigt über den Horizont} shadow {tritt aus dem Erdschatten} other {erscheint}} um {start}, {start_where}, steigt bis {top}° im {top_direction} und {leaves, select, skyline {sinkt unter den Horizont} shadow {verschwindet im Erdschatten} other {verblasst}} um {end}, {end_where}. Größte Helligkeit {magnitude} mag.',
+    '{satellite} {appears, select, skyline {steigt über den Horizont} shadow {tritt aus dem Erdschatten} other {erscheint}} um {start}, {start_where}, {top_overhead, select, yes {zieht fast durch den Zenit} other {steigt bis {top}° im {top_direction}}} und {leaves, select, skyline {sinkt unter den Horizont} shadow {verschwindet im Erdschatten} other {verblasst}} um {end}, {end_where}. Größte Helligkeit {magnitude} mag.',
 
   // Ereignisse am Himmel (lib/outputs/almanac/).
   'ev.when': '{day} um {clock}',
@@ -266,7 +266,7 @@ export const de: Catalogue = {
   'ev.variable-when': '{clock} am {day}',
   'ev.variable-watch':
     '{name} wird gegen {when} von {max} auf {min} mag schwächer, wenn sein lichtschwacher Begleiter vor ihm vorüberzieht; schauen Sie um {clock} nach {direction}, {degrees}° hoch, und vergleichen Sie ihn mit den Sternen ringsum; das Abschwächen dauert etwa {hours, plural, one {eine Stunde} other {# Stunden}} und die Erholung ebenso lange.',
-  'ev.variable-hidden': '{name} wird gegen {when} von {max} auf {min} mag schwächer, wenn sein lichtschwacher Begleiter vor ihm vorüberzieht; von hier aus ist das nicht zu verfolgen: {reason}.',
+  'ev.variable-hidden': '{name} wird gegen {when} von {max} auf {min} mag schwächer, wenn sein lichtschwacher Begleiter vor ihm vorüberzieht.',
   'ev.variable-note': 'Am besten um {clock}, {degrees}° hoch im {direction}.',
   'ev.variable-low': 'er steht bei dunklem Himmel tiefer als {degrees}° (oder hinter der Horizontlinie)',
   'ev.variable-daylight': 'der Himmel ist dann nicht dunkel',

@@ -182,12 +182,12 @@ export const en = {
   'pass.more': '… and {count, plural, one {# fainter pass} other {# fainter passes}}.',
   'pass.no-chart': 'No pass chart ({why}).',
   'pass.short': '{satellite}, {from} to {to}, up to {degrees}°, magnitude {magnitude}',
-  'pass.where': '{degrees}° up in the {direction}',
+  'pass.where': '{overhead, select, yes {{degrees}° up, almost straight overhead} other {{degrees}° up in the {direction}}}',
   'pass.title': '{satellite} passes over',
   'pass.note': 'Visible from {start} to {end}, best at {best}, {where}.',
   'pass.alt': '{satellite} appears at {start}, {start_where}{top, select, yes {, highest {top_where}} other {}}, and disappears at {end}, {end_where}.',
   'pass.description':
-    "{satellite} {appears, select, skyline {rises over the skyline} shadow {comes out of the Earth's shadow} other {appears}} at {start}, {start_where}; it climbs to {top}° in the {top_direction} and {leaves, select, skyline {sinks below the skyline} shadow {fades into the Earth's shadow} other {fades from view}} at {end}, {end_where}. Magnitude {magnitude} at its brightest.",
+    "{satellite} {appears, select, skyline {rises over the skyline} shadow {comes out of the Earth's shadow} other {appears}} at {start}, {start_where}; {top_overhead, select, yes {it passes almost straight overhead} other {it climbs to {top}° in the {top_direction}}} and {leaves, select, skyline {sinks below the skyline} shadow {fades into the Earth's shadow} other {fades from view}} at {end}, {end_where}. Magnitude {magnitude} at its brightest.",
 
   // The sky's events (lib/outputs/almanac/): sentences, titles and notes, in local time.
   'ev.when': '{day} at {clock}',
@@ -277,7 +277,7 @@ export const en = {
   'ev.variable-when': '{clock} on {day}',
   'ev.variable-watch':
     '{name} fades from magnitude {max} to {min} around {when}, as its dim companion passes in front of it; look {direction}, {degrees}° up, at {clock} and compare it with the stars around it; it takes about {hours, plural, one {# hour} other {# hours}} to fade and as long to recover.',
-  'ev.variable-hidden': '{name} fades from magnitude {max} to {min} around {when}, as its dim companion passes in front of it; from here it cannot be watched: {reason}.',
+  'ev.variable-hidden': '{name} fades from magnitude {max} to {min} around {when}, as its dim companion passes in front of it.',
   'ev.variable-note': 'Best watched at {clock}, {degrees}° up in the {direction}.',
   'ev.variable-low': 'it stands lower than {degrees}° (or behind the skyline) while the sky is dark',
   'ev.variable-daylight': 'the sky is not dark then',

@@ -177,12 +177,12 @@ export const es: Catalogue = {
   'pass.more': '… y {count, plural, one {# paso más débil} other {# pasos más débiles}}.',
   'pass.no-chart': 'Sin carta del paso ({why}).',
   'pass.short': '{satellite}, de {from} a {to}, hasta {degrees}°, magnitud {magnitude}',
-  'pass.where': 'a {degrees}° de altura en el {direction}',
+  'pass.where': '{overhead, select, yes {a {degrees}° de altura, casi en el cenit} other {a {degrees}° de altura en el {direction}}}',
   'pass.title': 'Paso de {satellite}',
   'pass.note': 'Visible de {start} a {end}, mejor a las {best}, {where}.',
   'pass.alt': '{satellite} aparece a las {start}, {start_where}{top, select, yes {, alcanza su punto más alto {top_where}} other {}}, y desaparece a las {end}, {end_where}.',
   'pass.description':
-    '{satellite} {appears, select, skyline {asoma sobre el horizonte} shadow {sale de la sombra de la Tierra} other {aparece}} a las {start}, {start_where}; sube hasta {top}° en el {top_direction} y {leaves, select, skyline {se oculta tras el horizonte} shadow {se apaga al entrar en la sombra de la Tierra} other {se pierde de vista}} a las {end}, {end_where}. Magnitud {magnitude} en su máximo brillo.',
+    '{satellite} {appears, select, skyline {asoma sobre el horizonte} shadow {sale de la sombra de la Tierra} other {aparece}} a las {start}, {start_where}; {top_overhead, select, yes {pasa casi por el cenit} other {sube hasta {top}° en el {top_direction}}} y {leaves, select, skyline {se oculta tras el horizonte} shadow {se apaga al entrar en la sombra de la Tierra} other {se pierde de vista}} a las {end}, {end_where}. Magnitud {magnitude} en su máximo brillo.',
 
   // Fenómenos del cielo (lib/outputs/almanac/).
   'ev.when': '{day} a las {clock}',
@@ -272,7 +272,7 @@ export const es: Catalogue = {
   'ev.variable-when': '{clock} del {day}',
   'ev.variable-watch':
     '{name} baja de magnitud {max} a {min} hacia las {when}, cuando su tenue compañera pasa por delante; mire hacia el {direction}, a {degrees}° de altura, a las {clock} y compárela con las estrellas de alrededor; tarda unas {hours, plural, one {# hora} other {# horas}} en apagarse y otro tanto en recuperarse.',
-  'ev.variable-hidden': '{name} baja de magnitud {max} a {min} hacia las {when}, cuando su tenue compañera pasa por delante; desde aquí no se puede seguir: {reason}.',
+  'ev.variable-hidden': '{name} baja de magnitud {max} a {min} hacia las {when}, cuando su tenue compañera pasa por delante.',
   'ev.variable-note': 'Mejor a las {clock}, a {degrees}° de altura en el {direction}.',
   'ev.variable-low': 'está por debajo de {degrees}° (o tras el perfil del horizonte) mientras el cielo está oscuro',
   'ev.variable-daylight': 'el cielo no está oscuro a esa hora',

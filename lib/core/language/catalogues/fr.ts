@@ -174,12 +174,12 @@ export const fr: Catalogue = {
   'pass.more': '… et {count, plural, one {# passage plus faible} other {# passages plus faibles}}.',
   'pass.no-chart': 'Pas de carte du passage ({why}).',
   'pass.short': '{satellite}, de {from} à {to}, jusqu’à {degrees}°, magnitude {magnitude}',
-  'pass.where': 'à {degrees}° de hauteur vers {direction}',
+  'pass.where': '{overhead, select, yes {à {degrees}° de hauteur, presque au zénith} other {à {degrees}° de hauteur vers {direction}}}',
   'pass.title': 'Passage de {satellite}',
   'pass.note': 'Visible de {start} à {end}, au mieux à {best}, {where}.',
   'pass.alt': '{satellite} apparaît à {start}, {start_where}{top, select, yes {, au plus haut {top_where}} other {}}, et disparaît à {end}, {end_where}.',
   'pass.description':
-    '{satellite} {appears, select, skyline {se lève au-dessus de l’horizon} shadow {sort de l’ombre de la Terre} other {apparaît}} à {start}, {start_where}, monte jusqu’à {top}° vers {top_direction} et {leaves, select, skyline {passe sous l’horizon} shadow {s’éteint dans l’ombre de la Terre} other {disparaît}} à {end}, {end_where}. Magnitude {magnitude} au plus brillant.',
+    '{satellite} {appears, select, skyline {se lève au-dessus de l’horizon} shadow {sort de l’ombre de la Terre} other {apparaît}} à {start}, {start_where}, {top_overhead, select, yes {passe presque au zénith} other {monte jusqu’à {top}° vers {top_direction}}} et {leaves, select, skyline {passe sous l’horizon} shadow {s’éteint dans l’ombre de la Terre} other {disparaît}} à {end}, {end_where}. Magnitude {magnitude} au plus brillant.',
 
   // Événements du ciel (lib/outputs/almanac/).
   'ev.when': '{day} à {clock}',
@@ -269,7 +269,7 @@ export const fr: Catalogue = {
   'ev.variable-when': '{clock} le {day}',
   'ev.variable-watch':
     '{name} faiblit de la magnitude {max} à {min} vers {when}, quand son pâle compagnon passe devant elle\u202f; regardez vers {direction}, à {degrees}° de hauteur, à {clock} et comparez-la aux étoiles voisines\u202f; elle met environ {hours, plural, one {# heure} other {# heures}} à faiblir et autant à se rétablir.',
-  'ev.variable-hidden': '{name} faiblit de la magnitude {max} à {min} vers {when}, quand son pâle compagnon passe devant elle\u202f; d’ici, impossible de la suivre\u00a0: {reason}.',
+  'ev.variable-hidden': '{name} faiblit de la magnitude {max} à {min} vers {when}, quand son pâle compagnon passe devant elle.',
   'ev.variable-note': 'À suivre au mieux à {clock}, à {degrees}° de hauteur vers {direction}.',
   'ev.variable-low': 'elle reste sous {degrees}° de hauteur (ou derrière le relief) tant que le ciel est noir',
   'ev.variable-daylight': 'le ciel n’est pas noir à ce moment',
