@@ -44,7 +44,9 @@ function element(html: string, name: string): { tag: string; attrs: Record<strin
 
 function clock(instant: Date, site: Site): string {
   const rounded = new Date(Math.round(instant.getTime() / 60_000) * 60_000);
-  return new Intl.DateTimeFormat(site.locale, { timeZone: site.timeZone, hour: site.locale === 'en-US' || site.locale === 'en-AU' ? 'numeric' : '2-digit', minute: '2-digit', hourCycle: new Intl.DateTimeFormat(site.locale, { hour: 'numeric' }).resolvedOptions().hourCycle === 'h23' ? 'h23' : 'h12' }).format(rounded);
+  return new Intl.DateTimeFormat(site.locale, { timeZone: site.timeZone, hour: site.locale === 'en-US' || site.locale === 'en-AU' ? 'numeric' : '2-digit', minute: '2-digit', hourCycle: new Intl.DateTimeFormat(site.locale, { hour: 'numeric' }).resolvedOptions().hourCycle === 'h23' ? 'h23' : 'h12' })
+    .format(rounded)
+    .replace(/\s/g, '\u00a0'); // pages join a time's parts with no-break spaces ("4:59 pm" never wraps)
 }
 
 describe('every placeholder covered', () => {

@@ -8,6 +8,13 @@
  */
 import { describe, expect, it } from 'vitest';
 import { endSentence, firstSentence, splitSentences, tidyPunctuation, wordsFor } from '../lib/core/language/index.ts';
+import { formatClock } from '../lib/core/time.ts';
+import { loadSites } from '../lib/models/content.ts';
+import { loadSatellites } from '../lib/models/satellite/catalogue.ts';
+import { passNights, recommendedPasses } from '../lib/models/satellite/nights.ts';
+import { findEvents } from '../lib/outputs/almanac/index.ts';
+import { passEvent } from '../lib/outputs/almanac/satellite-passes.ts';
+import { formatChartTime } from '../lib/outputs/chart/words.ts';
 
 const es = wordsFor('es-CL');
 const de = wordsFor('de-DE');
@@ -153,5 +160,58 @@ describe('a fixed night in four languages: Jupiter beside Regulus, 30 November 2
     expect(guidePhrase(g.said, es)).toMatch(/^a unos \d+° \(unos? \d* ?dedos?\) (a la (izquierda|derecha)|(arriba|abajo) a la (izquierda|derecha)|por (encima|debajo)) de Regulus, en la Hoz de Leo$/);
     expect(guidePhrase(g.said, de)).toMatch(/^etwa \d+° \(etwa (ein|\d+) Finger\) (links|rechts|über|unter|(links|rechts) (ober|unter)halb von)( von)? Regulus, in der Sichel des Löwen$/);
     expect(guidePhrase(g.said, fr)).toMatch(/^à environ \d+° \(environ (un|\d+) doigts?\) (à (gauche|droite)|en (haut|bas) à (gauche|droite)|au-dessus|au-dessous) de Regulus, dans la Faucille du Lion$/);
+  });
+});
+
+describe("the sky's events and satellite passes in each language (cerro-lucero's place, week of 30 November 2026)", () => {
+  // The last-quarter Moon of 1 December 2026 (its instant is checked against astronomia's Meeus ch. 49 in
+  // test/almanac-reference.test.ts); here the words around it, per language (common usage, from memory).
+  const site = loadSites('content/sites').get('cerro-lucero')!;
+  const lastQuarter = (locale: string) => {
+    const s = { ...site, locale };
+    const [e] = findEvents({ site: s, from: new Date('2026-11-30T12:00:00Z'), to: new Date('2026-12-07T12:00:00Z'), options: { types: ['last-quarter'] } });
+    return { e: e!, clock: formatClock(e!.time, s) };
+  };
+  it('English keeps its sentence', () => {
+    const { e, clock } = lastQuarter('en-GB');
+    expect(e.title).toBe('Last-quarter Moon');
+    expect(e.description.startsWith(`Last-quarter Moon on Tue 1 Dec at ${clock}: it rises `)).toBe(true);
+  });
+  it('Spanish, German and French say the phase, the day and the clock time their own way', () => {
+    const es = lastQuarter('es-CL');
+    expect(es.e.title).toBe('Cuarto menguante');
+    expect(es.e.description.startsWith(`Cuarto menguante el mar, 1 dic a las ${es.clock}: sale a las `)).toBe(true);
+    expect(es.e.description).not.toMatch(/\b(the|rises|Moon|sky)\b/);
+    const de = lastQuarter('de-DE');
+    expect(de.e.title).toBe('Letztes Viertel');
+    expect(de.e.description.startsWith(`Letztes Viertel am Di., 1. Dez. um ${de.clock}: Der Mond geht um `)).toBe(true);
+    const fr = lastQuarter('fr-FR');
+    expect(fr.e.title).toBe('Dernier quartier');
+    expect(fr.e.description.startsWith(`Dernier quartier le mar. 1 déc. à ${fr.clock}\u00a0: la Lune se lève à `)).toBe(true);
+  });
+  it('a Spanish pass sentence: where it appears and goes, in Spanish words, with "a las" and unbroken clock times', () => {
+    const satellites = loadSatellites('content/satellites');
+    const passes = recommendedPasses(passNights({ site, satellites, from: '2026-11-30', to: '2026-12-06' }));
+    expect(passes.length).toBeGreaterThan(0);
+    for (const p of passes) {
+      const text = passEvent(p, site).description;
+      expect(text).toMatch(
+        /^Demo [\p{L} ]+? (aparece|asoma sobre el horizonte|sale de la sombra de la Tierra) a las? \d{1,2}:\d\d\u00a0[ap]\.\u00a0m\., a \d+° de altura en el \p{L}+; (sube hasta \d+° en el \p{L}+|pasa casi por el cenit) y (se oculta tras el horizonte|se apaga al entrar en la sombra de la Tierra|se pierde de vista) a las? \d{1,2}:\d\d\u00a0[ap]\.\u00a0m\., a \d+° de altura en el \p{L}+\. Magnitud −?\d+,\d en su máximo brillo\.$/u,
+      );
+    }
+  });
+});
+
+describe('clock times never wrap inside', () => {
+  // A no-break space (U+00A0, line-break class GL in Unicode UAX #14) forbids a break on either side (from memory).
+  it('"8:10 p. m." and "8:10 PM" are joined by no-break spaces, in pages, captions and alt text alike', () => {
+    const at = new Date('2026-12-04T23:10:00Z');
+    expect(formatClock(at, { locale: 'es-CL', timeZone: 'America/Santiago' })).toBe('8:10\u00a0p.\u00a0m.');
+    expect(formatClock(at, { locale: 'en-US', timeZone: 'America/Santiago' })).toBe('8:10\u00a0PM');
+    expect(formatChartTime(at, { locale: 'es-CL', timeZone: 'America/Santiago' })).not.toMatch(/[ \t]/);
+    // Splitting a caption never cuts inside the time (a sentence ending in "p. m." stays joined to the next).
+    const caption = `${endSentence(`Mirando hacia el oeste a las ${formatClock(at, { locale: 'es-CL', timeZone: 'America/Santiago' })}`)} Júpiter a 20° de altura.`;
+    expect(firstSentence(caption, 'es').startsWith('Mirando hacia el oeste a las 8:10\u00a0p.\u00a0m.')).toBe(true);
+    expect(splitSentences(caption, 'es').some((x) => /\bp\.$/.test(x))).toBe(false);
   });
 });

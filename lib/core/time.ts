@@ -326,7 +326,8 @@ export function roundInstant(instant: Date, precision: TimePrecision): Date {
 /**
  * Wall-clock time of `instant` in a site's zone and locale, rounded: `16:29` and `04:16` on a
  * 24-hour clock (two-digit hours), `4:29 pm` on a 12-hour one, `16:29:35` to the second. The clock
- * defaults to the locale's. The one clock formatter for pages, charts and alt text.
+ * defaults to the locale's. The one clock formatter for pages, charts and alt text. Spaces inside
+ * the time are no-break spaces (U+00A0), so "8:10 p. m." never wraps between its parts.
  */
 export function formatClock(instant: Date, site: { locale: string; timeZone: string }, options: { clock?: Clock; precision?: TimePrecision } = {}): string {
   const clock = options.clock ?? defaultClock(site.locale);
@@ -340,5 +341,5 @@ export function formatClock(instant: Date, site: { locale: string; timeZone: str
       hourCycle: clock === 24 ? 'h23' : 'h12',
     }),
   );
-  return f.format(roundInstant(instant, precision));
+  return f.format(roundInstant(instant, precision)).replace(/\s/g, '\u00a0');
 }
