@@ -56,7 +56,7 @@ const EXTRA = [
 const DOUBLES = [
   { id: 'β Cyg', slug: 'albireo', hips: [95947, 95951], names: { en: 'Albireo', es: 'Albireo', de: 'Albireo', fr: 'Albireo' } },
   { id: 'ζ UMa + 80 UMa', slug: 'mizar-alcor', hips: [65378, 65477], names: { en: 'Mizar and Alcor', es: 'Mizar y Alcor', de: 'Mizar und Alcor', fr: 'Mizar et Alcor' } },
-  { id: 'ε Lyr', slug: 'epsilon-lyrae', hips: [91919, 91926], names: { en: 'the Double Double', es: 'la Doble Doble', de: 'der Doppel-Doppelstern', fr: 'la Double Double' } },
+  { id: 'ε Lyr', slug: 'epsilon-lyrae', hips: [91919, 91926], names: { en: 'Double Double', es: 'Doble Doble', de: 'Doppel-Doppelstern', fr: 'Double Double' } },
   { id: 'γ Del', slug: 'gamma-delphini', hips: [102532, 102531], names: {} },
 ] as const;
 

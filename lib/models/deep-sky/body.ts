@@ -42,9 +42,14 @@ export interface DeepSkyObject {
 const FAR_AU = 1e10;
 const RAD = Math.PI / 180;
 
-/** A reader's name: "M 31 (Andromeda Galaxy)", or the designation alone when the language has no name. */
+/**
+ * A reader's name: "M 31 (Andromeda Galaxy)", or the designation alone when the language has no
+ * name. Objects of the lesser-known catalogues (Collinder, Caldwell, PGC) and double stars lead
+ * with their name: "Large Magellanic Cloud (PGC 17223)", "Albireo (β Cyg)".
+ */
 function displayName(object: DeepSkyObject, name: string | undefined): string {
-  return name ? `${object.id} (${name})` : object.id;
+  if (!name) return object.id;
+  return /^(M|NGC|IC) /.test(object.id) ? `${object.id} (${name})` : `${name} (${object.id})`;
 }
 
 /**

@@ -8,7 +8,9 @@
  * - *high enough*: at least `WELL_PLACED_ALTITUDE_DEG` (30°) up at some moment of that dark span,
  *   sampled every 10 minutes (common practice: below about 30° extinction and the low sky's glow
  *   dim faint, extended objects quickly).
- * - *recommended*: the object's verdict for the night (`lib/models/visibility.ts`, Crumey's
+ * - *recommended*: at some sampled moment of that dark span an aid shows it (the small
+ *   telescope's margin reaches the required margin; a screen that skips the full computation for
+ *   the rest), and the object's verdict for the night (`lib/models/visibility.ts`, Crumey's
  *   threshold for extended objects, so the Moon and light pollution count) is an aid, within the
  *   viewing hours.
  * - *best first*: least optical aid first (naked eye, binoculars, telescope), then the larger
@@ -16,6 +18,7 @@
  */
 import { utDays } from '../../core/track.ts';
 import type { BodyNight, NightReport } from '../night.ts';
+import { DEFAULT_INSTRUMENTS } from '../sky/threshold.ts';
 import { darkestUt, viewingSpan } from '../visibility.ts';
 import { deepSkyBody, deepSkyObjects, type DeepSkyObject } from './catalogue.ts';
 
@@ -25,6 +28,8 @@ export const WELL_PLACED_ALTITUDE_DEG = 30;
 const DARK_SUN_ALTITUDE_DEG = -18;
 const SAMPLE_DAYS = 10 / 1440;
 const AID_ORDER = ['naked-eye', 'binoculars', 'telescope'];
+/** The aid that shows the most, for the screen: an object it cannot show in the dark is left out before its full night is computed. */
+const STRONGEST_AID = DEFAULT_INSTRUMENTS.telescope;
 
 /** A well-placed object: its catalogue row and its night (verdict, best time, window, guide). */
 export interface PlacedObject {
@@ -65,9 +70,17 @@ export function wellPlaced(report: NightReport, options: { limit?: number } = {}
   deepSkyObjects().forEach((object, order) => {
     const body = deepSkyBody(object);
     const track = report.frame.track(body);
+    const samples: number[] = [];
     let high = false;
-    for (let ut = dark.ut0; ut <= dark.ut1 + 1e-9 && !high; ut += SAMPLE_DAYS) high = track.apparentAltitudeDeg(Math.min(ut, dark.ut1)) >= WELL_PLACED_ALTITUDE_DEG;
+    for (let ut = dark.ut0; ut <= dark.ut1 + 1e-9; ut += SAMPLE_DAYS) {
+      const at = Math.min(ut, dark.ut1);
+      samples.push(at);
+      high ||= track.apparentAltitudeDeg(at) >= WELL_PLACED_ALTITUDE_DEG;
+    }
     if (!high) return;
+    // Screen: an object that no aid shows at any sampled dark moment is not worth its full night.
+    const margin = report.sky.marginFunction(body, STRONGEST_AID, object.mag);
+    if (!samples.some((ut) => margin(ut) >= 0)) return;
     const night = report.body(body);
     const v = night.visibility;
     if (v.verdict === 'not-visible' || v.outsideViewingHours || !v.best) return;

@@ -33,6 +33,7 @@ import type { GuideResult } from '../../models/stars/guide.ts';
 import { patternById, type StarPattern } from '../../models/stars/patterns.ts';
 import { starByHip } from '../../models/stars/catalogue.ts';
 import { patternLabel, patternLinesMarkup, SkyAt } from './place.ts';
+import { targetSymbol } from './target.ts';
 import { brightLimbAngle, moonMarkup } from './moon.ts';
 import { angleFromRadius, makeLayout, stereographicRadius, type AltAz, type ChartLayout } from './projection.ts';
 
@@ -404,12 +405,12 @@ export function horizonChart(input: { site: Site; body: Body; time: Date; option
   const trackMarks = marks.filter((m) => m.kind === 'track');
   const trackShown = trackMarks.some((m) => Math.hypot(m.x - tq.x, m.y - tq.y) > 10);
   if (trackShown) parts.push(`<g fill="${COLOURS.track}" stroke="${COLOURS.sky}" stroke-width="0.8">${trackMarkup.join('')}</g>`);
-  parts.push(`<circle cx="${n(tq.x)}" cy="${n(tq.y)}" r="8" fill="none" stroke="${COLOURS.target}" stroke-width="2.2"/>`);
-  parts.push(`<circle cx="${n(tq.x)}" cy="${n(tq.y)}" r="2.6" fill="${COLOURS.target}" stroke="none"/>`);
+  const symbol = targetSymbol(layout, target, body, tq, 8, 2.6);
+  parts.push(symbol.markup);
   placer.reserve(tq.x - 9, tq.y - 9, tq.x + 9, tq.y + 9);
   const targetMark: ChartMark = { kind: 'target', id: body.id, label: words.t('chart.target-mag', { name: chartLabel(body, site), value: formatMagnitude(target.magnitude.value, site) }), altitudeDeg: target.altitudeDeg, azimuthDeg: target.azimuthDeg, x: tq.x, y: tq.y, labelled: false };
   marks.unshift(targetMark);
-  labelQueue.unshift({ x: tq.x, y: tq.y, text: targetMark.label, size: FONT.target, gap: 9, fill: COLOURS.target, mark: targetMark, force: true, weight: 'bold', role: 'target' });
+  labelQueue.unshift({ x: tq.x, y: tq.y, text: targetMark.label, size: FONT.target, gap: Math.max(9, Math.min(symbol.radius + 1, 60)), fill: COLOURS.target, mark: targetMark, force: true, weight: 'bold', role: 'target' });
 
   // Labels, most important first: target, the bodies and stars the guide names, the Sun's point,
   // other bodies, the altitude scale, the guide pattern's name, other star names, track dates.

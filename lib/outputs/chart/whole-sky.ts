@@ -22,6 +22,7 @@ import { starByHip } from '../../models/stars/catalogue.ts';
 import { guideFor } from '../../models/guide.ts';
 import type { GuideResult } from '../../models/stars/guide.ts';
 import { patternById, type StarPattern } from '../../models/stars/patterns.ts';
+import { targetSymbol } from './target.ts';
 import { zonedTime } from '../../core/time.ts';
 import type { ChartMark } from './horizon.ts';
 import { drawPass, type ChartPass } from './pass.ts';
@@ -201,9 +202,10 @@ export function wholeSkyChart(input: { site: Site; time: Date; body?: Body; opti
     if (q && visible(target)) {
       const mark: ChartMark = { kind: 'target', id: body.id, label: chartWords(site).t('chart.target-mag', { name: chartLabel(body, site), value: formatMagnitude(target.magnitude.value, site) }), altitudeDeg: target.altitudeDeg, azimuthDeg: target.azimuthDeg, x: q.x, y: q.y, labelled: false };
       marks.unshift(mark);
-      parts.push(`<circle cx="${n(q.x)}" cy="${n(q.y)}" r="7" fill="none" stroke="${COLOURS.target}" stroke-width="2.2"/><circle cx="${n(q.x)}" cy="${n(q.y)}" r="2.4" fill="${COLOURS.target}" stroke="none"/>`);
+      const symbol = targetSymbol(layout, target, body, q, 7, 2.4);
+      parts.push(symbol.markup);
       placer.reserve(q.x - 8, q.y - 8, q.x + 8, q.y + 8);
-      labels.unshift({ x: q.x, y: q.y, text: chartLabel(body, site), fill: COLOURS.target, gap: 8, mark, bold: true, role: 'target' });
+      labels.unshift({ x: q.x, y: q.y, text: chartLabel(body, site), fill: COLOURS.target, gap: Math.max(8, Math.min(symbol.radius + 1, 40)), mark, bold: true, role: 'target' });
     }
   }
   // A satellite pass: the track, its ends labelled with their times first (they are the chart's subject).
