@@ -14,10 +14,14 @@
  * limb is taken as smooth: mountains and valleys move real contacts by a few seconds, and in a
  * graze decide them. Planets are timed at their centre (a disc takes up to a minute to go).
  *
- * Search: the Moon's geocentric position every two hours (`NodeTrack`, cubic interpolation in
- * between) picks the approaches to each target closer than the largest possible parallax plus
- * the Moon's radius; around each, with the site's position turned exactly with the Earth, the
- * contacts are the crossings of (separation − semidiameter) found by lib/core/search.ts, to 0.1 s.
+ * Search: the Moon's geocentric direction every half day makes its path a chain of great-circle
+ * arcs; a target whose closest point to an arc (its projection on the arc's circle, or the nearer
+ * end) lies within the largest possible parallax plus the Moon's radius gets one search window,
+ * centred on the moment the Moon, moving evenly along the arc, passes that point (a cheap test of
+ * the target's distance from the arc's circle comes first). Inside the window the Moon comes from
+ * geocentric positions two hours apart (`NodeTrack`, cubic interpolation, computed only where a
+ * window needs them) and, with the site's position turned exactly with the Earth, the contacts
+ * are the crossings of (separation − semidiameter) found by lib/core/search.ts, to 0.1 s.
  *
  * Position angle: of the contact point on the Moon's limb, from the north point of the Moon's
  * disc through east (J2000 equator). The limb is bright when the contact lies within 90° of the
@@ -49,8 +53,23 @@ const PLANETS = ['mercury', 'venus', 'mars', 'jupiter', 'saturn', 'uranus', 'nep
 const RAD = Math.PI / 180;
 const KM_PER_AU = 149_597_870.7;
 const LIGHT_AU_PER_DAY = (299_792_458 * 86_400) / 149_597_870_700;
-/** Screening limit: the Moon's horizontal parallax never exceeds 1.03° and its semidiameter 0.28°; it moves under 0.6° in half a screening step (an hour). */
-const CANDIDATE_DEG = 1.03 + 0.28 + 0.6;
+/**
+ * Screening limit: the Moon's horizontal parallax never exceeds 1.03° and its semidiameter 0.28°;
+ * between two screening positions half a day apart its path leaves the great-circle arc through
+ * them by less than 0.01° (its latitude swings ±5.3° over 27.2 days: ⅛ · 5.3° · (2π/27.2)² · 0.5² ≈ 0.009°),
+ * for which 0.05° is allowed.
+ */
+const CANDIDATE_DEG = 1.03 + 0.28 + 0.05;
+/** Spacing of the screening positions of the Moon, days: it moves about 6.6° in 12 hours. */
+const SCREEN_DAYS = 0.5;
+/**
+ * Extra screening margin for planets, degrees: a planet is taken where it is at the arc's middle, and
+ * moves up to 0.6° in a quarter day (Mercury near inferior conjunction, about 2.2° a day), plus 0.2°
+ * for the linear interpolation of its screening positions.
+ */
+const PLANET_MARGIN_DEG = 0.8;
+/** Sines of the screening limits (stars, planets), for the quick test against an arc's great circle. */
+const SIN_LIMIT = [Math.sin(CANDIDATE_DEG * (Math.PI / 180)), Math.sin((CANDIDATE_DEG + PLANET_MARGIN_DEG) * (Math.PI / 180))];
 /** Sampling step of the topocentric search, days; a dip shorter than this is caught by the minimum search. */
 const STEP_DAYS = 5 / 1440;
 
@@ -132,6 +151,39 @@ export function occultationTargets(): Target[] {
     return Math.abs(beta) < 7;
   });
   return [...near.map(starTarget), ...PLANETS.map(planetTarget)];
+}
+
+/** A step of the Moon's screening path: its ends (UT days, unit vectors) and the pole of their great circle. */
+interface Arc {
+  ut0: number;
+  ut1: number;
+  a: Vec;
+  b: Vec;
+  pole: Vec;
+  /** Angle between the ends, radians. */
+  length: number;
+}
+
+function arcOf(a: { ut: number; moon: Vec }, b: { ut: number; moon: Vec }): Arc {
+  const c: Vec = [a.moon[1] * b.moon[2] - a.moon[2] * b.moon[1], a.moon[2] * b.moon[0] - a.moon[0] * b.moon[2], a.moon[0] * b.moon[1] - a.moon[1] * b.moon[0]];
+  return { ut0: a.ut, ut1: b.ut, a: a.moon, b: b.moon, pole: unit(c), length: angleDeg(a.moon, b.moon) * RAD };
+}
+
+/**
+ * When the Moon, moving along `arc` at an even pace, comes closest to direction `t`, if it comes
+ * within the angle whose cosine is `cosLimit` (UT days), else null. The closest point of the arc's
+ * great circle is the target's projection on it; outside the arc, the nearer end.
+ */
+function closestOnArc(arc: Arc, t: Vec, cosLimit: number): number | null {
+  const d = t[0] * arc.pole[0] + t[1] * arc.pole[1] + t[2] * arc.pole[2];
+  const p: Vec = [t[0] - d * arc.pole[0], t[1] - d * arc.pole[1], t[2] - d * arc.pole[2]];
+  // Angle of the projection from the arc's start, along the arc (positive towards its end).
+  const y: Vec = [arc.pole[1] * arc.a[2] - arc.pole[2] * arc.a[1], arc.pole[2] * arc.a[0] - arc.pole[0] * arc.a[2], arc.pole[0] * arc.a[1] - arc.pole[1] * arc.a[0]];
+  const along = Math.atan2(p[0] * y[0] + p[1] * y[1] + p[2] * y[2], p[0] * arc.a[0] + p[1] * arc.a[1] + p[2] * arc.a[2]);
+  const f = Math.min(1, Math.max(0, along / arc.length));
+  const q = f === 0 ? arc.a : f === 1 ? arc.b : null;
+  const cos = q ? t[0] * q[0] + t[1] * q[1] + t[2] * q[2] : Math.sqrt(Math.max(0, 1 - d * d));
+  return cos >= cosLimit ? arc.ut0 + f * (arc.ut1 - arc.ut0) : null;
 }
 
 /** One contact (disappearance or reappearance). */
@@ -265,7 +317,7 @@ export function findOccultations(ctx: AlmanacContext, from: Date, to: Date, targ
   const site = ctx.site;
   const observer = new Astronomy.Observer(site.latitudeDeg, site.longitudeDeg, site.elevationM);
   const ut0 = utDays(from), ut1 = utDays(to);
-  // The Moon's geocentric position on nodes 20 minutes apart, shared by every target and approach.
+  // The Moon's geocentric position on nodes two hours apart, computed where a window needs them and shared by every target.
   const moon = new NodeTrack(
     (ut) => {
       const m = Astronomy.GeoMoon(Astronomy.MakeTime(dateFromUt(ut)));
@@ -274,12 +326,16 @@ export function findOccultations(ctx: AlmanacContext, from: Date, to: Date, targ
     ut0,
     NODE_DAYS,
   );
-  // Screening grid: the nodes themselves (two hours apart).
-  const grid: { ut: number; moon: Vec }[] = [];
-  for (let k = -Math.ceil(SEARCH_HALF_DAYS / NODE_DAYS); ut0 + k * NODE_DAYS <= ut1 + SEARCH_HALF_DAYS + NODE_DAYS; k++) grid.push({ ut: ut0 + k * NODE_DAYS, moon: unit(moon.node(k)) });
+  // Screening: the Moon's geocentric direction every `SCREEN_DAYS`, each step an arc of its path.
+  const coarse: { ut: number; moon: Vec }[] = [];
+  for (let ut = ut0 - SEARCH_HALF_DAYS - SCREEN_DAYS; ut <= ut1 + SEARCH_HALF_DAYS + SCREEN_DAYS; ut += SCREEN_DAYS) {
+    const m = Astronomy.GeoMoon(Astronomy.MakeTime(dateFromUt(ut)));
+    coarse.push({ ut, moon: unit([m.x, m.y, m.z]) });
+  }
+  const arcs = coarse.slice(1).map((b, i) => arcOf(coarse[i]!, b));
   const out: Occultation[] = [];
   for (const target of targets) {
-    // Where the target is at each grid point (stars: fixed; planets: from positions two days apart, linearly).
+    // Where the target is (stars: fixed; planets: from positions two days apart, linearly).
     const direction = target.star
       ? ((v: Vec) => () => v)(unit(target.geo(Astronomy.MakeTime(dateFromUt((ut0 + ut1) / 2)))))
       : ((): ((ut: number) => Vec) => {
@@ -299,13 +355,24 @@ export function findOccultations(ctx: AlmanacContext, from: Date, to: Date, targ
             return unit([a[0] + f * (b[0] - a[0]), a[1] + f * (b[1] - a[1]), a[2] + f * (b[2] - a[2])]);
           };
         })();
-    // Screening margin: parallax and semidiameter, half a grid step of lunar motion, and for planets the interpolation.
-    const limit = CANDIDATE_DEG + (target.star ? 0 : 0.2);
-    const seps = grid.map((g) => angleDeg(g.moon, direction(g.ut)));
+    // Screening margin: parallax and semidiameter, the path's bend inside an arc, and for planets their own motion over half an arc.
+    const limit = CANDIDATE_DEG + (target.star ? 0 : PLANET_MARGIN_DEG);
+    const cosLimit = Math.cos(limit * RAD);
     let lastEnd = -Infinity;
-    for (let i = 1; i + 1 < grid.length; i++) {
-      if (!(seps[i]! <= seps[i - 1]! && seps[i]! < seps[i + 1]!) || seps[i]! > limit) continue;
-      const w0 = Math.max(grid[i]!.ut - SEARCH_HALF_DAYS, lastEnd), w1 = grid[i]!.ut + SEARCH_HALF_DAYS;
+    // Whether the previous arc came nearest at its very end (then its successor's start is the approach).
+    let previousAtEnd = false;
+    for (const arc of arcs) {
+      const t = direction((arc.ut0 + arc.ut1) / 2);
+      // Cheap test first: the target's angle from the arc's great circle (sin of it is t·n).
+      const across = t[0] * arc.pole[0] + t[1] * arc.pole[1] + t[2] * arc.pole[2];
+      const nearest = Math.abs(across) > SIN_LIMIT[target.star ? 0 : 1]! ? null : closestOnArc(arc, t, cosLimit);
+      const atEnd = nearest === arc.ut1;
+      // One window per approach: at the arc whose inside holds the closest point (the arcs before
+      // it come nearest at their end, those after at their start).
+      const approaching = nearest !== null && !atEnd && (nearest > arc.ut0 || previousAtEnd);
+      previousAtEnd = atEnd;
+      if (!approaching) continue;
+      const w0 = Math.max(nearest - SEARCH_HALF_DAYS, lastEnd), w1 = nearest + SEARCH_HALF_DAYS;
       if (w1 <= w0) continue;
       const approach = new Approach(moon, observer, target, w0, w1);
       const depth = (ut: number): number => approach.depth(ut);
