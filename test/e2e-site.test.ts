@@ -324,7 +324,7 @@ describe.skipIf(!available)('a site in Spanish (the invented Observatorio Cerro 
 
   it('its pages (bulletin with its events and satellite passes, site, archive, week pages, the tonight.html fragment) contain no word of the English catalogue', () => {
     const dir = join(dist, 'cerro-lucero');
-    // The English versions of its bulletins (weekly.en, wonders.en) are English by design.
+    // The English versions of its bulletins (weekly.en) are English by design.
     const pages = htmlFiles(dir).filter((f) => !/\/[\w-]+\.en\//.test(f));
     expect(pages.length).toBeGreaterThan(10);
     expect(pages.some((f) => f.endsWith('/tonight.html'))).toBe(true);
