@@ -13,6 +13,7 @@ import { expectWithin } from './helpers/tolerance.ts';
 import { GloamingError } from '../lib/core/errors.ts';
 import { defineSite } from '../lib/core/site.ts';
 import { computeNight } from '../lib/models/night.ts';
+import { guideFor } from '../lib/models/guide.ts';
 import { projectRegistry } from '../lib/models/content.ts';
 import { deepSkyBody, deepSkyObject, deepSkyObjects, type DeepSkyObject } from '../lib/models/deep-sky/catalogue.ts';
 import { meanSurfaceBrightness } from '../lib/models/sky/extended.ts';
@@ -131,5 +132,36 @@ describe('verdicts (common practice)', () => {
     expect(verdict(rural, 'mizar-alcor')).toBe('naked-eye');
     expect(verdict(rural, 'albireo')).toBe('binoculars');
     expect(verdict(rural, 'gamma-delphini')).toBe('telescope');
+  });
+});
+
+describe('guide phrases for deep-sky objects', () => {
+  // A cluster's own stars (Alcyone in M 45) and a double star's pair (Albireo) do not lead the eye
+  // to the object: the guide and the nearest star lie outside half the catalogue size (at least 0.25°).
+  const north = defineSite({ id: 'north', latitude: 51.5, longitude: 0, timeZone: 'Europe/London' });
+  const south = defineSite({ id: 'south', latitude: -33.9, longitude: 18.4, timeZone: 'Africa/Johannesburg' });
+  it('never name a star of the object itself', () => {
+    let phrased = 0;
+    for (const object of deepSkyObjects()) {
+      const body = deepSkyBody(object);
+      const own = Math.max(0.25, object.majorArcmin / 120);
+      for (const site of [north, south]) {
+        // Every other month at local midnight: some night has the object up.
+        for (let m = 0; m < 12; m += 2) {
+          const time = new Date(Date.UTC(2027, m, 15, 0) - (site.longitudeDeg / 15) * 3_600_000);
+          const guide = guideFor({ site, body, time });
+          if (!guide) continue;
+          phrased++;
+          if (guide.nearestStar) expect(guide.nearestStar.separationDeg, `${object.slug} ${guide.phrase}`).toBeGreaterThanOrEqual(own - 1e-9);
+          if (guide.anchorStar && guide.separationDeg !== null && guide.kind !== 'pattern') expect(guide.separationDeg, `${object.slug} ${guide.phrase}`).toBeGreaterThanOrEqual(own - 1e-9);
+          expect(guide.phrase, object.slug).not.toMatch(/\b0\.[0-2]°/);
+        }
+      }
+    }
+    expect(phrased).toBeGreaterThan(300);
+    // The Pleiades are found from another figure than their own (e.g. the V of Taurus, or Aldebaran).
+    const m45 = guideFor({ site: north, body: deepSkyBody(deepSkyObject('m45')!), time: new Date('2026-12-04T23:00:00Z') })!;
+    expect(m45.phrase).not.toContain('Alcyone');
+    expect(m45.pattern?.id ?? '').not.toBe('pleiades');
   });
 });

@@ -12,6 +12,15 @@ import { skylineAltitudeDeg, type Site } from '../core/site.ts';
 import { guideTarget, NEAR_BODY_DEG, type GuideCompanion, type GuideResult } from './stars/guide.ts';
 
 /**
+ * How far from a deep-sky object's centre its own stars reach, degrees: half its catalogue size,
+ * and at least 0.25° (a double star's pair, a small cluster's brightest star), so "0.0° from
+ * Albireo" or "0.1° from Alcyone, in the Pleiades" never guides the eye to the object itself.
+ */
+function ownRadiusDeg(body: Body): number {
+  return Math.max(0.25, (body.extentArcmin?.major ?? 0) / 120);
+}
+
+/**
  * Where `body` is at `time` seen from `site`, in words (see `guideTarget` for the rules and their
  * order). Null only when the body is below the horizon; the Sun gets no guide. Only the Moon and
  * planets within `NEAR_BODY_DEG` (+1°) of the body are offered as guides, so magnitudes are
@@ -45,5 +54,6 @@ export function guideFor(input: { site: Site; body: Body; time: Instant }): Guid
     sun: { raHours: sun.raHours, decDeg: sun.decDeg },
     companions,
     skylineAltitudeDeg: (azimuthDeg) => skylineAltitudeDeg(site, azimuthDeg),
+    ...(body.kind === 'deep-sky' ? { ownRadiusDeg: ownRadiusDeg(body) } : {}),
   });
 }

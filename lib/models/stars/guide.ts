@@ -153,6 +153,11 @@ export interface GuideOptions {
   maxSeparationDeg?: number;
   /** Faintest star that may serve as the nearest named star, V magnitude. Default 3.0. */
   maxStarMagnitude?: number;
+  /**
+   * Stars closer than this to the target are part of it (a cluster's own stars, a double star's
+   * pair): they neither guide nor count as its nearest star, degrees. Default 0.
+   */
+  ownRadiusDeg?: number;
 }
 
 type Vec = [number, number, number];
@@ -372,6 +377,7 @@ function targetVector(frame: SkyFrame, target: ApparentPlace): Vec {
 export function guideTarget(options: GuideOptions): GuideResult | null {
   const minAltitudeDeg = options.minAltitudeDeg ?? 10;
   const maxSeparationDeg = options.maxSeparationDeg ?? 30;
+  const ownRadius = options.ownRadiusDeg ?? 0;
   const { groups, brightness, named } = prepare();
   const frame = horizontalFrame(options.observer, options.time);
   const target = targetVector(frame, options.target);
@@ -397,14 +403,16 @@ export function guideTarget(options: GuideOptions): GuideResult | null {
     for (const group of list) {
       const hors = group.stars.map((s) => frame.horFromEqj(...s.eqj));
       let nearest: { star: Star; hor: Vec; sep: number } | null = null;
-      hors.forEach((hor, i) => {
-        const sep = angleDeg(hor, target);
-        if (!nearest || sep < nearest.sep) nearest = { star: group.stars[i]!.star, hor, sep };
-      });
+      for (let i = 0; i < hors.length; i++) {
+        const sep = angleDeg(hors[i]!, target);
+        if (sep >= ownRadius && (!nearest || sep < nearest.sep)) nearest = { star: group.stars[i]!.star, hor: hors[i]!, sep };
+      }
+      // A figure made only of the target's own stars (the Pleiades for M 45) cannot lead the eye to it.
+      if (!nearest) continue;
       const centroid = frame.horFromEqj(...group.centroidEqj);
       // A named part is preferred to the whole pattern unless the pattern has a star over 1° nearer.
-      const rank = nearest!.sep + (group.part === undefined ? 1 : 0);
-      if (!pick || rank < pick.rank) pick = { group, centroid, hors, nearest: nearest!, rank };
+      const rank = nearest.sep + (group.part === undefined ? 1 : 0);
+      if (!pick || rank < pick.rank) pick = { group, centroid, hors, nearest, rank };
     }
     if (!pick) continue;
     const altitudeDeg = altitudeOfHor(pick.centroid);
@@ -424,6 +432,7 @@ export function guideTarget(options: GuideOptions): GuideResult | null {
     const hor = frame.horFromEqj(...s.eqj);
     if (hor[2] <= 0) continue;
     const sep = angleDeg(hor, target);
+    if (sep < ownRadius) continue;
     const cost = sep + 1.5 * Math.max(0, s.star.vMag - 1);
     const describe = (): NearestStar & { hor: Vec; altitudeDeg: number } => {
       const o = offsetOfHor(hor, target);
@@ -451,7 +460,7 @@ export function guideTarget(options: GuideOptions): GuideResult | null {
 
   // Rule 1: the pattern, when the target is within its figure or close to its stars.
   if (best) {
-    const phrased = patternPhrase(best, target, guideStar, clear);
+    const phrased = patternPhrase(best, target, guideStar, clear, ownRadius);
     if (phrased) return { ...base, ...phrased, kind: 'pattern' };
   }
 
@@ -528,6 +537,7 @@ function patternPhrase(
   target: Vec,
   guideStar: { hip: number; name: string; hor: Vec } | null,
   clear: (v: Vec) => boolean,
+  ownRadius = 0,
 ): Pick<GuideResult, 'phrase' | 'said' | 'pattern' | 'part' | 'anchorStar' | 'inside' | 'separationDeg' | 'offsetDirection' | 'names'> | null {
   const { group, centroid, hors, nearest } = best;
   const pattern = group.pattern;
@@ -541,7 +551,7 @@ function patternPhrase(
   hors.forEach((hor, i) => {
     const star = group.stars[i]!.star;
     const sep = angleDeg(hor, target);
-    if (star.name && clear(hor) && (!anchor || sep < anchor.sep)) anchor = { star, hor, sep };
+    if (star.name && sep >= ownRadius && clear(hor) && (!anchor || sep < anchor.sep)) anchor = { star, hor, sep };
   });
   const common = {
     pattern: { id: pattern.id, name: pattern.name },
