@@ -52,7 +52,29 @@ export interface GloamingErrorOptions {
   /** A concrete suggestion ("did you mean 'jupiter'?"). */
   hint?: string;
   cause?: unknown;
+  /** The words that frame the value and the expectation (default English, see `Wording`). */
+  wording?: Wording;
 }
+
+/**
+ * The words around a message's offending value and expectation: English "reason (got 'x');
+ * expected y — hint" by default. Messages in a template's language give their own
+ * (lib/outputs/bulletin/messages.ts); the punctuation that joins the parts stays the same.
+ */
+export interface Wording {
+  /** The offending value's part, given the value as `quoteValue` shows it ("got 'x'"). */
+  got(shown: string): string;
+  /** The expectation's part ("expected a number from -90 to 90"). */
+  expected(text: string): string;
+  /** What stands for no value at all ("nothing"). */
+  nothing: string;
+}
+
+/**
+ * English, the wording of every message not written for a template's author (the same words as the
+ * English catalogue's `err.got`, `err.expected` and `err.nothing`, which this layer cannot read).
+ */
+export const ENGLISH_WORDING: Wording = { got: (shown) => `got ${shown}`, expected: (text) => `expected ${text}`, nothing: 'nothing' };
 
 /** Formats a place as `file:line:column` / `field`, the way compilers do. */
 export function formatPlace(place: Place | undefined): string {
@@ -78,8 +100,8 @@ export const MAX_ECHO_CHARS = 80;
  * `MAX_ECHO_CHARS` (a 100 KB argument or a whole file must not flood the terminal) with line
  * breaks and other control characters shown as `\n`, `\r`, `\t` or `\u00XX`, so the message stays one line.
  */
-export function quoteValue(value: unknown): string {
-  if (value === undefined) return 'nothing';
+export function quoteValue(value: unknown, nothing = ENGLISH_WORDING.nothing): string {
+  if (value === undefined) return nothing;
   let text: string;
   if (typeof value === 'string') text = value;
   else {
@@ -110,12 +132,15 @@ export class GloamingError extends Error {
   readonly detail: string;
   /** Whether an offending value was given (it may itself be `undefined`). */
   readonly hasActual: boolean;
+  /** The words framing the value and the expectation (English unless the message is in a template's language). */
+  readonly wording: Wording;
 
   constructor(code: ErrorCode, reason: string, options: GloamingErrorOptions = {}) {
     const where = formatPlace(options.place);
+    const wording = options.wording ?? ENGLISH_WORDING;
     let text = reason;
-    if ('actual' in options) text += ` (got ${quoteValue(options.actual)})`;
-    if (options.expected) text += `; expected ${options.expected}`;
+    if ('actual' in options) text += ` (${wording.got(quoteValue(options.actual, wording.nothing))})`;
+    if (options.expected) text += `; ${wording.expected(options.expected)}`;
     if (options.hint) text += ` — ${options.hint}`;
     super(where ? `${where}: ${text}` : text, options.cause === undefined ? undefined : { cause: options.cause });
     this.code = code;
@@ -126,11 +151,12 @@ export class GloamingError extends Error {
     this.reason = reason;
     this.detail = text;
     this.hasActual = 'actual' in options;
+    this.wording = wording;
   }
 
   /** A copy of this error placed inside a file (or a larger structure); its own line, column and field win. */
   at(outer: Place): GloamingError {
-    const options: GloamingErrorOptions = { place: { ...outer, ...this.place }, cause: this.cause };
+    const options: GloamingErrorOptions = { place: { ...outer, ...this.place }, cause: this.cause, wording: this.wording };
     if (this.hasActual) options.actual = this.actual;
     if (this.expected) options.expected = this.expected;
     if (this.hint) options.hint = this.hint;

@@ -10,6 +10,7 @@
  */
 import { readFileSync } from 'node:fs';
 import type { Body, BodyCatalogue } from '../../core/body.ts';
+import { en } from '../../core/language/catalogue.ts';
 import { fixedBody, type DeepSkyObject } from './body.ts';
 
 export type { DeepSkyObject, DeepSkyType } from './body.ts';
@@ -66,5 +67,6 @@ export const DEEP_SKY: BodyCatalogue = {
     return o ? deepSkyBody(o) : undefined;
   },
   ids: () => deepSkyObjects().map((o) => o.slug),
-  expected: 'a Messier or NGC id from the deep-sky catalogue, such as m31 or ngc869, or a double star such as albireo',
+  // English, as every message outside a template is; a template's problems say it in its own language (lib/outputs/bulletin/attributes.ts).
+  expected: en['err.deep-sky-ids'],
 };

@@ -5,10 +5,11 @@
  */
 import { LANGUAGES, type Language } from '../../core/language/index.ts';
 import { basename } from 'node:path';
-import { GloamingError, didYouMean } from '../../core/errors.ts';
-import { parseLocalDate } from '../../core/time.ts';
+import { GloamingError, quoteValue } from '../../core/errors.ts';
+import { SUPPORTED_YEARS, parseLocalDate } from '../../core/time.ts';
 import { loadYaml, type YamlSource } from '../../core/yaml.ts';
 import { assertTemplateSize } from './limits.ts';
+import { authorWords, quoted, type AuthorWords } from './messages.ts';
 import type { BulletinFrontMatter, BulletinTemplate } from './types.ts';
 
 /** Default schedule of a standing weekly bulletin: the last 8 and the next 4 ISO weeks. */
@@ -23,94 +24,124 @@ const SLUG_RE = /^[a-z0-9][a-z0-9-]*$/;
 /** The language of a template whose file name names none (`weekly.md`). */
 export const DEFAULT_LANGUAGE: Language = 'en';
 
-function invalid(field: string, reason: string, actual: unknown, expected: string, hint?: string): never {
-  throw new GloamingError('invalid-value', reason, { place: { field }, actual, expected, ...(hint ? { hint } : {}) });
-}
+/** The checks of one template's front matter, worded in the template's language. */
+class FrontMatterCheck {
+  readonly words: AuthorWords;
 
-function text(value: unknown, field: string, what: string): string {
-  if (typeof value !== 'string' || value.trim() === '') invalid(field, `${field} must be non-empty text`, value, what);
-  return value.trim();
-}
-
-function slugList(value: unknown, field: string, what: string): string[] {
-  const list = typeof value === 'string' ? [value] : value;
-  if (!Array.isArray(list) || list.length === 0) invalid(field, `${field} must be a list of ids`, value, what);
-  const seen = new Set<string>();
-  return list.map((item: unknown, i: number) => {
-    const f = typeof value === 'string' ? field : `${field}.${i}`;
-    if (typeof item !== 'string' || !SLUG_RE.test(item)) invalid(f, `${field} entries are lower-case ids`, item, "letters a–z, digits and hyphens, e.g. 'jupiter'");
-    if (seen.has(item)) invalid(f, `'${item}' is listed twice in ${field}`, item, 'each id once');
-    seen.add(item);
-    return item;
-  });
-}
-
-function weeksIn(value: unknown, field: string, fallback: number): number {
-  if (value === undefined) return fallback;
-  if (typeof value !== 'number' || !Number.isInteger(value) || value < 0 || value > MAX_SCHEDULE_WEEKS) {
-    invalid(field, `${field} must be a whole number of weeks`, value, `an integer from 0 to ${MAX_SCHEDULE_WEEKS}`);
+  constructor(words: AuthorWords) {
+    this.words = words;
   }
-  return value;
-}
 
-function rejectUnknown(o: Record<string, unknown>, allowed: readonly string[], prefix: string): void {
-  for (const key of Object.keys(o)) {
-    if (!allowed.includes(key)) {
-      const hint = didYouMean(key, allowed);
-      throw new GloamingError('unknown-field', `unknown front matter field '${prefix}${key}'`, {
-        place: { field: `${prefix}${key}` },
-        expected: `one of ${allowed.join(', ')}`,
-        ...(hint ? { hint } : {}),
-      });
+  invalid(field: string, reason: string, actual: unknown, expected: string, hint?: string): never {
+    throw this.words.error('invalid-value', reason, { place: { field }, actual, expected, ...(hint ? { hint } : {}) });
+  }
+
+  missing(field: string, reason: string, expected: string): never {
+    throw this.words.error('missing-field', reason, { place: { field }, expected });
+  }
+
+  text(value: unknown, field: string, what: string): string {
+    if (typeof value !== 'string' || value.trim() === '') this.invalid(field, this.words.say('err.fm-non-empty-text', { field }), value, what);
+    return value.trim();
+  }
+
+  slugList(value: unknown, field: string, what: string): string[] {
+    const w = this.words;
+    const list = typeof value === 'string' ? [value] : value;
+    if (!Array.isArray(list) || list.length === 0) this.invalid(field, w.say('err.fm-list-of-ids', { field }), value, what);
+    const seen = new Set<string>();
+    return list.map((item: unknown, i: number) => {
+      const f = typeof value === 'string' ? field : `${field}.${i}`;
+      if (typeof item !== 'string' || !SLUG_RE.test(item)) this.invalid(f, w.say('err.fm-lower-case-ids', { field }), item, w.say('err.fm-slug', { example: quoted('jupiter') }));
+      if (seen.has(item)) this.invalid(f, w.say('err.fm-listed-twice', { id: quoted(item), field }), item, w.say('err.fm-each-once'));
+      seen.add(item);
+      return item;
+    });
+  }
+
+  weeksIn(value: unknown, field: string, fallback: number): number {
+    if (value === undefined) return fallback;
+    if (typeof value !== 'number' || !Number.isInteger(value) || value < 0 || value > MAX_SCHEDULE_WEEKS) {
+      this.invalid(field, this.words.say('err.fm-whole-weeks', { field }), value, this.words.say('err.fm-integer-from', { min: 0, max: MAX_SCHEDULE_WEEKS }));
+    }
+    return value;
+  }
+
+  rejectUnknown(o: Record<string, unknown>, allowed: readonly string[], prefix: string): void {
+    for (const key of Object.keys(o)) {
+      if (!allowed.includes(key)) {
+        const hint = this.words.didYouMean(key, allowed);
+        throw this.words.error('unknown-field', this.words.say('err.fm-unknown-field', { field: quoted(`${prefix}${key}`) }), {
+          place: { field: `${prefix}${key}` },
+          expected: this.words.oneOf(allowed),
+          ...(hint ? { hint } : {}),
+        });
+      }
     }
   }
+
+  /** A calendar date; one gloaming cannot read or compute is `invalid-date` at `field`. */
+  date(value: string, field: string): string {
+    try {
+      parseLocalDate(value, field);
+    } catch (error) {
+      if (!(error instanceof GloamingError)) throw error;
+      const year = Number(/^\s*(\d{4})-\d{2}-\d{2}\s*$/.exec(value)?.[1]);
+      const outside = year < SUPPORTED_YEARS.first || year > SUPPORTED_YEARS.last;
+      throw this.words.error('invalid-date', this.words.say(outside ? 'err.fm-date-outside' : 'err.fm-date-unreadable', { value: quoteValue(value) }), {
+        place: { field },
+        expected: outside
+          ? this.words.say('err.fm-date-range', { first: `${SUPPORTED_YEARS.first}-01-01`, last: `${SUPPORTED_YEARS.last}-12-31` })
+          : this.words.say('err.fm-date-written', { example: '2026-12-04' }),
+      });
+    }
+    return value.trim();
+  }
 }
 
-/** Validates parsed front matter; errors name their field (the caller adds the line and column). */
-export function validateFrontMatter(data: unknown): BulletinFrontMatter {
+/**
+ * Validates parsed front matter; errors name their field (the caller adds the line and column) and
+ * are worded in the template's language (`words`, English by default).
+ */
+export function validateFrontMatter(data: unknown, words: AuthorWords = authorWords()): BulletinFrontMatter {
+  const c: FrontMatterCheck = new FrontMatterCheck(words);
+  const w = words;
   if (typeof data !== 'object' || data === null || Array.isArray(data)) {
-    invalid('', 'the front matter must be a mapping of fields', data, 'title, sites and either date or schedule');
+    c.invalid('', w.say('err.fm-mapping'), data, w.say('err.fm-mapping-expected', { title: 'title', sites: 'sites', date: 'date', schedule: 'schedule' }));
   }
   const o = data as Record<string, unknown>;
-  rejectUnknown(o, FIELDS, '');
-  if (o.title === undefined || o.title === null) {
-    throw new GloamingError('missing-field', "missing field 'title'", { place: { field: 'title' }, expected: 'the bulletin title as text' });
-  }
-  const fm: BulletinFrontMatter = { title: text(o.title, 'title', 'the bulletin title as text'), sites: 'all' };
-  if (o.description !== undefined) fm.description = text(o.description, 'description', 'a one-line summary as text');
-  if (o.sites === undefined || o.sites === null) {
-    throw new GloamingError('missing-field', "missing field 'sites'", { place: { field: 'sites' }, expected: "'all' or a list of site ids" });
-  }
-  fm.sites = o.sites === 'all' ? 'all' : slugList(o.sites, 'sites', "'all' or a list of site ids such as [harbour-roof]");
+  c.rejectUnknown(o, FIELDS, '');
+  const title = w.say('err.fm-title-text');
+  if (o.title === undefined || o.title === null) c.missing('title', w.say('err.fm-missing-field', { field: quoted('title') }), title);
+  const fm: BulletinFrontMatter = { title: c.text(o.title, 'title', title), sites: 'all' };
+  if (o.description !== undefined) fm.description = c.text(o.description, 'description', w.say('err.fm-description-text'));
+  if (o.sites === undefined || o.sites === null) c.missing('sites', w.say('err.fm-missing-field', { field: quoted('sites') }), w.say('err.fm-sites-missing', { all: quoted('all') }));
+  fm.sites = o.sites === 'all' ? 'all' : c.slugList(o.sites, 'sites', w.say('err.fm-sites-expected', { all: quoted('all'), example: '[harbour-roof]' }));
   if (o.date !== undefined && o.schedule !== undefined) {
-    invalid('schedule', 'a bulletin has either a date (one-off) or a schedule (standing weekly), not both', o.schedule, 'only one of date or schedule', 'remove one of them');
+    c.invalid('schedule', w.say('err.fm-date-and-schedule'), o.schedule, w.say('err.fm-only-one', { date: 'date', schedule: 'schedule' }), w.say('err.fm-remove-one'));
   }
   if (o.date !== undefined) {
-    if (typeof o.date !== 'string') invalid('date', 'date must be a calendar date', o.date, 'YYYY-MM-DD, e.g. 2026-12-04');
-    parseLocalDate(o.date, 'date');
-    fm.date = o.date.trim();
+    if (typeof o.date !== 'string') c.invalid('date', w.say('err.fm-date-calendar', { field: 'date' }), o.date, w.say('err.fm-date-format', { example: '2026-12-04' }));
+    fm.date = c.date(o.date, 'date');
   } else if (o.schedule !== undefined) {
     const s = o.schedule;
     if (typeof s !== 'object' || s === null || Array.isArray(s)) {
-      invalid('schedule', 'schedule must be a mapping', s, '{ every: week, past: 8, future: 4 }');
+      c.invalid('schedule', w.say('err.fm-schedule-mapping', { field: 'schedule' }), s, '{ every: week, past: 8, future: 4 }');
     }
     const so = s as Record<string, unknown>;
-    rejectUnknown(so, SCHEDULE_FIELDS, 'schedule.');
-    if (so.every !== undefined && so.every !== 'week') invalid('schedule.every', 'only weekly schedules are supported', so.every, "'week'");
+    c.rejectUnknown(so, SCHEDULE_FIELDS, 'schedule.');
+    if (so.every !== undefined && so.every !== 'week') c.invalid('schedule.every', w.say('err.fm-weekly-only'), so.every, quoted('week'));
     fm.schedule = {
       every: 'week',
-      past: weeksIn(so.past, 'schedule.past', DEFAULT_SCHEDULE.past),
-      future: weeksIn(so.future, 'schedule.future', DEFAULT_SCHEDULE.future),
+      past: c.weeksIn(so.past, 'schedule.past', DEFAULT_SCHEDULE.past),
+      future: c.weeksIn(so.future, 'schedule.future', DEFAULT_SCHEDULE.future),
     };
   } else {
-    throw new GloamingError('missing-field', 'a bulletin needs either a date or a schedule', {
-      place: { field: 'schedule' },
-      expected: 'date: YYYY-MM-DD for a one-off bulletin, or schedule: { every: week } for a standing weekly one',
-    });
+    c.missing('schedule', w.say('err.fm-needs-date-or-schedule'), w.say('err.fm-date-or-schedule', { date: 'date: YYYY-MM-DD', schedule: 'schedule: { every: week }' }));
   }
-  if (o.bodies !== undefined) fm.bodies = slugList(o.bodies, 'bodies', 'a list of body ids such as [jupiter, moon]');
+  if (o.bodies !== undefined) fm.bodies = c.slugList(o.bodies, 'bodies', w.say('err.fm-bodies-expected', { example: '[jupiter, moon]' }));
   if (o.eclipse !== undefined) {
-    if (typeof o.eclipse !== 'boolean') invalid('eclipse', 'eclipse must be true or false', o.eclipse, 'true or false');
+    if (typeof o.eclipse !== 'boolean') c.invalid('eclipse', w.say('err.fm-eclipse-boolean', { field: 'eclipse' }), o.eclipse, w.say('err.either', { first: 'true', second: 'false' }));
     fm.eclipse = o.eclipse;
   }
   return fm;
@@ -134,26 +165,29 @@ function fieldPlaces(source: YamlSource, fm: BulletinFrontMatter): Record<string
  * next `---` line. Errors carry `file:line:column` in the file's own numbering and the field.
  */
 export function parseBulletin(text: string, file: string): BulletinTemplate {
-  assertTemplateSize(text, file);
+  const language = languageOf(file);
+  const words = authorWords(language ?? DEFAULT_LANGUAGE);
+  assertTemplateSize(text, file, words);
   const lines = text.replace(/^\uFEFF/, '').split(/\r?\n/);
+  const fence = quoted('---');
   if (lines[0]?.trim() !== '---') {
-    throw new GloamingError('missing-field', 'a bulletin template starts with front matter', {
+    throw words.error('missing-field', words.say('err.fm-starts'), {
       place: { file, line: 1, column: 1 },
-      expected: "a first line '---', the YAML fields, then another '---' line",
+      expected: words.say('err.fm-starts-expected', { fence }),
     });
   }
   const end = lines.findIndex((line, i) => i > 0 && line.trim() === '---');
   if (end < 0) {
-    throw new GloamingError('invalid-yaml', 'the front matter is not closed', {
+    throw words.error('invalid-yaml', words.say('err.fm-not-closed'), {
       place: { file, line: lines.length, column: 1 },
-      expected: "a line '---' after the front matter fields",
+      expected: words.say('err.fm-closing-line', { fence }),
     });
   }
   // A leading newline makes the YAML's line numbers those of the file (the front matter starts on line 2).
-  const source = loadYaml('\n' + lines.slice(1, end).join('\n'), file);
+  const source = frontMatterYaml('\n' + lines.slice(1, end).join('\n'), file, words);
   let frontMatter: BulletinFrontMatter;
   try {
-    frontMatter = validateFrontMatter(source.data ?? {});
+    frontMatter = validateFrontMatter(source.data ?? {}, words);
   } catch (error) {
     if (error instanceof GloamingError) throw source.place(error);
     throw error;
@@ -162,13 +196,14 @@ export function parseBulletin(text: string, file: string): BulletinTemplate {
   // `weekly.es.md`: the Spanish version of the bulletin `weekly` (a language the catalogues have).
   const [slug = '', suffix, ...rest] = name.split('.');
   if (!SLUG_RE.test(slug) || rest.length > 0) {
-    throw new GloamingError('invalid-value', 'a bulletin file name is used in URLs and must be a lower-case slug', {
+    throw words.error('invalid-value', words.say('err.fm-file-name'), {
       place: { file },
       actual: name,
-      expected: "letters a–z, digits and hyphens, with an optional language, e.g. 'weekly.md' or 'weekly.es.md'",
+      expected: words.say('err.fm-file-name-expected', { example: quoted('weekly.md'), other: quoted('weekly.es.md') }),
     });
   }
-  if (suffix !== undefined && !(LANGUAGES as readonly string[]).includes(suffix)) {
+  if (suffix !== undefined && language === null) {
+    // No language to word this in: the file name names none gloaming has.
     throw new GloamingError('invalid-value', `'${suffix}' in the file name is not a language gloaming has words for`, {
       place: { file },
       actual: suffix,
@@ -178,12 +213,35 @@ export function parseBulletin(text: string, file: string): BulletinTemplate {
   return {
     file,
     slug,
-    language: (suffix as Language | undefined) ?? DEFAULT_LANGUAGE,
+    language: language ?? DEFAULT_LANGUAGE,
     frontMatter,
     body: lines.slice(end + 1).join('\n'),
     bodyLine: end + 2,
     fieldPlaces: fieldPlaces(source, frontMatter),
   };
+}
+
+/**
+ * The language a template's file name gives (`weekly.es.md` → es), `undefined` when it names none
+ * (`weekly.md`, English) and null when its second part is not a language gloaming has.
+ */
+function languageOf(file: string): Language | null | undefined {
+  const suffix = basename(file).replace(/\.(md|markdown)$/i, '').split('.')[1];
+  if (suffix === undefined) return undefined;
+  return (LANGUAGES as readonly string[]).includes(suffix) ? (suffix as Language) : null;
+}
+
+/** The front matter's YAML; a syntax error keeps the YAML reader's own (English) words inside the template's sentence. */
+function frontMatterYaml(text: string, file: string, words: AuthorWords): YamlSource {
+  try {
+    return loadYaml(text, file);
+  } catch (error) {
+    if (!(error instanceof GloamingError) || error.code !== 'invalid-yaml') throw error;
+    throw words.error('invalid-yaml', words.say('err.fm-yaml', { detail: error.reason.replace(/^YAML syntax error: /, '') }), {
+      ...(error.place ? { place: error.place } : {}),
+      expected: words.say('err.fm-yaml-expected'),
+    });
+  }
 }
 
 /** The place of a front matter field of `template` (falls back to the file). */

@@ -4,7 +4,7 @@
  * builds slow and pages unreadable (a 1 MB template took 50 s and 1.9 GB to build, 5 MB over 600 s
  * and 4 GB). The demo's weekly template is 1.6 KB.
  */
-import { GloamingError } from '../../core/errors.ts';
+import { authorWords, type AuthorWords } from './messages.ts';
 
 /** Largest template gloaming reads, bytes of UTF-8 (64 KiB). */
 export const MAX_TEMPLATE_BYTES = 64 * 1024;
@@ -13,7 +13,7 @@ export const MAX_TEMPLATE_BYTES = 64 * 1024;
  * Throws `invalid-value` when `text` is larger than `MAX_TEMPLATE_BYTES`, placed at the line and
  * column where the limit is crossed.
  */
-export function assertTemplateSize(text: string, file: string): void {
+export function assertTemplateSize(text: string, file: string, words: AuthorWords = authorWords()): void {
   const total = Buffer.byteLength(text, 'utf8');
   if (total <= MAX_TEMPLATE_BYTES) return;
   let bytes = 0;
@@ -27,9 +27,10 @@ export function assertTemplateSize(text: string, file: string): void {
       column = 1;
     } else column++;
   }
-  throw new GloamingError('invalid-value', `the template is ${(total / 1024).toFixed(0)} KiB, more than the ${MAX_TEMPLATE_BYTES / 1024} KiB a bulletin template may be; the limit is crossed here`, {
+  const limit = MAX_TEMPLATE_BYTES / 1024;
+  throw words.error('invalid-value', words.say('err.too-large', { size: (total / 1024).toFixed(0), limit }), {
     place: { file, line, column },
-    expected: `a template of at most ${MAX_TEMPLATE_BYTES / 1024} KiB (pages must stay under 40 KB of HTML and CSS)`,
-    hint: 'split it into several bulletins, or move long text to pages of their own',
+    expected: words.say('err.too-large-expected', { limit, page: 40 }),
+    hint: words.say('err.too-large-hint'),
   });
 }

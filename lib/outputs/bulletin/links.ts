@@ -11,7 +11,9 @@
  */
 import type { Nodes, Root } from 'mdast';
 import type { VFile } from 'vfile';
-import { GloamingError, quoteValue } from '../../core/errors.ts';
+import { quoteValue } from '../../core/errors.ts';
+import type { Language } from '../../core/language/index.ts';
+import { authorWords, quoted } from './messages.ts';
 import { errorsOnFile, reportError, throwErrors } from './problems.ts';
 
 /** Schemes a bulletin may link to. */
@@ -35,12 +37,13 @@ export function isSafeUrl(url: string): boolean {
  * The remark plugin: reports `invalid-value` on the file at the first unsafe link, image or
  * definition, and throws it there (`file:line:column` of the node).
  */
-export function remarkSafeLinks() {
+export function remarkSafeLinks(options: { language?: (file: VFile) => Language | undefined } = {}) {
   return (tree: Root, file: VFile): void => {
+    const words = authorWords(options.language?.(file));
     const check = (node: Nodes): void => {
       if ((node.type === 'link' || node.type === 'image' || node.type === 'definition') && !isSafeUrl(node.url)) {
-        const error = new GloamingError('invalid-value', `the ${node.type === 'image' ? 'image' : 'link'} address ${quoteValue(node.url)} uses the scheme '${urlScheme(node.url)}:', which a bulletin may not publish`, {
-          expected: 'an http:, https: or mailto: address, or a relative one such as /harbour-roof/',
+        const error = words.error('invalid-value', words.say(node.type === 'image' ? 'err.unsafe-image' : 'err.unsafe-link', { url: quoteValue(node.url), scheme: quoted(`${urlScheme(node.url)}:`) }), {
+          expected: words.say('err.safe-address', { example: '/harbour-roof/' }),
         });
         reportError(file, error, node);
         throwErrors(errorsOnFile(file));

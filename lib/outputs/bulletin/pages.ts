@@ -3,11 +3,11 @@
  * build date; a one-off template one page per site for its date's week. Pure: the build date is
  * an input (`today`), never read from the clock.
  */
-import { findSite } from '../../models/content.ts';
-import { GloamingError } from '../../core/errors.ts';
+import { GloamingError, type Place } from '../../core/errors.ts';
 import type { Site } from '../../core/site.ts';
 import { addDays, isoWeekOf, parseLocalDate, type IsoWeek } from '../../core/time.ts';
 import { fieldPlace } from './frontmatter.ts';
+import { authorWords, quoted, type AuthorWords } from './messages.ts';
 import { catalogueLanguage, type Language } from '../../core/language/index.ts';
 
 /** A locale for a page in `language` at a site with `siteLocale`: the language with the site's region (`en` at `es-CL` → `en-CL`), or the bare language. */
@@ -34,14 +34,27 @@ export function weeksFor(template: BulletinTemplate, today: string): IsoWeek[] {
   return weeks;
 }
 
+/** The site with id `id`, named in a template's front matter; an unknown id is `unknown-site` in the template's language, with a suggestion. */
+function siteOf(sites: Map<string, Site>, id: string, words: AuthorWords, place: Place): Site {
+  const site = sites.get(id);
+  if (site) return site;
+  const hint = words.didYouMean(id, sites.keys());
+  throw words.error('unknown-site', words.say('err.unknown-site', { name: quoted(id) }), {
+    place,
+    expected: sites.size ? words.oneOf(sites.keys()) : words.say('err.site-folder', { folder: 'content/sites/' }),
+    ...(hint ? { hint } : {}),
+  });
+}
+
 /** The sites of a template, in id order; unknown ids are positioned `unknown-site` errors with a suggestion. */
 export function sitesFor(template: BulletinTemplate, sites: Map<string, Site>): Site[] {
   const wanted = template.frontMatter.sites;
+  const words = authorWords(template.language);
   if (wanted === 'all') return [...sites.keys()].sort().map((id) => sites.get(id)!);
   return wanted
     .map((id, i) => {
       try {
-        return findSite(sites, id, { field: `sites.${i}` });
+        return siteOf(sites, id, words, { field: `sites.${i}` });
       } catch (error) {
         if (error instanceof GloamingError) throw error.at(fieldPlace(template, `sites.${i}`));
         throw error;
@@ -63,10 +76,11 @@ export function pagesFor(templates: readonly BulletinTemplate[], options: PagesO
     const versions = bySlug.get(t.slug) ?? [];
     const other = versions.find((v) => v.language === t.language);
     if (other) {
-      throw new GloamingError('invalid-value', `two bulletin templates share the name '${t.slug}' in the same language (${t.language})`, {
+      const words = authorWords(t.language);
+      throw words.error('invalid-value', words.say('err.same-name', { slug: quoted(t.slug), language: t.language }), {
         place: { file: t.file },
         actual: t.slug,
-        expected: `a file name not used by ${other.file}`,
+        expected: words.say('err.same-name-expected', { file: other.file }),
       });
     }
     bySlug.set(t.slug, [...versions, t].sort((a, b) => (a.language < b.language ? -1 : 1)));

@@ -27,10 +27,12 @@ import type { VFile } from 'vfile';
 import type { BodyRegistry } from '../../core/body.ts';
 import { eventsBetween, type AlmanacEvent } from '../almanac/index.ts';
 import { ChartCache } from '../chart/cache.ts';
-import { GloamingError, didYouMean } from '../../core/errors.ts';
+import { GloamingError } from '../../core/errors.ts';
+import type { Language } from '../../core/language/index.ts';
 import type { Site } from '../../core/site.ts';
 import { addDays, type IsoWeek } from '../../core/time.ts';
 import { readAttribute, type AttributeSpec, type AttributeValue, type ReadContext } from './attributes.ts';
+import { authorWords, quoted, type AuthorWords } from './messages.ts';
 import { defaultClock, formatDay, type Clock } from './format.ts';
 import { PLACEHOLDERS, type PlaceholderCall, type PlaceholderSpec } from './placeholders/registry.ts';
 import { errorsOnFile, reportError, reportWarning, throwErrors, type ProblemKind } from './problems.ts';
@@ -58,6 +60,8 @@ export interface PlaceholderScope {
   cache?: WeekCache;
   /** Finder charts for `::chart` (see `ChartOutput`); when absent, kept in memory for this document and linked as `/charts/<file>`. */
   charts?: ChartOutput;
+  /** The template's language, which its problems are worded in (default English). */
+  language?: Language;
 }
 
 export interface RemarkPlaceholdersOptions {
@@ -148,16 +152,17 @@ interface Defaults {
  * event comes from the enclosing section's binding. Returns the values and the names written.
  */
 function readAttributes(node: Directive, specs: Readonly<Record<string, AttributeSpec>>, example: string, read: ReadContext, defaults: Defaults, bound: Bound): { attrs: Map<string, AttributeValue>; given: Set<string> } {
+  const words = read.words ?? authorWords();
   const attrs = new Map<string, AttributeValue>();
   const given = new Set<string>();
   for (const [name, raw] of Object.entries(node.attributes ?? {})) {
     const attr = specs[name];
     if (!attr) {
       const names = Object.keys(specs);
-      const hint = didYouMean(name, names);
-      throw new GloamingError('invalid-placeholder', `unknown attribute '${name}' on '${written(node)}'`, {
+      const hint = words.didYouMean(name, names);
+      throw words.error('invalid-placeholder', words.say('err.unknown-attribute', { name: quoted(name), placeholder: quoted(written(node)) }), {
         place: { field: name },
-        expected: names.length ? `one of ${names.join(', ')}` : 'no attributes',
+        expected: names.length ? words.oneOf(names) : words.say('err.no-attributes'),
         ...(hint ? { hint } : {}),
       });
     }
@@ -176,11 +181,11 @@ function readAttributes(node: Directive, specs: Readonly<Record<string, Attribut
       continue;
     }
     if (attr.required && !(attr.bound && bound[attr.bound])) {
-      const inside = attr.bound === 'body' ? ' (or sit inside :::every-target)' : attr.bound === 'event' ? ' (or sit inside :::every-event)' : '';
-      throw new GloamingError('invalid-placeholder', `'${written(node)}' needs the attribute '${name}'${inside}`, {
+      const key = attr.bound === 'body' ? 'err.needs-attribute-target' : attr.bound === 'event' ? 'err.needs-attribute-event' : 'err.needs-attribute';
+      throw words.error('invalid-placeholder', words.say(key, { placeholder: quoted(written(node)), name: quoted(name) }), {
         place: { field: name },
-        expected: attr.doc,
-        hint: `e.g. ${example}`,
+        expected: attr.need ? words.say(attr.need) : attr.doc,
+        hint: words.say('err.for-example', { example }),
       });
     }
     if (attr.type.kind === 'night') attrs.set(name, defaults.night);
@@ -198,37 +203,44 @@ interface CheckedPlaceholder {
 
 /** Checks one placeholder directive against the table and reads its attributes; errors carry no place (they are reported at the directive). */
 function checkPlaceholder(node: Directive, read: ReadContext, defaults: Defaults, bound: Bound, malformed: boolean): CheckedPlaceholder {
+  const words = read.words ?? authorWords();
   const spec = PLACEHOLDERS.get(node.name);
-  if (malformed) {
-    throw new GloamingError('invalid-placeholder', `the attributes of '${written(node)}' cannot be read`, {
-      expected: `name=value pairs separated by spaces inside { }, e.g. ${spec?.example ?? SECTIONS.get(node.name)?.example ?? ':rise{body=jupiter night=fri}'}`,
-      hint: 'check for a missing } or an unbalanced quote',
-    });
-  }
+  if (malformed) throw unreadable(node, spec?.example ?? SECTIONS.get(node.name)?.example ?? ':rise{body=jupiter night=fri}', words);
   if (!spec) {
-    const hint = didYouMean(node.name, PLACEHOLDERS.keys());
-    throw new GloamingError('unknown-placeholder', `unknown placeholder '${written(node)}'`, {
-      expected: 'a placeholder listed in lib/outputs/bulletin/PLACEHOLDERS.md',
-      ...(hint ? { hint } : { hint: 'write \\: to keep a literal colon before a word' }),
+    const hint = words.didYouMean(node.name, PLACEHOLDERS.keys());
+    throw words.error('unknown-placeholder', words.say('err.unknown-placeholder', { placeholder: quoted(written(node)) }), {
+      expected: words.say('err.placeholder-listed', { file: 'lib/outputs/bulletin/PLACEHOLDERS.md' }),
+      hint: hint ?? words.say('err.literal-colon', { escape: '\\:' }),
     });
   }
+  const block = words.say('err.write-block', { placeholder: `::${spec.name}` });
+  const inline = words.say('err.write-inline', { placeholder: `:${spec.name}` });
   if (node.type === 'containerDirective') {
-    throw new GloamingError('invalid-placeholder', `'${written(node)}' is written as a container, which no placeholder is`, {
-      hint: spec.form === 'block' ? `write ::${spec.name} on a line of its own` : `write :${spec.name} inside a sentence`,
-    });
+    throw words.error('invalid-placeholder', words.say('err.container', { placeholder: quoted(written(node)) }), { hint: spec.form === 'block' ? block : inline });
   }
   if (spec.form === 'block' && node.type === 'textDirective') {
-    throw new GloamingError('invalid-placeholder', `':${spec.name}' is a block placeholder`, { hint: `write ::${spec.name} on a line of its own` });
+    throw words.error('invalid-placeholder', words.say('err.is-block', { placeholder: quoted(`:${spec.name}`) }), { hint: block });
   }
   if (spec.form === 'inline' && node.type === 'leafDirective') {
-    throw new GloamingError('invalid-placeholder', `'::${spec.name}' is an inline placeholder`, { hint: `write :${spec.name} inside a sentence` });
+    throw words.error('invalid-placeholder', words.say('err.is-inline', { placeholder: quoted(`::${spec.name}`) }), { hint: inline });
   }
-  if (node.children.length > 0) {
-    throw new GloamingError('invalid-placeholder', `'${written(node)}' takes no [label]`, { hint: `attributes go in braces, e.g. ${spec.example}` });
-  }
+  if (node.children.length > 0) throw noLabel(node, spec.example, words);
   const { attrs, given } = readAttributes(node, spec.attributes, spec.example, read, defaults, bound);
-  spec.validate?.(attrs, bound);
+  spec.validate?.(attrs, bound, words);
   return { spec, attrs, given };
+}
+
+/** The attributes of a directive could not be parsed (an unclosed brace, a stray quote). */
+function unreadable(node: Directive, example: string, words: AuthorWords): GloamingError {
+  return words.error('invalid-placeholder', words.say('err.attributes-unreadable', { placeholder: quoted(written(node)) }), {
+    expected: words.say('err.attributes-expected', { example }),
+    hint: words.say('err.check-brace'),
+  });
+}
+
+/** A directive with a [label], which no placeholder or section takes. */
+function noLabel(node: Directive, example: string, words: AuthorWords): GloamingError {
+  return words.error('invalid-placeholder', words.say('err.no-label', { placeholder: quoted(written(node)) }), { hint: words.say('err.attributes-in-braces', { example }) });
 }
 
 interface CheckedSection {
@@ -243,17 +255,11 @@ interface CheckedSection {
 
 /** Checks a section directive and splits its children at `::otherwise`; errors carry no place (they are reported at the section). */
 function checkSection(node: ContainerDirective, spec: SectionSpec, read: ReadContext, defaults: Defaults, bound: Bound, malformed: boolean): CheckedSection {
-  if (malformed) {
-    throw new GloamingError('invalid-placeholder', `the attributes of '${written(node)}' cannot be read`, {
-      expected: `name=value pairs separated by spaces inside { }, e.g. ${spec.example}`,
-      hint: 'check for a missing } or an unbalanced quote',
-    });
-  }
+  const words = read.words ?? authorWords();
+  if (malformed) throw unreadable(node, spec.example, words);
   const label = node.children[0];
-  if (label?.type === 'paragraph' && (label.data as { directiveLabel?: boolean } | undefined)?.directiveLabel) {
-    throw new GloamingError('invalid-placeholder', `'${written(node)}' takes no [label]`, { hint: `attributes go in braces, e.g. ${spec.example}` });
-  }
-  const { attrs } = readAttributes(node, spec.attributesFor(node.attributes ?? {}), spec.example, read, defaults, bound);
+  if (label?.type === 'paragraph' && (label.data as { directiveLabel?: boolean } | undefined)?.directiveLabel) throw noLabel(node, spec.example, words);
+  const { attrs } = readAttributes(node, spec.attributesFor(node.attributes ?? {}, words), spec.example, read, defaults, bound);
   const splits = node.children.map((c, i) => (c.type === 'leafDirective' && c.name === OTHERWISE ? i : -1)).filter((i) => i >= 0);
   const split = splits[0];
   return {
@@ -275,7 +281,7 @@ function textPoint(node: Text, index: number): { line: number; column: number } 
 }
 
 /** Text that looks like a placeholder but was not parsed as one: one error per text node, with the point inside the text where it starts. */
-function leftovers(texts: Text[]): { error: GloamingError; at: { line: number; column: number } | undefined }[] {
+function leftovers(texts: Text[], words: AuthorWords): { error: GloamingError; at: { line: number; column: number } | undefined }[] {
   const errors: { error: GloamingError; at: { line: number; column: number } | undefined }[] = [];
   for (const node of texts) {
     const block = INLINE_BLOCK_RE.exec(node.value);
@@ -283,8 +289,8 @@ function leftovers(texts: Text[]): { error: GloamingError; at: { line: number; c
       const index = block.index + block[1]!.length;
       errors.push({
         at: textPoint(node, index),
-        error: new GloamingError('invalid-placeholder', `'::${block[2]}' must stand on a line of its own`, {
-          hint: PLACEHOLDERS.get(block[2]!)?.form === 'inline' ? `inside a sentence write :${block[2]}` : 'put it on its own line, with blank lines around it',
+        error: words.error('invalid-placeholder', words.say('err.own-line', { placeholder: quoted(`::${block[2]}`) }), {
+          hint: PLACEHOLDERS.get(block[2]!)?.form === 'inline' ? words.say('err.inside-sentence', { placeholder: `:${block[2]}` }) : words.say('err.own-line-blank'),
         }),
       });
       continue;
@@ -293,8 +299,8 @@ function leftovers(texts: Text[]): { error: GloamingError; at: { line: number; c
     if (colon) {
       errors.push({
         at: textPoint(node, colon.index + colon[1]!.length),
-        error: new GloamingError('invalid-placeholder', `':${colon[2]}' followed directly by ':' is read as plain text`, {
-          hint: `write :${colon[2]}{}: to end the placeholder before the colon`,
+        error: words.error('invalid-placeholder', words.say('err.colon-after', { placeholder: quoted(`:${colon[2]}`), colon: quoted(':') }), {
+          hint: words.say('err.end-before-colon', { fix: `:${colon[2]}{}:` }),
         }),
       });
       continue;
@@ -303,17 +309,17 @@ function leftovers(texts: Text[]): { error: GloamingError; at: { line: number; c
     if (m && node.value.slice(m.index + m[1]!.length).startsWith(':::') && SECTIONS.has(m[2]!)) {
       errors.push({
         at: textPoint(node, m.index + m[1]!.length),
-        error: new GloamingError('invalid-placeholder', `':::${m[2]}' must start a line of its own`, {
-          hint: `write :::${m[2]}{…} on its own line, the block below it, and ::: on a line to close it`,
+        error: words.error('invalid-placeholder', words.say('err.section-own-line', { section: quoted(`:::${m[2]}`) }), {
+          hint: words.say('err.section-layout', { open: `:::${m[2]}{…}`, close: ':::' }),
         }),
       });
     } else if (m) {
       const index = m.index + m[1]!.length;
       errors.push({
         at: textPoint(node, index),
-        error: new GloamingError('invalid-placeholder', `malformed placeholder '${node.value.slice(index, index + 40).split('\n')[0]}'`, {
-          expected: 'attributes in braces as name=value pairs separated by spaces, e.g. :rise{body=jupiter night=fri}',
-          hint: 'check for a missing } or a stray quote; write \\: for a literal colon',
+        error: words.error('invalid-placeholder', words.say('err.malformed', { text: quoted(node.value.slice(index, index + 40).split('\n')[0]!) }), {
+          expected: words.say('err.malformed-expected', { example: ':rise{body=jupiter night=fri}' }),
+          hint: words.say('err.malformed-hint', { escape: '\\:' }),
         }),
       });
     }
@@ -345,6 +351,8 @@ class Pass {
   readonly clock: Clock;
   readonly defaultNight: number;
   readonly charts: ChartOutput;
+  /** The messages of the template's language. */
+  readonly words: AuthorWords;
   /** Directives followed directly by a `{` or `[` the parser could not read (unclosed brace, stray quote). */
   readonly malformed = new Set<Directive>();
   readonly shown: ShownBody[] = [];
@@ -355,7 +363,8 @@ class Pass {
   constructor(scope: PlaceholderScope, file: VFile, defaultNight: number) {
     this.scope = scope;
     this.file = file;
-    this.read = { bodies: scope.bodies, days: scope.week.days };
+    this.words = authorWords(scope.language);
+    this.read = { bodies: scope.bodies, days: scope.week.days, words: this.words };
     this.clock = defaultClock(scope.site.locale);
     this.defaultNight = defaultNight;
     this.charts = scope.charts ?? { cache: new ChartCache(), url: (name) => `/charts/${name}` };
@@ -400,7 +409,7 @@ class Pass {
         let inner = bound;
         try {
           const c = checkSection(child, spec, this.read, this.defaults({}), bound, this.malformed.has(child));
-          if (c.extraOtherwise) this.fail(new GloamingError('invalid-placeholder', `'${written(child)}' has more than one ::otherwise`, { hint: 'a section has one block and at most one alternative' }), c.extraOtherwise);
+          if (c.extraOtherwise) this.fail(this.words.error('invalid-placeholder', this.words.say('err.otherwise-twice', { section: quoted(written(child)), otherwise: '::otherwise' }), { hint: this.words.say('err.one-alternative') }), c.extraOtherwise);
         } catch (error) {
           this.fail(error, child);
         }
@@ -410,15 +419,15 @@ class Pass {
       }
       if (child.type === 'leafDirective' && child.name === OTHERWISE) {
         if (!inSection || !(parent.type === 'containerDirective' && SECTIONS.has((parent as ContainerDirective).name))) {
-          this.fail(new GloamingError('invalid-placeholder', "'::otherwise' stands only directly inside a section", { hint: 'put it between :::provided{…} (or :::every-target, :::every-event) and its closing :::' }), child);
+          this.fail(this.words.error('invalid-placeholder', this.words.say('err.otherwise-outside', { otherwise: quoted('::otherwise') }), { hint: this.words.say('err.otherwise-where', { provided: ':::provided{…}', targets: ':::every-target', events: ':::every-event', close: ':::' }) }), child);
         }
         continue;
       }
       if (child.type === 'containerDirective' && !PLACEHOLDERS.has(child.name)) {
-        const hint = didYouMean(child.name, SECTIONS.keys());
+        const hint = this.words.didYouMean(child.name, SECTIONS.keys());
         this.fail(
-          new GloamingError('unknown-placeholder', `unknown section '${written(child)}'`, {
-            expected: `one of ${[...SECTIONS.keys()].map((n) => `:::${n}`).join(', ')}`,
+          this.words.error('unknown-placeholder', this.words.say('err.unknown-section', { section: quoted(written(child)) }), {
+            expected: this.words.oneOf([...SECTIONS.keys()].map((n) => `:::${n}`)),
             ...(hint ? { hint } : {}),
           }),
           child,
@@ -545,7 +554,7 @@ export function remarkPlaceholders(options: RemarkPlaceholdersOptions) {
     const texts: Text[] = [];
     normalize(tree, texts, pass.malformed);
     pass.check(tree, { body: false, event: false }, false);
-    for (const { error, at } of leftovers(texts)) pass.fail(error, at);
+    for (const { error, at } of leftovers(texts, pass.words)) pass.fail(error, at);
     throwErrors(errorsOnFile(file));
     pass.render(tree, {});
     file.data.placeholders = { count: pass.count, shown: pass.shown };

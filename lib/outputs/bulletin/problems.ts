@@ -57,6 +57,7 @@ export class TemplateErrors extends GloamingError {
       ...(first.hasActual ? { actual: first.actual } : {}),
       ...(first.expected ? { expected: first.expected } : {}),
       ...(first.hint ? { hint: first.hint } : {}),
+      wording: first.wording,
     });
     Object.defineProperty(this, 'message', { value: errors.map((e) => e.message).join('\n') });
     this.errors = errors;

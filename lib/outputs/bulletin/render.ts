@@ -14,7 +14,9 @@ import type { Body } from '../../core/body.ts';
 import { GloamingError } from '../../core/errors.ts';
 import { eventsBetween, type AlmanacEvent } from '../almanac/index.ts';
 import { addDays, isoWeekOf, type IsoWeek } from '../../core/time.ts';
+import { bodyOf } from './attributes.ts';
 import { fieldPlace } from './frontmatter.ts';
+import { authorWords } from './messages.ts';
 import { remarkSafeLinks } from './links.ts';
 import { remarkPlaceholders, type PlaceholderScope } from './plugin.ts';
 import { warningsOnFile } from './problems.ts';
@@ -44,7 +46,7 @@ const processor = unified()
     },
   })
   // Links, images and definitions may use only http:, https:, mailto: or relative addresses.
-  .use(remarkSafeLinks)
+  .use(remarkSafeLinks, { language: (file) => (file.data as { gloamingScope?: PlaceholderScope }).gloamingScope?.language })
   .use(remarkRehype)
   .use(rehypeTidyPunctuation, { language: (file) => wordsFor((file.data as { gloamingScope?: PlaceholderScope }).gloamingScope?.site.locale ?? 'en').language })
   .use(rehypeStringify)
@@ -52,9 +54,10 @@ const processor = unified()
 
 /** Front matter bodies, resolved; unknown ids are positioned errors with a suggestion. */
 function frontMatterBodies(template: BulletinTemplate, context: RenderContext): Body[] {
+  const words = authorWords(template.language);
   return (template.frontMatter.bodies ?? []).map((id, i) => {
     try {
-      return context.bodies.get(id, { field: `bodies.${i}` });
+      return bodyOf(id, context.bodies, words, { field: `bodies.${i}` });
     } catch (error) {
       if (error instanceof GloamingError) throw error.at(fieldPlace(template, `bodies.${i}`));
       throw error;
@@ -112,6 +115,7 @@ export function renderBulletinSync(template: BulletinTemplate, context: RenderCo
     cache,
     ...(context.charts ? { charts: context.charts } : {}),
     ...nights,
+    language: template.language,
   };
   // The front matter's lines stay in the file as blank lines, so every position is the template's own.
   const value = '\n'.repeat(template.bodyLine - 1) + template.body;

@@ -20,7 +20,7 @@
  * decides from the shared week data.
  */
 import type { Body } from '../../core/body.ts';
-import { GloamingError } from '../../core/errors.ts';
+import { authorWords, quoted, type AuthorWords } from './messages.ts';
 import { EVENT_TYPES, OWN_LIST_EVENT_TYPES, pickEvent, type AlmanacEvent, type AlmanacEventType } from '../almanac/index.ts';
 import { dateFromUt } from '../../core/track.ts';
 import { viewingSpan } from '../../models/visibility.ts';
@@ -63,7 +63,7 @@ export interface SectionSpec {
   /** Every attribute, for the docs table. */
   attributes: Readonly<Record<string, AttributeSpec>>;
   /** The attributes that apply for what was written (`:::provided` depends on its condition); throws a placeless error. */
-  attributesFor(written: Readonly<Record<string, string | null | undefined>>): Readonly<Record<string, AttributeSpec>>;
+  attributesFor(written: Readonly<Record<string, string | null | undefined>>, words: AuthorWords): Readonly<Record<string, AttributeSpec>>;
   decide(call: SectionCall): SectionDecision;
 }
 
@@ -71,7 +71,7 @@ export interface SectionSpec {
 // Attributes
 
 const NIGHT: AttributeSpec = { type: { kind: 'night' }, default: 'Monday, the one-off date, or the night of the enclosing section', doc: 'which night of the week' };
-const BODY: AttributeSpec = { type: { kind: 'body' }, required: true, bound: 'body', doc: 'the body or object' };
+const BODY: AttributeSpec = { type: { kind: 'body' }, required: true, bound: 'body', doc: 'the body or object', need: 'err.need-body' };
 const SEEN: AttributeSpec = {
   type: { kind: 'choice', values: ['naked-eye', 'binoculars', 'either'] },
   doc: 'visible to the naked eye, only in binoculars, or either (lib/models/visibility.ts verdict within the viewing hours or later that night)',
@@ -147,13 +147,14 @@ function moon(call: SectionCall): boolean {
   return moonBright(call);
 }
 
-/** Which condition of `:::provided` was written; throws when none or several. */
-export function conditionOf(written: Readonly<Record<string, unknown>>): string {
+/** Which condition of `:::provided` was written; throws when none or several (in the template's language, `words`). */
+export function conditionOf(written: Readonly<Record<string, unknown>>, words: AuthorWords = authorWords()): string {
   const given = Object.keys(CONDITIONS).filter((c) => c in written);
   if (given.length === 1) return given[0]!;
-  const list = Object.keys(CONDITIONS).join(', ');
-  if (given.length === 0) throw new GloamingError('invalid-placeholder', "':::provided' needs a condition", { expected: `one of ${list}`, hint: 'e.g. :::provided{seen=either body=jupiter}' });
-  throw new GloamingError('invalid-placeholder', `':::provided' takes one condition, not ${given.join(' and ')}`, { expected: `one of ${list}`, hint: 'put one section inside another for two conditions' });
+  const expected = words.oneOf(Object.keys(CONDITIONS));
+  const section = quoted(':::provided');
+  if (given.length === 0) throw words.error('invalid-placeholder', words.say('err.needs-condition', { section }), { expected, hint: words.say('err.for-example', { example: ':::provided{seen=either body=jupiter}' }) });
+  throw words.error('invalid-placeholder', words.say('err.one-condition', { section, conditions: words.list(given) }), { expected, hint: words.say('err.two-conditions') });
 }
 
 function provided(call: SectionCall): boolean {
@@ -229,7 +230,7 @@ const DEFINITIONS: SectionSpec[] = [
     summary: 'shows its block only when one condition holds, and the part after ::otherwise when it does not',
     example: ':::provided{seen=either body=jupiter}',
     attributes: PROVIDED_ATTRIBUTES,
-    attributesFor: (written) => CONDITIONS[conditionOf(written)]!.attributes(written),
+    attributesFor: (written, words) => CONDITIONS[conditionOf(written, words)]!.attributes(written),
     decide: (call) => ({ kind: 'choose', show: provided(call) }),
   },
   {

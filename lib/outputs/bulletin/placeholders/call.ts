@@ -15,6 +15,7 @@ import { bodyLabel, bodyPhrase } from '../../../core/language/names/index.ts';
 import { TWILIGHT_DEPTH_DEG, type MissingPhrases, type TwilightKind } from './phrases.ts';
 import type { AlmanacEvent } from '../../almanac/index.ts';
 import type { AttributeSpec, AttributeValue } from '../attributes.ts';
+import type { AuthorWords } from '../messages.ts';
 import { el, formatClock, type Clock, type TimePrecision } from '../format.ts';
 import { FALLBACK_MARK } from '../problems.ts';
 import type { ChartOutput } from '../types.ts';
@@ -70,7 +71,7 @@ export interface PlaceholderSpec {
    */
   shows?: (call: PlaceholderCall) => Body[];
   /** Extra checks of the attributes against what an enclosing section binds (`bound`). */
-  validate?: (attrs: ReadonlyMap<string, AttributeValue>, bound: Readonly<{ body: boolean; event: boolean }>) => void;
+  validate?: (attrs: ReadonlyMap<string, AttributeValue>, bound: Readonly<{ body: boolean; event: boolean }>, words: AuthorWords) => void;
   render: (call: PlaceholderCall) => ElementContent;
 }
 
@@ -80,7 +81,7 @@ export interface PlaceholderSpec {
 export const NIGHT: AttributeSpec = { type: { kind: 'night' }, default: 'Monday, or the one-off date', doc: 'which night of the week' };
 export const CLOCK: AttributeSpec = { type: { kind: 'clock' }, default: "the site's locale", doc: '12- or 24-hour clock' };
 export const TIME_PRECISION: AttributeSpec = { type: { kind: 'time-precision' }, default: 'minute', doc: 'times are rounded to this' };
-export const BODY: AttributeSpec = { type: { kind: 'body' }, required: true, bound: 'body', doc: 'the body or object' };
+export const BODY: AttributeSpec = { type: { kind: 'body' }, required: true, bound: 'body', doc: 'the body or object', need: 'err.need-body' };
 export const TWILIGHT: AttributeSpec = { type: { kind: 'choice', values: ['civil', 'nautical', 'astronomical'] }, default: 'astronomical', doc: 'which twilight' };
 export const DIGITS = (fallback: number, doc = 'decimals shown'): AttributeSpec => ({ type: { kind: 'integer', min: 0, max: 2 }, default: String(fallback), doc });
 

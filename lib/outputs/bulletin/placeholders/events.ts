@@ -1,7 +1,7 @@
 /** The sky's events: the week's list, one event picked by type, and the name of a body or event. */
 import type { ElementContent } from 'hast';
 import type { Body } from '../../../core/body.ts';
-import { GloamingError } from '../../../core/errors.ts';
+import { quoted } from '../messages.ts';
 import { formatInstant, localDateOf } from '../../../core/time.ts';
 import { EVENT_TYPES, OWN_LIST_EVENT_TYPES, pickEvent, type AlmanacEvent, type AlmanacEventType } from '../../almanac/index.ts';
 import { el, exact, formatClock, formatDay } from '../format.ts';
@@ -81,7 +81,7 @@ export const EVENT_PLACEHOLDERS: PlaceholderSpec[] = [
     summary: "one event of the week (or around a one-off's date), found by type (and body), or the event of an enclosing :::every-event: its time, date, separation, sentence or title",
     slot: true,
     attributes: {
-      type: { type: { kind: 'choice', values: EVENT_TYPES }, required: true, bound: 'event', doc: 'the event type' },
+      type: { type: { kind: 'choice', values: EVENT_TYPES }, required: true, bound: 'event', doc: 'the event type', need: 'err.need-event-type' },
       body: { ...BODY, required: false, doc: 'a body the event must involve' },
       show: { type: { kind: 'choice', values: ['time', 'date', 'separation', 'sentence', 'title'] }, default: 'time', doc: 'what to show' },
       clock: CLOCK,
@@ -95,9 +95,12 @@ export const EVENT_PLACEHOLDERS: PlaceholderSpec[] = [
     summary: 'the name of a body, or of the body or event an enclosing :::every-target or :::every-event is about',
     attributes: { body: { ...BODY, required: false } },
     example: ':name{body=moon}',
-    validate: (attrs, bound) => {
+    validate: (attrs, bound, words) => {
       if (!attrs.has('body') && !bound.body && !bound.event) {
-        throw new GloamingError('invalid-placeholder', "':name' has nothing to name here", { place: { field: 'body' }, hint: 'give body=… or put it inside :::every-target or :::every-event' });
+        throw words.error('invalid-placeholder', words.say('err.name-nothing', { placeholder: quoted(':name') }), {
+          place: { field: 'body' },
+          hint: words.say('err.name-where', { body: 'body=…', targets: ':::every-target', events: ':::every-event' }),
+        });
       }
     },
     render: nameOf,

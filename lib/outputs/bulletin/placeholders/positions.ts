@@ -99,7 +99,7 @@ export const POSITION_PLACEHOLDERS: PlaceholderSpec[] = [
     summary: 'compass direction of a body at a moment',
     attributes: {
       body: BODY,
-      at: { type: { kind: 'moment', values: ['best', 'rise', 'transit', 'set'] }, required: true, doc: 'the moment (a clock time before 12:00 is the next morning)' },
+      at: { type: { kind: 'moment', values: ['best', 'rise', 'transit', 'set'] }, required: true, doc: 'the moment (a clock time before 12:00 is the next morning)', need: 'err.need-moment' },
       style: { type: { kind: 'choice', values: ['word', 'short', 'degrees'] }, default: 'word', doc: 'west-southwest, WSW or 247°' },
       night: NIGHT,
     },
@@ -114,7 +114,7 @@ export const POSITION_PLACEHOLDERS: PlaceholderSpec[] = [
     summary: 'height above the horizon in degrees and fists (apparent, with refraction)',
     attributes: {
       body: BODY,
-      at: { type: { kind: 'moment', values: ['best', 'transit'] }, required: true, doc: 'the moment (a clock time before 12:00 is the next morning)' },
+      at: { type: { kind: 'moment', values: ['best', 'transit'] }, required: true, doc: 'the moment (a clock time before 12:00 is the next morning)', need: 'err.need-moment' },
       precision: DIGITS(0),
       night: NIGHT,
     },
