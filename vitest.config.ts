@@ -11,8 +11,10 @@ const SITE_TESTS = ['test/site-build.test.ts', 'test/e2e-site.test.ts', 'test/si
 export default defineConfig({
   test: {
     testTimeout: 60_000,
+    // Vitest's default is one worker fewer than the cores: on a 2-core machine, one file at a time.
+    maxWorkers: 2,
     projects: [
-      { extends: true, test: { name: 'unit', include: ['test/**/*.test.ts'], exclude: SITE_TESTS } },
+      { extends: true, test: { name: 'unit', include: ['test/**/*.test.ts'], exclude: SITE_TESTS, isolate: false } },
       { extends: true, test: { name: 'site', include: SITE_TESTS, globalSetup: ['test/setup/demo-build.ts'] } },
     ],
   },
