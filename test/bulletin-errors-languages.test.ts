@@ -11,6 +11,7 @@ import { GloamingError } from '../lib/core/errors.ts';
 import { isoWeekOf } from '../lib/core/time.ts';
 import { loadSites } from '../lib/models/content.ts';
 import { ProblemList, checkPages, formatProblem, pagesFor, parseBulletin, renderBulletinSync } from '../lib/outputs/bulletin/index.ts';
+import { localeFor } from '../lib/outputs/bulletin/pages.ts';
 import { CASE_INPUTS, type ErrorInput } from './bulletin-errors.cases.ts';
 
 const sites = loadSites('content/sites');
@@ -101,5 +102,24 @@ describe('problems of a template in its own language', () => {
       "error: content/bulletins/weekly.es.md:6:12 field 'night': no se puede leer la noche 'frii' (se leyó 'frii'); se esperaba mon…sun, 1–7 o una fecha YYYY-MM-DD de la semana — ¿quiso decir 'fri'?",
       "error: content/bulletins/weekly.md:6:12 field 'night': cannot read the night 'frii' (got 'frii'); expected mon…sun, 1–7 or a YYYY-MM-DD date in the week — did you mean 'fri'?",
     ]);
+  });
+
+  it('warnings too: a repeated section with nothing to repeat and a value slot with no value, in the template\'s language (the site and week after them are the command line\'s)', () => {
+    // Northern outpost in midsummer: no comet in the registry, and Neptune hidden by 24 h daylight.
+    const outpost = sites.get('northern-outpost')!;
+    const text = FM + 'Comets:\n\n:::every-target{kind=comet}\n- :name\n:::\n\nLook at :best-time{body=neptune}.\n';
+    const warnings = (language: 'es' | 'de' | 'fr') => {
+      const template = parseBulletin(text, `content/bulletins/t.${language}.md`);
+      // The page's locale, as pagesFor gives it: the template's language with the site's region.
+      const site = { ...outpost, locale: localeFor(language, outpost.locale) };
+      return renderBulletinSync(template, { site, week: isoWeekOf('2026-06-24'), bodies: new BodyRegistry() }).problems.map(formatProblem);
+    };
+    expect(warnings('es')[0]).toBe(
+      "warning: content/bulletins/t.es.md:8:1: ':::every-target{kind=comet}' no tiene nada que repetir el lunes, 22 de junio ni tiene ::otherwise, así que no imprime nada — añada ::otherwise con una frase para esas noches (site northern-outpost, week 2026-W26)",
+    );
+    expect(warnings('de')[1]).toBe(
+      "warning: content/bulletins/t.de.md:12:9: ':best-time{body=neptune}' hat am Montag, 22. Juni keinen Wert (Neptun ist in dieser Nacht nicht sichtbar: vom Tageslicht überstrahlt) und druckt daher '–' — in :::provided{seen=either body=neptune} mit ::otherwise setzen oder :verdict für den vollständigen Satz verwenden (site northern-outpost, week 2026-W26)",
+    );
+    expect(warnings('fr')[1]).toMatch(/^warning: content\/bulletins\/t\.fr\.md:12:9: ':best-time\{body=neptune\}' n’a pas de valeur le lundi 22 juin \(.+\) et affiche donc '–' — placez-la dans :::provided\{seen=either body=neptune\} avec ::otherwise, ou utilisez :verdict pour la phrase complète \(site northern-outpost, week 2026-W26\)$/);
   });
 });

@@ -11,6 +11,7 @@ import type { Site } from '../../core/site.ts';
 import { addDays, isoWeekOf, type IsoWeek } from '../../core/time.ts';
 import type { Satellite } from '../../models/satellite/passes.ts';
 import { sitesFor } from './pages.ts';
+import { authorWords } from './messages.ts';
 import { ProblemList, errorsOf, problemOfError } from './problems.ts';
 import { renderBulletinSync } from './render.ts';
 import type { BulletinTemplate, ChartOutput, PageSpec, RenderedBulletin } from './types.ts';
@@ -72,7 +73,7 @@ export function checkPages(pages: readonly Pick<PageSpec, 'template' | 'site' | 
         problems.add({
           kind: 'page-size',
           severity: 'warning',
-          message: `the page would be about ${Math.round(bytes / 1024)} KB of HTML and CSS, over the ${PAGE_BUDGET_BYTES / 1024} KB budget (the bulletin itself is ${Math.round(Buffer.byteLength(r.html) / 1024)} KB) — shorten the template or split it`,
+          message: authorWords(page.template.language).say('err.page-size', { size: Math.round(bytes / 1024), budget: PAGE_BUDGET_BYTES / 1024, own: Math.round(Buffer.byteLength(r.html) / 1024) }),
           place: { file: page.template.file },
           ...context,
         });

@@ -1,7 +1,8 @@
 /**
  * Messages for template authors, in the template's language (`weekly.es.md` → Spanish): every
- * positioned problem of a bulletin template — its front matter, its placeholders and sections,
- * its links — is worded from the `err.*` messages of the catalogues (lib/core/language/catalogues/),
+ * problem of a bulletin template — errors in its front matter, placeholders, sections and links,
+ * and the fallback, empty-section and page-size warnings — is worded from the `err.*` messages of
+ * the catalogues (lib/core/language/catalogues/),
  * and so is the framing of the offending value and the expectation ("(got …); expected …",
  * `Wording` in lib/core/errors.ts). The place (`file:line:column`, the field) and the error's code
  * are the same in every language.

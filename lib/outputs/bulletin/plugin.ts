@@ -35,7 +35,7 @@ import { readAttribute, type AttributeSpec, type AttributeValue, type ReadContex
 import { authorWords, quoted, type AuthorWords } from './messages.ts';
 import { defaultClock, formatDay, type Clock } from './format.ts';
 import { PLACEHOLDERS, type PlaceholderCall, type PlaceholderSpec } from './placeholders/registry.ts';
-import { errorsOnFile, reportError, reportWarning, throwErrors, type ProblemKind } from './problems.ts';
+import { FALLBACK_MARK, errorsOnFile, reportError, reportWarning, throwErrors, type ProblemKind } from './problems.ts';
 import type { ShownBody } from './safety.ts';
 import { OTHERWISE, SECTIONS, type Binding, type SectionSpec } from './sections.ts';
 import { WeekCache, type WeekData } from '../../models/week.ts';
@@ -493,8 +493,9 @@ class Pass {
     }
     if (decision.items.length === 0) {
       if (c.otherwise) return renderBlock(c.otherwise, binding);
-      const when = spec.binds === 'event' ? this.eventSpan : `on ${formatDay(this.scope.week.days[night]!, this.scope.site, { weekday: 'long' })}`;
-      this.warn('empty-section', node, `'${asWritten(node)}' has nothing to repeat ${when} and no ::otherwise, so it prints nothing — add ::otherwise with a sentence for such ${spec.binds === 'event' ? 'weeks' : 'nights'}`);
+      const w = this.words;
+      const when = spec.binds === 'event' ? this.eventSpan : w.say('err.on-day', { date: formatDay(this.scope.week.days[night]!, this.scope.site, { weekday: 'long' }) });
+      this.warn('empty-section', node, w.say(spec.binds === 'event' ? 'err.empty-section-weeks' : 'err.empty-section-nights', { section: quoted(asWritten(node)), when, otherwise: '::otherwise' }));
       return [];
     }
     return joinLists(decision.items.map((item) => renderBlock(c.body, { ...binding, ...item, night: item.night ?? night })));
@@ -524,7 +525,7 @@ class Pass {
         const written = Object.entries(node.attributes ?? {}).map(([k, v]) => ` ${k}=${v ?? ''}`).join('');
         const guard = `:::provided{${condition ?? `has=${c.spec.name}${written}`}}`;
         const date = formatDay(this.scope.week.days[call.night]!, this.scope.site, { weekday: 'long' });
-        this.warn('fallback', node, `'${asWritten(node)}' has no value on ${date} (${honest}), so it prints '–' — put it inside ${guard} with ::otherwise, or use :verdict for the honest sentence`);
+        this.warn('fallback', node, this.words.say('err.fallback', { placeholder: quoted(asWritten(node)), date, honest, mark: quoted(FALLBACK_MARK), guard, otherwise: '::otherwise', verdict: ':verdict' }));
       },
     });
     replaceWith(node, c.spec.render(call));

@@ -568,4 +568,9 @@ export const de: Catalogue = {
   'err.fm-file-name-expected': 'Buchstaben a–z, Ziffern und Bindestriche, mit optionaler Sprache, z. B. {example} oder {other}',
   'err.fm-yaml': 'YAML-Syntaxfehler: {detail}',
   'err.fm-yaml-expected': 'gültiges YAML (Einrückung, Doppelpunkte und Anführungszeichen prüfen)',
+  'err.on-day': 'am {date}',
+  'err.fallback': '{placeholder} hat am {date} keinen Wert ({honest}) und druckt daher {mark} — in {guard} mit {otherwise} setzen oder {verdict} für den vollständigen Satz verwenden',
+  'err.empty-section-nights': '{section} hat {when} nichts zu wiederholen und kein {otherwise}, druckt also nichts — {otherwise} mit einem Satz für solche Nächte ergänzen',
+  'err.empty-section-weeks': '{section} hat {when} nichts zu wiederholen und kein {otherwise}, druckt also nichts — {otherwise} mit einem Satz für solche Wochen ergänzen',
+  'err.page-size': 'die Seite hätte etwa {size} KB HTML und CSS, mehr als das Budget von {budget} KB (das Bulletin selbst hat {own} KB) — die Vorlage kürzen oder teilen',
 };

@@ -468,7 +468,7 @@ export const en = {
   'chart.sky-not-up': '{name} not up',
   'chart.sky-title': 'Whole-sky chart from {site} at {clock}',
   'chart.title': 'Finder chart: {name} from {site} at {clock}',
-  // Messages for template authors (lib/outputs/bulletin/messages.ts), in the template's language.
+  // Problems of a template for its author (lib/outputs/bulletin/messages.ts), in the template's language.
   // Arguments are syntax or the author's own text, inserted exactly as written (quotes included):
   // placeholder, section, name, value, field, example, list. Problems outside templates stay English.
   'err.got': 'got {value}',
@@ -587,6 +587,11 @@ export const en = {
   'err.fm-file-name-expected': 'letters a–z, digits and hyphens, with an optional language, e.g. {example} or {other}',
   'err.fm-yaml': 'YAML syntax error: {detail}',
   'err.fm-yaml-expected': 'valid YAML (check indentation, colons and quotes)',
+  'err.on-day': 'on {date}',
+  'err.fallback': '{placeholder} has no value on {date} ({honest}), so it prints {mark} — put it inside {guard} with {otherwise}, or use {verdict} for the honest sentence',
+  'err.empty-section-nights': '{section} has nothing to repeat {when} and no {otherwise}, so it prints nothing — add {otherwise} with a sentence for such nights',
+  'err.empty-section-weeks': '{section} has nothing to repeat {when} and no {otherwise}, so it prints nothing — add {otherwise} with a sentence for such weeks',
+  'err.page-size': 'the page would be about {size} KB of HTML and CSS, over the {budget} KB budget (the bulletin itself is {own} KB) — shorten the template or split it',
 } as const;
 
 export type MessageKey = keyof typeof en;

@@ -574,4 +574,9 @@ export const es: Catalogue = {
   'err.fm-file-name-expected': 'un nombre de letras a–z, cifras y guiones, con un idioma opcional, p. ej. {example} o {other}',
   'err.fm-yaml': 'error de sintaxis YAML: {detail}',
   'err.fm-yaml-expected': 'YAML válido (revise la sangría, los dos puntos y las comillas)',
+  'err.on-day': 'el {date}',
+  'err.fallback': '{placeholder} no tiene valor el {date} ({honest}), así que imprime {mark} — póngalo dentro de {guard} con {otherwise}, o use {verdict} para decirlo en una frase',
+  'err.empty-section-nights': '{section} no tiene nada que repetir {when} ni tiene {otherwise}, así que no imprime nada — añada {otherwise} con una frase para esas noches',
+  'err.empty-section-weeks': '{section} no tiene nada que repetir {when} ni tiene {otherwise}, así que no imprime nada — añada {otherwise} con una frase para esas semanas',
+  'err.page-size': 'la página tendría unos {size} KB de HTML y CSS, por encima del límite de {budget} KB (el boletín en sí ocupa {own} KB) — acorte la plantilla o divídala',
 };

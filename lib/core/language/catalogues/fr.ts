@@ -571,4 +571,9 @@ export const fr: Catalogue = {
   'err.fm-file-name-expected': 'lettres a–z, chiffres et tirets, avec une langue facultative, p. ex. {example} ou {other}',
   'err.fm-yaml': 'erreur de syntaxe YAML\u00a0: {detail}',
   'err.fm-yaml-expected': 'du YAML valide (vérifiez l’indentation, les deux-points et les guillemets)',
+  'err.on-day': 'le {date}',
+  'err.fallback': '{placeholder} n’a pas de valeur le {date} ({honest}) et affiche donc {mark} — placez-la dans {guard} avec {otherwise}, ou utilisez {verdict} pour la phrase complète',
+  'err.empty-section-nights': '{section} n’a rien à répéter {when} et pas de {otherwise}, donc n’affiche rien — ajoutez {otherwise} avec une phrase pour ces nuits-là',
+  'err.empty-section-weeks': '{section} n’a rien à répéter {when} et pas de {otherwise}, donc n’affiche rien — ajoutez {otherwise} avec une phrase pour ces semaines-là',
+  'err.page-size': 'la page ferait environ {size} Ko (HTML et CSS), au-delà du budget de {budget} Ko (le bulletin lui-même fait {own} Ko) — raccourcissez le modèle ou divisez-le',
 };
