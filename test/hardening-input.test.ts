@@ -10,7 +10,7 @@ import ICAL from 'ical.js';
 import { afterAll, describe, expect, it } from 'vitest';
 import { main } from '../lib/outputs/cli/main.ts';
 import { EXIT_CODES, MAX_ECHO_CHARS } from '../lib/core/errors.ts';
-import { formatInstant, zonedTime } from '../lib/core/time.ts';
+import { formatInstant, zonedParts, zonedTime } from '../lib/core/time.ts';
 import { eventsToICalendar, findEvents } from '../lib/outputs/almanac/index.ts';
 import { defineSite } from '../lib/core/site.ts';
 
@@ -93,6 +93,42 @@ describe('historical UTC offsets keep their seconds in ISO strings (issue #14 §
   it('Monrovia 1960 is −00:44:30; whole-minute offsets keep the short form', () => {
     expect(formatInstant(new Date('1960-01-01T00:44:30Z'), 'Africa/Monrovia')).toBe('1960-01-01T00:00:00-00:44:30');
     expect(formatInstant(new Date('2026-07-01T00:00:00Z'), 'Asia/Kathmandu')).toBe('2026-07-01T05:45:00+05:45');
+  });
+
+  it('wall-clock fields equal the platform\'s own at every second around offset changes, remembered or not', () => {
+    // The reference is Intl.DateTimeFormat.formatToParts itself, asked afresh for each instant
+    // (the platform's IANA data); the library remembers offsets per quarter hour.
+    const platform = (ms: number, zone: string): string => {
+      const f = new Intl.DateTimeFormat('en-US', { timeZone: zone, hourCycle: 'h23', year: 'numeric', month: '2-digit', day: '2-digit', hour: '2-digit', minute: '2-digit', second: '2-digit' });
+      const p = Object.fromEntries(f.formatToParts(new Date(ms)).map((x) => [x.type, x.value]));
+      return `${Number(p.year)}-${Number(p.month)}-${Number(p.day)} ${Number(p.hour)}:${Number(p.minute)}:${Number(p.second)}`;
+    };
+    const ours = (ms: number, zone: string): string => {
+      const p = zonedParts(new Date(ms), zone);
+      return `${p.year}-${p.month}-${p.day} ${p.hour}:${p.minute}:${p.second}`;
+    };
+    // Changes of offset (IANA tz database, from memory; the assertions compare with the platform, not with these):
+    // Dublin's end of mean time 1916-10-01 02:25:21 UTC, Lord Howe's half-hour DST (2026-04-05 15:00 UTC),
+    // the Chatham Islands' +13:45 → +12:45 (2026-04-04 14:00 UTC), Berlin's DST (2026-03-29 01:00 UTC).
+    const around: [string, string][] = [
+      ['Europe/Dublin', '1916-10-01T02:25:21Z'],
+      ['Australia/Lord_Howe', '2026-04-05T15:00:00Z'],
+      ['Pacific/Chatham', '2026-04-04T14:00:00Z'],
+      ['Europe/Berlin', '2026-03-29T01:00:00Z'],
+    ];
+    let compared = 0;
+    for (const [zone, iso] of around) {
+      const change = Date.parse(iso);
+      // Every 7 s through an hour either side (odd steps hit seconds inside and at the change), then twice more (remembered).
+      for (let pass = 0; pass < 2; pass++) {
+        for (let ms = change - 3_600_000; ms <= change + 3_600_000; ms += 7_000) {
+          expect(ours(ms, zone), `${zone} ${new Date(ms).toISOString()}`).toBe(platform(ms, zone));
+          compared++;
+        }
+      }
+      for (const ms of [change - 1000, change, change + 1000, change + 250]) expect(ours(ms, zone)).toBe(platform(ms, zone));
+    }
+    expect(compared).toBeGreaterThan(4000);
   });
 
   it('the night command prints a pre-1916 Dublin sunset with the seconds of the offset', () => {

@@ -58,8 +58,8 @@ export interface ZonedParts {
   second: number;
 }
 
-/** The wall-clock fields of `instant` in `zone` (seconds truncated). */
-export function zonedParts(instant: Date, zone: string): ZonedParts {
+/** The platform's wall-clock fields of `instant` in `zone` (seconds truncated): one `formatToParts` call. */
+function platformParts(instant: Date, zone: string): ZonedParts {
   const parts = formatter(zone).formatToParts(instant);
   const get = (type: Intl.DateTimeFormatPartTypes): number => Number(parts.find((p) => p.type === type)!.value);
   return {
@@ -72,15 +72,59 @@ export function zonedParts(instant: Date, zone: string): ZonedParts {
   };
 }
 
+/** The platform's UTC offset of `zone` at `ms` (a whole second), seconds east of Greenwich. */
+function platformOffset(ms: number, zone: string): number {
+  const p = platformParts(new Date(ms), zone);
+  return Math.round((Date.UTC(p.year, p.month - 1, p.day, p.hour, p.minute, p.second) - ms) / 1000);
+}
+
+/** Length of the spans over which offsets are remembered, ms (a quarter of an hour). */
+const SPAN_MS = 900_000;
+/** Remembered offsets per zone, by span number; null for a span in which the offset changes. */
+const spanOffsets = new Map<string, Map<number, number | null>>();
+
+/**
+ * UTC offset of `zone` at the whole second `ms`, seconds east. Asking the platform costs a
+ * `formatToParts` call (about 10 µs) and a week of pages asks for thousands of instants, so the
+ * offset is remembered per quarter hour of UTC when the platform gives the same offset at the
+ * span's first and last second: a zone's offset changes at most once in a quarter hour (IANA tz
+ * database), so it then holds for the whole span. In a span with a change the platform is asked
+ * each time.
+ */
+function offsetAt(ms: number, zone: string): number {
+  let spans = spanOffsets.get(zone);
+  if (!spans) spanOffsets.set(zone, (spans = new Map()));
+  const span = Math.floor(ms / SPAN_MS);
+  let offset = spans.get(span);
+  if (offset === undefined) {
+    const first = platformOffset(span * SPAN_MS, zone);
+    offset = first === platformOffset(span * SPAN_MS + SPAN_MS - 1000, zone) ? first : null;
+    if (spans.size > 200_000) spans.clear(); // about five years of quarter hours
+    spans.set(span, offset);
+  }
+  return offset ?? platformOffset(ms, zone);
+}
+
+/** The wall-clock fields of `instant` in `zone` (seconds truncated). */
+export function zonedParts(instant: Date, zone: string): ZonedParts {
+  const ms = Math.floor(instant.getTime() / 1000) * 1000;
+  const local = new Date(ms + offsetAt(ms, zone) * 1000);
+  return {
+    year: local.getUTCFullYear(),
+    month: local.getUTCMonth() + 1,
+    day: local.getUTCDate(),
+    hour: local.getUTCHours(),
+    minute: local.getUTCMinutes(),
+    second: local.getUTCSeconds(),
+  };
+}
+
 /**
  * UTC offset of `zone` at `instant`, seconds east of Greenwich (e.g. 3600 for CET). Historical
  * local mean times keep their seconds (Dublin until 1916: −00:25:21 = −1521 s, IANA tz database).
  */
 export function offsetSeconds(instant: Date, zone: string): number {
-  const p = zonedParts(instant, zone);
-  const asUtc = Date.UTC(p.year, p.month - 1, p.day, p.hour, p.minute, p.second);
-  const truncated = Math.floor(instant.getTime() / 1000) * 1000;
-  return Math.round((asUtc - truncated) / 1000);
+  return offsetAt(Math.floor(instant.getTime() / 1000) * 1000, zone);
 }
 
 /** UTC offset of `zone` at `instant`, minutes east of Greenwich (e.g. +60 for CET), rounded to the minute. */
