@@ -42,6 +42,19 @@ export interface DeepSkyObject {
 const FAR_AU = 1e10;
 const RAD = Math.PI / 180;
 
+/** The Earth's barycentric velocity (AU/day, J2000) by time, shared by every object: they ask at the same grid times. */
+const earthVelocities = new Map<number, Astronomy.StateVector>();
+
+function earthVelocity(time: Astronomy.AstroTime): Astronomy.StateVector {
+  let v = earthVelocities.get(time.tt);
+  if (!v) {
+    v = Astronomy.BaryState(Astronomy.Body.Earth, time);
+    if (earthVelocities.size >= 20_000) earthVelocities.clear(); // a long-running dev server keeps a few years
+    earthVelocities.set(time.tt, v);
+  }
+  return v;
+}
+
 /**
  * A reader's name: "M 31 (Andromeda Galaxy)", or the designation alone when the language has no
  * name. Objects of the lesser-known catalogues (Collinder, Caldwell, PGC) and double stars lead
@@ -80,7 +93,7 @@ export function fixedBody(object: DeepSkyObject): Body {
     localNames,
     geoVector(time, { aberration }) {
       if (!aberration) return new Astronomy.Vector(ux * FAR_AU, uy * FAR_AU, uz * FAR_AU, time);
-      const v = Astronomy.BaryState(Astronomy.Body.Earth, time);
+      const v = earthVelocity(time);
       return new Astronomy.Vector(ux * FAR_AU + v.vx * lightDays, uy * FAR_AU + v.vy * lightDays, uz * FAR_AU + v.vz * lightDays, time);
     },
     illumination() {
