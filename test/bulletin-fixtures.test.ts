@@ -13,7 +13,8 @@ import { loadSites, parseSite } from '../lib/models/content.ts';
 import { GloamingError } from '../lib/core/errors.ts';
 import { isoWeekOf } from '../lib/core/time.ts';
 import { loadSatellites } from '../lib/models/satellite/catalogue.ts';
-import { ECLIPSE_CAUTION, WeekCache, assertPublishable, formatProblem, pagesFor, parseBulletin, placeholderTable, renderBulletin } from '../lib/outputs/bulletin/index.ts';
+import { ECLIPSE_CAUTION, WeekCache, assertPublishable, formatProblem, pagesFor, pagesToCheck, parseBulletin, placeholderTable, renderBulletin } from '../lib/outputs/bulletin/index.ts';
+import { ProblemList } from '../lib/outputs/bulletin/problems.ts';
 
 const ROOT = 'test/fixtures';
 const UPDATE = process.env.UPDATE_FIXTURES === '1';
@@ -83,6 +84,25 @@ describe('pages', () => {
       'harbour-roof/2026-W53/new-year',
       'southern-station/2026-W53/new-year',
     ]);
+  });
+
+  it('`check` renders each page for the same site and locale as the build publishes it, whatever the template\'s language', () => {
+    // The demo's own templates at its four sites: an English version at the Spanish-speaking site
+    // is published for en-CL, so check must see en-CL there too, not the site's es-CL.
+    const templates = readdirSync('content/bulletins')
+      .filter((f) => f.endsWith('.md'))
+      .map((f) => parseBulletin(readFileSync(join('content/bulletins', f), 'utf8'), join('content/bulletins', f)));
+    const today = '2026-12-04';
+    const built = pagesFor(templates, { sites, today });
+    const problems = new ProblemList();
+    const checked = pagesToCheck(templates, { sites, today, weeks: 1, problems });
+    expect(problems.items).toEqual([]);
+    const key = (p: { template: { file: string }; site: { id: string }; week: { id: string } }): string => `${p.template.file} ${p.site.id} ${p.week.id}`;
+    const byKey = new Map(checked.map((p) => [key(p), p]));
+    const thisWeek = built.filter((p) => p.week.id === isoWeekOf(today).id);
+    expect(thisWeek.length).toBeGreaterThan(5);
+    for (const page of thisWeek) expect(byKey.get(key(page))?.site, key(page)).toEqual(page.site);
+    expect(thisWeek.some((p) => p.site.id === 'cerro-lucero' && p.site.locale === 'en-CL')).toBe(true);
   });
 
   it('two templates with one name are refused', () => {

@@ -10,7 +10,7 @@ import { GloamingError } from '../../core/errors.ts';
 import type { Site } from '../../core/site.ts';
 import { addDays, isoWeekOf, type IsoWeek } from '../../core/time.ts';
 import type { Satellite } from '../../models/satellite/passes.ts';
-import { sitesFor } from './pages.ts';
+import { siteForTemplate, sitesFor } from './pages.ts';
 import { authorWords } from './messages.ts';
 import { ProblemList, errorsOf, problemOfError } from './problems.ts';
 import { renderBulletinSync } from './render.ts';
@@ -106,7 +106,8 @@ export function pagesToCheck(templates: readonly BulletinTemplate[], options: { 
     }
     const date = template.frontMatter.date;
     const weeks = date !== undefined ? [isoWeekOf(date)] : span;
-    for (const site of sites) for (const week of weeks) pages.push({ template, site, week });
+    // The site as the build renders this template there (its language, the site's region).
+    for (const site of sites) for (const week of weeks) pages.push({ template, site: siteForTemplate(template, site), week });
   }
   return pages;
 }

@@ -10,12 +10,24 @@ import { fieldPlace } from './frontmatter.ts';
 import { authorWords, quoted, type AuthorWords } from './messages.ts';
 import { catalogueLanguage, type Language } from '../../core/language/index.ts';
 
+import type { BulletinTemplate, PageSpec } from './types.ts';
+
 /** A locale for a page in `language` at a site with `siteLocale`: the language with the site's region (`en` at `es-CL` → `en-CL`), or the bare language. */
 export function localeFor(language: Language, siteLocale: string): string {
   const region = new Intl.Locale(siteLocale).region;
   return region ? `${language}-${region}` : language;
 }
-import type { BulletinTemplate, PageSpec } from './types.ts';
+
+/**
+ * The site as a page of `template` sees it: the site itself when the template is in the site's
+ * language, else the site with the locale of the template's language and the site's region (an
+ * English version at an `es-CL` site is written for `en-CL`). The build and `check` both render
+ * pages through this, so a check sees the words the build publishes.
+ */
+export function siteForTemplate(template: Pick<BulletinTemplate, 'language'>, site: Site): Site {
+  if (template.language === catalogueLanguage(site.locale)) return site;
+  return { ...site, locale: localeFor(template.language, site.locale) };
+}
 
 export interface PagesOptions {
   /** All sites by id. */
@@ -97,15 +109,15 @@ export function pagesFor(templates: readonly BulletinTemplate[], options: PagesO
       const own = mine.find((t) => t.language === catalogueLanguage(site.locale)) ?? mine[0]!;
       const versionsHere = mine.map((template) => {
         const primary = template === own;
-        const locale = template.language === catalogueLanguage(site.locale) ? site.locale : localeFor(template.language, site.locale);
-        return { template, locale, segment: primary ? slug : `${slug}.${template.language}` };
+        const pageSite = siteForTemplate(template, site);
+        return { template, pageSite, locale: pageSite.locale, segment: primary ? slug : `${slug}.${template.language}` };
       });
       for (const v of versionsHere) {
         for (const week of weeksFor(v.template, options.today)) {
           const alternates = versionsHere
             .filter((o) => o !== v && weeksFor(o.template, options.today).some((w) => w.id === week.id))
             .map((o) => ({ locale: o.locale, path: `${site.id}/${week.id}/${o.segment}` }));
-          pages.push({ template: v.template, site: v.locale === site.locale ? site : { ...site, locale: v.locale }, week, path: `${site.id}/${week.id}/${v.segment}`, alternates });
+          pages.push({ template: v.template, site: v.pageSite, week, path: `${site.id}/${week.id}/${v.segment}`, alternates });
         }
       }
     }
