@@ -52,7 +52,7 @@ export interface BuildOptions {
   content: string;
   /** Astro's log level; default 'warn'. */
   logLevel: 'debug' | 'info' | 'warn' | 'error' | 'silent';
-  /** Warnings (a value placeholder without a value, an empty repeated section, a page over the 40 KB budget) stop the build too (`--strict`). */
+  /** Warnings (a value placeholder without a value, an empty repeated section, a page over the 40 KB budget, a comet's elements too old for the build date) stop the build too (`--strict`). */
   strict?: boolean;
 }
 

@@ -3,7 +3,7 @@
  * with file:line:column, site and week; exit code 1 when anything is found, 0 when nothing is,
  * 2 for wrong arguments; `--json` for machines. The demo content passes 52 weeks for every site.
  */
-import { cpSync, mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { cpSync, mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
@@ -18,7 +18,7 @@ function run(argv: string[]): { code: number; out: string; err: string } {
 
 interface CheckJson {
   pages: number;
-  problems: { kind: string; severity: string; file: string; line: number | null; column: number | null; site: string | null; week: string | null; message: string }[];
+  problems: { kind: string; severity: string; file: string; line: number | null; column: number | null; field?: string; site: string | null; week: string | null; message: string }[];
 }
 
 const dir = mkdtempSync(join(tmpdir(), 'gloaming-check-'));
@@ -70,6 +70,59 @@ describe('gloaming check', () => {
     expect(text.code).toBe(1);
     expect(text.out).toContain(`warning: ${join(content, 'bulletins/c-warnings.md')}:6:12: ':best-time{body=neptune}' has no value on Monday 21 June`);
     expect(text.out.trim().split('\n').at(-1)).toBe('checked 4 page(s): 2 template(s), 4 site(s), 2 week(s) from 2027-06-21; 3 error(s), 4 warning(s)');
+  }, 120_000);
+
+  it('warns once per run, at the object file\'s epoch line, when a comet near perihelion has old elements or none', () => {
+    const content = join(dir, 'stale');
+    cpSync('content/sites', join(content, 'sites'), { recursive: true });
+    cpSync('content/objects', join(content, 'objects'), { recursive: true });
+    for (const f of ['centre.yaml', 'logo.svg']) cpSync(join('content', f), join(content, f));
+    mkdirSync(join(content, 'bulletins'));
+    writeFileSync(join(content, 'bulletins/plain.md'), '---\ntitle: T\nsites: all\nschedule: { every: week }\n---\nClear skies.\n');
+    const file = join(content, 'objects/comet-lumen.yaml');
+    const demo = readFileSync(file, 'utf8');
+    const lineOf = (text: string, start: string): number => text.split('\n').findIndex((l) => l.startsWith(start)) + 1;
+    const check = (today: string): CheckJson & { code: number } => {
+      const r = run(['check', '--content', content, '--today', today, '--weeks', '2', '--json']);
+      return { ...(JSON.parse(r.out) as CheckJson), code: r.code };
+    };
+    const DAY = 86_400_000;
+    // The demo comet's perihelion is 2027-01-11T03:00 TT; the limits are 120 days from it and 60 days of age (common practice, README).
+    const beforePerihelion = Math.round((Date.UTC(2027, 0, 11, 3) - Date.UTC(2026, 11, 4)) / DAY);
+
+    // The demo's own epoch (2026-11-27) is a week old on 2026-12-04: nothing to say, for 4 sites × 2 weeks of pages.
+    const fresh = check('2026-12-04');
+    expect(fresh.pages).toBe(8);
+    expect(fresh.problems).toEqual([]);
+    expect(fresh.code).toBe(0);
+
+    // An epoch of 2026-09-01 is too old: one warning for the run (not one per page), at the epoch's value.
+    writeFileSync(file, demo.replace(/^ {2}epoch: \S+/m, '  epoch: 2026-09-01'));
+    const old = check('2026-12-04');
+    const age = Math.round((Date.UTC(2026, 11, 4) - Date.UTC(2026, 8, 1)) / DAY);
+    expect(old.problems.map((p) => `${p.severity} ${p.kind} ${p.file}:${p.line}:${p.column} ${p.field} ${p.site} ${p.week}`)).toEqual([
+      `warning stale-elements ${file}:${lineOf(demo, '  epoch:')}:10 elements.epoch null null`,
+    ]);
+    expect(old.problems[0]!.message).toBe(
+      `Comet Lumen (invented for the demo) is ${beforePerihelion} days before perihelion and its elements are ${age} days old (epoch 2026-09-01), more than 60: near the Sun a comet drifts from a two-body orbit within weeks; expected elements fitted within the last 60 days: import a current MPC or JPL SBDB element line with \`gloaming objects add --force\``,
+    );
+    expect(old.code).toBe(1);
+    // The text form, as the build prints it.
+    const text = run(['check', '--content', content, '--today', '2026-12-04', '--weeks', '2']);
+    expect(text.out).toContain(`warning: ${file}:${lineOf(demo, '  epoch:')}:10 field 'elements.epoch': Comet Lumen (invented for the demo) is ${beforePerihelion} days before perihelion`);
+    expect(text.out.trim().split('\n').at(-1)).toMatch(/; 0 error\(s\), 1 warning\(s\)$/);
+
+    // No epoch at all: placed at the elements (lib/core/yaml.ts places a mapping at its first value).
+    writeFileSync(file, demo.replace(/^ {2}epoch: .*\n/m, ''));
+    const none = check('2026-12-04');
+    expect(none.problems.map((p) => `${p.file}:${p.line}:${p.column} ${p.field}`)).toEqual([`${file}:${lineOf(demo, '  perihelionDistance:')}:3 elements`]);
+    expect(none.problems[0]!.message).toMatch(/gives? no epoch of osculation/);
+
+    // The demo's own elements warn too, rightly, once they are 80 days old near perihelion (2027-02-15, 35 days after it).
+    writeFileSync(file, demo);
+    const later = check('2027-02-15');
+    expect(later.problems.map((p) => p.kind)).toEqual(['stale-elements']);
+    expect(later.problems[0]!.message).toMatch(/is 35 days after perihelion and its elements are 80 days old \(epoch 2026-11-27\)/);
   }, 120_000);
 
   it('wrong arguments exit 2 with one line naming the flag', () => {

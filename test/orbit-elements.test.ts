@@ -99,7 +99,10 @@ describe('object files that are right', () => {
   });
 
   it('the demo object file loads', () => {
-    expect(loadObjectFile('content/objects/comet-lumen.yaml').id).toBe('comet-lumen');
+    const lumen = loadObjectFile('content/objects/comet-lumen.yaml');
+    expect(lumen.id).toBe('comet-lumen');
+    // Its (invented) epoch of osculation, 2026-11-27 0h TT, in days from J2000.0 (2000-01-01 12h TT).
+    expect(lumen.elements.epochTt).toBe((Date.UTC(2026, 10, 27) - Date.UTC(2000, 0, 1, 12)) / 86_400_000);
   });
 });
 
@@ -122,6 +125,8 @@ describe('bad object files give positioned errors (file:line:column and field)',
     ['invalid date', withLine(GOOD, 10, '  perihelionTime: 2027-02-30T04:30:00Z'), 'invalid-date', 'elements.perihelionTime', 10, 19],
     ['date with a zone offset', withLine(GOOD, 10, '  perihelionTime: 2027-03-18T04:30:00+02:00'), 'invalid-date', 'elements.perihelionTime', 10, 19],
     ['osculating (elliptic) form with e ≥ 1', withLine(OSCULATING, 6, '  eccentricity: 1.02'), 'invalid-value', 'elements.eccentricity', 6, 17],
+    ['perihelion form with an epoch that is no date', withLine(GOOD, 10, '  perihelionTime: 2027-03-18T04:30:00Z\n  epoch: 2027-02-30'), 'invalid-date', 'elements.epoch', 11, 10],
+    ['perihelion form with an epoch that is a word', withLine(GOOD, 10, '  perihelionTime: 2027-03-18T04:30:00Z\n  epoch: recent'), 'invalid-date', 'elements.epoch', 11, 10],
     ['osculating form without its epoch', withLine(OSCULATING, 11, null), 'missing-field', 'elements.epoch', 5, 3],
     ['osculating form without a', withLine(OSCULATING, 5, null), 'missing-field', 'elements.semiMajorAxis', 5, 3],
     ['forms mixed', withLine(GOOD, 5, '  semiMajorAxis: 2.2'), 'unknown-field', 'elements.semiMajorAxis', 5, 18],

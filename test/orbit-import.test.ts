@@ -9,10 +9,10 @@
 import * as Astronomy from 'astronomy-engine';
 import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
-import { join } from 'node:path';
+import { join, relative } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { main } from '../lib/outputs/cli/main.ts';
-import { loadObjectFile, parseObject } from '../lib/models/orbit/elements.ts';
+import { loadObjectFile, parseObject, type SmallBodyObject } from '../lib/models/orbit/elements.ts';
 import { smallBody } from '../lib/models/orbit/body.ts';
 import {
   formatMpcComet,
@@ -25,6 +25,7 @@ import {
   readMpcMinorPlanet,
   readSbdb,
   staleCometWarning,
+  type ImportedObject,
   unpackDate,
   unpackNumber,
   unpackProvisional,
@@ -216,13 +217,36 @@ describe('JPL SBDB element fields (ssd-api.jpl.nasa.gov/doc/sbdb.html)', () => {
 });
 
 describe('old comet elements near perihelion', () => {
-  const halley = readMpcComet(HALLEY_LINE);
+  /** An imported object as the build loads it (the rule reads validated object files). */
+  const loaded = (object: ImportedObject): SmallBodyObject => parseObject(objectYaml(object), `objects/${object.id}.yaml`);
+  const halley = loaded(readMpcComet(HALLEY_LINE));
   it('warns within 120 days of perihelion when the epoch is more than 60 days old (this project\'s choice, common practice)', () => {
-    expect(staleCometWarning(halley, '1986-05-01')).toBe('1P/Halley is 81 days after perihelion and its elements are 71 days old (epoch 1986-02-19), more than 60: near the Sun a comet drifts from a two-body orbit within weeks — fetch fresh elements');
+    // Halley's line: perihelion 1986 Feb 9.4589 TT, epoch 1986 Feb 19; 1986-05-01 is 80.54 days after T and 71 days after the epoch.
+    expect(staleCometWarning(halley, '1986-05-01')).toEqual({
+      field: 'elements.epoch',
+      message: '1P/Halley is 81 days after perihelion and its elements are 71 days old (epoch 1986-02-19), more than 60: near the Sun a comet drifts from a two-body orbit within weeks; expected elements fitted within the last 60 days: import a current MPC or JPL SBDB element line with `gloaming objects add --force`',
+    });
     expect(staleCometWarning(halley, '1986-03-01')).toBeNull(); // 10 days old
     expect(staleCometWarning(halley, '1987-01-01')).toBeNull(); // far from perihelion
-    expect(staleCometWarning(readMpcComet(ENCKE_LINE), '1990-11-01')).toMatch(/no epoch of osculation/);
-    expect(staleCometWarning(readMpcMinorPlanet(CERES_LINE), '2020-06-01')).toBeNull();
+    expect(staleCometWarning(halley, '1986-01-01')).toBeNull(); // epoch ahead of the date (MPC standard epochs often are)
+    const encke = staleCometWarning(loaded(readMpcComet(ENCKE_LINE)), '1990-11-01');
+    expect(encke?.field).toBe('elements');
+    expect(encke?.message).toMatch(/^2P\/Encke is 3 days after perihelion and its elements give no epoch of osculation \(elements\.epoch\)/);
+    expect(staleCometWarning(loaded(readMpcMinorPlanet(CERES_LINE)), '2020-06-01')).toBeNull();
+  });
+
+  it('reads a comet given in the osculating form (a, M, epoch) through the same rule', () => {
+    // Meeus Example 33.b (Encke): a 2.2091404 AU, T 1990 Oct 28.54502 TT; at the epoch 1990 Oct 6.0 TT, 22.54502 days
+    // before T, M = −n · 22.54502 d with n = k a^(−3/2) (Gaussian k in degrees a day, 0.9856076686).
+    const n = 0.9856076686 / 2.2091404 ** 1.5;
+    const osculating = parseObject(
+      ['id: encke', 'name: 2P/Encke', 'kind: comet', 'elements:', '  semiMajorAxis: 2.2091404', '  eccentricity: 0.8502196', '  inclination: 11.94524', '  ascendingNode: 334.75006',
+        '  argumentOfPerihelion: 186.23352', `  meanAnomaly: ${360 - n * 22.54502}`, '  epoch: 1990-10-06', 'magnitude: { M1: 11.5, K1: 10 }', 'source: Meeus Example 33.b', ''].join('\n'),
+      'objects/encke.yaml',
+    );
+    // 1990-12-20 is 52.45 days after T and 75 days after the epoch; 1990-11-20 is 45 days after the epoch.
+    expect(staleCometWarning(osculating, '1990-12-20')?.message).toMatch(/^2P\/Encke is 52 days after perihelion and its elements are 75 days old \(epoch 1990-10-06\)/);
+    expect(staleCometWarning(osculating, '1990-11-20')).toBeNull();
   });
 });
 
@@ -244,7 +268,10 @@ describe('gloaming objects add', () => {
     expect(r.err).toBe('');
     expect(r.code).toBe(0);
     expect(r.out).toContain('1p-halley.yaml: 1P/Halley (comet; MPC one-line comet orbit of 1P, reference MPC 12345; epoch 1986-02-19 TT)');
-    expect(r.out).toContain('warning: 1P/Halley is 81 days after perihelion and its elements are 71 days old');
+    // Placed as the build and `check` place it: the written file, at its epoch line (the value's column).
+    const written = join(dir, 'objects/1p-halley.yaml');
+    const epochLine = readFileSync(written, 'utf8').split('\n').findIndex((l) => l.startsWith('  epoch: ')) + 1;
+    expect(r.out).toContain(`warning: ${relative(process.cwd(), written)}:${epochLine}:10 field 'elements.epoch': 1P/Halley is 81 days after perihelion and its elements are 71 days old`);
     const object = loadObjectFile(join(dir, 'objects/1p-halley.yaml'));
     expect(object.source).toContain('epoch 1986-02-19 TT');
     expect(object.elements).toMatchObject({ form: 'perihelion', perihelionDistanceAu: 0.587104 });

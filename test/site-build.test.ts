@@ -275,7 +275,7 @@ describe('site build', () => {
     expect(treeDigest(join(work, 'a'))).toEqual(before);
   }, 120_000);
 
-  it('with --strict, a value placeholder without a value stops the build with its place, site and week', () => {
+  it('with --strict, a value placeholder without a value, or a comet\'s old elements, stop the build with their places', () => {
     const before = treeDigest(join(work, 'a'));
     const bad = join(work, 'strict-template');
     cpSync(join(ROOT, 'content'), bad, { recursive: true });
@@ -284,10 +284,18 @@ describe('site build', () => {
     // No solar eclipse falls in the build's weeks (2026-W41 to 2026-W53; NASA's five-millennium canon lists none between 12 Aug 2026 and 6 Feb 2027).
     writeFileSync(file, `${text}\nThe eclipse starts at :event{type=solar-eclipse}.\n`);
     const line = text.split('\n').length + 1;
+    // The comet's elements 94 days old on the build date, 38 days before its perihelion (limits: README, common practice).
+    const object = join(bad, 'objects/comet-lumen.yaml');
+    const objectText = readFileSync(object, 'utf8');
+    writeFileSync(object, objectText.replace(/^ {2}epoch: \S+/m, '  epoch: 2026-09-01'));
+    const epochLine = objectText.split('\n').findIndex((l) => l.startsWith('  epoch:')) + 1;
     const r = build(['--today', TODAY, '--sites', 'harbour-roof', '--out', join(work, 'a'), '--content', bad, '--strict']);
     expect(r.status).toBe(2);
     expect(r.stderr).toContain(`warning: ${join(bad, 'bulletins/weekly.md').replace(ROOT + '/', '')}:${line}:23: ':event{type=solar-eclipse}' has no value`);
     expect(r.stderr).toMatch(/\(site harbour-roof, week 2026-W49\)/);
+    // Once for the build, not once per page.
+    const stale = `warning: ${object.replace(ROOT + '/', '')}:${epochLine}:10 field 'elements.epoch': Comet Lumen (invented for the demo) is 38 days before perihelion and its elements are 94 days old (epoch 2026-09-01)`;
+    expect(r.stderr.split('\n').filter((l) => l.startsWith(stale))).toHaveLength(1);
     expect(r.stderr.trim().split('\n').at(-1)).toMatch(/warning\(s\) with --strict.*the build stopped \(--strict\); the previous output is unchanged$/);
     expect(treeDigest(join(work, 'a'))).toEqual(before);
   }, 120_000);

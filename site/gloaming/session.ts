@@ -12,11 +12,12 @@ import { existsSync, mkdirSync, renameSync, writeFileSync } from 'node:fs';
 import { threadId } from 'node:worker_threads';
 import { join, resolve, sep } from 'node:path';
 import type { DataStore, LoaderContext } from 'astro/loaders';
-import { checkPages, ProblemList, WeekCache, formatProblem, type Problem, type RenderedBulletin } from '../../lib/outputs/bulletin/index.ts';
+import { checkObjects, checkPages, ProblemList, WeekCache, formatProblem, type Problem, type RenderedBulletin } from '../../lib/outputs/bulletin/index.ts';
 import type { PageSpec } from '../../lib/outputs/bulletin/types.ts';
 import { ChartCache } from '../../lib/outputs/chart/cache.ts';
 import { demoNotice, publicOrigin } from '../../lib/outputs/centre.ts';
 import { GloamingError } from '../../lib/core/errors.ts';
+import { objectsIn } from '../../lib/models/orbit/body.ts';
 import { catalogueLanguage, LANGUAGE_NAMES } from '../../lib/core/language/index.ts';
 import { isoWeekOf, parseLocalDate } from '../../lib/core/time.ts';
 import { siteCalendar } from './calendar.ts';
@@ -364,14 +365,16 @@ export class GloamingSession {
   /**
    * The content loader of the `pages` collection: every bulletin page of the build date, rendered
    * through the same checks as `gloaming check` (`checkPages`). A page whose digest is unchanged
-   * is kept with its stored warnings. Errors of every template are collected and stop the load
-   * together (`BuildProblems`), as do warnings with `strict`.
+   * is kept with its stored warnings. The object files' warnings for the build date (`checkObjects`)
+   * come first. Errors of every template are collected and stop the load together
+   * (`BuildProblems`), as do warnings with `strict`.
    */
   async loadPages(context: LoaderContext): Promise<void> {
     this.#watch(context, (c) => this.loadPages(c));
     const { store, logger, parseData } = context;
     const project = this.project();
-    const problems = new ProblemList();
+    // The object files' warnings (old comet elements) first, once per build.
+    const problems = checkObjects(objectsIn(project.bodies), { today: project.today });
     const todo: PageSpec[] = [];
     for (const spec of project.pages) {
       const stored = store.get<PageEntry>(spec.path);

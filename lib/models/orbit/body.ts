@@ -5,7 +5,7 @@
  */
 import { yamlFiles } from '../../core/yaml.ts';
 import * as Astronomy from 'astronomy-engine';
-import type { Body, Illumination } from '../../core/body.ts';
+import type { Body, BodyRegistry, Illumination } from '../../core/body.ts';
 import { GloamingError } from '../../core/errors.ts';
 import { loadObjectFile, toConicElements, type SmallBodyObject } from './elements.ts';
 import { makeOrbit, type Orbit, type Xyz } from './kepler.ts';
@@ -32,6 +32,16 @@ export interface Sighting {
   helio: Xyz;
   /** Light travel time body → Earth, days. */
   lightTimeDays: number;
+}
+
+/** Whether a body is a small body with an orbit (and so a tail helper applies). */
+export function isSmallBody(body: Body): body is SmallBody {
+  return typeof (body as Partial<SmallBody>).sighting === 'function';
+}
+
+/** The object files behind a registry's comets and asteroids, in the order they were added. */
+export function objectsIn(registry: BodyRegistry): SmallBodyObject[] {
+  return registry.ids().map((id) => registry.get(id)).filter(isSmallBody).map((b) => b.object);
 }
 
 /**

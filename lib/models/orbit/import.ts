@@ -17,6 +17,10 @@
  * All MPC and SBDB angles are J2000 ecliptic and equinox, times TT (SBDB: TDB, < 2 ms from TT).
  */
 import { GloamingError } from '../../core/errors.ts';
+import { parseTtInstant, toConicElements, type SmallBodyObject } from './elements.ts';
+
+/** Julian date of J2000.0 (2000-01-01 12:00 TT). */
+const JD_J2000 = 2451545.0;
 
 /** One object file's data, as `validateObject` reads it. */
 export interface ImportedObject {
@@ -323,11 +327,6 @@ export function readElements(text: string): { format: ElementFormat; object: Imp
   return { format, object };
 }
 
-/** Days between an instant (ISO) and a date (YYYY-MM-DD), b − a. */
-export function daysBetween(a: string, b: string): number {
-  return (Date.parse(b.length === 10 ? `${b}T00:00:00Z` : b) - Date.parse(a)) / 86_400_000;
-}
-
 /**
  * How old a comet's elements may be near perihelion before gloaming warns: outgassing
  * (non-gravitational forces) and planetary perturbations move a comet away from a two-body orbit
@@ -338,19 +337,34 @@ export function daysBetween(a: string, b: string): number {
 export const COMET_ELEMENTS_MAX_AGE_DAYS = 60;
 export const NEAR_PERIHELION_DAYS = 120;
 
-/** A warning for a comet whose elements are too old for `today` near perihelion, else null. */
-export function staleCometWarning(object: ImportedObject, today: string): string | null {
+/** Old elements of a comet near perihelion: what is wrong and what to do, and the object file's field it is about. */
+export interface StaleElements {
+  message: string;
+  /** `elements.epoch` when the file gives an epoch, else `elements`. */
+  field: 'elements.epoch' | 'elements';
+}
+
+/**
+ * The one rule on the age of a comet's elements: a warning when, on `today` (YYYY-MM-DD), the
+ * comet is within `NEAR_PERIHELION_DAYS` of perihelion and its epoch of osculation is more than
+ * `COMET_ELEMENTS_MAX_AGE_DAYS` old, or missing; else null. Takes a validated object file
+ * (`parseObject`), in either element form; `gloaming objects add`, `gloaming check` and the build
+ * all ask it.
+ */
+export function staleCometWarning(object: Pick<SmallBodyObject, 'name' | 'kind' | 'elements'>, today: string): StaleElements | null {
   if (object.kind !== 'comet') return null;
-  const perihelion = String(object.elements.perihelionTime);
-  const fromPerihelion = daysBetween(perihelion, today);
+  const todayTt = parseTtInstant(today, 'today');
+  const fromPerihelion = todayTt - toConicElements(object.elements).perihelionTimeTt;
   if (Math.abs(fromPerihelion) > NEAR_PERIHELION_DAYS) return null;
-  const epoch = object.elements.epoch === undefined ? null : String(object.elements.epoch);
-  const age = epoch ? daysBetween(epoch, today) : null;
+  const epochTt = object.elements.epochTt;
+  const age = epochTt === undefined ? null : todayTt - epochTt;
   if (age !== null && age <= COMET_ELEMENTS_MAX_AGE_DAYS) return null;
   const when = `${Math.abs(Math.round(fromPerihelion))} days ${fromPerihelion < 0 ? 'before' : 'after'} perihelion`;
+  const why = 'near the Sun a comet drifts from a two-body orbit within weeks';
+  const fix = `expected elements fitted within the last ${COMET_ELEMENTS_MAX_AGE_DAYS} days: import a current MPC or JPL SBDB element line with \`gloaming objects add --force\``;
   return age === null
-    ? `${object.name} is ${when} and its elements give no epoch of osculation: near the Sun a comet drifts from a two-body orbit within weeks — use elements fitted within ${COMET_ELEMENTS_MAX_AGE_DAYS} days`
-    : `${object.name} is ${when} and its elements are ${Math.round(age)} days old (epoch ${epoch!.slice(0, 10)}), more than ${COMET_ELEMENTS_MAX_AGE_DAYS}: near the Sun a comet drifts from a two-body orbit within weeks — fetch fresh elements`;
+    ? { field: 'elements', message: `${object.name} is ${when} and its elements give no epoch of osculation (elements.epoch): ${why}; ${fix}` }
+    : { field: 'elements.epoch', message: `${object.name} is ${when} and its elements are ${Math.round(age)} days old (epoch ${instantOfJd(epochTt! + JD_J2000).slice(0, 10)}), more than ${COMET_ELEMENTS_MAX_AGE_DAYS}: ${why}; ${fix}` };
 }
 
 /** The object as the text of a `content/objects/<id>.yaml` file. */

@@ -5,7 +5,6 @@
  * the anti-solar line (the dust tail especially); this is the usual first indication.
  */
 import * as Astronomy from 'astronomy-engine';
-import type { Body } from '../../core/body.ts';
 import { SkyFrame, altitudeOfHor, apparentAltitudeDeg, azimuthOfHor, offsetInSky, type OffsetDirection } from '../../core/geometry.ts';
 import { astroTime, type Instant } from '../../core/observe.ts';
 import type { Site } from '../../core/site.ts';
@@ -39,10 +38,7 @@ const WORDS: Record<OffsetDirection, string> = {
   'upper left': 'points up and to the left',
 };
 
-/** Whether a body is a small body with an orbit (and so a tail helper applies). */
-export function isSmallBody(body: Body): body is SmallBody {
-  return typeof (body as Partial<SmallBody>).sighting === 'function';
-}
+export { isSmallBody } from './body.ts';
 
 /** Apparent altitude and azimuth of a geocentric J2000 position (AU) seen from a site: the observer's position subtracted (parallax), `SkyFrame`, standard refraction. */
 function altAz(site: Site, frame: SkyFrame, geo: Astronomy.Vector): { altitudeDeg: number; azimuthDeg: number } {

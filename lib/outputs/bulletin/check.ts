@@ -2,11 +2,16 @@
  * Checking templates over many weeks without publishing anything: every template is rendered for
  * every site and week asked for, and every problem is collected as a positioned message with its
  * site and week — errors (a template that cannot render), value placeholders with no value,
- * repeated sections with nothing to repeat, and pages over the size budget. `gloaming check` and
+ * repeated sections with nothing to repeat, and pages over the size budget — and, once per run,
+ * comets whose elements are too old for the date (`checkObjects`). `gloaming check` and
  * the build both use it; the build for the weeks it publishes, `check` for a span of weeks.
  */
+import { readFileSync } from 'node:fs';
 import type { BodyRegistry } from '../../core/body.ts';
 import { GloamingError } from '../../core/errors.ts';
+import { loadYaml } from '../../core/yaml.ts';
+import type { SmallBodyObject } from '../../models/orbit/elements.ts';
+import { staleCometWarning } from '../../models/orbit/import.ts';
 import type { Site } from '../../core/site.ts';
 import { addDays, isoWeekOf, type IsoWeek } from '../../core/time.ts';
 import type { Satellite } from '../../models/satellite/passes.ts';
@@ -82,6 +87,23 @@ export function checkPages(pages: readonly Pick<PageSpec, 'template' | 'site' | 
       if (!(error instanceof GloamingError)) throw error;
       for (const e of errorsOf(error)) problems.add(problemOfError(e, e.code === 'unsafe-output' || e.place?.line === undefined ? context : {}));
     }
+  }
+  return problems;
+}
+
+/**
+ * The object files' warnings for the date a run is judged on (the build date, `check`'s `--today`),
+ * once per run rather than per page: a comet near perihelion whose elements are too old or give
+ * no epoch (`staleCometWarning`), placed at its file's `elements.epoch` line (or `elements`).
+ * A registry's objects: `objectsIn(bodies)` (lib/models/orbit/body.ts).
+ */
+export function checkObjects(objects: Iterable<SmallBodyObject>, options: { today: string; problems?: ProblemList }): ProblemList {
+  const problems = options.problems ?? new ProblemList();
+  for (const object of objects) {
+    const stale = staleCometWarning(object, options.today);
+    if (!stale) continue;
+    const place = object.file ? loadYaml(readFileSync(object.file, 'utf8'), object.file).locate(stale.field) : { field: stale.field };
+    problems.add({ kind: 'stale-elements', severity: 'warning', message: stale.message, place });
   }
   return problems;
 }

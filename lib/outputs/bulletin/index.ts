@@ -14,7 +14,7 @@ export type { BulletinFrontMatter, BulletinTemplate, PageSpec, RenderContext, Re
 export { parseBulletin, validateFrontMatter, DEFAULT_SCHEDULE } from './frontmatter.ts';
 export { pagesFor, weeksFor, sitesFor, type PagesOptions } from './pages.ts';
 export { renderBulletin, renderBulletinSync, pageNights, ONE_OFF_EVENT_NIGHTS } from './render.ts';
-export { checkPages, pagesToCheck, PAGE_BUDGET_BYTES, LAYOUT_BYTES, type CheckOptions } from './check.ts';
+export { checkObjects, checkPages, pagesToCheck, PAGE_BUDGET_BYTES, LAYOUT_BYTES, type CheckOptions } from './check.ts';
 export { SECTIONS, type SectionSpec, type Binding } from './sections.ts';
 export { FALLBACK_MARK, PROBLEM_LIMIT, ProblemList, TemplateErrors, errorsOf, errorsOnFile, formatProblem, reportError, reportWarning, throwErrors, problemOfError, warningsOnFile, type Problem, type ProblemKind } from './problems.ts';
 export { remarkPlaceholders, type PlaceholderScope, type RemarkPlaceholdersOptions, type PlaceholderReport } from './plugin.ts';

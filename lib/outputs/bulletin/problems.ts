@@ -1,7 +1,8 @@
 /**
  * Problems a template shows only for some sites and weeks: a value placeholder with no value (it
  * prints the neutral mark `–`), a repeated section with nothing to repeat, a page over the size
- * budget, and errors. Each is a positioned message (`file:line:column`) with the site and week it
+ * budget, a comet's elements too old for the build date (an object file's problem, once per run),
+ * and errors. Each is a positioned message (`file:line:column`) with the site and week it
  * appeared for, so `gloaming check` and the build can list every one of them at once.
  */
 import type { Nodes } from 'mdast';
@@ -9,7 +10,7 @@ import type { VFile } from 'vfile';
 import { GloamingError, formatPlace, type ErrorCode, type Place } from '../../core/errors.ts';
 
 /** What kind of problem: the names `gloaming check --json` prints. */
-export type ProblemKind = 'fallback' | 'empty-section' | 'page-size' | 'error';
+export type ProblemKind = 'fallback' | 'empty-section' | 'page-size' | 'stale-elements' | 'error';
 
 export interface Problem {
   kind: ProblemKind;

@@ -1,8 +1,8 @@
 /**
  * `gloaming check`: renders every bulletin template for every site and every week of a span and
  * lists every problem a reader would meet — errors, value placeholders with no value (`–`),
- * repeated sections with nothing to repeat, pages over the size budget — each with its
- * `file:line:column`, site and week. Exit code 0 when nothing is found, 1 when anything is, 2 for
+ * repeated sections with nothing to repeat, pages over the size budget, comets whose elements are
+ * too old on the first date — each with its `file:line:column`, site and week. Exit code 0 when nothing is found, 1 when anything is, 2 for
  * wrong arguments.
  */
 import { readdirSync, readFileSync } from 'node:fs';
@@ -14,10 +14,11 @@ import { loadBodies, parseSite, projectRegistry, yamlFiles } from '../../models/
 import { GloamingError } from '../../core/errors.ts';
 import type { Site } from '../../core/site.ts';
 import { parseLocalDate } from '../../core/time.ts';
-import { PAGE_BUDGET_BYTES, checkPages, pagesToCheck } from '../bulletin/check.ts';
+import { PAGE_BUDGET_BYTES, checkObjects, checkPages, pagesToCheck } from '../bulletin/check.ts';
 import { parseBulletin } from '../bulletin/frontmatter.ts';
 import { ProblemList, formatProblem, problemOfError, type Problem } from '../bulletin/problems.ts';
 import type { BulletinTemplate } from '../bulletin/types.ts';
+import { objectsIn } from '../../models/orbit/body.ts';
 import { loadSatellites } from '../../models/satellite/catalogue.ts';
 import type { Satellite } from '../../models/satellite/passes.ts';
 import { argumentError } from './args.ts';
@@ -34,7 +35,8 @@ Usage: gloaming check [--today <YYYY-MM-DD>] [--weeks <n>] [--content <dir>] [--
 Renders every template in <content>/bulletins for every site it names and every week of the span
 (a one-off template for its date), and reports, each with file:line:column, site and week:
 errors; value placeholders with no value, which print '–' (put them inside :::provided … ::otherwise);
-repeated sections with nothing to repeat and no ::otherwise; pages over the ${PAGE_BUDGET_BYTES / 1024} KB budget.
+repeated sections with nothing to repeat and no ::otherwise; pages over the ${PAGE_BUDGET_BYTES / 1024} KB budget;
+comets near perihelion whose elements are too old on --today (refresh them with gloaming objects add).
 Exit code 0 when nothing is found, 1 when anything is, 2 for wrong arguments.`;
 
 /** Default span of `check`, ISO weeks. */
@@ -112,6 +114,7 @@ export function runCheck(args: string[], out: (s: string) => void, context: { to
 
   const problems = new ProblemList();
   const content = loadContent(contentDir, problems);
+  checkObjects(objectsIn(content.bodies), { today, problems });
   const pages = pagesToCheck(content.templates, { sites: content.sites, today, weeks, problems });
   checkPages(pages, { bodies: content.bodies, satellites: content.satellites, problems });
 

@@ -2,14 +2,16 @@
  * `gloaming objects add <line> | --file <F>`: imports comets and asteroids from the MPC's one-line
  * orbit formats or JPL SBDB element fields (lib/orbit/import.ts) into `content/objects/<id>.yaml`,
  * one file per object, each checked as the build checks object files. Prints the files written,
- * and a warning when a comet near perihelion has old elements.
+ * and a warning when a comet near perihelion has old elements (the one the build and `check` give).
  */
 import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { join, relative, resolve } from 'node:path';
 import { parseArgs } from 'node:util';
 import { GloamingError } from '../../core/errors.ts';
-import { parseObject } from '../../models/orbit/elements.ts';
-import { objectYaml, readElements, staleCometWarning, type ImportedObject } from '../../models/orbit/import.ts';
+import { parseObject, type SmallBodyObject } from '../../models/orbit/elements.ts';
+import { objectYaml, readElements, type ImportedObject } from '../../models/orbit/import.ts';
+import { checkObjects } from '../bulletin/check.ts';
+import { formatProblem } from '../bulletin/problems.ts';
 import { argumentError, fileFlag } from './args.ts';
 
 export const OBJECTS_HELP = `gloaming objects add — import a comet's or an asteroid's orbital elements
@@ -30,7 +32,7 @@ A file may hold many MPC lines: each becomes its own object file.
   --today <date>    the date the age warning is judged on (default: today)
 
 Each file records the source (format, reference) and the epoch. A comet within 120 days of
-perihelion whose elements are more than 60 days old (or have no epoch) gets a warning.`;
+perihelion whose elements are more than 60 days old (or have no epoch) gets a warning, here and\nin every build and gloaming check on such a date.`;
 
 function linesOf(text: string): string[] {
   const trimmed = text.trim();
@@ -66,16 +68,16 @@ export function runObjects(argv: string[], out: (s: string) => void, context: { 
   const today = values.today ?? context.today;
 
   // Read and check everything first: nothing is written when any line is wrong.
-  const objects: { object: ImportedObject; file: string; text: string }[] = [];
+  const objects: { object: ImportedObject; parsed: SmallBodyObject; file: string; text: string }[] = [];
   lines.forEach((line, index) => {
     try {
       const { object } = readElements(line);
       if (values.id !== undefined) object.id = values.id;
       const file = join(dir, `${object.id}.yaml`);
       const text = objectYaml(object);
-      parseObject(text, file); // the build's own checks
+      const parsed = parseObject(text, relative(process.cwd(), file)); // the build's own checks
       if (existsSync(file) && !values.force) throw argumentError('--force', `${relative(process.cwd(), file)} exists`, 'a new id (--id), or --force to replace it');
-      objects.push({ object, file, text });
+      objects.push({ object, parsed, file, text });
     } catch (error) {
       if (error instanceof GloamingError && source !== null && !error.place?.file) {
         throw error.at({ file: source, line: index + 1 });
@@ -87,8 +89,8 @@ export function runObjects(argv: string[], out: (s: string) => void, context: { 
   for (const { object, file, text } of objects) {
     writeFileSync(file, text);
     out(`wrote ${relative(process.cwd(), file)}: ${object.name} (${object.kind}; ${object.source})`);
-    const warning = today ? staleCometWarning(object, today) : null;
-    if (warning) out(`warning: ${warning}`);
   }
+  // The build's and check's own warning on old comet elements, placed in the files just written.
+  if (today) for (const p of checkObjects(objects.map((o) => o.parsed), { today }).items) out(formatProblem(p));
   return 0;
 }
