@@ -23,12 +23,14 @@ const CHROMIUM = '/usr/bin/chromium';
 const TODAY = '2026-12-04';
 const SHOTS = join(ROOT, '.scratch');
 
+// Every kind of page once, every site's home once. A site's home page carries this week's weekly
+// bulletin whole, so the English weekly pages are covered there (and by the policy, night-light and
+// print checks below, which open one); the weekly page with its pager is checked in Spanish.
 const PAGES = [
   '/',
   '/harbour-roof/',
-  '/harbour-roof/2026-W49/weekly/',
+  '/harbour-roof/2026-W49/wonders/',
   '/southern-station/',
-  '/southern-station/2026-W49/weekly/',
   '/northern-outpost/',
   '/northern-outpost/archive/',
   '/cerro-lucero/',
