@@ -10,7 +10,7 @@ import { BodyRegistry } from '../lib/core/body.ts';
 import { addDays, isoWeekOf } from '../lib/core/time.ts';
 import { wordsFor } from '../lib/core/language/index.ts';
 import { loadSites } from '../lib/models/content.ts';
-import { OVERHEAD_ALTITUDE_DEG, passWhere, passWords } from '../lib/models/satellite/words.ts';
+import { OVERHEAD_ALTITUDE_DEG, passWhere, passWords, visibleTop } from '../lib/models/satellite/words.ts';
 import { passNights } from '../lib/models/satellite/nights.ts';
 import { chartPassOf, passAltSentence } from '../lib/outputs/chart/pass.ts';
 import { loadSatellites } from '../lib/models/satellite/catalogue.ts';
@@ -52,39 +52,51 @@ describe('satellite passes over 52 weeks of bulletin pages', () => {
   }, 120_000);
 });
 
-describe('a pass through the zenith', () => {
+describe('the highest point of a pass, as seen', () => {
   // Near the zenith a compass word sends the eyes the wrong way: the sentence and the pass chart's
   // caption both say "almost straight overhead" from OVERHEAD_ALTITUDE_DEG (our own choice) up, and
-  // both name the same highest point.
+  // both name the same highest point. A pass whose culmination falls in the Earth's shadow is
+  // highest where it is first seen: it must not "climb" to a height it reached unseen.
   const satellites = loadSatellites('content/satellites');
   const sites = [...loadSites('content/sites').values()];
-  /** The words of each catalogue's sentence for a pass through the zenith (golden). */
+  /** Each catalogue's words for a pass through the zenith and for one highest where it appears (golden). */
   const OVERHEAD_WORDS: Record<string, string> = { en: 'it passes almost straight overhead', es: 'pasa casi por el cenit', de: 'zieht fast durch den Zenit', fr: 'passe presque au zénith' };
-  it('is "almost straight overhead" in the sentence and in the chart caption, never a compass direction', () => {
-    let overhead = 0;
-    let lower = 0;
+  const START_WORDS: Record<string, string> = { en: 'it is highest there', es: 'allí está en su punto más alto', de: 'steht dort am höchsten', fr: 'y est à son plus haut' };
+  const CLIMB_WORDS: Record<string, RegExp> = { en: /climbs to/, es: /sube hasta/, de: /steigt bis/, fr: /monte jusqu’à/ };
+  it('is named the same way in the sentence and in the chart caption: overhead, highest where it appears, or the height it climbs to', () => {
+    const kinds = { overhead: 0, start: 0, inside: 0, end: 0 };
     for (const site of sites) {
+      const language = wordsFor(site.locale).language;
       const words = passWords(wordsFor(site.locale));
       for (const night of passNights({ site, satellites, from: '2026-11-30', to: '2026-12-06' })) {
         for (const pass of night.passes.filter((p) => p.recommended)) {
-          const c = pass.culmination;
+          const top = visibleTop(pass);
           const text = words.description(pass, (p) => p.time.toISOString(), { appears: 'fade', leaves: 'fade' });
           const caption = passAltSentence(chartPassOf(pass), site);
-          const seenTop = c.time > pass.visible!.start.time && c.time < pass.visible!.end.time;
-          if (c.altitudeDeg >= OVERHEAD_ALTITUDE_DEG) {
-            overhead++;
-            expect(text).toContain(OVERHEAD_WORDS[wordsFor(site.locale).language]);
-            if (seenTop) expect(caption).toContain(passWhere(wordsFor(site.locale), c));
-          } else {
-            lower++;
-            expect(text).toContain(`${Math.round(c.altitudeDeg)}°`);
-            expect(text).not.toMatch(/overhead|cenit|Zenit|zénith/);
+          if (top.point.altitudeDeg >= OVERHEAD_ALTITUDE_DEG) {
+            kinds.overhead++;
+            expect(text).toContain(OVERHEAD_WORDS[language]);
+            if (top.at === 'inside') expect(caption).toContain(passWhere(wordsFor(site.locale), top.point));
+            continue;
           }
+          kinds[top.at]++;
+          expect(text).not.toMatch(/overhead|cenit|Zenit|zénith/);
+          if (top.at === 'start') {
+            expect(text).toContain(START_WORDS[language]);
+            expect(text).not.toMatch(CLIMB_WORDS[language]!);
+          } else {
+            expect(text).toMatch(CLIMB_WORDS[language]!);
+            expect(text).toContain(`${Math.round(top.point.altitudeDeg)}°`);
+          }
+          // The sentence never names a height above the highest point the caption's drawn track reaches.
+          const heights = [...text.matchAll(/(\d+)°/g)].map((m) => Number(m[1]));
+          expect(Math.max(...heights), text).toBeLessThanOrEqual(Math.round(top.point.altitudeDeg));
         }
       }
     }
-    // The demo week has both kinds at its sites (invented element sets, content/satellites/).
-    expect(overhead).toBeGreaterThan(0);
-    expect(lower).toBeGreaterThan(0);
+    // The demo week has passes of each kind at its sites (invented element sets, content/satellites/).
+    expect(kinds.overhead).toBeGreaterThan(0);
+    expect(kinds.inside).toBeGreaterThan(0);
+    expect(kinds.start + kinds.end).toBeGreaterThan(0);
   });
 });

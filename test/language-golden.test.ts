@@ -196,7 +196,7 @@ describe("the sky's events and satellite passes in each language (cerro-lucero's
     for (const p of passes) {
       const text = passEvent(p, site).description;
       expect(text).toMatch(
-        /^Demo [\p{L} ]+? (aparece|asoma sobre el horizonte|sale de la sombra de la Tierra) a las? \d{1,2}:\d\d\u00a0[ap]\.\u00a0m\., a \d+° de altura en el \p{L}+; (sube hasta \d+° en el \p{L}+|pasa casi por el cenit) y (se oculta tras el horizonte|se apaga al entrar en la sombra de la Tierra|se pierde de vista) a las? \d{1,2}:\d\d\u00a0[ap]\.\u00a0m\., a \d+° de altura en el \p{L}+\. Magnitud −?\d+,\d en su máximo brillo\.$/u,
+        /^Demo [\p{L} ]+? (aparece|asoma sobre el horizonte|sale de la sombra de la Tierra) a las? \d{1,2}:\d\d\u00a0[ap]\.\u00a0m\., a \d+° de altura en el \p{L}+; (sube hasta \d+° en el \p{L}+|pasa casi por el cenit|allí está en su punto más alto) y (se oculta tras el horizonte|se apaga al entrar en la sombra de la Tierra|se pierde de vista) a las? \d{1,2}:\d\d\u00a0[ap]\.\u00a0m\., a \d+° de altura en el \p{L}+\. Magnitud −?\d+,\d en su máximo brillo\.$/u,
       );
     }
   });

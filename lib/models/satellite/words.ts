@@ -70,14 +70,16 @@ export function passWords(w: Words) {
     /** The whole sentence: where it appears and how, how high it climbs, where and how it goes. */
     description: (pass: SatellitePass, clock: (p: PassPoint) => string, edges: { appears: PassEdge; leaves: PassEdge }): string => {
       const seen = pass.visible!;
+      // The highest point seen: the culmination may fall in the Earth's shadow, before or after the part seen.
+      const top = visibleTop(pass);
       return w.t('pass.description', {
         satellite: pass.satellite.name,
         appears: edges.appears,
         start: clock(seen.start),
         start_where: where(seen.start),
-        top: Math.round(pass.culmination.altitudeDeg),
-        top_direction: w.compass(pass.culmination.azimuthDeg).word,
-        top_overhead: pass.culmination.altitudeDeg >= OVERHEAD_ALTITUDE_DEG ? 'yes' : 'no',
+        top: Math.round(top.point.altitudeDeg),
+        top_direction: w.compass(top.point.azimuthDeg).word,
+        top_at: top.point.altitudeDeg >= OVERHEAD_ALTITUDE_DEG ? 'overhead' : top.at,
         leaves: edges.leaves,
         end: clock(seen.end),
         end_where: where(seen.end),
@@ -87,9 +89,19 @@ export function passWords(w: Words) {
   };
 }
 
+/**
+ * The highest point of the visible part of a pass and where it lies in that part: the culmination
+ * when it is seen ('inside'), else the higher of the first and last point seen ('start': the pass
+ * only sinks while seen; 'end': it climbs until it is lost).
+ */
+export function visibleTop(pass: SatellitePass): { point: PassPoint; at: 'start' | 'inside' | 'end' } {
+  const seen = pass.visible!;
+  const c = pass.culmination;
+  if (c.time > seen.start.time && c.time < seen.end.time) return { point: c, at: 'inside' };
+  return seen.start.altitudeDeg >= seen.end.altitudeDeg ? { point: seen.start, at: 'start' } : { point: seen.end, at: 'end' };
+}
+
 /** The highest apparent altitude of the visible part of a pass, degrees. */
 export function maxAltitude(pass: SatellitePass): number {
-  const seen = pass.visible!;
-  const inside = (p: PassPoint): boolean => p.time >= seen.start.time && p.time <= seen.end.time;
-  return Math.max(seen.start.altitudeDeg, seen.end.altitudeDeg, ...(inside(pass.culmination) ? [pass.culmination.altitudeDeg] : []));
+  return visibleTop(pass).point.altitudeDeg;
 }

@@ -176,7 +176,7 @@ export const de: Catalogue = {
   'pass.note': 'Sichtbar von {start} bis {end}, am besten um {best}, {where}.',
   'pass.alt': '{satellite} erscheint um {start}, {start_where}{top, select, yes {, am höchsten {top_where}} other {}}, und verschwindet um {end}, {end_where}.',
   'pass.description':
-    '{satellite} {appears, select, skyline {steigt über den Horizont} shadow {tritt aus dem Erdschatten} other {erscheint}} um {start}, {start_where}, {top_overhead, select, yes {zieht fast durch den Zenit} other {steigt bis {top}° im {top_direction}}} und {leaves, select, skyline {sinkt unter den Horizont} shadow {verschwindet im Erdschatten} other {verblasst}} um {end}, {end_where}. Größte Helligkeit {magnitude} mag.',
+    '{satellite} {appears, select, skyline {steigt über den Horizont} shadow {tritt aus dem Erdschatten} other {erscheint}} um {start}, {start_where}, {top_at, select, overhead {zieht fast durch den Zenit} start {steht dort am höchsten} other {steigt bis {top}° im {top_direction}}} und {leaves, select, skyline {sinkt unter den Horizont} shadow {verschwindet im Erdschatten} other {verblasst}} um {end}, {end_where}. Größte Helligkeit {magnitude} mag.',
 
   // Ereignisse am Himmel (lib/outputs/almanac/).
   'ev.when': '{day} um {clock}',

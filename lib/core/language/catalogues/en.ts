@@ -187,7 +187,7 @@ export const en = {
   'pass.note': 'Visible from {start} to {end}, best at {best}, {where}.',
   'pass.alt': '{satellite} appears at {start}, {start_where}{top, select, yes {, highest {top_where}} other {}}, and disappears at {end}, {end_where}.',
   'pass.description':
-    "{satellite} {appears, select, skyline {rises over the skyline} shadow {comes out of the Earth's shadow} other {appears}} at {start}, {start_where}; {top_overhead, select, yes {it passes almost straight overhead} other {it climbs to {top}° in the {top_direction}}} and {leaves, select, skyline {sinks below the skyline} shadow {fades into the Earth's shadow} other {fades from view}} at {end}, {end_where}. Magnitude {magnitude} at its brightest.",
+    "{satellite} {appears, select, skyline {rises over the skyline} shadow {comes out of the Earth's shadow} other {appears}} at {start}, {start_where}; {top_at, select, overhead {it passes almost straight overhead} start {it is highest there} other {it climbs to {top}° in the {top_direction}}} and {leaves, select, skyline {sinks below the skyline} shadow {fades into the Earth's shadow} other {fades from view}} at {end}, {end_where}. Magnitude {magnitude} at its brightest.",
 
   // The sky's events (lib/outputs/almanac/): sentences, titles and notes, in local time.
   'ev.when': '{day} at {clock}',

@@ -182,7 +182,7 @@ export const es: Catalogue = {
   'pass.note': 'Visible de {start} a {end}, mejor a las {best}, {where}.',
   'pass.alt': '{satellite} aparece a las {start}, {start_where}{top, select, yes {, alcanza su punto más alto {top_where}} other {}}, y desaparece a las {end}, {end_where}.',
   'pass.description':
-    '{satellite} {appears, select, skyline {asoma sobre el horizonte} shadow {sale de la sombra de la Tierra} other {aparece}} a las {start}, {start_where}; {top_overhead, select, yes {pasa casi por el cenit} other {sube hasta {top}° en el {top_direction}}} y {leaves, select, skyline {se oculta tras el horizonte} shadow {se apaga al entrar en la sombra de la Tierra} other {se pierde de vista}} a las {end}, {end_where}. Magnitud {magnitude} en su máximo brillo.',
+    '{satellite} {appears, select, skyline {asoma sobre el horizonte} shadow {sale de la sombra de la Tierra} other {aparece}} a las {start}, {start_where}; {top_at, select, overhead {pasa casi por el cenit} start {allí está en su punto más alto} other {sube hasta {top}° en el {top_direction}}} y {leaves, select, skyline {se oculta tras el horizonte} shadow {se apaga al entrar en la sombra de la Tierra} other {se pierde de vista}} a las {end}, {end_where}. Magnitud {magnitude} en su máximo brillo.',
 
   // Fenómenos del cielo (lib/outputs/almanac/).
   'ev.when': '{day} a las {clock}',

@@ -179,7 +179,7 @@ export const fr: Catalogue = {
   'pass.note': 'Visible de {start} à {end}, au mieux à {best}, {where}.',
   'pass.alt': '{satellite} apparaît à {start}, {start_where}{top, select, yes {, au plus haut {top_where}} other {}}, et disparaît à {end}, {end_where}.',
   'pass.description':
-    '{satellite} {appears, select, skyline {se lève au-dessus de l’horizon} shadow {sort de l’ombre de la Terre} other {apparaît}} à {start}, {start_where}, {top_overhead, select, yes {passe presque au zénith} other {monte jusqu’à {top}° vers {top_direction}}} et {leaves, select, skyline {passe sous l’horizon} shadow {s’éteint dans l’ombre de la Terre} other {disparaît}} à {end}, {end_where}. Magnitude {magnitude} au plus brillant.',
+    '{satellite} {appears, select, skyline {se lève au-dessus de l’horizon} shadow {sort de l’ombre de la Terre} other {apparaît}} à {start}, {start_where}, {top_at, select, overhead {passe presque au zénith} start {y est à son plus haut} other {monte jusqu’à {top}° vers {top_direction}}} et {leaves, select, skyline {passe sous l’horizon} shadow {s’éteint dans l’ombre de la Terre} other {disparaît}} à {end}, {end_where}. Magnitude {magnitude} au plus brillant.',
 
   // Événements du ciel (lib/outputs/almanac/).
   'ev.when': '{day} à {clock}',
