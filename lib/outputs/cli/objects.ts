@@ -32,7 +32,8 @@ A file may hold many MPC lines: each becomes its own object file.
   --today <date>    the date the age warning is judged on (default: today)
 
 Each file records the source (format, reference) and the epoch. A comet within 120 days of
-perihelion whose elements are more than 60 days old (or have no epoch) gets a warning, here and\nin every build and gloaming check on such a date.`;
+perihelion whose elements are more than 60 days old (or have no epoch) gets a warning, here and
+in every build and gloaming check on such a date.`;
 
 function linesOf(text: string): string[] {
   const trimmed = text.trim();
