@@ -100,3 +100,37 @@ describe('the highest point of a pass, as seen', () => {
     expect(kinds.start + kinds.end).toBeGreaterThan(0);
   });
 });
+
+describe('a pass in a few words', () => {
+  // The home page's "tonight" line: where a pass goes, in compass words of the site's language.
+  const satellites = loadSatellites('content/satellites');
+  const sites = [...loadSites('content/sites').values()];
+  /** Each catalogue's frame for a pass seen in one direction only (golden). */
+  const IN_ONE: Record<string, (d: string) => string> = { en: (d) => `, in the ${d},`, es: (d) => `, en el ${d},`, de: (d) => `, im ${d},`, fr: (d) => `, vers ${d},` };
+  it('says "in the north" for a pass that ends in the direction it began, never "north to north"', () => {
+    let same = 0;
+    let moving = 0;
+    for (const site of sites) {
+      const w = wordsFor(site.locale);
+      const words = passWords(w);
+      for (const night of passNights({ site, satellites, from: '2026-11-30', to: '2026-12-06' })) {
+        for (const pass of night.passes.filter((p) => p.recommended)) {
+          const from = w.compass(pass.visible!.start.azimuthDeg).word;
+          const to = w.compass(pass.visible!.end.azimuthDeg).word;
+          const text = words.short(pass);
+          if (from === to) {
+            same++;
+            expect(text).toContain(IN_ONE[w.language]!(from));
+          } else {
+            moving++;
+            expect(text).not.toContain(IN_ONE[w.language]!(from));
+          }
+          if (w.language === 'en') expect(text).not.toMatch(/, ([a-z-]+) to \1,/);
+        }
+      }
+    }
+    // The demo week at the four sites has both (invented element sets; the polar site sees passes that fade where they rose).
+    expect(same).toBeGreaterThan(0);
+    expect(moving).toBeGreaterThan(0);
+  });
+});

@@ -48,13 +48,17 @@ export function passWords(w: Words) {
     /** "… and 12 fainter passes." after a shortened list. */
     more: (count: number): string => w.t('pass.more', { count }),
     noChart: (why: string): string => w.t('pass.no-chart', { why }),
-    /** One pass in a few words: "Demo station, west-northwest to east, up to 77°, magnitude −3.8". */
+    /** One pass in a few words: "Demo station, west-northwest to east, up to 77°, magnitude −3.8", or "…, in the north, …" when it ends where it began. */
     short: (pass: SatellitePass): string => {
       const seen = pass.visible!;
+      const from = w.compass(seen.start.azimuthDeg).word;
+      const to = w.compass(seen.end.azimuthDeg).word;
       return w.t('pass.short', {
         satellite: pass.satellite.name,
-        from: w.compass(seen.start.azimuthDeg).word,
-        to: w.compass(seen.end.azimuthDeg).word,
+        // A pass seen in one quarter of the sky (it fades where it appeared) is "in the north", not "north to north".
+        same: from === to ? 'yes' : 'no',
+        from,
+        to,
         degrees: Math.round(maxAltitude(pass)),
         magnitude: magnitude(seen.best.magnitude!),
       });

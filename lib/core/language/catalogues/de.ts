@@ -170,7 +170,7 @@ export const de: Catalogue = {
   'pass.partly-both': 'Keine Vorhersagen für {none}, für {some} nur für einige Satelliten: die Bahnelemente liegen mehr als {age} Tage von diesen Nächten entfernt.',
   'pass.more': '… und {count, plural, one {ein schwächerer Überflug} other {# schwächere Überflüge}}.',
   'pass.no-chart': 'Keine Karte des Überflugs ({why}).',
-  'pass.short': '{satellite}, von {from} nach {to}, bis {degrees}° hoch, Helligkeit {magnitude} mag',
+  'pass.short': '{satellite}, {same, select, yes {im {from}} other {von {from} nach {to}}}, bis {degrees}° hoch, Helligkeit {magnitude} mag',
   'pass.where': '{overhead, select, yes {{degrees}° hoch, fast im Zenit} other {{degrees}° hoch im {direction}}}',
   'pass.title': 'Überflug: {satellite}',
   'pass.note': 'Sichtbar von {start} bis {end}, am besten um {best}, {where}.',

@@ -181,7 +181,7 @@ export const en = {
   'pass.partly-both': 'No predictions for {none}; only some satellites are predicted for {some}: the orbital elements are more than {age} days from those nights.',
   'pass.more': '… and {count, plural, one {# fainter pass} other {# fainter passes}}.',
   'pass.no-chart': 'No pass chart ({why}).',
-  'pass.short': '{satellite}, {from} to {to}, up to {degrees}°, magnitude {magnitude}',
+  'pass.short': '{satellite}, {same, select, yes {in the {from}} other {{from} to {to}}}, up to {degrees}°, magnitude {magnitude}',
   'pass.where': '{overhead, select, yes {{degrees}° up, almost straight overhead} other {{degrees}° up in the {direction}}}',
   'pass.title': '{satellite} passes over',
   'pass.note': 'Visible from {start} to {end}, best at {best}, {where}.',

@@ -176,7 +176,7 @@ export const es: Catalogue = {
   'pass.partly-both': 'No hay predicciones para {none}, y solo de algunos satélites para {some}: los elementos orbitales distan más de {age} días de esas noches.',
   'pass.more': '… y {count, plural, one {# paso más débil} other {# pasos más débiles}}.',
   'pass.no-chart': 'Sin carta del paso ({why}).',
-  'pass.short': '{satellite}, de {from} a {to}, hasta {degrees}°, magnitud {magnitude}',
+  'pass.short': '{satellite}, {same, select, yes {en el {from}} other {de {from} a {to}}}, hasta {degrees}°, magnitud {magnitude}',
   'pass.where': '{overhead, select, yes {a {degrees}° de altura, casi en el cenit} other {a {degrees}° de altura en el {direction}}}',
   'pass.title': 'Paso de {satellite}',
   'pass.note': 'Visible de {start} a {end}, mejor a las {best}, {where}.',

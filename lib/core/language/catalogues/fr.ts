@@ -173,7 +173,7 @@ export const fr: Catalogue = {
   'pass.partly-both': 'Aucune prévision pour {none}, et pour quelques satellites seulement pour {some}\u00a0: les éléments orbitaux sont éloignés de plus de {age} jours de ces nuits.',
   'pass.more': '… et {count, plural, one {# passage plus faible} other {# passages plus faibles}}.',
   'pass.no-chart': 'Pas de carte du passage ({why}).',
-  'pass.short': '{satellite}, de {from} à {to}, jusqu’à {degrees}°, magnitude {magnitude}',
+  'pass.short': '{satellite}, {same, select, yes {vers {from}} other {de {from} à {to}}}, jusqu’à {degrees}°, magnitude {magnitude}',
   'pass.where': '{overhead, select, yes {à {degrees}° de hauteur, presque au zénith} other {à {degrees}° de hauteur vers {direction}}}',
   'pass.title': 'Passage de {satellite}',
   'pass.note': 'Visible de {start} à {end}, au mieux à {best}, {where}.',
