@@ -31,7 +31,6 @@ import { ProblemList, errorsOf, formatProblem } from '../lib/outputs/bulletin/in
 import { publicOrigin } from '../lib/outputs/centre.ts';
 import { EXIT_CODES, GloamingError } from '../lib/core/errors.ts';
 import { parseLocalDate } from '../lib/core/time.ts';
-import { siteConfig } from '../astro.config.mjs';
 import { parseSiteList } from '../site/gloaming/options.ts';
 import { BuildProblems, GloamingSession } from '../site/gloaming/session.ts';
 import { checkOutput, walk } from './output-check.ts';
@@ -164,7 +163,9 @@ export async function buildSite(options: BuildOptions): Promise<BuildResult> {
     // Work folders of builds that were killed (kill -9, a cancelled CI job) go first.
     await removeStaleWork(options.out);
     await rm(tmp, { recursive: true, force: true });
-    const { build } = await import('astro');
+    // Astro and the site's configuration load only now: a wrong flag or content file is reported
+    // before, without their second of start-up.
+    const [{ build }, { siteConfig }] = await Promise.all([import('astro'), import('../astro.config.mjs')]);
     const t1 = performance.now();
     // Astro writes its prerender chunks below the working folder when the output is there, and
     // they import gloaming's packages: a centre's own folder (`npx gloaming build`) may not have
