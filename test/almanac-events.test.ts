@@ -10,6 +10,7 @@ import { defineSite } from '../lib/core/site.ts';
 import { findEvents, hourlyRate, METEOR_SHOWERS, type AlmanacEvent } from '../lib/outputs/almanac/index.ts';
 import { eventJson, EVENTS_HELP, runEvents } from '../lib/outputs/cli/events.ts';
 import { observe } from '../lib/core/observe.ts';
+import { wordsFor } from '../lib/core/language/index.ts';
 import { builtInBody } from '../lib/core/body.ts';
 import { expectWithin, separationDeg } from './helpers/tolerance.ts';
 
@@ -146,6 +147,21 @@ describe('meteor showers', () => {
     expect(bright.description).toMatch(/Moon cuts that/);
     // A darker sky shows more meteors than a town sky (common practice): Bortle 3 against Bortle 6.
     expect(dark.shower!.best!.hourlyRate).toBeGreaterThan(per(london, 2026).shower!.best!.hourlyRate * 1.5);
+  });
+
+  it('a count of one reads as one meteor, in every language (English, Spanish, German and French grammar: a singular noun after 1)', () => {
+    // A bright harbour sky (Bortle 7, 50.45° N) on the 2027 Orionids: the computed rate rounds to 1 an hour.
+    const town = defineSite({ id: 'town', latitude: 50.45, longitude: -1.55, timeZone: 'Europe/London', sky: { bortle: 7 }, minAltitude: 10 });
+    const ori = findEvents({ site: town, from: new Date('2027-10-19T00:00:00Z'), to: new Date('2027-10-24T00:00:00Z'), options: { types: ['meteor-shower-peak'] } }).find((e) => e.shower?.code === 'ORI')!;
+    expect(ori.shower!.best!.hourlyRate).toBeLessThan(1.5);
+    expect(ori.description).toMatch(/about 1 meteor an hour/);
+    const args = { name: 'Orionids', night: 'night', clock: '05:00', constellation: 'Orion', degrees: 55, direction: 'south', moon: 'none', percent: '', moonless: 1 };
+    const singular: Record<string, RegExp> = { en: /\b1 meteor an hour/, es: /\b1 meteoro por hora/, de: /\b1 Meteor pro Stunde/, fr: /\b1 météore par heure/ };
+    const plural: Record<string, RegExp> = { en: /\b5 meteors an hour/, es: /\b5 meteoros por hora/, de: /\b5 Meteore pro Stunde/, fr: /\b5 météores par heure/ };
+    for (const language of ['en', 'es', 'de', 'fr']) {
+      expect(wordsFor(language).t('ev.shower', { ...args, count: 1 }), language).toMatch(singular[language]!);
+      expect(wordsFor(language).t('ev.shower', { ...args, count: 5 }), language).toMatch(plural[language]!);
+    }
   });
 
   it('the Quadrantids from 50° S (radiant at +49° never rises) are listed as not visible', () => {

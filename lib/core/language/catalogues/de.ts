@@ -232,7 +232,7 @@ export const de: Catalogue = {
   'ev.title.shower': 'Maximum der {name}',
   'ev.shower-night': 'in der Nacht vom {day}',
   'ev.shower':
-    'Maximum der {name} {night}: von hier aus sind um {clock} etwa {count} Meteore pro Stunde zu erwarten, wenn der Radiant im Sternbild {constellation} {degrees}° hoch im {direction} steht{moon, select, cuts {; ohne den zu {percent} beleuchteten Mond wären es etwa {moonless}} little {; kaum störendes Mondlicht} other {}}.',
+    'Maximum der {name} {night}: von hier aus {count, plural, one {ist um {clock} etwa # Meteor} other {sind um {clock} etwa # Meteore}} pro Stunde zu erwarten, wenn der Radiant im Sternbild {constellation} {degrees}° hoch im {direction} steht{moon, select, cuts {; ohne den zu {percent} beleuchteten Mond wären es etwa {moonless}} little {; kaum störendes Mondlicht} other {}}.',
   'ev.shower-note': 'Am besten um {clock}, der Radiant steht {degrees}° hoch im {direction}; schauen Sie irgendwohin an den Himmel, etwa 40° vom Radianten entfernt.',
   'ev.shower-low': 'Maximum der {name} {night}, doch von hier aus steht der Radiant im Sternbild {constellation} in den dunklen Stunden zu tief, um mehr als vereinzelte Meteore zu sehen.',
   'ev.shower-no-dark': 'Maximum der {name} {night}, doch der Himmel wird hier nicht dunkel genug.',

@@ -243,7 +243,7 @@ export const en = {
   'ev.title.shower': '{name} peak',
   'ev.shower-night': 'the night of {day}',
   'ev.shower':
-    'The {name} peak on {night}: from here expect about {count} meteors an hour around {clock}, when the radiant in {constellation} is {degrees}° up in the {direction}{moon, select, cuts {; the {percent} lit Moon cuts that from about {moonless}} little {; little moonlight to spoil it} other {}}.',
+    'The {name} peak on {night}: from here expect about {count, plural, one {# meteor} other {# meteors}} an hour around {clock}, when the radiant in {constellation} is {degrees}° up in the {direction}{moon, select, cuts {; the {percent} lit Moon cuts that from about {moonless}} little {; little moonlight to spoil it} other {}}.',
   'ev.shower-note': 'Best at {clock}, radiant {degrees}° up in the {direction}; look anywhere in the sky, about 40° from the radiant.',
   'ev.shower-low': 'The {name} peak on {night}, but from here the radiant in {constellation} stays too low in the dark hours to see more than a stray meteor.',
   'ev.shower-no-dark': 'The {name} peak on {night}, but the sky here does not get dark enough.',

@@ -238,7 +238,7 @@ export const es: Catalogue = {
   'ev.title.shower': 'Máximo de las {name}',
   'ev.shower-night': 'la noche del {day}',
   'ev.shower':
-    'Máximo de las {name} {night}: desde aquí se esperan unos {count} meteoros por hora hacia las {clock}, cuando el radiante en {constellation} está a {degrees}° de altura en el {direction}{moon, select, cuts {; sin la Luna, iluminada al {percent}, serían unos {moonless}} little {; poca luz de Luna que moleste} other {}}.',
+    'Máximo de las {name} {night}: desde aquí {count, plural, one {se espera # meteoro} other {se esperan unos # meteoros}} por hora hacia las {clock}, cuando el radiante en {constellation} está a {degrees}° de altura en el {direction}{moon, select, cuts {; sin la Luna, iluminada al {percent}, serían unos {moonless}} little {; poca luz de Luna que moleste} other {}}.',
   'ev.shower-note': 'Mejor hacia las {clock}, con el radiante a {degrees}° de altura en el {direction}; mire a cualquier parte del cielo, a unos 40° del radiante.',
   'ev.shower-low': 'Máximo de las {name} {night}, pero desde aquí el radiante en {constellation} queda demasiado bajo en las horas oscuras para ver más que algún meteoro suelto.',
   'ev.shower-no-dark': 'Máximo de las {name} {night}, pero aquí el cielo no llega a oscurecer lo suficiente.',

@@ -235,7 +235,7 @@ export const fr: Catalogue = {
   'ev.title.shower': 'Maximum des {name}',
   'ev.shower-night': 'la nuit du {day}',
   'ev.shower':
-    'Maximum des {name} {night}\u00a0: d’ici, comptez environ {count} météores par heure vers {clock}, quand le radiant dans {constellation} est à {degrees}° de hauteur vers {direction}{moon, select, cuts {\u202f; sans la Lune éclairée à {percent}, ce serait environ {moonless}} little {\u202f; peu de clair de Lune pour gêner} other {}}.',
+    'Maximum des {name} {night}\u00a0: d’ici, comptez environ {count, plural, one {# météore} other {# météores}} par heure vers {clock}, quand le radiant dans {constellation} est à {degrees}° de hauteur vers {direction}{moon, select, cuts {\u202f; sans la Lune éclairée à {percent}, ce serait environ {moonless}} little {\u202f; peu de clair de Lune pour gêner} other {}}.',
   'ev.shower-note': 'Au mieux vers {clock}, radiant à {degrees}° de hauteur vers {direction}\u202f; regardez n’importe où dans le ciel, à environ 40° du radiant.',
   'ev.shower-low': 'Maximum des {name} {night}, mais d’ici le radiant dans {constellation} reste trop bas pendant les heures sombres pour voir plus qu’un météore isolé.',
   'ev.shower-no-dark': 'Maximum des {name} {night}, mais le ciel ne devient pas assez sombre ici.',
