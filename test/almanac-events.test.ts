@@ -9,7 +9,10 @@ import { GloamingError } from '../lib/core/errors.ts';
 import { defineSite } from '../lib/core/site.ts';
 import { findEvents, hourlyRate, METEOR_SHOWERS, type AlmanacEvent } from '../lib/outputs/almanac/index.ts';
 import { eventJson, EVENTS_HELP, runEvents } from '../lib/outputs/cli/events.ts';
+import * as Astronomy from 'astronomy-engine';
 import { observe } from '../lib/core/observe.ts';
+import { nightOf } from '../lib/core/time.ts';
+import { nightDateOf } from '../lib/outputs/almanac/context.ts';
 import { wordsFor } from '../lib/core/language/index.ts';
 import { builtInBody } from '../lib/core/body.ts';
 import { expectWithin, separationDeg } from './helpers/tolerance.ts';
@@ -171,6 +174,56 @@ describe('meteor showers', () => {
     expect(q!.visible).toBe(false);
     expect(q!.visibility.reason).toBe('radiant-below-horizon');
   });
+});
+
+describe('the full Moon’s sentence says how much of the night it is up, as astronomy-engine finds it', () => {
+  // The sentence is checked against astronomy-engine's own topocentric Moon and Sun (Equator + Horizon, with
+  // normal refraction), sampled every 5 minutes over the night (local noon to local noon) that holds the full Moon.
+  const outpost = defineSite({ id: 'outpost', latitude: 68.55, longitude: 13.4, timeZone: 'Europe/Oslo', sky: { bortle: 2 } });
+  const harbour = defineSite({ id: 'harbour', latitude: 50.45, longitude: -1.55, timeZone: 'Europe/London', sky: { bortle: 7 } });
+  function reference(site: typeof outpost, time: Date): { moonMaxDeg: number; darkMinutesDown: number; darkMinutes: number } {
+    const observer = new Astronomy.Observer(site.latitudeDeg, site.longitudeDeg, 0);
+    const night = nightOf(nightDateOf(time, site.timeZone), site.timeZone);
+    const altitude = (body: Astronomy.Body, t: Date): number => {
+      const eq = Astronomy.Equator(body, t, observer, true, true);
+      return Astronomy.Horizon(t, observer, eq.ra, eq.dec, 'normal').altitude;
+    };
+    let moonMaxDeg = -90, darkMinutes = 0, darkMinutesDown = 0;
+    for (let t = night.start.getTime(); t <= night.end.getTime(); t += 5 * 60_000) {
+      const moon = altitude(Astronomy.Body.Moon, new Date(t));
+      moonMaxDeg = Math.max(moonMaxDeg, moon);
+      // The sky is dark once the Sun is 6° below the horizon (the end of civil twilight; astronomy-engine's refracted altitude, near enough there).
+      if (altitude(Astronomy.Body.Sun, new Date(t)) < -6) {
+        darkMinutes += 5;
+        if (moon < 0) darkMinutesDown += 5;
+      }
+    }
+    return { moonMaxDeg, darkMinutesDown, darkMinutes };
+  }
+  for (const site of [outpost, harbour]) {
+    it(`${site.latitudeDeg}° N, December 2026 to December 2027`, () => {
+      const fulls = findEvents({ site, from: new Date('2026-12-04T00:00:00Z'), to: new Date('2027-12-04T00:00:00Z'), options: { types: ['full-moon'] } });
+      expect(fulls.length).toBeGreaterThanOrEqual(12);
+      let checked = 0;
+      for (const e of fulls) {
+        const r = reference(site, e.time);
+        const label = `${site.id} ${e.time.toISOString()}: ${e.description}`;
+        // Never above the horizon (by more than a grazing limb, 0.3°): it cannot "stay up all night".
+        if (r.moonMaxDeg < -0.3) {
+          expect(e.description, label).toMatch(/below the horizon all night/);
+          checked++;
+        }
+        // Up through every dark minute: it does.
+        if (r.darkMinutes > 0 && r.darkMinutesDown === 0) {
+          expect(e.description, label).toMatch(/stays up all night/);
+          checked++;
+        }
+        // Down for more than an hour of the dark sky: it does not.
+        if (r.darkMinutesDown > 60) expect(e.description, label).not.toMatch(/stays up all night/);
+      }
+      expect(checked).toBeGreaterThan(0);
+    });
+  }
 });
 
 describe('gloaming events (runEvents)', () => {

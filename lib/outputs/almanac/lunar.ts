@@ -10,7 +10,7 @@ import { riseTransitSet } from '../../core/events.ts';
 import { sharedSearch } from '../../core/search.ts';
 import { utDays } from '../../core/track.ts';
 import type { AlmanacContext } from './context.ts';
-import { apparentPlace, eventVisibility } from './visibility.ts';
+import { apparentPlace, eventVisibility, isDark } from './visibility.ts';
 import type { AlmanacEvent } from './types.ts';
 
 const QUARTERS = ['new-moon', 'first-quarter', 'full-moon', 'last-quarter'] as const;
@@ -23,6 +23,27 @@ function moonriseWords(ctx: AlmanacContext, time: Date): string | null {
   const rise = riseTransitSet(frame, frame.moon).rise.time;
   if (!rise) return null;
   return ctx.words.t('ev.moon-rise', { clock: ctx.clock(rise), direction: ctx.direction(apparentPlace(frame, frame.moon.body, utDays(rise)).azimuthDeg) });
+}
+
+/** Sampling step over a night when judging how much of it the Moon is up, days (10 minutes). */
+const MOON_UP_STEP_DAYS = 10 / 1440;
+
+/**
+ * How much of the night containing `time` the Moon is up (the centre's apparent altitude above 0°):
+ * 'all' when it is up for at least 90% of the night's dark part (the Sun below the context's
+ * darkness altitude; a full Moon rising a few minutes after dark still "stays up all night"),
+ * 'none' when it is never up then, 'part' otherwise. A night with no dark part (midnight Sun,
+ * white nights) is judged on the hours the Sun is below the horizon, or on the whole night if none.
+ */
+function moonUpShare(ctx: AlmanacContext, time: Date): 'all' | 'part' | 'none' {
+  const frame = ctx.frameAt(time);
+  const samples: number[] = [];
+  for (let ut = frame.ut0; ut <= frame.ut1; ut += MOON_UP_STEP_DAYS) samples.push(ut);
+  const dark = samples.filter((ut) => isDark(ctx, frame, ut));
+  const sunDown = samples.filter((ut) => frame.sun.at(ut).geometricAltitudeDeg < 0);
+  const judged = dark.length > 0 ? dark : sunDown.length > 0 ? sunDown : samples;
+  const up = judged.filter((ut) => apparentPlace(frame, frame.moon.body, ut).altitudeDeg > 0).length;
+  return up === 0 ? 'none' : up >= 0.9 * judged.length ? 'all' : 'part';
 }
 
 /** The Moon's quarters with instants in [from, to) (the same from every site). */
@@ -59,9 +80,14 @@ export function moonPhaseEvents(ctx: AlmanacContext, from: Date, to: Date): Alma
       case 'first-quarter':
         description = look ? w.t('ev.first-quarter', { when, look }) : w.t('ev.first-quarter-evening', { when });
         break;
-      case 'full-moon':
-        description = rise ? w.t('ev.full-moon', { when, rise }) : w.t('ev.full-moon-no-rise', { when });
+      case 'full-moon': {
+        // A Moon whose upper limb grazes the horizon (a rise is found) while its centre stays below counts as up for part of the night.
+        const share = moonUpShare(ctx, time);
+        if (share === 'none' && !rise) description = w.t('ev.full-moon-down', { when });
+        else if (share !== 'all') description = w.t('ev.full-moon-part', { when });
+        else description = rise ? w.t('ev.full-moon', { when, rise }) : w.t('ev.full-moon-no-rise', { when });
         break;
+      }
       default:
         description = rise ? w.t('ev.last-quarter', { when, rise }) : w.t('ev.last-quarter-late', { when });
     }

@@ -193,6 +193,8 @@ export const de: Catalogue = {
   'ev.first-quarter': 'Erstes Viertel am {when}: {look}, dort steht ein halb beleuchteter Mond, und im Fernglas zeigen sich Krater entlang der Grenze zwischen Licht und Schatten.',
   'ev.first-quarter-evening': 'Erstes Viertel am {when}: Am Abendhimmel steht ein halb beleuchteter Mond, und im Fernglas zeigen sich Krater entlang der Grenze zwischen Licht und Schatten.',
   'ev.full-moon': 'Vollmond am {when}: Er geht {rise} auf und bleibt die ganze Nacht am Himmel, sein Licht überstrahlt schwache Sterne und Kometen.',
+  'ev.full-moon-down': 'Vollmond am {when}: Von hier aus bleibt er die ganze Nacht unter dem Horizont.',
+  'ev.full-moon-part': 'Vollmond am {when}: Von hier aus steht er nur einen Teil der Nacht am Himmel; solange er oben ist, überstrahlt sein Licht schwache Sterne und Kometen.',
   'ev.full-moon-no-rise': 'Vollmond am {when}: Er bleibt die ganze Nacht am Himmel, sein Licht überstrahlt schwache Sterne und Kometen.',
   'ev.last-quarter': 'Letztes Viertel am {when}: Der Mond geht {rise} auf, daher bleibt der Abendhimmel dunkel für lichtschwache Objekte.',
   'ev.last-quarter-late': 'Letztes Viertel am {when}: Der Mond geht spät auf, daher bleibt der Abendhimmel dunkel für lichtschwache Objekte.',

@@ -204,6 +204,8 @@ export const en = {
   'ev.first-quarter': 'First-quarter Moon on {when}: {look} for a half-lit Moon, and binoculars show craters along the line between light and dark.',
   'ev.first-quarter-evening': 'First-quarter Moon on {when}: the evening sky has a half-lit Moon, and binoculars show craters along the line between light and dark.',
   'ev.full-moon': 'Full Moon on {when}: it rises {rise} and stays up all night, so its glare hides faint stars and comets.',
+  'ev.full-moon-down': 'Full Moon on {when}: from here it stays below the horizon all night.',
+  'ev.full-moon-part': 'Full Moon on {when}: from here it is up for only part of the night; while it is up, its glare hides faint stars and comets.',
   'ev.full-moon-no-rise': 'Full Moon on {when}: it stays up all night, so its glare hides faint stars and comets.',
   'ev.last-quarter': 'Last-quarter Moon on {when}: it rises {rise}, so the evening sky stays dark for faint objects.',
   'ev.last-quarter-late': 'Last-quarter Moon on {when}: it rises late, so the evening sky stays dark for faint objects.',

@@ -199,6 +199,8 @@ export const es: Catalogue = {
   'ev.first-quarter': 'Cuarto creciente el {when}: {look} para ver una Luna iluminada a medias; con binoculares se ven cráteres a lo largo del límite entre la luz y la sombra.',
   'ev.first-quarter-evening': 'Cuarto creciente el {when}: el cielo del anochecer tiene una Luna iluminada a medias; con binoculares se ven cráteres a lo largo del límite entre la luz y la sombra.',
   'ev.full-moon': 'Luna llena el {when}: sale {rise} y está en el cielo toda la noche, así que su resplandor oculta las estrellas débiles y los cometas.',
+  'ev.full-moon-down': 'Luna llena el {when}: desde aquí no sale en toda la noche.',
+  'ev.full-moon-part': 'Luna llena el {when}: desde aquí solo está en el cielo parte de la noche; mientras está, su resplandor oculta las estrellas débiles y los cometas.',
   'ev.full-moon-no-rise': 'Luna llena el {when}: está en el cielo toda la noche, así que su resplandor oculta las estrellas débiles y los cometas.',
   'ev.last-quarter': 'Cuarto menguante el {when}: sale {rise}, así que el cielo del anochecer queda oscuro para los objetos débiles.',
   'ev.last-quarter-late': 'Cuarto menguante el {when}: sale tarde, así que el cielo del anochecer queda oscuro para los objetos débiles.',

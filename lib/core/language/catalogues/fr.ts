@@ -196,6 +196,8 @@ export const fr: Catalogue = {
   'ev.first-quarter': 'Premier quartier le {when}\u00a0: {look} pour voir une Lune à moitié éclairée, et des jumelles montrent des cratères le long de la limite entre ombre et lumière.',
   'ev.first-quarter-evening': 'Premier quartier le {when}\u00a0: le ciel du soir montre une Lune à moitié éclairée, et des jumelles montrent des cratères le long de la limite entre ombre et lumière.',
   'ev.full-moon': 'Pleine Lune le {when}\u00a0: elle se lève {rise} et reste visible toute la nuit, et son éclat cache les étoiles faibles et les comètes.',
+  'ev.full-moon-down': 'Pleine Lune le {when}\u00a0: d’ici, elle reste sous l’horizon toute la nuit.',
+  'ev.full-moon-part': 'Pleine Lune le {when}\u00a0: d’ici, elle n’est levée qu’une partie de la nuit\u202f; tant qu’elle est levée, son éclat cache les étoiles faibles et les comètes.',
   'ev.full-moon-no-rise': 'Pleine Lune le {when}\u00a0: elle reste visible toute la nuit, et son éclat cache les étoiles faibles et les comètes.',
   'ev.last-quarter': 'Dernier quartier le {when}\u00a0: la Lune se lève {rise}, le ciel du soir reste donc sombre pour les objets faibles.',
   'ev.last-quarter-late': 'Dernier quartier le {when}\u00a0: la Lune se lève tard, le ciel du soir reste donc sombre pour les objets faibles.',
