@@ -72,6 +72,17 @@ describe('message catalogues', () => {
         }
       }
     });
+    it(`${language}: a pattern named in mid-sentence (", in the Sickle of Leo,") is set off by commas on both sides (common practice)`, () => {
+      for (const [key, text] of Object.entries(catalogue)) {
+        const names = shape(read(text));
+        if (names.get('inPattern') !== 'select') continue;
+        const args: Record<string, string | number> = {};
+        for (const [name, kind] of names) args[name] = kind === 'plural' ? 1 : kind === 'select' ? 'other' : `«${name}»`;
+        const said = wordsFor(language).t(key as keyof typeof reference, { ...args, inPattern: 'yes' });
+        // Followed by a word, the pattern's phrase sits inside the sentence and needs its closing comma.
+        expect(said, `${language} '${key}'`).not.toMatch(/«pattern(_dative)?» \p{L}/u);
+      }
+    });
     it(`${language}: no message has doubled punctuation or stray spaces`, () => {
       for (const [key, text] of Object.entries(catalogue)) {
         expect(text, `${language} '${key}'`).not.toMatch(/\.\.|,,|\s,|\s\.(?!\w)|\s$|^\s| {2}/);
