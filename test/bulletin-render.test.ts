@@ -277,3 +277,24 @@ describe('satellite pass placeholders equal lib/models/satellite/nights.ts (demo
   });
 });
 
+describe('the Moon\u2019s lit fraction beside its phase name', () => {
+  it('a crescent or gibbous Moon never prints as 0% or 100% lit (astronomy-engine: half a day from new or full, past the principal name, the rounded percentage would)', () => {
+    // Harbour Roof, night of Mon 8 March 2027, 15 hours after new Moon; night of Fri 22 January 2027, 13 hours after full Moon.
+    const harbour = sites.get('harbour-roof')!;
+    for (const [date, phaseText] of [['2027-03-08', 'waxing crescent'], ['2027-01-22', 'waning gibbous']] as const) {
+      const midnight = Astronomy.MakeTime(localMidnight(nightOf(date, harbour.timeZone)));
+      const fraction = Astronomy.Illumination(Astronomy.Body.Moon, midnight).phase_fraction;
+      const elongation = Astronomy.MoonPhase(midnight);
+      // More than 6.1° from new or full (the principal names' half-width, lib/core/moon.ts), yet within half a percent of dark or fully lit.
+      expect(Math.min(elongation, Math.abs(elongation - 180), 360 - elongation)).toBeGreaterThan(6.1);
+      expect(Math.min(fraction, 1 - fraction)).toBeLessThan(0.005);
+      const monday = isoWeekOf(date);
+      const night = monday.days.indexOf(date);
+      expect(element(render(harbour, monday, `:moon-phase{night=${night + 1}}`), 'moon-phase').text.toLowerCase()).toBe(phaseText);
+      const lit = element(render(harbour, monday, `:moon-lit{night=${night + 1}}`), 'moon-lit').text;
+      expect(lit).toBe(fraction < 0.5 ? '1%' : '99%');
+      const table = render(harbour, monday, '::moon-and-twilight');
+      expect(table).toContain(`${phaseText}, ${lit} lit`);
+    }
+  });
+});

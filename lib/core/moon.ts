@@ -62,6 +62,19 @@ export function phaseName(elongationDeg: number): PhaseName {
   return 'waning-crescent';
 }
 
+/**
+ * The lit fraction to print beside the phase's name, as a percentage with `digits` decimals: the
+ * fraction itself, except that a crescent or gibbous Moon, which is neither dark nor fully lit,
+ * never prints as 0% or 100% — within half a day of new Moon the disc is under 0.5% lit while the
+ * name is already "crescent" — but as the nearest value that is not (1%, 99% with no decimals).
+ */
+export function printedLitFraction(phase: Pick<MoonPhase, 'name' | 'illuminatedFraction'>, digits = 0): number {
+  const f = phase.illuminatedFraction;
+  if (phase.name !== 'waxing-crescent' && phase.name !== 'waning-crescent' && phase.name !== 'waxing-gibbous' && phase.name !== 'waning-gibbous') return f;
+  const step = 10 ** -(digits + 2);
+  return Math.min(Math.max(f, step), 1 - step);
+}
+
 /** Mean synodic month, days (Meeus, Astronomical Algorithms, eq. 49.1). */
 const SYNODIC_MONTH_DAYS = 29.530588861;
 /** The mean new Moon of lunation 0 (Meeus eq. 49.1, k = 0: JDE 2451550.09766, 2000 January 6), days from J2000 (TT; UT differs by a minute). */

@@ -26,7 +26,7 @@ import { OBJECTS_HELP, runObjects } from './objects.ts';
 import { computeWeek } from '../../models/week.ts';
 import { reasonText } from '../../models/visibility.ts';
 import { MISSING_REASON_TEXT, type EventTime } from '../../core/events.ts';
-import { PHASE_LABEL } from '../../core/moon.ts';
+import { PHASE_LABEL, printedLitFraction } from '../../core/moon.ts';
 
 const FLAG_OF_FIELD: Record<string, string> = {
   latitude: '--lat',
@@ -210,7 +210,7 @@ function runNight(args: string[], out: (s: string) => void): void {
     `Night of ${date} at ${round(site.latitudeDeg, 4)}°, ${round(site.longitudeDeg, 4)}° (${zone})`,
     `Sun: sets ${timeText(s.set, zone)}, civil dusk ${timeText(s.civilDusk, zone)}, nautical dusk ${timeText(s.nauticalDusk, zone)}, ` +
       `astronomical dusk ${timeText(s.astronomicalDusk, zone)}; astronomical dawn ${timeText(s.astronomicalDawn, zone)}, rises ${timeText(s.rise, zone)}`,
-    `Moon: ${PHASE_LABEL[report.moon.phase.name]}, ${Math.round(report.moon.phase.illuminatedFraction * 100)}% lit; rises ${timeText(report.moon.rise, zone)}, ` +
+    `Moon: ${PHASE_LABEL[report.moon.phase.name]}, ${Math.round(printedLitFraction(report.moon.phase) * 100)}% lit; rises ${timeText(report.moon.rise, zone)}, ` +
       `transits ${timeText(report.moon.transit, zone)}, sets ${timeText(report.moon.set, zone)}${moonBody ? `; ${seenText(moonBody)}` : ''}`,
     ...report.bodies
       .filter((b) => b !== moonBody)

@@ -1,5 +1,6 @@
 /** The Moon: its phase and lit fraction, and the week's table of sunset, twilight and the Moon. */
 import type { ElementContent } from 'hast';
+import { printedLitFraction } from '../../../core/moon.ts';
 import { el, exact, formatDay, formatDayRange } from '../format.ts';
 import { CLOCK, DIGITS, NIGHT, TIME_PRECISION, TWILIGHT, classes, digitsOf, eventElement, nightDate, wordsOf, type PlaceholderCall, type PlaceholderSpec } from './call.ts';
 import { RISE_PHRASES, SET_PHRASES, SUN_PHRASES, type TwilightKind } from './phrases.ts';
@@ -14,8 +15,9 @@ function moonPhase(call: PlaceholderCall): ElementContent {
 }
 
 function moonLit(call: PlaceholderCall): ElementContent {
-  const f = call.week.nights[call.night]!.moon.phase.illuminatedFraction;
-  return el('data', { ...classes(call), value: exact(f, 4), dataNight: nightDate(call) }, wordsOf(call).percent(f, digitsOf(call, 0)));
+  const phase = call.week.nights[call.night]!.moon.phase;
+  const digits = digitsOf(call, 0);
+  return el('data', { ...classes(call), value: exact(phase.illuminatedFraction, 4), dataNight: nightDate(call) }, wordsOf(call).percent(printedLitFraction(phase, digits), digits));
 }
 
 function moonAndTwilight(call: PlaceholderCall): ElementContent {
@@ -34,7 +36,7 @@ function moonAndTwilight(call: PlaceholderCall): ElementContent {
       cell(eventElement(as('dawn'), report.sun[`${kind}Dawn`], kind, { dataTwilight: kind })),
       cell(eventElement(as('rise'), report.moon.rise, RISE_PHRASES, { dataBody: 'moon' })),
       cell(eventElement(as('set'), report.moon.set, SET_PHRASES, { dataBody: 'moon' })),
-      cell(el('data', { className: ['gl', 'gl-moon-phase'], value: p.name, dataIlluminatedFraction: exact(p.illuminatedFraction, 4) }, words.t('ph.table-moon-cell', { phase: words.t(`phase-word.${p.name}`), percent: words.percent(p.illuminatedFraction) }))),
+      cell(el('data', { className: ['gl', 'gl-moon-phase'], value: p.name, dataIlluminatedFraction: exact(p.illuminatedFraction, 4) }, words.t('ph.table-moon-cell', { phase: words.t(`phase-word.${p.name}`), percent: words.percent(printedLitFraction(p)) }))),
     ]);
   });
   const days = call.week.week.days;
