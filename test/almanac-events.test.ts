@@ -200,6 +200,30 @@ describe('the full Moon’s sentence says how much of the night it is up, as ast
     }
     return { moonMaxDeg, darkMinutesDown, darkMinutes };
   }
+  /** The Moon's altitude when the night's sky gets dark (the Sun 6° down), by astronomy-engine; null when it never does. */
+  function moonAtDusk(site: typeof outpost, time: Date): number | null {
+    const observer = new Astronomy.Observer(site.latitudeDeg, site.longitudeDeg, 0);
+    const night = nightOf(nightDateOf(time, site.timeZone), site.timeZone);
+    const altitude = (body: Astronomy.Body, t: Date): number => {
+      const eq = Astronomy.Equator(body, t, observer, true, true);
+      return Astronomy.Horizon(t, observer, eq.ra, eq.dec, 'normal').altitude;
+    };
+    for (let t = night.start.getTime(); t <= night.end.getTime(); t += 5 * 60_000) if (altitude(Astronomy.Body.Sun, new Date(t)) < -6) return altitude(Astronomy.Body.Moon, new Date(t));
+    return null;
+  }
+  for (const site of [outpost, harbour]) {
+    it(`last quarter, ${site.latitudeDeg}° N: "the evening sky stays dark" only when the sky gets dark with the Moon still down`, () => {
+      const quarters = findEvents({ site, from: new Date('2026-12-04T00:00:00Z'), to: new Date('2027-12-04T00:00:00Z'), options: { types: ['last-quarter'] } });
+      expect(quarters.length).toBeGreaterThanOrEqual(12);
+      for (const e of quarters) {
+        const moon = moonAtDusk(site, e.time);
+        const label = `${site.id} ${e.time.toISOString()} (Moon at dusk ${moon?.toFixed(1)}°): ${e.description}`;
+        // A degree's margin either side of the horizon, where the sampling (5 and 10 minutes) may disagree.
+        if (moon === null || moon > 1) expect(e.description, label).not.toMatch(/evening sky stays dark/);
+        if (moon !== null && moon < -1) expect(e.description, label).toMatch(/evening sky stays dark/);
+      }
+    });
+  }
   for (const site of [outpost, harbour]) {
     it(`${site.latitudeDeg}° N, December 2026 to December 2027`, () => {
       const fulls = findEvents({ site, from: new Date('2026-12-04T00:00:00Z'), to: new Date('2027-12-04T00:00:00Z'), options: { types: ['full-moon'] } });

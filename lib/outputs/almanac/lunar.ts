@@ -29,21 +29,23 @@ function moonriseWords(ctx: AlmanacContext, time: Date): string | null {
 const MOON_UP_STEP_DAYS = 10 / 1440;
 
 /**
- * How much of the night containing `time` the Moon is up (the centre's apparent altitude above 0°):
- * 'all' when it is up for at least 90% of the night's dark part (the Sun below the context's
- * darkness altitude; a full Moon rising a few minutes after dark still "stays up all night"),
- * 'none' when it is never up then, 'part' otherwise. A night with no dark part (midnight Sun,
- * white nights) is judged on the hours the Sun is below the horizon, or on the whole night if none.
+ * The Moon over the night containing `time` (its centre's apparent altitude above 0° counts as up).
+ * `share`: 'all' when it is up for at least 90% of the night's dark part (the Sun below the
+ * context's darkness altitude; a full Moon rising a few minutes after dark still "stays up all
+ * night"), 'none' when it is never up then, 'part' otherwise; a night with no dark part (midnight
+ * Sun, white nights) is judged on the hours the Sun is below the horizon, or on the whole night.
+ * `dark`: whether the night has a dark part; `upAtDusk`: whether the Moon is up when it begins.
  */
-function moonUpShare(ctx: AlmanacContext, time: Date): 'all' | 'part' | 'none' {
+function moonOverNight(ctx: AlmanacContext, time: Date): { share: 'all' | 'part' | 'none'; dark: boolean; upAtDusk: boolean } {
   const frame = ctx.frameAt(time);
   const samples: number[] = [];
   for (let ut = frame.ut0; ut <= frame.ut1; ut += MOON_UP_STEP_DAYS) samples.push(ut);
   const dark = samples.filter((ut) => isDark(ctx, frame, ut));
   const sunDown = samples.filter((ut) => frame.sun.at(ut).geometricAltitudeDeg < 0);
   const judged = dark.length > 0 ? dark : sunDown.length > 0 ? sunDown : samples;
-  const up = judged.filter((ut) => apparentPlace(frame, frame.moon.body, ut).altitudeDeg > 0).length;
-  return up === 0 ? 'none' : up >= 0.9 * judged.length ? 'all' : 'part';
+  const isUp = (ut: number): boolean => apparentPlace(frame, frame.moon.body, ut).altitudeDeg > 0;
+  const up = judged.filter(isUp).length;
+  return { share: up === 0 ? 'none' : up >= 0.9 * judged.length ? 'all' : 'part', dark: dark.length > 0, upAtDusk: dark.length > 0 && isUp(dark[0]!) };
 }
 
 /** The Moon's quarters with instants in [from, to) (the same from every site). */
@@ -82,14 +84,19 @@ export function moonPhaseEvents(ctx: AlmanacContext, from: Date, to: Date): Alma
         break;
       case 'full-moon': {
         // A Moon whose upper limb grazes the horizon (a rise is found) while its centre stays below counts as up for part of the night.
-        const share = moonUpShare(ctx, time);
+        const { share } = moonOverNight(ctx, time);
         if (share === 'none' && !rise) description = w.t('ev.full-moon-down', { when });
         else if (share !== 'all') description = w.t('ev.full-moon-part', { when });
         else description = rise ? w.t('ev.full-moon', { when, rise }) : w.t('ev.full-moon-no-rise', { when });
         break;
       }
-      default:
-        description = rise ? w.t('ev.last-quarter', { when, rise }) : w.t('ev.last-quarter-late', { when });
+      default: {
+        // "The evening sky stays dark" only where the sky gets dark and the Moon is still down when it does.
+        const night = moonOverNight(ctx, time);
+        if (!night.dark) description = w.t('ev.last-quarter-bright', { when, risen: rise ? 'yes' : 'no', rise: rise ?? '' });
+        else if (night.upAtDusk) description = w.t('ev.last-quarter-up', { when });
+        else description = rise ? w.t('ev.last-quarter', { when, rise }) : w.t('ev.last-quarter-late', { when });
+      }
     }
     out.push({ type, time, bodies: ['moon'], names: ['Moon'], visible: visibility.visible, visibility, title: w.t(`ev.title.${type}`), description, score: 0 });
   }

@@ -197,6 +197,8 @@ export const de: Catalogue = {
   'ev.full-moon-part': 'Vollmond am {when}: Von hier aus steht er nur einen Teil der Nacht am Himmel; solange er oben ist, überstrahlt sein Licht schwache Sterne und Kometen.',
   'ev.full-moon-no-rise': 'Vollmond am {when}: Er bleibt die ganze Nacht am Himmel, sein Licht überstrahlt schwache Sterne und Kometen.',
   'ev.last-quarter': 'Letztes Viertel am {when}: Der Mond geht {rise} auf, daher bleibt der Abendhimmel dunkel für lichtschwache Objekte.',
+  'ev.last-quarter-bright': 'Letztes Viertel am {when}{risen, select, yes {: Der Mond geht {rise} auf} other {}}.',
+  'ev.last-quarter-up': 'Letztes Viertel am {when}: Von hier aus steht der Mond schon über dem Horizont, wenn es dunkel wird.',
   'ev.last-quarter-late': 'Letztes Viertel am {when}: Der Mond geht spät auf, daher bleibt der Abendhimmel dunkel für lichtschwache Objekte.',
   'ev.title.perigee': 'Mond im Perigäum',
   'ev.title.apogee': 'Mond im Apogäum',

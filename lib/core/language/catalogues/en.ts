@@ -208,6 +208,8 @@ export const en = {
   'ev.full-moon-part': 'Full Moon on {when}: from here it is up for only part of the night; while it is up, its glare hides faint stars and comets.',
   'ev.full-moon-no-rise': 'Full Moon on {when}: it stays up all night, so its glare hides faint stars and comets.',
   'ev.last-quarter': 'Last-quarter Moon on {when}: it rises {rise}, so the evening sky stays dark for faint objects.',
+  'ev.last-quarter-bright': 'Last-quarter Moon on {when}{risen, select, yes {: it rises {rise}} other {}}.',
+  'ev.last-quarter-up': 'Last-quarter Moon on {when}: from here it is already above the horizon when the sky gets dark.',
   'ev.last-quarter-late': 'Last-quarter Moon on {when}: it rises late, so the evening sky stays dark for faint objects.',
   'ev.title.perigee': 'Moon at perigee',
   'ev.title.apogee': 'Moon at apogee',

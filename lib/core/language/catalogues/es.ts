@@ -203,6 +203,8 @@ export const es: Catalogue = {
   'ev.full-moon-part': 'Luna llena el {when}: desde aquí solo está en el cielo parte de la noche; mientras está, su resplandor oculta las estrellas débiles y los cometas.',
   'ev.full-moon-no-rise': 'Luna llena el {when}: está en el cielo toda la noche, así que su resplandor oculta las estrellas débiles y los cometas.',
   'ev.last-quarter': 'Cuarto menguante el {when}: sale {rise}, así que el cielo del anochecer queda oscuro para los objetos débiles.',
+  'ev.last-quarter-bright': 'Cuarto menguante el {when}{risen, select, yes {: sale {rise}} other {}}.',
+  'ev.last-quarter-up': 'Cuarto menguante el {when}: desde aquí ya está sobre el horizonte cuando oscurece.',
   'ev.last-quarter-late': 'Cuarto menguante el {when}: sale tarde, así que el cielo del anochecer queda oscuro para los objetos débiles.',
   'ev.title.perigee': 'Luna en el perigeo',
   'ev.title.apogee': 'Luna en el apogeo',

@@ -200,6 +200,8 @@ export const fr: Catalogue = {
   'ev.full-moon-part': 'Pleine Lune le {when}\u00a0: d’ici, elle n’est levée qu’une partie de la nuit\u202f; tant qu’elle est levée, son éclat cache les étoiles faibles et les comètes.',
   'ev.full-moon-no-rise': 'Pleine Lune le {when}\u00a0: elle reste visible toute la nuit, et son éclat cache les étoiles faibles et les comètes.',
   'ev.last-quarter': 'Dernier quartier le {when}\u00a0: la Lune se lève {rise}, le ciel du soir reste donc sombre pour les objets faibles.',
+  'ev.last-quarter-bright': 'Dernier quartier le {when}{risen, select, yes {\u00a0: la Lune se lève {rise}} other {}}.',
+  'ev.last-quarter-up': 'Dernier quartier le {when}\u00a0: d’ici, la Lune est déjà au-dessus de l’horizon quand le ciel devient sombre.',
   'ev.last-quarter-late': 'Dernier quartier le {when}\u00a0: la Lune se lève tard, le ciel du soir reste donc sombre pour les objets faibles.',
   'ev.title.perigee': 'Lune au périgée',
   'ev.title.apogee': 'Lune à l’apogée',
