@@ -177,6 +177,24 @@ describe('solar eclipses, local circumstances', () => {
     }
   });
 
+  it('2027 August 2 from 68.55° N, 13.4° E: astronomy-engine finds the Moon covering under half a per cent of the Sun; the page says it only grazes, not "0% covered", and keeps the caution', () => {
+    const site = defineSite({ id: 'far-north', latitude: 68.55, longitude: 13.4, elevation: 15, timeZone: 'Europe/Oslo' });
+    const reference = Astronomy.SearchLocalSolarEclipse(new Date('2027-07-25T00:00:00Z'), site.observer);
+    expect(reference.kind).toBe('partial');
+    expect(reference.obscuration).toBeGreaterThan(0);
+    expect(reference.obscuration).toBeLessThan(0.005);
+    const [e] = events(['solar-eclipse'], '2027-08-01T00:00:00Z', '2027-08-04T00:00:00Z', site);
+    expect(e!.eclipse!.obscuration).toBeCloseTo(reference.obscuration, 6);
+    expect(e!.description).not.toMatch(/\b0%/);
+    expect(e!.description).toMatch(/less than 1%/);
+    expect(e!.caution).toMatch(/never look straight at the Sun/);
+    // The same eclipse from a harbour city at 50.45° N covers 46% (astronomy-engine): the usual sentence, with its percentage.
+    const harbour = defineSite({ id: 'harbour', latitude: 50.45, longitude: -1.55, timeZone: 'Europe/London' });
+    const [h] = events(['solar-eclipse'], '2027-08-01T00:00:00Z', '2027-08-04T00:00:00Z', harbour);
+    const percent = Math.round(Astronomy.SearchLocalSolarEclipse(new Date('2027-07-25T00:00:00Z'), harbour.observer).obscuration * 100);
+    expect(h!.description).toContain(`with ${percent}% of the Sun's disc covered`);
+  });
+
   it('global maximum of the 2024 April 8 eclipse agrees with astronomia eclipse.solar (Meeus ch. 54) to 1 hour, kind total', () => {
     const ref = eclipse.solar(2024.27);
     expect(ref.type).toBe(eclipse.TYPE.Total);

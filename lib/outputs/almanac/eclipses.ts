@@ -163,17 +163,19 @@ export function solarEclipseEvents(ctx: AlmanacContext, from: Date, to: Date): A
             ? w.t('ev.solar-note-max', { degrees: Math.round(top.altitudeDeg), direction: ctx.direction(az) })
             : w.t('ev.solar-note-highest', { clock: ctx.clock(top.time), degrees: Math.round(top.altitudeDeg) }),
       };
-      description = w.t('ev.solar-eclipse', {
-        kind,
-        day,
-        begin: ctx.clock(e.partial_begin.time.date),
-        end: ctx.clock(e.partial_end.time.date),
-        max: ctx.clock(e.peak.time.date),
-        percent,
-        phase: e.total_begin && e.total_end ? (kind === 'total' ? 'total' : 'annular') : 'none',
-        p1: e.total_begin ? ctx.clock(e.total_begin.time.date) : '',
-        p2: e.total_end ? ctx.clock(e.total_end.time.date) : '',
-      });
+      const times = { day, begin: ctx.clock(e.partial_begin.time.date), end: ctx.clock(e.partial_end.time.date), max: ctx.clock(e.peak.time.date) };
+      // A partial eclipse covering under half a per cent would print as "0% covered": say the Moon only grazes the Sun.
+      description =
+        kind === 'partial' && pct(e.obscuration) === 0
+          ? w.t('ev.solar-eclipse-graze', { ...times, percent: w.percent(0.01) })
+          : w.t('ev.solar-eclipse', {
+              ...times,
+              kind,
+              percent,
+              phase: e.total_begin && e.total_end ? (kind === 'total' ? 'total' : 'annular') : 'none',
+              p1: e.total_begin ? ctx.clock(e.total_begin.time.date) : '',
+              p2: e.total_end ? ctx.clock(e.total_end.time.date) : '',
+            });
     } else {
       visibility = hidden(ctx, 'sun-below-horizon');
       description = w.t('ev.solar-eclipse-hidden', { percent, day });

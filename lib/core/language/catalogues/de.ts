@@ -260,6 +260,8 @@ export const de: Catalogue = {
   'ev.title.solar-eclipse': '{kind, select, total {Totale Sonnenfinsternis} annular {Ringförmige Sonnenfinsternis} other {Partielle Sonnenfinsternis}}',
   'ev.solar-eclipse':
     '{kind, select, total {Totale Sonnenfinsternis} annular {Ringförmige Sonnenfinsternis} other {Partielle Sonnenfinsternis}} von hier aus am {day}, {begin}–{end}, am größten um {max}, wenn {percent} der Sonnenscheibe bedeckt sind{phase, select, total {, Totalität {p1}–{p2}} annular {, Ringphase {p1}–{p2}} other {}}: beobachten Sie nur durch zertifizierte Finsternisbrillen oder per Projektion.',
+  'ev.solar-eclipse-graze':
+    'Partielle Sonnenfinsternis von hier aus am {day}, {begin}–{end}, doch der Mond streift nur den Rand der Sonne: Um {max} ist weniger als {percent} der Sonnenscheibe bedeckt, zu wenig, um es zu bemerken; schauen Sie nicht in die Sonne, um es zu prüfen.',
   'ev.solar-eclipse-hidden': 'Eine Sonnenfinsternis (höchstens {percent} der Sonnenscheibe bedeckt) findet am {day} statt, während die Sonne hier unter dem Horizont steht; von diesem Standort aus ist sie nicht zu sehen.',
   'ev.solar-note-max': 'Im Maximum steht die Sonne {degrees}° hoch im {direction}.',
   'ev.solar-note-highest': 'Im Maximum steht die Sonne unter dem Horizont; am höchsten steht sie während der Finsternis um {clock}, {degrees}° hoch.',

@@ -271,6 +271,8 @@ export const en = {
   'ev.title.solar-eclipse': '{kind, select, total {Total eclipse of the Sun} annular {Annular eclipse of the Sun} other {Partial eclipse of the Sun}}',
   'ev.solar-eclipse':
     "{kind, select, total {Total eclipse of the Sun} annular {Annular eclipse of the Sun} other {Partial eclipse of the Sun}} from here on {day}, {begin}–{end}, greatest at {max} with {percent} of the Sun's disc covered{phase, select, total {, totality {p1}–{p2}} annular {, the ring phase {p1}–{p2}} other {}}: watch only through certified eclipse viewers or by projection.",
+  'ev.solar-eclipse-graze':
+    "Partial eclipse of the Sun from here on {day}, {begin}–{end}, but the Moon only grazes the Sun's edge: at {max} less than {percent} of the Sun's disc is covered, too little to notice; do not look at the Sun to check.",
   'ev.solar-eclipse-hidden': "A solar eclipse ({percent} of the Sun's disc covered at best) happens on {day} while the Sun is below the horizon here, so it cannot be seen from this site.",
   'ev.solar-note-max': 'At maximum the Sun is {degrees}° up in the {direction}.',
   'ev.solar-note-highest': 'The Sun is down at maximum; it is highest during the eclipse at {clock}, {degrees}° up.',

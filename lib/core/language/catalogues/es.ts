@@ -266,6 +266,8 @@ export const es: Catalogue = {
   'ev.title.solar-eclipse': '{kind, select, total {Eclipse total de Sol} annular {Eclipse anular de Sol} other {Eclipse parcial de Sol}}',
   'ev.solar-eclipse':
     '{kind, select, total {Eclipse total de Sol} annular {Eclipse anular de Sol} other {Eclipse parcial de Sol}} visible desde aquí el {day}, de {begin} a {end}, con el máximo a las {max} y el {percent} del disco solar cubierto{phase, select, total {, totalidad de {p1} a {p2}} annular {, fase del anillo de {p1} a {p2}} other {}}: obsérvelo solo con visores de eclipse certificados o por proyección.',
+  'ev.solar-eclipse-graze':
+    'Eclipse parcial de Sol desde aquí el {day}, de {begin} a {end}, pero la Luna apenas roza el borde del Sol: a las {max} cubre menos del {percent} del disco solar, demasiado poco para notarlo; no mire al Sol para comprobarlo.',
   'ev.solar-eclipse-hidden': 'Un eclipse de Sol (con el {percent} del disco solar cubierto en su mejor momento) ocurre el {day} mientras el Sol está bajo el horizonte aquí, así que no se puede ver desde este lugar.',
   'ev.solar-note-max': 'En el máximo el Sol está a {degrees}° de altura en el {direction}.',
   'ev.solar-note-highest': 'En el máximo el Sol está bajo el horizonte; durante el eclipse alcanza su mayor altura a las {clock}, a {degrees}°.',

@@ -263,6 +263,8 @@ export const fr: Catalogue = {
   'ev.title.solar-eclipse': '{kind, select, total {Éclipse totale de Soleil} annular {Éclipse annulaire de Soleil} other {Éclipse partielle de Soleil}}',
   'ev.solar-eclipse':
     '{kind, select, total {Éclipse totale de Soleil} annular {Éclipse annulaire de Soleil} other {Éclipse partielle de Soleil}} visible d’ici le {day}, {begin}–{end}, maximale à {max} avec {percent} du disque solaire couvert{phase, select, total {, totalité {p1}–{p2}} annular {, phase annulaire {p1}–{p2}} other {}}\u00a0: observez-la uniquement avec des lunettes d’éclipse certifiées ou par projection.',
+  'ev.solar-eclipse-graze':
+    'Éclipse partielle de Soleil d’ici le {day}, {begin}–{end}, mais la Lune ne fait qu’effleurer le bord du Soleil\u00a0: à {max}, moins de {percent} du disque solaire est couvert, trop peu pour le remarquer\u202f; ne regardez pas le Soleil pour le vérifier.',
   'ev.solar-eclipse-hidden': 'Une éclipse de Soleil ({percent} du disque solaire couvert au mieux) a lieu le {day} alors que le Soleil est sous l’horizon ici\u202f; elle n’est pas visible depuis ce site.',
   'ev.solar-note-max': 'Au maximum, le Soleil est à {degrees}° de hauteur vers {direction}.',
   'ev.solar-note-highest': 'Le Soleil est couché au maximum\u202f; il est au plus haut pendant l’éclipse à {clock}, à {degrees}° de hauteur.',
