@@ -5,6 +5,8 @@
  */
 import { describe, expect, it } from 'vitest';
 import { compass, describeAltitude, fists, handMeasure } from '../lib/core/describe.ts';
+import { wordsFor } from '../lib/core/language/index.ts';
+import { distanceWords } from '../lib/models/stars/guide.ts';
 
 describe('compass', () => {
   it('names the 16 points at their centres and switches half-way between them', () => {
@@ -48,5 +50,22 @@ describe('hand measures (common practice: fist ≈ 10°, finger ≈ 2°)', () =>
     expect(describeAltitude(-13.2).words).toBe('13° below the horizon');
     expect(describeAltitude(-0.3).words).toBe('just below the horizon');
     for (let a = -90; a < 0; a += 0.7) expect(describeAltitude(a).words).not.toMatch(/\bup\b|fist|finger|−/);
+  });
+});
+
+describe('the hand measure beside printed degrees', () => {
+  it('follows the degrees as printed, so one number always reads one way, in every language (a finger ≈ 2°, a fist ≈ 10° at arm’s length: common practice)', () => {
+    for (const language of ['en', 'es', 'de', 'fr']) {
+      const words = wordsFor(language);
+      for (let tenths = 5; tenths <= 600; tenths++) {
+        const altitude = tenths / 10;
+        const printed = Math.round(altitude);
+        // 6.6° prints as "7°": it must read as a printed 7° does, as an altitude and as a distance between two points.
+        expect(words.altitude(altitude), `${language} ${altitude}°`).toBe(words.altitude(printed));
+        expect(words.altitude(altitude), `${language} ${altitude}°`).toContain(words.handMeasure(printed));
+        // Distances under 1° print a decimal ("0.7°"), so whole degrees are compared from 1° up.
+        if (altitude >= 1) expect(distanceWords(altitude, words), `${language} ${altitude}°`).toContain(words.handMeasure(printed));
+      }
+    }
   });
 });

@@ -246,7 +246,8 @@ function makeWords(locale: string): Words {
     altitude(altitudeDeg) {
       const degrees = Math.round(altitudeDeg);
       if (altitudeDeg < 0) return degrees === 0 ? t('altitude.just-below') : t('altitude.below', { degrees: Math.abs(degrees) });
-      return t('altitude.up', { degrees, hand: self.handMeasure(altitudeDeg) });
+      // The hand measure follows the degrees as printed, as distances do (guide.ts `distanceWords`): 6.6° reads "7° (almost a fist)".
+      return t('altitude.up', { degrees, hand: self.handMeasure(degrees) });
     },
   };
   return self;

@@ -58,7 +58,7 @@ function altitude(call: PlaceholderCall): ElementContent {
   const digits = digitsOf(call, 0);
   const lang = wordsOf(call);
   const deg = `${lang.number(o.altitudeDeg, digits)}°`;
-  const words = o.altitudeDeg < 0 ? lang.t('ph.altitude-below', { degrees: deg }) : lang.t('ph.altitude', { degrees: deg, hand: lang.handMeasure(o.altitudeDeg) });
+  const words = o.altitudeDeg < 0 ? lang.t('ph.altitude-below', { degrees: deg }) : lang.t('ph.altitude', { degrees: deg, hand: lang.handMeasure(Number(o.altitudeDeg.toFixed(digits))) });
   return el(
     'data',
     { ...classes(call, ...(o.altitudeDeg < 0 ? ['gl-below'] : [])), value: exact(o.altitudeDeg, 2), dataBody: body.id, dataAt: at, dataAltitudeDeg: exact(o.altitudeDeg, 3), dataFists: String(fists(o.altitudeDeg)), dataTime: formatInstant(event.time, call.site.timeZone) },

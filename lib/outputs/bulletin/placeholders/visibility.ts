@@ -89,7 +89,7 @@ export function targetItem(call: PlaceholderCall, bn: BodyNight, kind?: string):
     el('strong', {}, labelOf(call, bn.body)),
     { type: 'text', value: `${kind ? `, ${kind}` : ''}${words.t('ph.target-best-at')} ` },
     el('time', { dateTime: formatInstant(best.time, zone) }, formatClock(best.time, call.site, format)),
-    { type: 'text', value: `${words.t('ph.target-where', { direction: compass(best.azimuthDeg, words).word, degrees: words.number(best.altitudeDeg, 0), hand: words.handMeasure(best.altitudeDeg) })} ` },
+    { type: 'text', value: `${words.t('ph.target-where', { direction: compass(best.azimuthDeg, words).word, degrees: words.number(best.altitudeDeg, 0), hand: words.handMeasure(Math.round(best.altitudeDeg)) })} ` },
     el('data', { value: exact(best.magnitude, 2) }, words.number(best.magnitude, 1)),
     { type: 'text', value: `${bn.guide ? `, ${guidePhrase(bn.guide.said, words)}` : ''} \u2014 ${verdictWords(v.verdict as InstrumentKind, words, bodyPhrase(words.language, bn.body).gender)}${v.outsideViewingHours ? ` ${words.t('verdict.outside-hours')}` : ''}` },
   ]);
