@@ -83,6 +83,22 @@ describe.each(GRID)(':::provided at %s, %s', (_s, _w, site, week) => {
     }
   });
 
+  it('first=set|rise body=moon follows astronomy-engine SearchRiseSet: both happen between local noon and the next, in that order', () => {
+    const observer = new Astronomy.Observer(site.latitudeDeg, site.longitudeDeg, site.elevationM);
+    for (const date of week.days) {
+      const n = nightOf(date, site.timeZone);
+      const rise = Astronomy.SearchRiseSet(Astronomy.Body.Moon, observer, +1, n.start, 1);
+      const set = Astronomy.SearchRiseSet(Astronomy.Body.Moon, observer, -1, n.start, 1);
+      const within = (e: Astronomy.AstroTime | null): e is Astronomy.AstroTime => e !== null && e.date < n.end;
+      // Within 2 minutes of noon an event could fall on either side with two different models.
+      if ([rise, set].some((e) => e && Math.abs(e.date.getTime() - n.end.getTime()) < 2 * MINUTE_MS)) continue;
+      const both = within(rise) && within(set);
+      const setBeforeRise = both && set.date < rise.date;
+      expect(shown(render(site, week, either(`first=set body=moon night=${date}`))), `moonset first on the night of ${date}`).toBe(setBeforeRise);
+      expect(shown(render(site, week, either(`first=rise body=moon night=${date}`))), `moonrise first on the night of ${date}`).toBe(both && !setBeforeRise);
+    }
+  });
+
   it('event=full-moon follows astronomy-engine SearchMoonPhase (180°) inside the week from Monday noon to the next Monday noon', () => {
     const from = nightOf(week.days[0]!, site.timeZone).start;
     const to = nightOf(week.days[6]!, site.timeZone).end;
@@ -270,8 +286,8 @@ describe('several problems in one run', () => {
       }
       return '';
     };
-    expect(run(':::provided{body=jupiter}\nx\n:::')).toBe(`${FILE}:6:1: ':::provided' needs a condition; expected one of seen, up, has, event, moon — e.g. :::provided{seen=either body=jupiter}`);
-    expect(run(':::provided{seen=either event=full-moon body=jupiter}\nx\n:::')).toBe(`${FILE}:6:1: ':::provided' takes one condition, not seen and event; expected one of seen, up, has, event, moon — put one section inside another for two conditions`);
+    expect(run(':::provided{body=jupiter}\nx\n:::')).toBe(`${FILE}:6:1: ':::provided' needs a condition; expected one of seen, up, first, has, event, moon — e.g. :::provided{seen=either body=jupiter}`);
+    expect(run(':::provided{seen=either event=full-moon body=jupiter}\nx\n:::')).toBe(`${FILE}:6:1: ':::provided' takes one condition, not seen and event; expected one of seen, up, first, has, event, moon — put one section inside another for two conditions`);
     expect(run(':best-time')).toBe(`${FILE}:6:1 field 'body': ':best-time' needs the attribute 'body' (or sit inside :::every-target); expected the body or object — e.g. :best-time{body=jupiter}`);
     expect(run(':::provided{has=verdict body=jupiter}\nx\n:::')).toMatch(/field 'has': 'verdict' is not a value of 'has'/);
   });

@@ -86,6 +86,10 @@ const CONDITIONS: Record<string, { doc: string; attributes: (written: Readonly<R
     doc: 'the body stands above the horizon (apparent altitude > 0°) at a moment',
     attributes: () => ({ up: { type: { kind: 'moment', values: ['best', 'transit'] }, doc: 'the moment (a clock time before 12:00 is the next morning)' }, body: BODY, night: NIGHT }),
   },
+  first: {
+    doc: "the body both rises and sets this night (noon to noon), rise first (first=rise) or set first (first=set): a sentence naming both can put them in the order they happen",
+    attributes: () => ({ first: { type: { kind: 'choice', values: ['rise', 'set'] }, doc: 'rise or set' }, body: BODY, night: NIGHT }),
+  },
   has: {
     doc: 'a value placeholder (written with its own attributes) has a value here, so it will not print –',
     attributes: (written) => {
@@ -130,6 +134,15 @@ function up(call: SectionCall): boolean {
   return time !== null && call.week.observe(body, time).altitudeDeg > 0;
 }
 
+/** Whether the body's rise and set both happen this night with the one named by `first=` first. */
+function first(call: SectionCall): boolean {
+  const bn = call.week.bodyNight(call.night, bodyAttr(call));
+  const rise = bn.rise.time;
+  const set = bn.set.time;
+  if (!rise || !set) return false;
+  return call.attrs.get('first') === 'rise' ? rise < set : set < rise;
+}
+
 /** Moonlight without a body: at least half lit and up at the start or middle of the viewing hours. */
 function moonBright(call: SectionCall): boolean {
   const report = call.week.nights[call.night]!;
@@ -164,6 +177,8 @@ function provided(call: SectionCall): boolean {
       return seen(call, bodyAttr(call), call.attrs.get('seen') as string);
     case 'up':
       return up(call);
+    case 'first':
+      return first(call);
     case 'has': {
       const spec = PLACEHOLDERS.get(call.attrs.get('has') as string)!;
       const attrs = new Map(call.attrs);
