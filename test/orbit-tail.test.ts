@@ -9,7 +9,8 @@ import * as Astronomy from 'astronomy-engine';
 import { describe, expect, it } from 'vitest';
 import { loadBodies } from '../lib/models/content.ts';
 import { defineSite } from '../lib/core/site.ts';
-import { isSmallBody, tailInSky } from '../lib/models/orbit/tail.ts';
+import { isSmallBody } from '../lib/models/orbit/body.ts';
+import { tailInSky } from '../lib/models/orbit/tail.ts';
 import { tailPointGeoVector } from '../lib/models/orbit/body.ts';
 import { angleDiffDeg } from './helpers/tolerance.ts';
 

@@ -106,7 +106,8 @@ const HG_FIELDS = ['H', 'G'];
 
 /** Milliseconds of 2000-01-01T12:00:00 read on the TT scale. */
 const J2000_MS = Date.UTC(2000, 0, 1, 12);
-const JD_J2000 = 2451545.0;
+/** Julian date of J2000.0 (2000-01-01 12:00 TT). */
+export const JD_J2000 = 2451545.0;
 
 function invalid(field: string, reason: string, actual: unknown, expected: string, hint?: string): never {
   throw new GloamingError('invalid-value', reason, { place: { field }, actual, expected, ...(hint ? { hint } : {}) });

@@ -17,10 +17,7 @@
  * All MPC and SBDB angles are J2000 ecliptic and equinox, times TT (SBDB: TDB, < 2 ms from TT).
  */
 import { GloamingError } from '../../core/errors.ts';
-import { parseTtInstant, toConicElements, type SmallBodyObject } from './elements.ts';
-
-/** Julian date of J2000.0 (2000-01-01 12:00 TT). */
-const JD_J2000 = 2451545.0;
+import { JD_J2000, parseTtInstant, toConicElements, type SmallBodyObject } from './elements.ts';
 
 /** One object file's data, as `validateObject` reads it. */
 export interface ImportedObject {

@@ -38,8 +38,6 @@ const WORDS: Record<OffsetDirection, string> = {
   'upper left': 'points up and to the left',
 };
 
-export { isSmallBody } from './body.ts';
-
 /** Apparent altitude and azimuth of a geocentric J2000 position (AU) seen from a site: the observer's position subtracted (parallax), `SkyFrame`, standard refraction. */
 function altAz(site: Site, frame: SkyFrame, geo: Astronomy.Vector): { altitudeDeg: number; azimuthDeg: number } {
   const obs = Astronomy.ObserverVector(frame.time, site.observer, false);

@@ -9,7 +9,8 @@ import { BodyRegistry, BUILT_IN_IDS, PLANET_IDS, type Body } from '../../core/bo
 import { loadBodies } from '../../models/content.ts';
 import { loadObjectFile } from '../../models/orbit/elements.ts';
 import { smallBody } from '../../models/orbit/body.ts';
-import { isSmallBody, tailInSky } from '../../models/orbit/tail.ts';
+import { isSmallBody } from '../../models/orbit/body.ts';
+import { tailInSky } from '../../models/orbit/tail.ts';
 import { compass, describeAltitude } from '../../core/describe.ts';
 import { EXIT_CODES, GloamingError, quoteValue } from '../../core/errors.ts';
 import { computeNight } from '../../models/night.ts';
