@@ -1,11 +1,15 @@
 /**
  * A worker thread of the build (pool.ts): makes its own session with the options it was given,
- * loads the project once, and answers each job (`Job` in session.ts) with plain data.
+ * loads the project once, and answers each job (`Job` in session.ts) with plain data. The session's
+ * modules load after Node's compile cache is on, as in the main thread (scripts/build.ts).
  */
+import { enableCompileCache } from 'node:module';
 import { parentPort, workerData } from 'node:worker_threads';
 import type { Reply } from './pool.ts';
-import { GloamingSession, type Job, type JobResult, type SessionOptions } from './session.ts';
+import type { Job, JobResult, SessionOptions } from './session.ts';
 
+enableCompileCache();
+const { GloamingSession } = await import('./session.ts');
 const session = new GloamingSession(workerData as SessionOptions);
 parentPort!.on('message', (job: Job) => {
   session.runJob(job).then(
