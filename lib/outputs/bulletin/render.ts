@@ -9,7 +9,9 @@ import rehypeStringify from 'rehype-stringify';
 import remarkDirective from 'remark-directive';
 import remarkParse from 'remark-parse';
 import remarkRehype from 'remark-rehype';
+import type { Root } from 'mdast';
 import { unified } from 'unified';
+import { VFile } from 'vfile';
 import type { Body } from '../../core/body.ts';
 import { GloamingError } from '../../core/errors.ts';
 import { eventsBetween, type AlmanacEvent } from '../almanac/index.ts';
@@ -51,6 +53,22 @@ const processor = unified()
   .use(rehypeTidyPunctuation, { language: (file) => wordsFor((file.data as { gloamingScope?: PlaceholderScope }).gloamingScope?.site.locale ?? 'en').language })
   .use(rehypeStringify)
   .freeze();
+
+/**
+ * Each template's Markdown tree, parsed once: a template is rendered for every site and week, and
+ * parsing it again for each page was about a tenth of a page's time (`gloaming check` of the demo
+ * for 52 weeks). Every page transforms its own copy.
+ */
+const parsedTrees = new WeakMap<BulletinTemplate, Root>();
+
+function treeOf(template: BulletinTemplate, file: VFile): Root {
+  let tree = parsedTrees.get(template);
+  if (!tree) {
+    tree = processor.parse(file);
+    parsedTrees.set(template, tree);
+  }
+  return structuredClone(tree);
+}
 
 /** Front matter bodies, resolved; unknown ids are positioned errors with a suggestion. */
 function frontMatterBodies(template: BulletinTemplate, context: RenderContext): Body[] {
@@ -119,8 +137,8 @@ export function renderBulletinSync(template: BulletinTemplate, context: RenderCo
   };
   // The front matter's lines stay in the file as blank lines, so every position is the template's own.
   const value = '\n'.repeat(template.bodyLine - 1) + template.body;
-  const file = processor.processSync({ value, path: template.file, data: { gloamingScope: scope } });
-  const html = String(file);
+  const file = new VFile({ value, path: template.file, data: { gloamingScope: scope } });
+  const html = String(processor.stringify(processor.runSync(treeOf(template, file), file), file));
   assertPublishable(html, template.file);
   const shown = file.data.placeholders?.shown ?? [];
   const week = cache.get(context.site, context.week, context.bodies, context.satellites);
