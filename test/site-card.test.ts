@@ -4,7 +4,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { Resvg } from '@resvg/resvg-js';
 import { afterAll, describe, expect, it } from 'vitest';
-import { CARD_HEIGHT, CARD_WIDTH, renderCard, renderCardCached, type CardInput } from '../site/gloaming/card.ts';
+import { CARD_HEIGHT, CARD_WIDTH, cardSvg, renderCard, renderCardCached, type CardInput } from '../site/gloaming/card.ts';
 
 const input: CardInput = {
   centre: 'Quayside Lantern Science Centre',
@@ -34,6 +34,19 @@ describe('social card', () => {
     expect([...probe.pixels.subarray(0, 4)]).toEqual([0x0c, 0x10, 0x19, 255]);
     expect(Buffer.from(png).readUInt32BE(16)).toBe(CARD_WIDTH);
     expect(Buffer.from(png).readUInt32BE(20)).toBe(CARD_HEIGHT);
+  });
+
+  it("holds exactly the pixels resvg drew, fully opaque, as resvg's own PNG writer would", async () => {
+    // Both PNGs decoded by resvg's PNG reader (an <image> at its own size): ours (unfiltered rows,
+    // zlib level 1) must carry the same picture as resvg's asPng of the same render.
+    const decode = (png: Uint8Array): Uint8Array =>
+      new Resvg(
+        `<svg xmlns="http://www.w3.org/2000/svg" width="${CARD_WIDTH}" height="${CARD_HEIGHT}"><image href="data:image/png;base64,${Buffer.from(png).toString('base64')}" width="${CARD_WIDTH}" height="${CARD_HEIGHT}"/></svg>`,
+      ).render().pixels;
+    const reference = new Resvg(await cardSvg(input), { fitTo: { mode: 'width', value: CARD_WIDTH }, font: { loadSystemFonts: false } }).render().asPng();
+    const ours = decode(await renderCard(input));
+    expect(Buffer.from(ours).equals(Buffer.from(decode(reference)))).toBe(true);
+    for (let i = 3; i < ours.length; i += 4) if (ours[i] !== 255) throw new Error(`pixel ${(i - 3) / 4} is not opaque`);
   });
 
   it("draws the site and week line in the centre's accent colour", async () => {

