@@ -244,15 +244,28 @@ export function guidePhrase(said: GuideSaid, words: Words = ENGLISH): string {
     case 'star-of':
       return words.t('guide.star-of-pattern', { from: guidePhrase(said.offset, words), pattern: refPhrase(said.pattern, words) });
     case 'horizon': {
-      let phrase = horizonWords(said.altitudeDeg, said.azimuthDeg, words);
-      const sun = said.sun;
-      if (sun) {
-        const where = words.t(sun.event === 'set' ? 'guide.sun-set-point' : 'guide.sun-rise-point');
-        phrase += sun.side === 'above' ? words.t('guide.right-above', { where }) : words.t('guide.beside-sun-point', { distance: distanceWords(sun.offsetDeg, words), side: sun.side, where });
-      }
-      return phrase;
+      const place = horizonWords(said.altitudeDeg, said.azimuthDeg, words);
+      return said.sun ? words.t('guide.with-sun-point', { place, sun: sunPointWords(said.sun, words) }) : place;
     }
   }
+}
+
+/** "about 9° (almost a fist) to the right of where the Sun set", "right above where the Sun will rise". */
+function sunPointWords(sun: SunPoint, words: Words): string {
+  const where = words.t(sun.event === 'set' ? 'guide.sun-set-point' : 'guide.sun-rise-point');
+  return sun.side === 'above' ? words.t('guide.right-above', { where }) : words.t('guide.beside-sun-point', { distance: distanceWords(sun.offsetDeg, words), side: sun.side, where });
+}
+
+/**
+ * What a guide phrase adds to a sentence that already gives the target's altitude and compass
+ * direction ("10° up in the south-east, …"), in the language of `words`: the whole phrase when it
+ * leads from a pattern, a star, the Moon or a planet; for the horizon, only where the Sun set or
+ * will rise, since "low in the south-east, about a fist above the horizon" would say the altitude
+ * and direction again; null when the horizon is all the guide has.
+ */
+export function guideBeyondPlace(said: GuideSaid, words: Words = ENGLISH): string | null {
+  if (said.kind !== 'horizon') return guidePhrase(said, words);
+  return said.sun ? sunPointWords(said.sun, words) : null;
 }
 
 interface Group {

@@ -9,7 +9,7 @@
 import type { ChartMark, HorizonChart } from './horizon.ts';
 import { passAltSentence } from './pass.ts';
 import type { WholeSkyChart } from './whole-sky.ts';
-import { guidePhrase } from '../../models/stars/guide.ts';
+import { guideBeyondPlace } from '../../models/stars/guide.ts';
 import type { Words } from '../../core/language/index.ts';
 import { bodyPhrase } from '../../core/language/names/index.ts';
 import { chartLabel, chartWords, formatChartTime } from './words.ts';
@@ -25,7 +25,9 @@ export function horizonAltText(chart: HorizonChart): string {
   const clock = formatChartTime(chart.time, chart.site);
   const target = chartLabel(chart.body, chart.site);
   const degrees = Math.round(chart.target.altitudeDeg);
-  const guide = chart.guide ? `, ${guidePhrase(chart.guide.said, words)}` : '';
+  // The sentence gives the direction faced and the altitude: the guide adds only what they do not say.
+  const beyond = chart.guide ? guideBeyondPlace(chart.guide.said, words) : null;
+  const guide = beyond ? `, ${beyond}` : '';
   const direction = words.compass(chart.facing.azimuthDeg).word;
   let out = words.t(chart.view === 'overhead' ? 'chart.looking-up' : 'chart.looking', { direction, clock, target, degrees, guide });
   const others = chart.marks.filter((m) => m.kind === 'moon' || m.kind === 'planet').map((m) => bodyName(m, words));
@@ -51,6 +53,10 @@ export function wholeSkyAltText(chart: WholeSkyChart): string {
   }
   out += phrases.length ? `: ${phrases.join('; ')}.` : '.';
   if (chart.body && chart.target && !up.some((m) => m.kind === 'target')) out += ` ${words.t('chart.not-above-skyline', { name: chartLabel(chart.body, chart.site) })}`;
-  else if (chart.guide && chart.body) out += ` ${words.t('chart.is-where', { name: chartLabel(chart.body, chart.site), guide: guidePhrase(chart.guide.said, words) })}`;
+  else if (chart.guide && chart.body) {
+    // Each body's altitude and direction are listed above: the guide adds only what they do not say.
+    const beyond = guideBeyondPlace(chart.guide.said, words);
+    if (beyond) out += ` ${words.t('chart.is-where', { name: chartLabel(chart.body, chart.site), guide: beyond })}`;
+  }
   return out;
 }

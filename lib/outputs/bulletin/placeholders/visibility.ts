@@ -2,11 +2,12 @@
 import type { ElementContent, Properties } from 'hast';
 import { compass } from '../../../core/describe.ts';
 import { bodyPhrase } from '../../../core/language/names/index.ts';
-import { guidePhrase } from '../../../models/stars/guide.ts';
+import { guideBeyondPlace, guidePhrase } from '../../../models/stars/guide.ts';
 import { formatInstant } from '../../../core/time.ts';
 import type { BodyNight } from '../../../models/night.ts';
 import type { InstrumentKind } from '../../../core/site.ts';
 import { reasonText, verdictWords, windowEndText, type Visibility } from '../../../models/visibility.ts';
+import type { AttributeSpec } from '../attributes.ts';
 import { el, exact, formatClock } from '../format.ts';
 import { BODY, NIGHT, TIME_ATTRS, bodyOf, classes, nightDate, noValue, notVisible, precisionOf, showsBody, timeElement, labelOf, wordsOf, type PlaceholderCall, type PlaceholderSpec } from './call.ts';
 
@@ -58,10 +59,13 @@ function guide(call: PlaceholderCall): ElementContent {
   const body = bodyOf(call);
   const g = call.week.bodyNight(call.night, body).guide;
   if (!g) return noValue(call, wordsOf(call).t('ph.guide-below', { name: labelOf(call, body) }), { dataBody: body.id });
+  // omit=place: the sentence already gives the altitude and direction, so a guide from the horizon says only where the Sun set or will rise.
+  const phrase = call.attrs.get('omit') === 'place' ? guideBeyondPlace(g.said, wordsOf(call)) : guidePhrase(g.said, wordsOf(call));
+  if (phrase === null) return noValue(call, wordsOf(call).t('ph.guide-horizon-only', { name: labelOf(call, body) }), { dataBody: body.id, dataGuide: g.kind });
   return el(
     'span',
     { ...classes(call), dataNight: nightDate(call), dataBody: body.id, dataGuide: g.kind, ...(g.pattern ? { dataPattern: g.pattern.id } : {}), ...(g.separationDeg !== null ? { dataSeparationDeg: exact(g.separationDeg, 2) } : {}), ...(g.offsetDirection ? { dataOffset: g.offsetDirection } : {}), ...(g.nearestStar ? { dataNearestStar: g.nearestStar.name } : {}) },
-    guidePhrase(g.said, wordsOf(call)),
+    phrase,
   );
 }
 
@@ -85,13 +89,15 @@ export function targetItem(call: PlaceholderCall, bn: BodyNight, kind?: string):
   const words = wordsOf(call);
   const v = bn.visibility;
   const best = v.best!;
+  // The item gives the direction and altitude itself: the guide adds only what they do not say.
+  const guide = bn.guide ? guideBeyondPlace(bn.guide.said, words) : null;
   return el('li', { dataBody: bn.body.id, ...visibilityData(v) }, [
     el('strong', {}, labelOf(call, bn.body)),
     { type: 'text', value: `${kind ? `, ${kind}` : ''}${words.t('ph.target-best-at')} ` },
     el('time', { dateTime: formatInstant(best.time, zone) }, formatClock(best.time, call.site, format)),
     { type: 'text', value: `${words.t('ph.target-where', { direction: compass(best.azimuthDeg, words).word, degrees: words.number(best.altitudeDeg, 0), hand: words.handMeasure(Math.round(best.altitudeDeg)) })} ` },
     el('data', { value: exact(best.magnitude, 2) }, words.number(best.magnitude, 1)),
-    { type: 'text', value: `${bn.guide ? `, ${guidePhrase(bn.guide.said, words)}` : ''} \u2014 ${verdictWords(v.verdict as InstrumentKind, words, bodyPhrase(words.language, bn.body).gender)}${v.outsideViewingHours ? ` ${words.t('verdict.outside-hours')}` : ''}` },
+    { type: 'text', value: `${guide ? `, ${guide}` : ''} \u2014 ${verdictWords(v.verdict as InstrumentKind, words, bodyPhrase(words.language, bn.body).gender)}${v.outsideViewingHours ? ` ${words.t('verdict.outside-hours')}` : ''}` },
   ]);
 }
 
@@ -105,10 +111,16 @@ function targets(call: PlaceholderCall): ElementContent {
   return el('ul', { ...classes(call), dataNight: nightDate(call) }, items);
 }
 
+/** `:guide{omit=place}`: the sentence already says the altitude and direction (`:altitude`, `:direction`). */
+const OMIT_PLACE: AttributeSpec = {
+  type: { kind: 'choice', values: ['place'] },
+  doc: 'place: the sentence already gives the altitude and direction, so a guide from the horizon says only where the Sun set or will rise, and has no value when that is all it has',
+};
+
 export const VISIBILITY_PLACEHOLDERS: PlaceholderSpec[] = [
   { name: 'best-time', form: 'inline', slot: true, summary: 'best viewing time: largest visibility margin within the viewing hours (lib/models/visibility.ts)', attributes: { body: BODY, ...TIME_ATTRS }, example: ':best-time{body=jupiter}', shows: showsBody, render: bestTime },
   { name: 'window', form: 'inline', slot: true, summary: 'viewing window: the span around the best time where the body stays visible', attributes: { body: BODY, ...TIME_ATTRS }, example: ':window{body=jupiter}', shows: showsBody, render: viewingWindow },
   { name: 'verdict', form: 'inline', summary: 'naked eye, binoculars, telescope or not visible, with the reason', attributes: { body: BODY, night: NIGHT }, example: ':verdict{body=saturn}', shows: showsBody, render: verdict },
-  { name: 'guide', form: 'inline', slot: true, summary: 'where to look, at the best time (or transit): from a nearby star pattern, a bright star, the Moon or a bright planet, or else the horizon and where the Sun set', attributes: { body: BODY, night: NIGHT }, example: ':guide{body=jupiter}', shows: showsBody, render: guide },
+  { name: 'guide', form: 'inline', slot: true, summary: 'where to look, at the best time (or transit): from a nearby star pattern, a bright star, the Moon or a bright planet, or else the horizon and where the Sun set', attributes: { body: BODY, night: NIGHT, omit: OMIT_PLACE }, example: ':guide{body=jupiter}', shows: showsBody, render: guide },
   { name: 'targets', form: 'block', summary: 'every naked-eye or binocular target of the night, by best time, with direction, altitude, magnitude and nearby pattern', attributes: { ...TIME_ATTRS }, example: '::targets{night=fri}', shows: (call) => targetNights(call).map((bn) => bn.body), render: targets },
 ];
