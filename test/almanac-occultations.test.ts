@@ -12,7 +12,10 @@
  *   nor the exact place: our disappearances come 2.1–2.5 minutes later than its times (while the
  *   NAO's agree within 7 s), so this check only guards against gross errors: within 3 minutes.
  */
+import { Body, Equator, Horizon, MakeTime } from 'astronomy-engine';
 import { describe, expect, it } from 'vitest';
+import { loadSites } from '../lib/models/content.ts';
+import { skylineAltitudeDeg } from '../lib/core/site.ts';
 import { AlmanacContext } from '../lib/outputs/almanac/context.ts';
 import { findEvents } from '../lib/outputs/almanac/index.ts';
 import { findOccultations, GRAZE_FRACTION, type Occultation } from '../lib/outputs/almanac/occultations.ts';
@@ -80,12 +83,75 @@ describe('occultation events', () => {
       expect(['bright', 'dark']).toContain(e.data!.disappearanceLimb);
       expect(Number(e.data!.closestRadii)).toBeLessThan(1);
       expect(e.data!.graze).toBe(Number(e.data!.closestRadii) > 1 - GRAZE_FRACTION ? 'yes' : 'no');
-      expect(e.description).toMatch(/^The Moon \(\d+% lit\) covers .+ disappears at the Moon's (bright|dark) edge at \d\d:\d\d \(position angle \d+°, (Moon \d+° up|Moon below the horizon)\) and reappears/);
+      expect(e.description).toMatch(/^The Moon \(\d+% lit\) covers .+ disappears at the Moon's (bright|dark) edge at \d\d:\d\d \(position angle \d+°, (Moon \d+° up( but behind the skyline here)?|Moon only \d+° up, too low to watch from here|Moon on the horizon|Moon below the horizon)\) and reappears/);
+      // An altitude that rounds to 0° is said in words ('Moon on the horizon'), never 'Moon 0° up'.
+      expect(e.description).not.toMatch(/Moon 0° up/);
       // A contact with the Moon under the horizon never prints a negative altitude ('Moon -60° up').
       expect(e.description).not.toMatch(/Moon -\d/);
     }
     // The 2 February 2018 occultation of Regulus is among them, visible (Moon 30° up before dawn).
     const regulus = events.find((e) => e.names.includes('Regulus') && e.time.toISOString().startsWith('2018-02-01'));
     expect(regulus?.visible).toBe(true);
+  });
+});
+
+describe('the Moon\'s height at each contact, in words a reader can use (astronomy-engine altitudes)', () => {
+  // Harbour Roof Terrace (demo site): minimum altitude 10°, a skyline of roofs and towers 3–17° high.
+  const site = loadSites('content/sites').get('harbour-roof')!;
+  const events = findEvents({ site, from: new Date('2026-12-01T00:00:00Z'), to: new Date('2027-12-01T00:00:00Z'), options: { types: ['occultation'] } });
+  /** The Moon's apparent (refracted) altitude and azimuth, degrees (astronomy-engine Equator + Horizon, an independent path). */
+  const moonAt = (time: Date): { altitude: number; azimuth: number } => {
+    const t = MakeTime(time);
+    const eq = Equator(Body.Moon, t, site.observer, true, true);
+    return Horizon(t, site.observer, eq.ra, eq.dec, 'normal');
+  };
+  /** What a contact must say for the Moon at `alt`, `az` (the rule of `moonHeight`, from astronomy-engine's altitude). */
+  const expected = (alt: number, az: number): RegExp => {
+    if (alt < -0.5) return /^Moon below the horizon$/;
+    if (alt < 1) return /^Moon on the horizon$/;
+    // Too low: whole degrees rounded down, so the number never reaches the site's minimum.
+    if (alt < site.minAltitudeDeg) return new RegExp(`^Moon only ${Math.floor(alt)}° up, too low to watch from here$`);
+    if (alt < skylineAltitudeDeg(site, az)) return new RegExp(`^Moon ${Math.round(alt)}° up but behind the skyline here$`);
+    return new RegExp(`^Moon ${Math.round(alt)}° up$`);
+  };
+  const heights: string[] = [];
+
+  it('each contact says below the horizon, on the horizon, too low, behind the skyline or its altitude, as astronomy-engine puts the Moon', () => {
+    expect(events.length).toBeGreaterThan(10);
+    for (const e of events) {
+      const parts = [...e.description.matchAll(/\(position angle \d+°, ([^)]*)\)/g)].map((m) => m[1]!);
+      expect(parts.length, e.description).toBe(2);
+      for (const [i, time] of [e.time, e.end!].entries()) {
+        const m = moonAt(time);
+        // Away from the rounding edges (±0.1°), the words must be the ones the outside altitude calls for.
+        if ([-0.5, 1, site.minAltitudeDeg, skylineAltitudeDeg(site, m.azimuth)].some((edge) => Math.abs(m.altitude - edge) < 0.1)) continue;
+        expect(parts[i], `${e.description} (astronomy-engine: Moon ${m.altitude.toFixed(2)}°)`).toMatch(expected(m.altitude, m.azimuth));
+        heights.push(parts[i]!.replace(/\d+/, '#'));
+        expect(parts[i]).not.toMatch(new RegExp(`only (${site.minAltitudeDeg}|[1-9]\\d)° up`));
+      }
+      expect(e.description).not.toMatch(/Moon 0° up/);
+    }
+    // The year at this site has Moons on the horizon and too low to watch (the demo printed them as 'Moon 0° up' and a plain altitude).
+    expect(heights).toContain('Moon on the horizon');
+    expect(heights.some((h) => h.includes('too low to watch'))).toBe(true);
+  });
+
+  it('an occultation hidden by a low Moon says why in words, with the site\'s minimum altitude', () => {
+    for (const e of events.filter((x) => !x.visible)) {
+      const note = e.visibility.note;
+      expect(note, e.description).toMatch(/^Not visible from Harbour Roof Terrace: (it happens in daylight|the Moon stands lower than 10° then|the Moon is behind the skyline then|the Moon is just on the horizon then|the Moon is below the horizon then)\.$/);
+      if (!note.includes('lower than')) continue;
+      // astronomy-engine: of the contacts in a dark sky (Sun 6° or more down), the one with the higher Moon has it above the horizon but under 10°.
+      const sunAt = (time: Date): number => {
+        const t = MakeTime(time);
+        const eq = Equator(Body.Sun, t, site.observer, true, true);
+        return Horizon(t, site.observer, eq.ra, eq.dec, 'normal').altitude;
+      };
+      const alts = [e.time, e.end!].filter((t) => sunAt(t) <= -6).map((t) => moonAt(t).altitude);
+      expect(alts.length).toBeGreaterThan(0);
+      expect(Math.max(...alts)).toBeGreaterThan(0.4);
+      expect(Math.max(...alts)).toBeLessThan(site.minAltitudeDeg + 0.1);
+    }
+    expect(events.some((x) => !x.visible && x.visibility.note.includes('lower than 10°'))).toBe(true);
   });
 });

@@ -33,7 +33,7 @@
 import * as Astronomy from 'astronomy-engine';
 import { builtInBody, type Body } from '../../core/body.ts';
 import { findCrossings, findMaximum } from '../../core/search.ts';
-import { skylineAltitudeDeg } from '../../core/site.ts';
+import { skylineAltitudeDeg, type Site } from '../../core/site.ts';
 import { dateFromUt, utDays } from '../../core/track.ts';
 import { stars, type Star } from '../../models/stars/catalogue.ts';
 import { starBody, type AlmanacContext } from './context.ts';
@@ -439,19 +439,41 @@ function describe(observer: Astronomy.Observer, approach: Approach, target: Targ
   };
 }
 
+/**
+ * How high the Moon stands at a contact, as a page says it: `below` the horizon (apparent altitude
+ * of its centre under −0.5°), `horizon` (from −0.5° to 1°: rising or setting, said in words, never
+ * "0° up"), `low` (1° or more but under the site's minimum altitude: its whole degrees, rounded
+ * down so that "only 4° up" never reads as the 5° minimum), `skyline` (above that but behind the
+ * site's skyline), or `up` (high enough to watch from the site).
+ */
+export type MoonHeight = 'below' | 'horizon' | 'low' | 'skyline' | 'up';
+
+/** The Moon's height at a contact for a site with `minAltitudeDeg` and a skyline (see `MoonHeight`). */
+export function moonHeight(c: Pick<OccultationContact, 'moonAltitudeDeg' | 'moonAzimuthDeg'>, site: Pick<Site, 'horizon' | 'minAltitudeDeg'>): MoonHeight {
+  const altitudeDeg = c.moonAltitudeDeg;
+  if (altitudeDeg < -0.5) return 'below';
+  if (altitudeDeg < 1) return 'horizon';
+  if (altitudeDeg < site.minAltitudeDeg) return 'low';
+  if (altitudeDeg < skylineAltitudeDeg(site, c.moonAzimuthDeg)) return 'skyline';
+  return 'up';
+}
+
 /** The site's occultations in [from, to) as almanac events, visible or not. */
 export function occultationEvents(ctx: AlmanacContext, from: Date, to: Date): AlmanacEvent[] {
   return findOccultations(ctx, from, to).map((o) => {
-    const watchable = (c: OccultationContact): boolean => c.sunAltitudeDeg <= OCCULTATION_DARK_SUN_DEG && c.moonAltitudeDeg >= Math.max(ctx.site.minAltitudeDeg, skylineAltitudeDeg(ctx.site, c.moonAzimuthDeg));
+    const dark = (c: OccultationContact): boolean => c.sunAltitudeDeg <= OCCULTATION_DARK_SUN_DEG;
+    // A contact is watchable in a dark enough sky with the Moon at least at the site's minimum altitude and above its skyline.
+    const watchable = (c: OccultationContact): boolean => dark(c) && c.moonAltitudeDeg >= Math.max(ctx.site.minAltitudeDeg, skylineAltitudeDeg(ctx.site, c.moonAzimuthDeg));
     const seen = [o.disappearance, o.reappearance].filter(watchable);
     const first = seen[0] ?? null;
     const w = ctx.words;
+    const height = (c: OccultationContact): MoonHeight => moonHeight(c, ctx.site);
     const contact = (c: OccultationContact, n: 1 | 2): Record<string, string | number> => ({
       [`limb${n}`]: c.limb,
       [`clock${n}`]: ctx.clock(c.time),
       [`pa${n}`]: Math.round(c.positionAngleDeg),
-      [`up${n}`]: c.moonAltitudeDeg >= 0 ? 'yes' : 'no',
-      [`alt${n}`]: Math.round(c.moonAltitudeDeg),
+      [`height${n}`]: height(c),
+      [`alt${n}`]: height(c) === 'low' ? Math.floor(c.moonAltitudeDeg) : Math.round(c.moonAltitudeDeg),
     });
     const magnitude = o.target.magnitude;
     const sentence = w.t('ev.occultation', {
@@ -462,18 +484,17 @@ export function occultationEvents(ctx: AlmanacContext, from: Date, to: Date): Al
       ...contact(o.reappearance, 2),
       graze: o.graze ? 'yes' : 'no',
     });
-    let reason: EventHiddenReason | null = null;
-    if (!first) {
-      const dark = [o.disappearance, o.reappearance].some((c) => c.sunAltitudeDeg <= OCCULTATION_DARK_SUN_DEG);
-      reason = dark ? 'below-horizon' : 'daylight';
-    }
+    // Not watchable: in daylight, or, of the contacts in a dark sky, the one with the higher Moon says why.
+    const inDark = [o.disappearance, o.reappearance].filter(dark).sort((a, b) => b.moonAltitudeDeg - a.moonAltitudeDeg);
+    const reason: EventHiddenReason | null = first ? null : inDark.length > 0 ? 'below-horizon' : 'daylight';
     const note = first
       ? w.t('ev.occultation-note', {
           which: seen.length === 2 ? 'both' : first === o.disappearance ? 'disappearance' : 'reappearance',
+          height: height(first),
           degrees: Math.round(first.moonAltitudeDeg),
           direction: ctx.direction(first.moonAzimuthDeg),
         })
-      : w.t('ev.occultation-hidden', { site: ctx.site.name, why: reason === 'daylight' ? 'daylight' : 'low' });
+      : w.t('ev.occultation-hidden', { site: ctx.site.name, why: inDark[0] ? height(inDark[0]) : 'daylight', min: ctx.site.minAltitudeDeg });
     return {
       type: 'occultation' as const,
       time: o.disappearance.time,
