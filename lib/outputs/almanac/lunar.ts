@@ -6,47 +6,14 @@
  */
 import * as Astronomy from 'astronomy-engine';
 import { builtInBody } from '../../core/body.ts';
-import { riseTransitSet } from '../../core/events.ts';
 import { sharedSearch } from '../../core/search.ts';
-import { utDays } from '../../core/track.ts';
 import type { AlmanacContext } from './context.ts';
-import { apparentPlace, eventVisibility, isDark } from './visibility.ts';
+import { eventVisibility, overNight, riseWords } from './visibility.ts';
 import type { AlmanacEvent } from './types.ts';
 
 const QUARTERS = ['new-moon', 'first-quarter', 'full-moon', 'last-quarter'] as const;
 /** Mean Earth–Moon distance, km (semi-major axis of the lunar orbit, 384 400 km; from memory, standard value). */
 export const MEAN_MOON_DISTANCE_KM = 384_400;
-
-/** Moonrise on the night containing `time`, as words ("at 18:04 in the east-northeast"), or null. */
-function moonriseWords(ctx: AlmanacContext, time: Date): string | null {
-  const frame = ctx.frameAt(time);
-  const rise = riseTransitSet(frame, frame.moon).rise.time;
-  if (!rise) return null;
-  return ctx.words.t('ev.moon-rise', { clock: ctx.clock(rise), direction: ctx.direction(apparentPlace(frame, frame.moon.body, utDays(rise)).azimuthDeg) });
-}
-
-/** Sampling step over a night when judging how much of it the Moon is up, days (10 minutes). */
-const MOON_UP_STEP_DAYS = 10 / 1440;
-
-/**
- * The Moon over the night containing `time` (its centre's apparent altitude above 0° counts as up).
- * `share`: 'all' when it is up for at least 90% of the night's dark part (the Sun below the
- * context's darkness altitude; a full Moon rising a few minutes after dark still "stays up all
- * night"), 'none' when it is never up then, 'part' otherwise; a night with no dark part (midnight
- * Sun, white nights) is judged on the hours the Sun is below the horizon, or on the whole night.
- * `dark`: whether the night has a dark part; `upAtDusk`: whether the Moon is up when it begins.
- */
-function moonOverNight(ctx: AlmanacContext, time: Date): { share: 'all' | 'part' | 'none'; dark: boolean; upAtDusk: boolean } {
-  const frame = ctx.frameAt(time);
-  const samples: number[] = [];
-  for (let ut = frame.ut0; ut <= frame.ut1; ut += MOON_UP_STEP_DAYS) samples.push(ut);
-  const dark = samples.filter((ut) => isDark(ctx, frame, ut));
-  const sunDown = samples.filter((ut) => frame.sun.at(ut).geometricAltitudeDeg < 0);
-  const judged = dark.length > 0 ? dark : sunDown.length > 0 ? sunDown : samples;
-  const isUp = (ut: number): boolean => apparentPlace(frame, frame.moon.body, ut).altitudeDeg > 0;
-  const up = judged.filter(isUp).length;
-  return { share: up === 0 ? 'none' : up >= 0.9 * judged.length ? 'all' : 'part', dark: dark.length > 0, upAtDusk: dark.length > 0 && isUp(dark[0]!) };
-}
 
 /** The Moon's quarters with instants in [from, to) (the same from every site). */
 function findQuarters(from: Date, to: Date): Astronomy.MoonQuarter[] {
@@ -73,7 +40,7 @@ export function moonPhaseEvents(ctx: AlmanacContext, from: Date, to: Date): Alma
     const when = ctx.when(time);
     const w = ctx.words;
     const look = ctx.look(visibility);
-    const rise = type === 'full-moon' || type === 'last-quarter' ? moonriseWords(ctx, time) : null;
+    const rise = type === 'full-moon' || type === 'last-quarter' ? riseWords(ctx, moon, time)?.words ?? null : null;
     let description: string;
     switch (type) {
       case 'new-moon':
@@ -84,7 +51,7 @@ export function moonPhaseEvents(ctx: AlmanacContext, from: Date, to: Date): Alma
         break;
       case 'full-moon': {
         // A Moon whose upper limb grazes the horizon (a rise is found) while its centre stays below counts as up for part of the night.
-        const { share } = moonOverNight(ctx, time);
+        const { share } = overNight(ctx, moon, time);
         if (share === 'none' && !rise) description = w.t('ev.full-moon-down', { when });
         else if (share !== 'all') description = w.t('ev.full-moon-part', { when });
         else description = rise ? w.t('ev.full-moon', { when, rise }) : w.t('ev.full-moon-no-rise', { when });
@@ -92,7 +59,7 @@ export function moonPhaseEvents(ctx: AlmanacContext, from: Date, to: Date): Alma
       }
       default: {
         // "The evening sky stays dark" only where the sky gets dark and the Moon is still down when it does.
-        const night = moonOverNight(ctx, time);
+        const night = overNight(ctx, moon, time);
         if (!night.dark) description = w.t('ev.last-quarter-bright', { when, risen: rise ? 'yes' : 'no', rise: rise ?? '' });
         else if (night.upAtDusk) description = w.t('ev.last-quarter-up', { when });
         else description = rise ? w.t('ev.last-quarter', { when, rise }) : w.t('ev.last-quarter-late', { when });

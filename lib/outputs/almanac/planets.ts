@@ -7,10 +7,11 @@
  */
 import * as Astronomy from 'astronomy-engine';
 import { builtInBody, type EngineBody } from '../../core/body.ts';
+import { sunEvents } from '../../core/events.ts';
 import { findCrossings, sharedSearch, type Crossing } from '../../core/search.ts';
 import { dateFromUt, utDays } from '../../core/track.ts';
 import type { AlmanacContext } from './context.ts';
-import { eventVisibility, hidden } from './visibility.ts';
+import { eventVisibility, hidden, overNight, riseWords } from './visibility.ts';
 import type { AlmanacEvent } from './types.ts';
 
 const RAD = Math.PI / 180;
@@ -53,6 +54,29 @@ function magnitudeAt(body: EngineBody, time: Astronomy.AstroTime): number {
   return Math.round(Astronomy.Illumination(body.engineBody, time).mag * 10) / 10;
 }
 
+/** A rise this close to sunset is said to be "around sunset", minutes (this project's choice). */
+export const AROUND_SUNSET_MIN = 30;
+
+/**
+ * How a planet at opposition spends the night containing `time` from the site (`overNight`:
+ * up for at least 90% of the dark part, or not at all): `sunset` it rises within
+ * `AROUND_SUNSET_MIN` of sunset and stays up all night (the textbook opposition, true at most
+ * latitudes); `rises` it rises at another time (`rise`: "at 14:52 in the north-north-east") and
+ * stays up all night; `up` it is up all night without rising in it (it never sets, as in a polar
+ * winter); `part` it is up for only part of the night (a far-south planet seen from far north);
+ * `down` it stays below the horizon all night (a polar summer's opposition of a southern planet).
+ */
+export function oppositionNight(ctx: AlmanacContext, body: EngineBody, time: Date): { kind: 'sunset' | 'rises' | 'up' | 'part' | 'down'; rise: string | null } {
+  const over = overNight(ctx, body, time);
+  const rise = riseWords(ctx, body, time);
+  if (over.share === 'none') return { kind: rise ? 'part' : 'down', rise: null };
+  if (over.share === 'part') return { kind: 'part', rise: null };
+  if (!rise) return { kind: 'up', rise: null };
+  const sunset = sunEvents(ctx.frameAt(time)).set.time;
+  const nearSunset = sunset !== null && Math.abs(rise.time.getTime() - sunset.getTime()) <= AROUND_SUNSET_MIN * 60_000;
+  return nearSunset ? { kind: 'sunset', rise: null } : { kind: 'rises', rise: rise.words };
+}
+
 /** Oppositions of Mars–Neptune and conjunctions of every planet with the Sun, instants in [from, to). */
 export function oppositionAndConjunctionEvents(ctx: AlmanacContext, from: Date, to: Date, ids: readonly string[] = ALL): AlmanacEvent[] {
   const out: AlmanacEvent[] = [];
@@ -71,6 +95,8 @@ export function oppositionAndConjunctionEvents(ctx: AlmanacContext, from: Date, 
         if (target.kind === 'opposition') {
           const visibility = eventVisibility(ctx, [body], time);
           const look = ctx.look(visibility);
+          const night = oppositionNight(ctx, body, time);
+          const args = { name: ctx.phrase(body), day: ctx.day(time), magnitude: mag, night: night.kind, rise: night.rise ?? '' };
           out.push({
             type: 'opposition',
             time,
@@ -79,11 +105,9 @@ export function oppositionAndConjunctionEvents(ctx: AlmanacContext, from: Date, 
             visible: visibility.visible,
             visibility,
             title: ctx.words.t('ev.title.opposition', { name: ctx.label(body) }),
-            description: look
-              ? ctx.words.t('ev.opposition', { name: ctx.phrase(body), day: ctx.day(time), magnitude: mag, look })
-              : ctx.words.t('ev.opposition-low', { name: ctx.phrase(body), day: ctx.day(time), magnitude: mag }),
+            description: night.kind === 'down' ? ctx.words.t('ev.opposition-down', args) : look ? ctx.words.t('ev.opposition', { ...args, look }) : ctx.words.t('ev.opposition-low', args),
             score: 0,
-            data: { magnitude: mag },
+            data: { magnitude: mag, night: night.kind },
           });
         } else {
           // An inner planet's conjunctions are inferior or superior; an outer planet only passes behind the Sun.

@@ -8,6 +8,7 @@
  */
 import type { Body } from '../../core/body.ts';
 import { wordsFor } from '../../core/language/index.ts';
+import { riseTransitSet } from '../../core/events.ts';
 import { findMaximum } from '../../core/search.ts';
 import { skylineAltitudeDeg } from '../../core/site.ts';
 import { separationDeg } from '../../core/geometry.ts';
@@ -50,6 +51,49 @@ function lowestMargin(ctx: AlmanacContext, frame: NightFrame, bodies: readonly B
  */
 export function isDark(ctx: AlmanacContext, frame: NightFrame, ut: number): boolean {
   return frame.sun.at(ut).geometricAltitudeDeg <= ctx.darkSunAltitudeDeg;
+}
+
+/**
+ * A body's rise on the night containing `time` (local noon to noon; lib/core/events.ts, the upper
+ * limb on the ideal horizon with standard refraction): its instant and the words "at 18:04 in the
+ * east-northeast", or null when it does not rise that night.
+ */
+export function riseWords(ctx: AlmanacContext, body: Body, time: Date): { time: Date; words: string } | null {
+  const frame = ctx.frameAt(time);
+  const rise = riseTransitSet(frame, frame.track(body)).rise.time;
+  if (!rise) return null;
+  return { time: rise, words: ctx.words.t('ev.rise-at', { clock: ctx.clock(rise), direction: ctx.direction(apparentPlace(frame, body, utDays(rise)).azimuthDeg) }) };
+}
+
+/** Sampling step over a night when judging how much of it a body is up, days (10 minutes). */
+const UP_STEP_DAYS = 10 / 1440;
+
+/** How much of a night a body is up (see `overNight`). */
+export interface OverNight {
+  share: 'all' | 'part' | 'none';
+  /** Whether the night has a dark part. */
+  dark: boolean;
+  /** Whether the body is up when the dark part begins. */
+  upAtDusk: boolean;
+}
+
+/**
+ * A body over the night containing `time` (its centre's apparent altitude above 0° counts as up).
+ * `share`: 'all' when it is up for at least 90% of the night's dark part (the Sun below the
+ * context's darkness altitude; a full Moon rising a few minutes after dark still "stays up all
+ * night"), 'none' when it is never up then, 'part' otherwise; a night with no dark part (midnight
+ * Sun, white nights) is judged on the hours the Sun is below the horizon, or on the whole night.
+ */
+export function overNight(ctx: AlmanacContext, body: Body, time: Date): OverNight {
+  const frame = ctx.frameAt(time);
+  const samples: number[] = [];
+  for (let ut = frame.ut0; ut <= frame.ut1; ut += UP_STEP_DAYS) samples.push(ut);
+  const dark = samples.filter((ut) => isDark(ctx, frame, ut));
+  const sunDown = samples.filter((ut) => frame.sun.at(ut).geometricAltitudeDeg < 0);
+  const judged = dark.length > 0 ? dark : sunDown.length > 0 ? sunDown : samples;
+  const isUp = (ut: number): boolean => apparentPlace(frame, body, ut).altitudeDeg > 0;
+  const up = judged.filter(isUp).length;
+  return { share: up === 0 ? 'none' : up >= 0.9 * judged.length ? 'all' : 'part', dark: dark.length > 0, upAtDusk: dark.length > 0 && isUp(dark[0]!) };
 }
 
 /** Geocentric angle between a body and the Sun at `ut`, degrees. */
