@@ -98,6 +98,13 @@ describe('object files that are right', () => {
     expect(loadObjects(join(dir, 'missing'))).toEqual([]);
   });
 
+  it('names in other languages load beside name', () => {
+    const object = parseObject(withLine(GOOD, 2, 'name: Comet Example\nnames: { es: Cometa Ejemplo, de: Komet Beispiel }'), 'objects/names.yaml');
+    expect(object.name).toBe('Comet Example');
+    expect(object.names).toEqual({ es: 'Cometa Ejemplo', de: 'Komet Beispiel' });
+    expect(parseObject(GOOD, 'objects/good.yaml').names).toBeUndefined();
+  });
+
   it('the demo object file loads', () => {
     const lumen = loadObjectFile('content/objects/comet-lumen.yaml');
     expect(lumen.id).toBe('comet-lumen');
@@ -137,6 +144,10 @@ describe('bad object files give positioned errors (file:line:column and field)',
     ['unknown magnitude field', withLine(GOOD, 13, '  K2: 5'), 'unknown-field', 'magnitude.K2', 13, 7],
     ['negative magnitude band', withLine(GOOD, 13, '  K1: 10\n  uncertainty: -1'), 'invalid-value', 'magnitude.uncertainty', 14, 16],
     ['zero coma', withLine(GOOD, 14, 'coma: 0'), 'invalid-value', 'coma', 14, 7],
+    ['names in an unknown language', withLine(GOOD, 2, 'name: Comet Example\nnames: { es: Cometa Ejemplo, it: Cometa Esempio }'), 'invalid-value', 'names.it', 3, 34],
+    ['names with the English name', withLine(GOOD, 2, 'name: Comet Example\nnames:\n  en: Comet Example'), 'invalid-value', 'names.en', 4, 7],
+    ['an empty name in names', withLine(GOOD, 2, 'name: Comet Example\nnames:\n  de: ""'), 'invalid-value', 'names.de', 4, 7],
+    ['names not a mapping', withLine(GOOD, 2, 'name: Comet Example\nnames: Cometa Ejemplo'), 'invalid-value', 'names', 3, 8],
     ['elements not a mapping', GOOD.split('\n').filter((_, i) => i < 4 || i > 9).join('\n').replace('elements:', 'elements: 5'), 'invalid-value', 'elements', 4, 11],
   ];
 

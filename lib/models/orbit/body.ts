@@ -82,6 +82,8 @@ export function smallBody(object: SmallBodyObject): SmallBody {
   return {
     id: object.id,
     name: object.name,
+    // The object file's names in other languages: every page label and sentence reads them (bodyLabel, bodyPhrase).
+    ...(object.names ? { localNames: object.names } : {}),
     kind: object.kind,
     radiusKm: 0,
     ...(object.comaArcmin !== undefined ? { comaDiameterArcmin: object.comaArcmin } : {}),

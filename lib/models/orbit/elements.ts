@@ -9,6 +9,7 @@
  * ```yaml
  * id: example-comet
  * name: Comet Example
+ * names: { es: Cometa Ejemplo, de: Komet Beispiel }   # optional: the name on pages in those languages
  * kind: comet                    # comet | asteroid
  * elements:                      # heliocentric, J2000 ecliptic and equinox
  *   perihelionDistance: 0.62     # q, AU
@@ -30,6 +31,7 @@
  */
 import { readFileSync } from 'node:fs';
 import { GloamingError, didYouMean } from '../../core/errors.ts';
+import { LANGUAGES, type Language } from '../../core/language/index.ts';
 import { loadYaml, validateYaml } from '../../core/yaml.ts';
 import { GAUSSIAN_K, type ConicElements } from './kepler.ts';
 
@@ -87,6 +89,8 @@ export type MagnitudeModel = CometMagnitudeModel | AsteroidMagnitudeModel;
 export interface SmallBodyObject {
   id: string;
   name: string;
+  /** The name on pages in other languages (`es`, `de`, `fr`), where the file gives one; else `name`. */
+  names?: Readonly<Partial<Record<Exclude<Language, 'en'>, string>>>;
   kind: SmallBodyKind;
   elements: OrbitalElements;
   magnitude: MagnitudeModel;
@@ -97,7 +101,7 @@ export interface SmallBodyObject {
   file?: string;
 }
 
-const TOP_FIELDS = ['id', 'name', 'kind', 'elements', 'magnitude', 'coma', 'source'];
+const TOP_FIELDS = ['id', 'name', 'names', 'kind', 'elements', 'magnitude', 'coma', 'source'];
 const ANGLE_FIELDS = ['inclination', 'ascendingNode', 'argumentOfPerihelion'];
 const PERIHELION_FIELDS = ['perihelionDistance', 'eccentricity', ...ANGLE_FIELDS, 'perihelionTime', 'epoch'];
 const OSCULATING_FIELDS = ['semiMajorAxis', 'eccentricity', ...ANGLE_FIELDS, 'meanAnomaly', 'epoch'];
@@ -277,6 +281,25 @@ function validateMagnitude(value: unknown, kind: SmallBodyKind): MagnitudeModel 
 
 const ID_RE = /^[a-z0-9]+(?:-[a-z0-9]+)*$/;
 
+/** The languages an object file may name the object in besides `name` (English, and every other language without a name of its own). */
+const NAME_LANGUAGES = LANGUAGES.filter((l): l is Exclude<Language, 'en'> => l !== 'en');
+
+/** `names`: a mapping from a language code (es, de, fr) to the object's name on pages in that language. */
+function validateNames(value: unknown): Partial<Record<Exclude<Language, 'en'>, string>> {
+  const expected = `a mapping from a language code (${NAME_LANGUAGES.join(', ')}) to the name on pages in that language, e.g. { es: Cometa Ejemplo }`;
+  const input = record(value, 'names', expected);
+  const names: Partial<Record<Exclude<Language, 'en'>, string>> = {};
+  for (const key of Object.keys(input)) {
+    if (!(NAME_LANGUAGES as readonly string[]).includes(key)) {
+      invalid(`names.${key}`, key === 'en' ? "the English name is 'name'" : `unknown language '${key}' in names`, key, `one of ${NAME_LANGUAGES.join(', ')} (the English name is 'name')`);
+    }
+    const name = input[key];
+    if (typeof name !== 'string' || name.trim() === '') invalid(`names.${key}`, `names.${key} must be a non-empty string`, name, `the object's name on pages in that language`);
+    names[key as Exclude<Language, 'en'>] = name.trim();
+  }
+  return names;
+}
+
 /**
  * Validates the data of one object file. Every problem is a `GloamingError` whose `place.field`
  * is the dotted path (`elements.eccentricity`), with the offending `actual` value and the
@@ -288,12 +311,13 @@ export function validateObject(data: unknown): SmallBodyObject {
   const id = text(input, 'id', 'a lower-case id such as example-comet');
   if (!ID_RE.test(id)) invalid('id', 'the id must be a lower-case slug', id, 'lower-case letters, digits and single hyphens, e.g. c2027-lumen');
   const name = text(input, 'name', 'the display name');
+  const names = present(input, 'names') ? validateNames(input.names) : undefined;
   if (!present(input, 'kind')) missing('kind', "'comet' or 'asteroid'");
   const kind = input.kind;
   if (kind !== 'comet' && kind !== 'asteroid') invalid('kind', 'unknown kind of object', kind, "'comet' or 'asteroid'");
   const elements = validateElements(input.elements);
   const magnitude = validateMagnitude(input.magnitude, kind);
-  const object: SmallBodyObject = { id, name, kind, elements, magnitude, source: '' };
+  const object: SmallBodyObject = { id, name, ...(names ? { names } : {}), kind, elements, magnitude, source: '' };
   if (present(input, 'coma')) {
     const coma = finite(input, 'coma', 'coma', 'the apparent coma diameter in arcminutes');
     if (coma <= 0 || coma > 600) invalid('coma', 'the coma diameter is out of range', coma, 'arcminutes, more than 0 and at most 600');

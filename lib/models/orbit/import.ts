@@ -23,6 +23,8 @@ import { JD_J2000, parseTtInstant, toConicElements, type SmallBodyObject } from 
 export interface ImportedObject {
   id: string;
   name: string;
+  /** The names on pages in other languages (kept from the file an import replaces). */
+  names?: SmallBodyObject['names'];
   kind: 'comet' | 'asteroid';
   elements: Record<string, number | string>;
   magnitude: Record<string, number>;
@@ -373,6 +375,7 @@ export function objectYaml(object: ImportedObject): string {
     `# Imported by 'gloaming objects add'. Elements: heliocentric, J2000 ecliptic and equinox; times TT.`,
     `id: ${object.id}`,
     `name: ${q(object.name)}`,
+    ...(object.names && Object.keys(object.names).length ? [`names: { ${Object.entries(object.names).map(([k, v]) => `${k}: ${q(v)}`).join(', ')} }`] : []),
     `kind: ${object.kind}`,
     'elements:',
     ...el,

@@ -28,12 +28,22 @@ A file may hold many MPC lines: each becomes its own object file.
 
   --content <dir>   content folder (default ./content); files go to <dir>/objects/<id>.yaml
   --id <id>         the object's id (one object only; default: from its designation)
-  --force           replace an existing object file
+  --force           replace an existing object file (its names in other languages are kept)
   --today <date>    the date the age warning is judged on (default: today)
 
 Each file records the source (format, reference) and the epoch. A comet within 120 days of
 perihelion whose elements are more than 60 days old (or have no epoch) gets a warning, here and
 in every build and gloaming check on such a date.`;
+
+/** The `names` of the object file a forced import replaces, or undefined when it has none (or cannot be read). */
+function previousNames(file: string): SmallBodyObject['names'] {
+  try {
+    return parseObject(readFileSync(file, 'utf8'), file).names;
+  } catch (error) {
+    if (error instanceof GloamingError) return undefined;
+    throw error;
+  }
+}
 
 function linesOf(text: string): string[] {
   const trimmed = text.trim();
@@ -75,6 +85,11 @@ export function runObjects(argv: string[], out: (s: string) => void, context: { 
       const { object } = readElements(line);
       if (values.id !== undefined) object.id = values.id;
       const file = join(dir, `${object.id}.yaml`);
+      // Replacing a file (--force) keeps what the element line cannot give: the names in other languages.
+      if (values.force && existsSync(file)) {
+        const names = previousNames(file);
+        if (names) object.names = names;
+      }
       const text = objectYaml(object);
       const parsed = parseObject(text, relative(process.cwd(), file)); // the build's own checks
       if (existsSync(file) && !values.force) throw argumentError('--force', `${relative(process.cwd(), file)} exists`, 'a new id (--id), or --force to replace it');
