@@ -7,12 +7,13 @@
  * Frame: geocentric astrometric directions on the J2000 equator (`Body.geoVector` with
  * `aberration: false`, the frame of the star catalogue); the minimum separation and its instant
  * are what almanacs tabulate. The description then gives the placement seen from the site at
- * the moment it can be seen (topocentric, so the Moon's parallax of up to 1° is included).
+ * the moment it can be seen (topocentric, so the Moon's parallax of up to 1° is included); one
+ * that cannot be seen gives the Moon's least distance seen from the site (`siteMinimum`).
  */
 import * as Astronomy from 'astronomy-engine';
 import type { Body } from '../../core/body.ts';
 import { builtInBody } from '../../core/body.ts';
-import { findCrossings, sharedSearch } from '../../core/search.ts';
+import { findCrossings, findMaximum, sharedSearch } from '../../core/search.ts';
 import { offsetInSky, separationDeg } from '../../core/geometry.ts';
 import { distanceWords, offsetWords } from '../../models/stars/guide.ts';
 import { starByHip, stars, type Star } from '../../models/stars/catalogue.ts';
@@ -165,6 +166,24 @@ function magnitudeOf(body: Body, time: Date): number {
   return body.illumination(Astronomy.MakeTime(time)).magnitude.value;
 }
 
+/**
+ * The least separation of the Moon and `b` seen from the site (topocentric apparent directions,
+ * equator of date) within six hours of the geocentric minimum at `time` and inside that night's
+ * frame, degrees, and whether the Moon's disc covers `b` then (separation below the Moon's
+ * topocentric semidiameter). The Moon's parallax moves it by up to a degree: a pair 0.0° apart
+ * from the Earth's centre, an occultation somewhere on the Earth, may be a degree apart from here.
+ */
+export function siteMinimum(ctx: AlmanacContext, moon: Body, b: Body, time: Date): { separationDeg: number; covers: boolean } {
+  const frame = ctx.frameAt(time);
+  const ut = utDays(time);
+  const sep = (t: number): number => separationDeg(frame.track(moon).vectorAt(t), frame.track(b).vectorAt(t));
+  const best = findMaximum((t) => -sep(t), Math.max(frame.ut0, ut - 0.25), Math.min(frame.ut1, ut + 0.25), { stepDays: 10 / 1440, toleranceDays: 10 / 86_400 });
+  const at = best?.ut ?? ut;
+  const apart = best ? -best.value : sep(ut);
+  const track = frame.track(moon);
+  return { separationDeg: apart, covers: apart < track.semidiameterDeg(track.at(at).distance) };
+}
+
 /** The event for one minimum: visibility from the site and a sentence with the placement seen from there. */
 export function describeApproach(ctx: AlmanacContext, first: Body, second: Body, time: Date, separationDeg: number): AlmanacEvent {
   // Lead with the Moon, else with the body that moves (a planet or comet before a star), else the brighter.
@@ -193,8 +212,15 @@ export function describeApproach(ctx: AlmanacContext, first: Body, second: Body,
         : w.t('ev.approach', { ...names, distance: distanceWords(off.separationDeg, w), offset, look, ...patternArgs(ctx, b) });
   } else {
     const why = visibility.reason === 'too-close-to-sun' ? 'sun' : 'apart';
-    const degrees = w.number(separationDeg, separationDeg < 1 ? 1 : 0);
-    description = a.kind === 'moon' ? w.t('ev.approach-moon-hidden', { ...names, degrees, why }) : w.t('ev.approach-hidden', { ...names, degrees, why, ...patternArgs(ctx, b) });
+    // The Moon's parallax moves it by up to 1°: the distance said is the one seen from the site.
+    if (a.kind === 'moon') {
+      const seen = siteMinimum(ctx, a, b, time);
+      const degrees = w.number(seen.separationDeg, seen.separationDeg < 1 ? 1 : 0);
+      description = w.t('ev.approach-moon-hidden', { ...names, degrees, covers: seen.covers ? 'yes' : 'no', why });
+    } else {
+      const degrees = w.number(separationDeg, separationDeg < 1 ? 1 : 0);
+      description = w.t('ev.approach-hidden', { ...names, degrees, why, ...patternArgs(ctx, b) });
+    }
   }
   return {
     type: 'close-approach',

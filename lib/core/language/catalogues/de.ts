@@ -246,7 +246,7 @@ export const de: Catalogue = {
   'ev.title.approach': '{a} bei {b}',
   'ev.approach-moon': 'Der Mond zieht am {day} {offset} vorbei; {look}.',
   'ev.approach': '{a} und {b} stehen am {day} nur {distance} auseinander, {a} steht {offset}{inPattern, select, yes {, in {pattern_dative}} other {}}; {look}.',
-  'ev.approach-moon-hidden': 'Der Mond zieht am {day} in {degrees}° Abstand an {b_dative} vorbei, doch {why, select, sun {das Paar steht zu nahe an der Sonne, um gesehen zu werden} other {von hier aus stehen beide nicht zugleich an einem dunklen Himmel}}.',
+  'ev.approach-moon-hidden': 'Der Mond zieht am {day} {covers, select, yes {vor {b_dative}} other {in {degrees}° Abstand an {b_dative}}} vorbei, doch {why, select, sun {das Paar steht zu nahe an der Sonne, um gesehen zu werden} other {von hier aus stehen beide nicht zugleich an einem dunklen Himmel}}.',
   'ev.approach-hidden': '{a} und {b}{inPattern, select, yes {, in {pattern_dative},} other {}} stehen am {day} {degrees}° auseinander, doch {why, select, sun {das Paar steht zu nahe an der Sonne, um gesehen zu werden} other {von hier aus stehen beide nicht zugleich an einem dunklen Himmel}}.',
   'ev.title.small-body': '{name} {type, select, perihelion {im Perihel} closest {in Erdnähe} other {im größten Glanz}}',
   'ev.perihelion': '{name} steht am {day} der Sonne am nächsten (Perihel, {au} AE)',

@@ -257,7 +257,7 @@ export const en = {
   'ev.title.approach': '{a} near {b}',
   'ev.approach-moon': 'The Moon passes {offset} on {day}; {look}.',
   'ev.approach': '{a} and {b} are only {distance} apart on {day}, {a} {offset}{inPattern, select, yes {, in {pattern}} other {}}; {look}.',
-  'ev.approach-moon-hidden': 'The Moon passes {degrees}° from {b} on {day}, but the pair is {why, select, sun {too close to the Sun to be seen} other {not up together in a dark sky from here}}.',
+  'ev.approach-moon-hidden': 'The Moon {covers, select, yes {passes in front of {b}} other {passes {degrees}° from {b}}} on {day}, but the pair is {why, select, sun {too close to the Sun to be seen} other {not up together in a dark sky from here}}.',
   'ev.approach-hidden': '{a} and {b}{inPattern, select, yes {, in {pattern},} other {}} pass {degrees}° apart on {day}, but the pair is {why, select, sun {too close to the Sun to be seen} other {not up together in a dark sky from here}}.',
   'ev.title.small-body': '{name} {type, select, perihelion {at perihelion} closest {closest to Earth} other {at its brightest}}',
   'ev.perihelion': '{name} is closest to the Sun (perihelion, {au} AU) on {day}',

@@ -252,7 +252,7 @@ export const es: Catalogue = {
   'ev.title.approach': '{a} cerca de {b}',
   'ev.approach-moon': 'La Luna pasa {offset} el {day}; {look}.',
   'ev.approach': '{a} y {b} quedan a solo {distance} de distancia el {day}, con {a} {offset}{inPattern, select, yes {, en {pattern}} other {}}; {look}.',
-  'ev.approach-moon-hidden': 'La Luna pasa a {degrees}° de {b} el {day}, pero {why, select, sun {la pareja está demasiado cerca del Sol para verse} other {desde aquí no están juntos sobre el horizonte con el cielo oscuro}}.',
+  'ev.approach-moon-hidden': 'La Luna {covers, select, yes {pasa por delante de {b}} other {pasa a {degrees}° de {b}}} el {day}, pero {why, select, sun {la pareja está demasiado cerca del Sol para verse} other {desde aquí no están juntos sobre el horizonte con el cielo oscuro}}.',
   'ev.approach-hidden': '{a} y {b}{inPattern, select, yes {, en {pattern},} other {}} pasan a {degrees}° de distancia el {day}, pero {why, select, sun {la pareja está demasiado cerca del Sol para verse} other {desde aquí no están juntos sobre el horizonte con el cielo oscuro}}.',
   'ev.title.small-body': '{name} {type, select, perihelion {en el perihelio} closest {en su máxima aproximación a la Tierra} other {en su máximo brillo}}',
   'ev.perihelion': '{name} pasa lo más cerca del Sol (perihelio, {au} UA) el {day}',

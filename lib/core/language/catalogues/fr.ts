@@ -249,7 +249,7 @@ export const fr: Catalogue = {
   'ev.title.approach': '{a} près de {b}',
   'ev.approach-moon': 'La Lune passe {offset} le {day}\u202f; {look}.',
   'ev.approach': '{a} et {b} ne sont qu’à {distance} l’un de l’autre le {day}, {a} {offset}{inPattern, select, yes {, dans {pattern}} other {}}\u202f; {look}.',
-  'ev.approach-moon-hidden': 'La Lune passe à {degrees}° de {b} le {day}, mais {why, select, sun {le couple est trop près du Soleil pour être vu} other {d’ici les deux astres ne sont pas levés ensemble dans un ciel sombre}}.',
+  'ev.approach-moon-hidden': 'La Lune {covers, select, yes {passe devant {b}} other {passe à {degrees}° de {b}}} le {day}, mais {why, select, sun {le couple est trop près du Soleil pour être vu} other {d’ici les deux astres ne sont pas levés ensemble dans un ciel sombre}}.',
   'ev.approach-hidden': '{a} et {b}{inPattern, select, yes {, dans {pattern},} other {}} passent à {degrees}° l’un de l’autre le {day}, mais {why, select, sun {le couple est trop près du Soleil pour être vu} other {d’ici les deux astres ne sont pas levés ensemble dans un ciel sombre}}.',
   'ev.title.small-body': '{name} {type, select, perihelion {au périhélie} closest {au plus près de la Terre} other {à son plus grand éclat}}',
   'ev.perihelion': '{name} est au plus près du Soleil (périhélie, {au} ua) le {day}',
