@@ -15,6 +15,9 @@ import { computeNight } from '../lib/models/night.ts';
 import { defineSite, type Site } from '../lib/core/site.ts';
 import { formatInstant, isoWeekOf, localMidnight, nightOf, zonedTime, type IsoWeek } from '../lib/core/time.ts';
 import { computeWeek } from '../lib/models/week.ts';
+import { skyBrightness } from '../lib/models/sky/brightness.ts';
+import { darkSkyFromQuality } from '../lib/models/sky/quality.ts';
+import { extinctionCoefficientGreen } from '../lib/models/sky/extinction.ts';
 import { FALLBACK_MARK, TemplateErrors, WeekCache, formatProblem, parseBulletin, renderBulletinSync, type RenderedBulletin } from '../lib/outputs/bulletin/index.ts';
 import { MINUTE_MS, expectWithin } from './helpers/tolerance.ts';
 
@@ -106,7 +109,7 @@ describe.each(GRID)(':::provided at %s, %s', (_s, _w, site, week) => {
     expect(shown(render(site, week, either('event=full-moon')))).toBe(full !== null && full.date < to);
   });
 
-  it('moon=interferes without a body: at least half lit (astronomy-engine Illumination) and up at the start or middle of the viewing hours; with a body: the nights computeWeek lists', () => {
+  it('moon=interferes without a body: at least half lit (astronomy-engine Illumination), up and lighting the sky overhead at least as much as the twilight for half an hour of the viewing hours (sky model fed with astronomy-engine altitudes); with a body: the nights computeWeek lists', () => {
     const observer = new Astronomy.Observer(site.latitudeDeg, site.longitudeDeg, site.elevationM);
     const report = computeNight(site, fri, []);
     const fraction = Astronomy.Illumination(Astronomy.Body.Moon, localMidnight(report.night)).phase_fraction;
@@ -114,19 +117,55 @@ describe.each(GRID)(':::provided at %s, %s', (_s, _w, site, week) => {
     const start = zonedTime(fri, Math.floor(h.startMinutes / 60), h.startMinutes % 60, site.timeZone);
     const endMinutes = Math.min(h.endMinutes, 24 * 60 - 1);
     const end = zonedTime(fri, Math.floor(endMinutes / 60), endMinutes % 60, site.timeZone);
-    const middle = new Date((start.getTime() + end.getTime()) / 2);
-    const up = [start, middle].map((t) => {
-      const eq = Astronomy.Equator(Astronomy.Body.Moon, t, observer, true, true);
-      return Astronomy.Horizon(t, observer, eq.ra, eq.dec, 'normal').altitude;
-    });
-    if (Math.abs(fraction - 0.5) > 0.01 && up.every((a) => Math.abs(a) > 0.5)) {
-      expect(shown(render(site, week, either('moon=interferes night=fri')))).toBe(fraction >= 0.5 && up.some((a) => a > 0));
-    }
+    const altitude = (body: Astronomy.Body, t: Date, refraction: 'normal' | null): number => {
+      const eq = Astronomy.Equator(body, t, observer, true, true);
+      return Astronomy.Horizon(t, observer, eq.ra, eq.dec, refraction ?? undefined).altitude;
+    };
+    // The published sky model (Krisciunas & Schaefer moonlight, Patat twilight) at the zenith: the Moon's light over the twilight's.
+    const moonOverTwilight = (t: Date): number => {
+      const moonAlt = altitude(Astronomy.Body.Moon, t, 'normal');
+      if (moonAlt <= 0) return 0;
+      const sunAlt = altitude(Astronomy.Body.Sun, t, 'normal');
+      const sky = skyBrightness({
+        target: { altitudeDeg: 90, sunSeparationDeg: 90 - sunAlt, moonSeparationDeg: 90 - moonAlt },
+        sun: { altitudeDeg: sunAlt, geometricAltitudeDeg: altitude(Astronomy.Body.Sun, t, null) },
+        moon: { altitudeDeg: moonAlt, phaseAngleDeg: Astronomy.Illumination(Astronomy.Body.Moon, t).phase_angle },
+        darkSkyZenithNl: darkSkyFromQuality(site.sky).zenithNl,
+        kV: extinctionCoefficientGreen(site.elevationM),
+      });
+      return sky.moonNl / sky.twilightNl;
+    };
+    // Every 10 minutes through the viewing hours: moonlight counts for half an hour or more (three samples).
+    const samples: number[] = [];
+    for (let t = start.getTime(); t <= end.getTime(); t += 10 * 60_000) samples.push(moonOverTwilight(new Date(t)));
+    const lit = samples.filter((r) => r >= 1).length;
+    const clear = samples.every((r) => r === 0 || Math.abs(r - 1) > 0.05) && Math.abs(fraction - 0.5) > 0.01;
+    if (clear) expect(shown(render(site, week, either('moon=interferes night=fri')))).toBe(fraction >= 0.5 && lit >= 3);
     const w = computeWeek(site, week.days[0]!, [builtInBody('saturn')]);
     const saturn = w.bodies[0]!;
     for (const [i, date] of week.days.entries()) {
       expect(shown(render(site, week, either(`moon=interferes body=saturn night=${i + 1}`))), date).toBe(saturn.moonInterference.includes(date));
     }
+  });
+});
+
+describe('moon=interferes in a sky bright from twilight', () => {
+  it('a nearly full Moon up through the midnight Sun at 68.6° N does not count; the same Moon phase in the polar night does (astronomy-engine)', () => {
+    const outpost = sites.get('northern-outpost')!;
+    const june = isoWeekOf('2027-06-14'); // full Moon on 19 June 2027; the Sun never sets there
+    const december = isoWeekOf('2026-12-21'); // full Moon on 24 December 2026, polar night
+    const observer = new Astronomy.Observer(outpost.latitudeDeg, outpost.longitudeDeg, outpost.elevationM);
+    const moonUpAtMidnight = (date: string): boolean => {
+      const t = localMidnight(computeNight(outpost, date, []).night);
+      const eq = Astronomy.Equator(Astronomy.Body.Moon, t, observer, true, true);
+      return Astronomy.Horizon(t, observer, eq.ra, eq.dec, 'normal').altitude > 0;
+    };
+    // Monday 14 June 2027: 84 % lit and up in the evening, but the Sun stays above the horizon all night.
+    expect(Astronomy.Illumination(Astronomy.Body.Moon, new Date('2027-06-14T21:00:00Z')).phase_fraction).toBeGreaterThan(0.5);
+    expect(shown(render(outpost, june, either('moon=interferes night=mon')))).toBe(false);
+    // Thursday 24 December 2026: full, up at midnight in the polar night.
+    expect(moonUpAtMidnight(december.days[3]!)).toBe(true);
+    expect(shown(render(outpost, december, either('moon=interferes night=thu')))).toBe(true);
   });
 });
 

@@ -147,6 +147,27 @@ export interface VisibilityOptions {
 type Span = { ut0: number; ut1: number };
 
 /**
+ * Whether the Moon, up at `ut`, lights the sky overhead at least as much as the twilight does: the
+ * zenith's Moon and twilight terms of `skyBrightness` (Krisciunas & Schaefer 1991; Patat et al.
+ * 2006). A Moon in a sky still bright from the Sun (a white night, the midnight Sun) does not
+ * count; a city's own light does not enter, since a bright Moon is there for its readers too.
+ */
+export function moonOutshinesTwilight(report: NightSky, ut: number): boolean {
+  const frame = report.frame;
+  const sunAlt = frame.sun.apparentAltitudeDeg(ut);
+  const moonAlt = frame.moon.apparentAltitudeDeg(ut);
+  if (moonAlt <= 0) return false;
+  const sky = skyBrightness({
+    target: { altitudeDeg: 90, sunSeparationDeg: 90 - sunAlt, moonSeparationDeg: 90 - moonAlt },
+    sun: { altitudeDeg: sunAlt, geometricAltitudeDeg: frame.sun.at(ut).geometricAltitudeDeg },
+    moon: { altitudeDeg: moonAlt, phaseAngleDeg: report.moon.phase.phaseAngleDeg },
+    darkSkyZenithNl: darkSkyFromQuality(report.site.sky).zenithNl,
+    kV: extinctionCoefficientGreen(report.site.elevationM),
+  });
+  return sky.moonNl >= sky.twilightNl;
+}
+
+/**
  * The viewing hours of a night as UT days: the site's hours; by default `DEFAULT_VIEWING_HOURS` hours from
  * sunset, or, where the Sun does not set this night, from the first of civil, nautical and astronomical dusk,
  * or (no dusk either: polar day or polar night) centred on the darkest moment (the Sun's lowest point).

@@ -22,8 +22,7 @@
 import type { Body } from '../../core/body.ts';
 import { authorWords, quoted, type AuthorWords } from './messages.ts';
 import { EVENT_TYPES, OWN_LIST_EVENT_TYPES, pickEvent, type AlmanacEvent, type AlmanacEventType } from '../almanac/index.ts';
-import { dateFromUt } from '../../core/track.ts';
-import { viewingSpan } from '../../models/visibility.ts';
+import { moonOutshinesTwilight, viewingSpan } from '../../models/visibility.ts';
 import { moonInterferes, type WeekData } from '../../models/week.ts';
 import { addDays, formatLocalDate, zonedParts, zonedTime } from '../../core/time.ts';
 import type { AttributeSpec, AttributeValue, ClockTime } from './attributes.ts';
@@ -102,7 +101,7 @@ const CONDITIONS: Record<string, { doc: string; attributes: (written: Readonly<R
     attributes: () => ({ event: { type: { kind: 'choice', values: EVENT_TYPES }, doc: 'an event type' }, body: { ...BODY, required: false } }),
   },
   moon: {
-    doc: 'moonlight interferes: with a body, it at least doubles the sky brightness at the body at its best moment (or washes it out); inside :::every-event for a meteor shower, it cuts the best hourly count by more than a third; otherwise, the Moon is at least half lit and above the horizon at the start or middle of the viewing hours',
+    doc: 'moonlight interferes: with a body, it at least doubles the sky brightness at the body at its best moment (or washes it out); inside :::every-event for a meteor shower, it cuts the best hourly count by more than a third; otherwise, the Moon is at least half lit, and for at least half an hour of the viewing hours it is up and lights the sky overhead at least as much as the twilight (not in a sky still bright from the Sun)',
     attributes: () => ({ moon: { type: { kind: 'choice', values: ['interferes'] }, doc: 'interferes' }, body: { ...BODY, required: false }, night: NIGHT }),
   },
 };
@@ -143,13 +142,24 @@ function first(call: SectionCall): boolean {
   return call.attrs.get('first') === 'rise' ? rise < set : set < rise;
 }
 
-/** Moonlight without a body: at least half lit and up at the start or middle of the viewing hours. */
+/** Sampling step over the viewing hours for moonlight, days (10 minutes). */
+const MOONLIGHT_STEP_DAYS = 10 / 1440;
+/** Moonlight counts when it lasts at least this long in the viewing hours, days (30 minutes; this project's choice). */
+const MOONLIGHT_MIN_DAYS = 30 / 1440;
+
+/**
+ * Moonlight without a body: the Moon at least half lit, and for at least half an hour of the
+ * viewing hours (sampled every 10 minutes) up and lighting the sky overhead at least as much as
+ * the twilight (`moonOutshinesTwilight`): a half Moon in the dark end of the evening counts, a
+ * Moon in the midnight Sun's bright sky does not.
+ */
 function moonBright(call: SectionCall): boolean {
   const report = call.week.nights[call.night]!;
   if (report.moon.phase.illuminatedFraction < 0.5) return false;
   const { ut0, ut1 } = viewingSpan(report);
-  const moon = call.week.bodies.get('moon');
-  return [ut0, (ut0 + ut1) / 2].some((ut) => call.week.observe(moon, dateFromUt(ut)).altitudeDeg > 0);
+  let samples = 0;
+  for (let ut = ut0; ut <= ut1; ut += MOONLIGHT_STEP_DAYS) if (moonOutshinesTwilight(report, ut)) samples++;
+  return samples >= Math.round(MOONLIGHT_MIN_DAYS / MOONLIGHT_STEP_DAYS);
 }
 
 function moon(call: SectionCall): boolean {
