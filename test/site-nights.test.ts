@@ -52,6 +52,22 @@ describe('next nights panel', () => {
     expect(june.darkness).toEqual({ datetime: null, text: 'never fully dark' });
   });
 
+  it('the Moon\'s lit percentage is astronomy-engine\'s, except that a crescent or gibbous Moon never shows 0% or 100%', () => {
+    // 5 February 2027 at Harbour Roof Terrace: a waning crescent under 0.5% lit at the night's midnight (new Moon on 6 February).
+    const site = sites.get('harbour-roof')!;
+    const rows = nextNights(site, '2027-02-01', 10);
+    for (const row of rows) {
+      const t = Astronomy.MakeTime(zonedTime(row.date, 22, 0, site.timeZone));
+      const fraction = Astronomy.Illumination(Astronomy.Body.Moon, t).phase_fraction;
+      const crescentOrGibbous = row.moonPhase.endsWith('crescent') || row.moonPhase.endsWith('gibbous');
+      if (crescentOrGibbous) expect(row.moonLitPercent, row.date).toBeGreaterThanOrEqual(1);
+      if (crescentOrGibbous) expect(row.moonLitPercent, row.date).toBeLessThanOrEqual(99);
+      // The panel gives the fraction of its night (local midnight), not of 22:00: within 3 points.
+      if (fraction > 0.01 && fraction < 0.99) expect(Math.abs(row.moonLitPercent - fraction * 100), row.date).toBeLessThanOrEqual(3);
+    }
+    expect(rows.find((r) => r.date === '2027-02-05')).toMatchObject({ moonPhase: 'waning-crescent', moonLitPercent: 1 });
+  });
+
   it("the Moon's state at dusk agrees with its altitude from astronomy-engine", () => {
     let checked = 0;
     for (const site of sites.values()) {

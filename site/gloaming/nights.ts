@@ -4,6 +4,7 @@
  * module only chooses which events to show and words them for a reader outside.
  */
 import { computeNight, type NightReport } from '../../lib/models/night.ts';
+import { printedLitFraction } from '../../lib/core/moon.ts';
 import type { EventTime } from '../../lib/core/events.ts';
 import type { Site } from '../../lib/core/site.ts';
 import { wordsFor, type MessageKey } from '../../lib/core/language/index.ts';
@@ -86,7 +87,8 @@ export function nightRow(report: NightReport, passes: NightRow['passes'] = null)
     moonset: shown(report.moon.set, site, MOON_MISSING),
     moon: moonSummary(report),
     moonPhase: report.moon.phase.name,
-    moonLitPercent: Math.round(report.moon.phase.illuminatedFraction * 100),
+    // As beside the phase's name in bulletins: a crescent is never 0% lit, a gibbous Moon never 100%.
+    moonLitPercent: Math.round(printedLitFraction(report.moon.phase) * 100),
     passes,
   };
 }
