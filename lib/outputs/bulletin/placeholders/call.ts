@@ -161,7 +161,13 @@ export function missingText(call: PlaceholderCall, phrases: MissingPhrases | Twi
   if (typeof phrases !== 'string') return words.t(phrases[reason]);
   if (reason === 'outside-night') return words.t('missing.not-this-night');
   const depth = TWILIGHT_DEPTH_DEG[phrases];
-  return words.t(reason === 'stays-above' || reason === 'always-above' ? 'missing.no-darkness' : 'missing.dark-all-day', { kind: phrases, depth });
+  if (reason === 'stays-above' || reason === 'always-above') {
+    // When the Sun does not even set (the midnight Sun), that is the whole story.
+    const sunset = call.week.nights[call.night]?.sun.set.reason;
+    if (sunset === 'always-above' || sunset === 'stays-above') return words.t('missing.sun-stays-up');
+    return words.t('missing.no-darkness', { kind: phrases, depth });
+  }
+  return words.t('missing.dark-all-day', { kind: phrases, depth });
 }
 
 /** The honest phrase for a body with no best moment this night. */
