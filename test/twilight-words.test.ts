@@ -27,18 +27,18 @@ function lowestSunDeg(siteId: string, date: string): number {
   return lowest;
 }
 
-/** The twilight-end cell of each night row of the week containing `date`, as text. */
-function darkCells(siteId: string, date: string): Map<string, string> {
+/** Cell `column` (0 sunset, 1 end of twilight, 2 start of twilight, 3 moonrise, 4 moonset) of each night row of the week containing `date`, as text. */
+function cells(siteId: string, date: string, column: number): Map<string, string> {
   const html = renderBulletinSync(parseBulletin(`${FM}::moon-and-twilight\n`, 'content/bulletins/t.md'), { site: sites.get(siteId)!, week: isoWeekOf(date), bodies: new BodyRegistry() }, new WeekCache()).html;
   const rows = [...html.matchAll(/<tr data-night="([\d-]+)">(.*?)<\/tr>/g)];
-  return new Map(rows.map(([, night, row]) => [night!, (row!.match(/<td>(.*?)<\/td>/g) ?? [])[1]!.replace(/<[^>]+>/g, '')]));
+  return new Map(rows.map(([, night, row]) => [night!, (row!.match(/<td>(.*?)<\/td>/g) ?? [])[column]!.replace(/<[^>]+>/g, '')]));
 }
 
 describe('twilight cells in the light nights', () => {
   it('under the midnight Sun (68.6° N, June 2027) say the Sun stays up all night', () => {
-    const cells = darkCells('northern-outpost', '2027-06-16');
-    expect(cells.size).toBe(7);
-    for (const [night, cell] of cells) {
+    const dark = cells('northern-outpost', '2027-06-16', 1);
+    expect(dark.size).toBe(7);
+    for (const [night, cell] of dark) {
       // −0.83°: the upper limb on the horizon (refraction 34′, semidiameter 16′), Meeus ch. 15.
       expect(lowestSunDeg('northern-outpost', night), night).toBeGreaterThan(-0.83);
       expect(cell, night).toContain('the Sun stays up all night');
@@ -47,12 +47,32 @@ describe('twilight cells in the light nights', () => {
   });
 
   it('in a white night (50.5° N, June 2027) say there is no astronomical darkness', () => {
-    const cells = darkCells('harbour-roof', '2027-06-16');
-    for (const [night, cell] of cells) {
+    const dark = cells('harbour-roof', '2027-06-16', 1);
+    for (const [night, cell] of dark) {
       const lowest = lowestSunDeg('harbour-roof', night);
       expect(lowest, night).toBeLessThan(-0.83);
       expect(lowest, night).toBeGreaterThan(-18);
       expect(cell, night).toContain('no astronomical darkness this night');
     }
+  });
+
+  it('the moonset cell of a night the Moon stays down says so, not "does not rise" (astronomy-engine altitudes)', () => {
+    const site = sites.get('northern-outpost')!;
+    const set = cells('northern-outpost', '2027-06-16', 4);
+    let down = 0;
+    for (const [night, cell] of set) {
+      const { start, end } = nightOf(night, site.timeZone);
+      let highest = -90;
+      for (let t = start.getTime(); t <= end.getTime(); t += 5 * 60_000) {
+        const time = Astronomy.MakeTime(new Date(t));
+        const eq = Astronomy.Equator(Astronomy.Body.Moon, time, site.observer, true, true);
+        highest = Math.max(highest, Astronomy.Horizon(time, site.observer, eq.ra, eq.dec, 'normal').altitude);
+      }
+      if (highest < -1) {
+        expect(cell, night).toBe('stays below the horizon all night');
+        down++;
+      }
+    }
+    expect(down).toBeGreaterThan(2);
   });
 });

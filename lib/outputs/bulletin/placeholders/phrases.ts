@@ -17,6 +17,9 @@ export const RISE_PHRASES: MissingPhrases = {
 };
 export const SET_PHRASES: MissingPhrases = {
   ...RISE_PHRASES,
+  // Under a "set" heading, a body that never rose is said to stay down, not "does not rise".
+  'always-below': 'missing.always-below',
+  'stays-below': 'missing.always-below',
   'always-above': 'missing.does-not-set',
   'outside-night': 'missing.does-not-set',
   'stays-above': 'missing.does-not-set',
