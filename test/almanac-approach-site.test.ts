@@ -6,12 +6,15 @@
  * where the Moon's disc does cover the star from the site, it "passes in front of" it. Checked
  * against astronomy-engine's topocentric Moon.
  */
-import { Body, Equator, MakeTime, RotateVector, Rotation_EQJ_EQD, Vector } from 'astronomy-engine';
+import { AngleFromSun, Body, Equator, MakeTime, RotateVector, Rotation_EQJ_EQD, Vector } from 'astronomy-engine';
 import { describe, expect, it } from 'vitest';
 import { findEvents } from '../lib/outputs/almanac/index.ts';
 import { loadSites } from '../lib/models/content.ts';
 import { starByName } from '../lib/models/stars/catalogue.ts';
-import { nightOf } from '../lib/core/time.ts';
+import { isoWeekOf, nightOf } from '../lib/core/time.ts';
+import { BodyRegistry } from '../lib/core/body.ts';
+import { WeekCache, parseBulletin, renderBulletinSync } from '../lib/outputs/bulletin/index.ts';
+import { main } from '../lib/outputs/cli/main.ts';
 
 const RAD = Math.PI / 180;
 const sites = loadSites('content/sites');
@@ -81,5 +84,19 @@ describe('a hidden close approach of the Moon', () => {
     expect(e!.description).not.toMatch(/0\.0°/);
     // The same covering is an occultation in the list, with its own contacts.
     expect(events.some((x) => x.type === 'occultation' && x.names.includes('Antares'))).toBe(true);
+  });
+
+  it('says why it cannot be seen once, on the page and on the command line (the Moon 8 Dec 2026 near the Sun, astronomy-engine)', () => {
+    const station = sites.get('southern-station')!;
+    // The Moon a day before new, 9° from the Sun (astronomy-engine AngleFromSun): lost in the glare.
+    expect(AngleFromSun(Body.Moon, MakeTime(new Date('2026-12-08T11:16:00Z')))).toBeLessThan(15);
+    const html = renderBulletinSync(parseBulletin('---\ntitle: T\nsites: all\nschedule: { every: week }\n---\n::events\n', 'content/bulletins/t.md'), { site: station, week: isoWeekOf('2026-12-08'), bodies: new BodyRegistry() }, new WeekCache()).html;
+    const item = html.match(/<li[^>]*data-type="close-approach"[^>]*>.*?<\/li>/)?.[0].replace(/<[^>]+>/g, '') ?? '';
+    expect(item).toContain('The Moon passes 0.5° from Antares');
+    expect(item.match(/too close to the Sun/g)).toHaveLength(1);
+    const lines: string[] = [];
+    main(['events', '--site', 'southern-station', '--from', '2026-12-08', '--to', '2026-12-08', '--type', 'close-approach'], (l) => lines.push(l), () => {});
+    const line = lines.join('\n').split('\n').find((l) => l.includes('Antares')) ?? '';
+    expect(line).toMatch(/not visible {2}The Moon passes 0\.5° from Antares on Tue, 8 Dec\. Not visible from Southern Field Station: too close to the Sun/);
   });
 });

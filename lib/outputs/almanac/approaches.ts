@@ -211,15 +211,14 @@ export function describeApproach(ctx: AlmanacContext, first: Body, second: Body,
         ? w.t('ev.approach-moon', { offset, day, look })
         : w.t('ev.approach', { ...names, distance: distanceWords(off.separationDeg, w), offset, look, ...patternArgs(ctx, b) });
   } else {
-    const why = visibility.reason === 'too-close-to-sun' ? 'sun' : 'apart';
     // The Moon's parallax moves it by up to 1°: the distance said is the one seen from the site.
     if (a.kind === 'moon') {
       const seen = siteMinimum(ctx, a, b, time);
       const degrees = w.number(seen.separationDeg, seen.separationDeg < 1 ? 1 : 0);
-      description = w.t('ev.approach-moon-hidden', { ...names, degrees, covers: seen.covers ? 'yes' : 'no', why });
+      description = w.t('ev.approach-moon-hidden', { ...names, degrees, covers: seen.covers ? 'yes' : 'no' });
     } else {
       const degrees = w.number(separationDeg, separationDeg < 1 ? 1 : 0);
-      description = w.t('ev.approach-hidden', { ...names, degrees, why, ...patternArgs(ctx, b) });
+      description = w.t('ev.approach-hidden', { ...names, degrees, ...patternArgs(ctx, b) });
     }
   }
   return {

@@ -173,6 +173,15 @@ export function eventsBetween(week: WeekData, firstNight: string = week.week.day
 export const OWN_LIST_EVENT_TYPES: ReadonlySet<AlmanacEventType> = new Set(['satellite-pass']);
 
 /**
+ * What follows an event's sentence wherever it is printed (pages, the command line): for an event
+ * that cannot be seen, why (`visibility.note`), unless the sentence already says it; else null.
+ * A visible event's sentence already says when and where to look.
+ */
+export function hiddenNote(e: AlmanacEvent): string | null {
+  return !e.visible && e.visibility.note && !e.description.includes(e.visibility.note) ? e.visibility.note : null;
+}
+
+/**
  * The one event an inline placeholder refers to: the first (in time) of `type` that involves every
  * body in `bodies` (ids, e.g. `['moon', 'jupiter']`), or null when there is none — a typed "nothing
  * this week", never an exception.

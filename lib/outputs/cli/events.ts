@@ -9,7 +9,7 @@ import { loadBodies } from '../../models/content.ts';
 import { GloamingError } from '../../core/errors.ts';
 import { argumentError, joinNegativeNumbers, siteFromFlags, SITE_RANGE_OPTIONS } from './args.ts';
 import { addDays, formatInstant, parseInstant, parseLocalDate, roundInstant, zonedTime } from '../../core/time.ts';
-import { EVENT_TYPES, eventsToICalendar, findEvents, type AlmanacEvent, type AlmanacEventType } from '../almanac/index.ts';
+import { EVENT_TYPES, eventsToICalendar, findEvents, hiddenNote, type AlmanacEvent, type AlmanacEventType } from '../almanac/index.ts';
 import { round } from './format.ts';
 import { loadSatellites } from '../../models/satellite/catalogue.ts';
 
@@ -133,7 +133,8 @@ export function runEvents(args: string[], out: (s: string) => void): void {
   const lines = [`Events ${values.from} – ${lastDate} at ${site.name} (${zone})`];
   for (const e of events) {
     // Rounded to the minute like the sentences and the pages (never truncated).
-    lines.push(`${formatInstant(roundInstant(e.time, 'minute'), zone).slice(0, 16).replace('T', ' ')}  ${e.visible ? 'visible    ' : 'not visible'}  ${e.description}`);
+    const note = hiddenNote(e);
+    lines.push(`${formatInstant(roundInstant(e.time, 'minute'), zone).slice(0, 16).replace('T', ' ')}  ${e.visible ? 'visible    ' : 'not visible'}  ${e.description}${note ? ` ${note}` : ''}`);
     if (e.caution) lines.push(`                              ${e.caution}`);
   }
   if (events.length === 0) lines.push('No events in this range.');

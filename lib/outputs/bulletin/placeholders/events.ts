@@ -3,7 +3,7 @@ import type { ElementContent } from 'hast';
 import type { Body } from '../../../core/body.ts';
 import { quoted } from '../messages.ts';
 import { formatInstant, localDateOf } from '../../../core/time.ts';
-import { EVENT_TYPES, OWN_LIST_EVENT_TYPES, pickEvent, type AlmanacEvent, type AlmanacEventType } from '../../almanac/index.ts';
+import { EVENT_TYPES, OWN_LIST_EVENT_TYPES, hiddenNote, pickEvent, type AlmanacEvent, type AlmanacEventType } from '../../almanac/index.ts';
 import { el, exact, formatClock, formatDay } from '../format.ts';
 import { bodyPhrase } from '../../../core/language/names/index.ts';
 import { BODY, CLOCK, classes, noValue, labelOf, wordsOf, type PlaceholderCall, type PlaceholderSpec } from './call.ts';
@@ -16,8 +16,8 @@ function eventItem(call: PlaceholderCall, e: AlmanacEvent): ElementContent {
     { type: 'text', value: ' ' },
     el('span', { className: ['gl-event-text'] }, e.description),
   ];
-  // A visible event's sentence already says when and where to look; a hidden one gets its reason.
-  if (!e.visible && e.visibility.note && !e.description.includes(e.visibility.note)) children.push({ type: 'text', value: ' ' }, el('span', { className: ['gl-event-note'] }, e.visibility.note));
+  const note = hiddenNote(e);
+  if (note) children.push({ type: 'text', value: ' ' }, el('span', { className: ['gl-event-note'] }, note));
   if (e.caution) children.push({ type: 'text', value: ' ' }, el('strong', { className: ['gl-caution'] }, e.caution));
   return el('li', { dataType: e.type, dataVisible: String(e.visible), dataBodies: e.bodies.join(' ') }, children);
 }
