@@ -8,7 +8,7 @@ import * as Astronomy from 'astronomy-engine';
 import { builtInBody } from '../../core/body.ts';
 import { sharedSearch } from '../../core/search.ts';
 import type { AlmanacContext } from './context.ts';
-import { eventVisibility, overNight, riseWords } from './visibility.ts';
+import { eventVisibility, hidden, overNight, riseWords } from './visibility.ts';
 import type { AlmanacEvent } from './types.ts';
 
 const QUARTERS = ['new-moon', 'first-quarter', 'full-moon', 'last-quarter'] as const;
@@ -36,7 +36,9 @@ export function moonPhaseEvents(ctx: AlmanacContext, from: Date, to: Date): Alma
   for (const q of sharedSearch(moonPhaseEvents, 'quarters', from, to, findQuarters, (q) => q.time.date)) {
     const time = q.time.date;
     const type = QUARTERS[q.quarter]!;
-    const visibility = eventVisibility(ctx, [moon], time);
+    const seen = eventVisibility(ctx, [moon], time);
+    // A new Moon's sentence is about the dark nights around it: its note says the Moon itself cannot be seen.
+    const visibility = type === 'new-moon' && !seen.visible && seen.reason ? hidden(ctx, seen.reason, { itself: 'moon' }) : seen;
     const when = ctx.when(time);
     const w = ctx.words;
     const look = ctx.look(visibility);

@@ -66,7 +66,7 @@ export function variableStarEvents(ctx: AlmanacContext, from: Date, to: Date, st
         const words = reason === 'below-horizon' ? w.t('ev.variable-low', { degrees: Math.max(MIN_STAR_ALTITUDE_DEG, ctx.site.minAltitudeDeg) }) : w.t('ev.variable-daylight');
         // What happens, then why it cannot be watched from here: the note ends the sentence (as an
         // occultation's does), so a list that adds a hidden event's note does not say it twice.
-        const note = w.t('event-hidden.note', { site: ctx.site.name, reason: words });
+        const note = w.t('event-hidden.note', { site: ctx.site.name, reason: words, itself: 'other' });
         event = { visible: false, visibility: { ...visibility, note }, description: `${w.t('ev.variable-hidden', said)} ${note}` };
       }
       out.push({

@@ -171,7 +171,12 @@ export function eventVisibility(ctx: AlmanacContext, bodies: readonly Body[], ti
   return hidden(ctx, reason);
 }
 
-/** A not-visible verdict with its note. */
-export function hidden(ctx: AlmanacContext, reason: EventHiddenReason): EventVisibility {
-  return { visible: false, moment: 'none', time: null, altitudeDeg: null, azimuthDeg: null, reason, note: ctx.words.t('event-hidden.note', { site: ctx.site.name, reason: ctx.words.t(`event-hidden.${reason}`) }) };
+/**
+ * A not-visible verdict with its note. `itself: 'moon'` words the note for an event whose sentence
+ * is about something else than seeing the Moon (the dark nights around a new Moon): "The Moon
+ * itself cannot be seen from …", so the note does not seem to deny the sentence.
+ */
+export function hidden(ctx: AlmanacContext, reason: EventHiddenReason, options: { itself?: 'moon' } = {}): EventVisibility {
+  const note = ctx.words.t('event-hidden.note', { site: ctx.site.name, reason: ctx.words.t(`event-hidden.${reason}`), itself: options.itself ?? 'other' });
+  return { visible: false, moment: 'none', time: null, altitudeDeg: null, azimuthDeg: null, reason, note };
 }

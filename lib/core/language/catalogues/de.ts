@@ -155,7 +155,7 @@ export const de: Catalogue = {
   'event-hidden.radiant-below-horizon': 'der Radiant bleibt während der dunklen Stunden unter dem Horizont',
   'event-hidden.sun-below-horizon': 'die Sonne steht während der ganzen Finsternis unter dem Horizont',
   'event-hidden.too-faint': 'in dieser Nacht von hier aus zu lichtschwach',
-  'event-hidden.note': 'Von {site} aus nicht sichtbar: {reason}.',
+  'event-hidden.note': '{itself, select, moon {Der Mond selbst ist von {site} aus nicht zu sehen} other {Von {site} aus nicht sichtbar}}: {reason}.',
 
   // Satellitenüberflüge.
   'pass.tonight': 'Satellitenüberflüge heute Nacht',

@@ -166,7 +166,7 @@ export const en = {
   'event-hidden.radiant-below-horizon': 'the radiant stays below the horizon during the dark hours',
   'event-hidden.sun-below-horizon': 'the Sun is below the horizon for the whole eclipse',
   'event-hidden.too-faint': 'too faint to see from here that night',
-  'event-hidden.note': 'Not visible from {site}: {reason}.',
+  'event-hidden.note': '{itself, select, moon {The Moon itself cannot be seen from {site}} other {Not visible from {site}}}: {reason}.',
 
   // Satellite passes (lib/models/satellite/words.ts). appears/leaves: skyline, shadow or fade.
   'pass.tonight': "Tonight's satellite passes",

@@ -156,12 +156,12 @@ export const es: Catalogue = {
   'missing.stays-below': 'el Sol se queda por debajo de esa altura toda la noche',
   'event-hidden.below-horizon': 'bajo el horizonte mientras el cielo está oscuro',
   'event-hidden.daylight': 'ocurre de día',
-  'event-hidden.too-close-to-sun': 'demasiado cerca del Sol, perdido en su resplandor',
+  'event-hidden.too-close-to-sun': 'demasiado cerca del Sol, se pierde en su resplandor',
   'event-hidden.no-darkness': 'el cielo no llega a oscurecer esa noche',
   'event-hidden.radiant-below-horizon': 'el radiante queda bajo el horizonte durante las horas oscuras',
   'event-hidden.sun-below-horizon': 'el Sol está bajo el horizonte durante todo el eclipse',
   'event-hidden.too-faint': 'demasiado débil para verse desde aquí esa noche',
-  'event-hidden.note': 'No visible desde {site}: {reason}.',
+  'event-hidden.note': '{itself, select, moon {La Luna misma no se ve desde {site}} other {No visible desde {site}}}: {reason}.',
 
   // Pasos de satélites.
   'pass.tonight': 'Pasos de satélites esta noche',

@@ -158,7 +158,7 @@ export const fr: Catalogue = {
   'event-hidden.radiant-below-horizon': 'le radiant reste sous l’horizon pendant les heures sombres',
   'event-hidden.sun-below-horizon': 'le Soleil est sous l’horizon pendant toute l’éclipse',
   'event-hidden.too-faint': 'trop faible pour être vu d’ici cette nuit-là',
-  'event-hidden.note': 'Invisible depuis {site} : {reason}.',
+  'event-hidden.note': '{itself, select, moon {La Lune elle-même est invisible depuis {site}} other {Invisible depuis {site}}} : {reason}.',
 
   // Passages de satellites.
   'pass.tonight': 'Passages de satellites ce soir',
