@@ -165,7 +165,10 @@ function fieldPlaces(source: YamlSource, fm: BulletinFrontMatter): Record<string
  * next `---` line. Errors carry `file:line:column` in the file's own numbering and the field.
  */
 export function parseBulletin(text: string, file: string): BulletinTemplate {
-  const language = languageOf(file);
+  const name = basename(file).replace(/\.(md|markdown)$/i, '');
+  // `weekly.es.md`: the Spanish version of the bulletin `weekly` (a language the catalogues have).
+  const [slug = '', suffix, ...rest] = name.split('.');
+  const language = languageOf(suffix);
   const words = authorWords(language ?? DEFAULT_LANGUAGE);
   assertTemplateSize(text, file, words);
   const lines = text.replace(/^\uFEFF/, '').split(/\r?\n/);
@@ -192,9 +195,6 @@ export function parseBulletin(text: string, file: string): BulletinTemplate {
     if (error instanceof GloamingError) throw source.place(error);
     throw error;
   }
-  const name = basename(file).replace(/\.(md|markdown)$/i, '');
-  // `weekly.es.md`: the Spanish version of the bulletin `weekly` (a language the catalogues have).
-  const [slug = '', suffix, ...rest] = name.split('.');
   if (!SLUG_RE.test(slug) || rest.length > 0) {
     throw words.error('invalid-value', words.say('err.fm-file-name'), {
       place: { file },
@@ -222,11 +222,10 @@ export function parseBulletin(text: string, file: string): BulletinTemplate {
 }
 
 /**
- * The language a template's file name gives (`weekly.es.md` → es), `undefined` when it names none
- * (`weekly.md`, English) and null when its second part is not a language gloaming has.
+ * The language the second part of a template's file name gives (`weekly.es.md` → es), `undefined`
+ * when there is none (`weekly.md`, English) and null when it is not a language gloaming has.
  */
-function languageOf(file: string): Language | null | undefined {
-  const suffix = basename(file).replace(/\.(md|markdown)$/i, '').split('.')[1];
+function languageOf(suffix: string | undefined): Language | null | undefined {
   if (suffix === undefined) return undefined;
   return (LANGUAGES as readonly string[]).includes(suffix) ? (suffix as Language) : null;
 }
