@@ -214,9 +214,10 @@ describe('site build', () => {
     const killed = startBuild(args, join(work, 'cache'));
     const workFolder = join(work, `.tmp-k-${killed.pid}`);
     const deadline = Date.now() + 120_000;
-    // Killed while Astro writes into its work folder (after it took the lock, which it leaves behind too).
-    while (!existsSync(workFolder) && Date.now() < deadline) await new Promise((r) => setTimeout(r, 100));
-    await new Promise((r) => setTimeout(r, 300));
+    // Killed as soon as Astro starts writing into its work folder (after it took the lock, which it
+    // leaves behind too). With a warm cache a one-site build can finish its writing, checks and swap
+    // within a few hundred milliseconds, so the kill follows the folder's appearance at once.
+    while (!existsSync(workFolder) && Date.now() < deadline) await new Promise((r) => setTimeout(r, 5));
     process.kill(killed.pid, 'SIGKILL');
     await killed.done;
     expect(existsSync(workFolder)).toBe(true); // what kill -9 leaves (docs/deploy.md)
