@@ -10,8 +10,10 @@
  * Targets (issue #2): positions within 1′, event times within 1 min (2 min for the Moon),
  * magnitudes within 0.15.
  */
+import * as Astronomy from 'astronomy-engine';
+import { aberrationRonVondrak } from 'astronomia/apparent';
 import { describe, expect, it } from 'vitest';
-import { builtInBody, PLANET_IDS } from '../lib/core/body.ts';
+import { builtInBody, fixedDirectionBody, PLANET_IDS } from '../lib/core/body.ts';
 import { computeNight } from '../lib/models/night.ts';
 import { observe } from '../lib/core/observe.ts';
 import { defineSite, type Site } from '../lib/core/site.ts';
@@ -286,5 +288,46 @@ describe('planet magnitudes (targets: within 0.15 mag)', () => {
     console.log(summary('Mallama & Hilton 2018 magnitude saturn', errors, ' mag', 3));
     console.log(summary('(for comparison) astronomia 1984 Almanac magnitude saturn', errors84, ' mag', 3));
     expect(errorStats(errors).max, 'largest |library − Mallama & Hilton| for Saturn').toBeLessThanOrEqual(0.15);
+  });
+});
+
+describe('fixed directions (stars, radiants, deep-sky objects) against astronomia (Meeus ch. 23, Ron–Vondrák)', () => {
+  it('the annual aberration of a fixed J2000 direction agrees with the Ron–Vondrák expression (apparent.aberrationRonVondrak) within 0.01″', () => {
+    // J2000 places of Regulus, Polaris, Achernar (bright-star table) and θ Per (Meeus example 23.a's star, from memory).
+    const places = [
+      { raDeg: 152.093, decDeg: 11.967 },
+      { raDeg: 37.955, decDeg: 89.264 },
+      { raDeg: 24.429, decDeg: -57.237 },
+      { raDeg: 41.0499, decDeg: 49.2285 },
+    ];
+    const random = seededRandom(23);
+    let worst = 0;
+    for (const p of places) {
+      const body = fixedDirectionBody({ id: 'test', name: 'Test', kind: 'star', ...p, vMag: 1 });
+      const a = p.raDeg * RAD;
+      const d = p.decDeg * RAD;
+      for (let i = 0; i < 12; i++) {
+        const date = new Date(Date.UTC(1990, 0, 1) + random() * 50 * 365.25 * 86_400_000);
+        const t = Astronomy.MakeTime(date);
+        const u = new Astronomy.Vector(Math.cos(d) * Math.cos(a), Math.cos(d) * Math.sin(a), Math.sin(d), t);
+        const [dRa, dDec] = aberrationRonVondrak(a, d, t.tt + 2_451_545.0);
+        // The reference's corrections as a step in the tangent plane (Δα cos δ eastwards, Δδ northwards):
+        // adding Δα to α directly would be off by its second-order terms near the pole (Polaris).
+        const ref = new Astronomy.Vector(
+          u.x - Math.sin(a) * dRa * Math.cos(d) - Math.sin(d) * Math.cos(a) * dDec,
+          u.y + Math.cos(a) * dRa * Math.cos(d) - Math.sin(d) * Math.sin(a) * dDec,
+          u.z + Math.cos(d) * dDec,
+          t,
+        );
+        const moved = body.geoVector(t, { aberration: true });
+        const error = Astronomy.AngleBetween(moved, ref) * 3600;
+        worst = Math.max(worst, error);
+        // The shift itself is the aberration's size, up to 20.5″ (not zero: the check can fail).
+        const shift = Astronomy.AngleBetween(moved, u) * 3600;
+        expect(shift, `${p.raDeg} on ${date.toISOString()}`).toBeGreaterThan(2);
+      }
+    }
+    console.log(`fixed-direction aberration vs Ron–Vondrák: worst ${worst.toFixed(4)}″`);
+    expect(worst).toBeLessThan(0.01);
   });
 });

@@ -8,7 +8,8 @@ import * as Astronomy from 'astronomy-engine';
 import { GloamingError, didYouMean } from './errors.ts';
 import { localMidnight, type Night } from './time.ts';
 
-export type BodyKind = 'sun' | 'moon' | 'planet' | 'comet' | 'asteroid' | 'deep-sky';
+/** What a body is; a fixed direction of the sky (`fixedDirectionBody`) is a catalogue `star`, a meteor shower's `radiant` or a `deep-sky` object. */
+export type BodyKind = 'sun' | 'moon' | 'planet' | 'comet' | 'asteroid' | 'star' | 'radiant' | 'deep-sky';
 
 /** An expected visual magnitude, possibly as a range when the model is uncertain (comets). */
 export interface MagnitudeEstimate {
@@ -63,6 +64,74 @@ export interface Body {
   geoVector(time: Astronomy.AstroTime, options: { aberration: boolean }): Astronomy.Vector;
   /** Distances, phase and expected magnitude at `time` (geocentric). */
   illumination(time: Astronomy.AstroTime): Illumination;
+}
+
+/** A fixed direction of the sky: a catalogue star, a meteor shower's radiant or a deep-sky object. */
+export interface FixedDirection {
+  id: string;
+  name: string;
+  kind: 'star' | 'radiant' | 'deep-sky';
+  /** Right ascension and declination, J2000, degrees. */
+  raDeg: number;
+  decDeg: number;
+  /** V magnitude (a double star: its fainter star's; a radiant has none: 99). */
+  vMag: number;
+  /** What only some have: an extended object's size, a double star's separation, names in other languages. */
+  extentArcmin?: Body['extentArcmin'];
+  pairSeparationArcsec?: number;
+  localNames?: Body['localNames'];
+}
+
+/** The distance a fixed direction is scaled to, AU: far enough that the observer's place on the Earth moves it by < 10⁻⁹″. */
+const FIXED_DISTANCE_AU = 1e10;
+const RAD = Math.PI / 180;
+
+/** The Earth's barycentric velocity (AU/day, J2000) by time, shared by every fixed direction: they are asked at the same grid times. */
+const earthVelocities = new Map<number, Astronomy.StateVector>();
+
+function earthVelocity(time: Astronomy.AstroTime): Astronomy.StateVector {
+  let v = earthVelocities.get(time.tt);
+  if (!v) {
+    v = Astronomy.BaryState(Astronomy.Body.Earth, time);
+    if (earthVelocities.size >= 20_000) earthVelocities.clear(); // a long-running dev server keeps a few years
+    earthVelocities.set(time.tt, v);
+  }
+  return v;
+}
+
+/**
+ * A fixed direction as a `Body`, so every later step (tracks, rise and set, visibility, guide
+ * phrases, charts, approaches, occultations) treats it as it treats a planet. `geoVector` is the
+ * J2000 direction times `FIXED_DISTANCE_AU`; with `aberration: true` the Earth's barycentric
+ * velocity v is added as v·τ, τ the light time over that distance: the annual aberration to first
+ * order (up to 20.5″; Meeus, *Astronomical Algorithms*, 2nd ed., ch. 23), which is also what
+ * astronomy-engine's back-dated positions give a planet when the light time is long. Proper motion
+ * is not applied (under 1′ a century for the stars and objects gloaming names, see
+ * lib/models/stars/catalogue.ts). Phase and distances are those of a far point.
+ */
+export function fixedDirectionBody(d: FixedDirection): Body {
+  const ra = d.raDeg * RAD;
+  const dec = d.decDeg * RAD;
+  const x = Math.cos(dec) * Math.cos(ra) * FIXED_DISTANCE_AU;
+  const y = Math.cos(dec) * Math.sin(ra) * FIXED_DISTANCE_AU;
+  const z = Math.sin(dec) * FIXED_DISTANCE_AU;
+  const lightDays = FIXED_DISTANCE_AU / Astronomy.C_AUDAY;
+  const magnitude = { value: d.vMag };
+  return {
+    id: d.id,
+    name: d.name,
+    kind: d.kind,
+    radiusKm: 0,
+    ...(d.extentArcmin ? { extentArcmin: d.extentArcmin } : {}),
+    ...(d.pairSeparationArcsec !== undefined ? { pairSeparationArcsec: d.pairSeparationArcsec } : {}),
+    ...(d.localNames ? { localNames: d.localNames } : {}),
+    geoVector(time, { aberration }) {
+      if (!aberration) return new Astronomy.Vector(x, y, z, time);
+      const v = earthVelocity(time);
+      return new Astronomy.Vector(x + v.vx * lightDays, y + v.vy * lightDays, z + v.vz * lightDays, time);
+    },
+    illumination: () => ({ heliocentricDistanceAu: FIXED_DISTANCE_AU, geocentricDistanceAu: FIXED_DISTANCE_AU, phaseAngleDeg: 0, illuminatedFraction: 1, magnitude }),
+  };
 }
 
 const PLANETS = {

@@ -2,8 +2,7 @@
  * Shared state of one `findEvents` call: the site, the night frames already built (so events of
  * the same night share their tracks), star pseudo-bodies, and local-time wording.
  */
-import * as Astronomy from 'astronomy-engine';
-import type { Body } from '../../core/body.ts';
+import { fixedDirectionBody, type Body } from '../../core/body.ts';
 import { wordsFor, type NamePhrase, type Words } from '../../core/language/index.ts';
 import { bodyLabel, bodyPhrase } from '../../core/language/names/index.ts';
 import type { Site } from '../../core/site.ts';
@@ -11,35 +10,9 @@ import type { Star } from '../../models/stars/catalogue.ts';
 import { addDays, formatClock, localDateOf, nightOf, roundInstant, zonedParts } from '../../core/time.ts';
 import { NightFrame } from '../../core/track.ts';
 
-const RAD = Math.PI / 180;
-/** Distance given to a star pseudo-body, AU: far enough that the observer's offset is < 0.001″. */
-const STAR_DISTANCE_AU = 1e9;
-
-/**
- * A fixed point of the sky as a `Body`: J2000 right ascension and declination in degrees, a V
- * magnitude, no proper motion and no annual aberration (both under 1′ for the stars used here,
- * see lib/models/stars/catalogue.ts; 20″ for aberration). Used for bright stars and meteor radiants.
- */
-export function fixedPointBody(options: { id: string; name: string; raDeg: number; decDeg: number; vMag: number }): Body {
-  const a = options.raDeg * RAD;
-  const d = options.decDeg * RAD;
-  const x = STAR_DISTANCE_AU * Math.cos(d) * Math.cos(a);
-  const y = STAR_DISTANCE_AU * Math.cos(d) * Math.sin(a);
-  const z = STAR_DISTANCE_AU * Math.sin(d);
-  const magnitude = { value: options.vMag };
-  return {
-    id: options.id,
-    name: options.name,
-    kind: 'asteroid',
-    radiusKm: 0,
-    geoVector: (time) => new Astronomy.Vector(x, y, z, time),
-    illumination: () => ({ heliocentricDistanceAu: STAR_DISTANCE_AU, geocentricDistanceAu: STAR_DISTANCE_AU, phaseAngleDeg: 0, illuminatedFraction: 1, magnitude }),
-  };
-}
-
 /** A bright star of the catalogue as a `Body` with id `star:<HIP>` (cannot clash with a body id). */
 export function starBody(star: Star): Body {
-  return fixedPointBody({ id: `star:${star.hip}`, name: star.label, raDeg: star.raDeg, decDeg: star.decDeg, vMag: star.vMag });
+  return fixedDirectionBody({ id: `star:${star.hip}`, name: star.label, kind: 'star', raDeg: star.raDeg, decDeg: star.decDeg, vMag: star.vMag });
 }
 
 /** The local date of the night (local noon to next local noon) that contains `instant`. */

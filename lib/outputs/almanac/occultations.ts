@@ -52,7 +52,6 @@ const PLANETS = ['mercury', 'venus', 'mars', 'jupiter', 'saturn', 'uranus', 'nep
 
 const RAD = Math.PI / 180;
 const KM_PER_AU = 149_597_870.7;
-const LIGHT_AU_PER_DAY = (299_792_458 * 86_400) / 149_597_870_700;
 /**
  * Screening limit: the Moon's horizontal parallax never exceeds 1.03° and its semidiameter 0.28°;
  * between two screening positions half a day apart its path leaves the great-circle arc through
@@ -95,7 +94,7 @@ function positionAngleDeg(a: Vec, b: Vec): number {
   return (pa + 360) % 360;
 }
 
-/** A target the Moon may cover: its apparent geocentric position (J2000, AU; stars at 1e9 AU). */
+/** A target the Moon may cover: its apparent geocentric position (J2000, AU; stars far away, see `fixedDirectionBody`). */
 interface Target {
   id: string;
   name: string;
@@ -106,40 +105,23 @@ interface Target {
   geo(time: Astronomy.AstroTime): Vec;
 }
 
-const STAR_AU = 1e9;
-
-function starTarget(star: Star): Target {
-  const a = star.raDeg * RAD, d = star.decDeg * RAD;
-  const u: Vec = [Math.cos(d) * Math.cos(a), Math.cos(d) * Math.sin(a), Math.sin(d)];
+/** A target of `body` (a star's, with `starBody`; a planet's): its apparent geocentric position is the body's own, with light time and aberration. */
+function target(body: Body, magnitude: number, star: boolean): Target {
   return {
-    id: `star:${star.hip}`,
-    name: star.label,
-    body: starBody(star),
-    magnitude: star.vMag,
-    star: true,
-    geo: (time) => {
-      // Annual aberration, first order: u + v/c (the Earth's barycentric velocity, AU/day).
-      const v = Astronomy.BaryState(Astronomy.Body.Earth, time);
-      const w = unit([u[0] + v.vx / LIGHT_AU_PER_DAY, u[1] + v.vy / LIGHT_AU_PER_DAY, u[2] + v.vz / LIGHT_AU_PER_DAY]);
-      return [w[0] * STAR_AU, w[1] * STAR_AU, w[2] * STAR_AU];
-    },
-  };
-}
-
-function planetTarget(id: (typeof PLANETS)[number]): Target {
-  const body = builtInBody(id);
-  return {
-    id,
+    id: body.id,
     name: body.name,
     body,
-    magnitude: Number.NaN,
-    star: false,
+    magnitude,
+    star,
     geo: (time) => {
       const g = body.geoVector(time, { aberration: true });
       return [g.x, g.y, g.z];
     },
   };
 }
+
+const starTarget = (star: Star): Target => target(starBody(star), star.vMag, true);
+const planetTarget = (id: (typeof PLANETS)[number]): Target => target(builtInBody(id), Number.NaN, false);
 
 /** The targets: stars to the magnitude limit within 7° of the ecliptic (the Moon's path stays within 6.7° of it), and the planets. */
 export function occultationTargets(): Target[] {

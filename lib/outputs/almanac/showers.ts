@@ -13,14 +13,13 @@
  * into a naked-eye limiting magnitude by `nelmFromSkyBrightness`.
  */
 import * as Astronomy from 'astronomy-engine';
-import { builtInBody } from '../../core/body.ts';
+import { builtInBody, fixedDirectionBody } from '../../core/body.ts';
 import { findCrossings, findMaximum, sharedSearch } from '../../core/search.ts';
 import { darkSkyFromQuality, nelmFromSkyBrightness } from '../../models/sky/quality.ts';
 import { extinctionCoefficientGreen } from '../../models/sky/extinction.ts';
 import { skyBrightness } from '../../models/sky/brightness.ts';
 import { dateFromUt, utDays } from '../../core/track.ts';
 import type { AlmanacContext } from './context.ts';
-import { fixedPointBody } from './context.ts';
 import { eclipticLongitudeJ2000Deg, wrap180 } from './planets.ts';
 import { apparentPlace, hidden, isDark } from './visibility.ts';
 import type { AlmanacEvent, ShowerDetails } from './types.ts';
@@ -90,7 +89,7 @@ export function showerEvents(ctx: AlmanacContext, from: Date, to: Date, showers:
     const peaks = (a: Date, b: Date): Date[] => solarLongitudeCrossings(shower.peakSolarLongitudeDeg, a, b);
     for (const time of sharedSearch(showerEvents, `${shower.code}:${shower.peakSolarLongitudeDeg}`, from, to, peaks, (t) => t)) {
       const frame = ctx.frameAt(time);
-      const radiant = fixedPointBody({ id: `shower:${shower.code}`, name: `${shower.name} radiant`, raDeg: shower.radiantRaDeg, decDeg: shower.radiantDecDeg, vMag: 99 });
+      const radiant = fixedDirectionBody({ id: `shower:${shower.code}`, name: `${shower.name} radiant`, kind: 'radiant', raDeg: shower.radiantRaDeg, decDeg: shower.radiantDecDeg, vMag: 99 });
       const moonPhaseAngleDeg = Astronomy.Illumination(Astronomy.Body.Moon, Astronomy.MakeTime(time)).phase_angle;
       const moonFraction = Astronomy.Illumination(Astronomy.Body.Moon, Astronomy.MakeTime(time)).phase_fraction;
       const moonBody = builtInBody('moon');

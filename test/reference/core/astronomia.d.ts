@@ -112,3 +112,8 @@ declare module 'astronomia/deltat' {
   /** ΔT = TD − UT, seconds, for a decimal year. */
   export function deltaT(decimalYear: number): number;
 }
+
+declare module 'astronomia/apparent' {
+  /** Ron–Vondrák annual aberration for a J2000 (α, δ) in radians at Julian day `jd`: [Δα, Δδ] in radians. */
+  export function aberrationRonVondrak(ra: number, dec: number, jd: number): [number, number];
+}
