@@ -5,6 +5,7 @@
  * zones that contradict the longitude.
  */
 import { readFileSync } from 'node:fs';
+import * as Astronomy from 'astronomy-engine';
 import { describe, expect, it } from 'vitest';
 import { builtInBody } from '../lib/core/body.ts';
 import { computeNight, type NightReport } from '../lib/models/night.ts';
@@ -13,7 +14,7 @@ import { parseSite } from '../lib/models/content.ts';
 import { utDays } from '../lib/core/track.ts';
 import { GloamingError } from '../lib/core/errors.ts';
 import { OPTICS_SUN_DEPRESSION_DEG, OPTICS_SUN_MINUTES } from '../lib/models/near-sun.ts';
-import { viewingSpan } from '../lib/models/visibility.ts';
+import { reasonText, viewingSpan } from '../lib/models/visibility.ts';
 import { skyBrightness } from '../lib/models/sky/brightness.ts';
 import { darkSkyFromQuality, magPerArcsec2ToNl } from '../lib/models/sky/quality.ts';
 import { extinctionCoefficientGreen, extinctionMag } from '../lib/models/sky/extinction.ts';
@@ -239,6 +240,25 @@ describe('the measured cases of issue #11', () => {
       if (v.best) expect(v.best.time.getTime()).toBeGreaterThanOrEqual(r.sun.set.time!.getTime());
       else expect(v.reason).not.toBeNull();
     }
+  });
+
+  it('Tromsø (69.65° N), 2027-06-21, midnight Sun (the Sun stays above the horizon all night, astronomy-engine): no optical aid is recommended, and a planet the model would show only in binoculars says why in words that fit a Sun that is up', () => {
+    const site = defineSite({ id: 'tromso', latitude: 69.65, longitude: 18.96, timeZone: 'Europe/Oslo' });
+    const observer = new Astronomy.Observer(69.65, 18.96, 0);
+    // Local noon to noon (UTC+2), every 15 minutes.
+    for (let h = 0; h <= 24; h += 0.25) {
+      const t = Astronomy.MakeTime(new Date(Date.UTC(2027, 5, 21, 10) + h * 3_600_000));
+      const sun = Astronomy.Equator(Astronomy.Body.Sun, t, observer, true, true);
+      expect(Astronomy.Horizon(t, observer, sun.ra, sun.dec, 'normal').altitude).toBeGreaterThan(0);
+    }
+    const r = computeNight(site, '2027-06-21', ['venus', 'mars', 'jupiter', 'saturn'].map((id) => builtInBody(id as 'venus')));
+    expect(r.sun.set.time).toBeNull();
+    for (const b of r.bodies) expect(['binoculars', 'telescope'], b.body.id).not.toContain(b.visibility.verdict);
+    const jupiter = r.bodies.find((b) => b.body.id === 'jupiter')!.visibility;
+    expect(jupiter.reason).toBe('optics-unsafe');
+    const words = reasonText(jupiter.reason!, site);
+    expect(words).toContain('while the Sun is up');
+    expect(words).not.toContain('too near the horizon');
   });
 
   it('Utqiaġvik (71.29° N), 2026-01-23: the Sun sets before it rises (or does not rise this night), and Jupiter is an evening target whose window is not cut at midnight', () => {

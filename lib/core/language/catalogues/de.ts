@@ -59,7 +59,7 @@ export const de: Catalogue = {
   'reason.behind-skyline': 'hinter der Horizontlinie verborgen',
   'reason.under-min-altitude': 'unter der Mindesthöhe des Standorts ({degrees}°)',
   'reason.too-close-to-sun': 'zu nah an der Sonne',
-  'reason.optics-unsafe': 'nur im Fernglas oder Teleskop sichtbar, solange die Sonne zu nah am Horizont steht, um sie gefahrlos zu benutzen',
+  'reason.optics-unsafe': 'nur im Fernglas oder Teleskop sichtbar, die nicht gefahrlos zu benutzen sind, solange die Sonne über oder knapp unter dem Horizont steht',
   'reason.daylight': 'vom Tageslicht überstrahlt',
   'reason.twilight': 'in der Dämmerung verloren',
   'reason.moonlight': 'vom Mondlicht überstrahlt',

@@ -70,7 +70,7 @@ export const en = {
   'reason.behind-skyline': 'behind the skyline',
   'reason.under-min-altitude': "under the site's minimum altitude ({degrees}°)",
   'reason.too-close-to-sun': 'too close to the Sun',
-  'reason.optics-unsafe': 'only visible in binoculars or a telescope while the Sun is too near the horizon to use them safely',
+  'reason.optics-unsafe': 'only visible in binoculars or a telescope, which are not safe to use while the Sun is up or just below the horizon',
   'reason.daylight': 'hidden by daylight',
   'reason.twilight': 'lost in twilight',
   'reason.moonlight': 'washed out by moonlight',

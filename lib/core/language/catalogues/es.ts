@@ -65,7 +65,7 @@ export const es: Catalogue = {
   'reason.behind-skyline': `${hidden('oculto', 'oculta')} tras el perfil del horizonte`,
   'reason.under-min-altitude': 'bajo la altura mínima del lugar ({degrees}°)',
   'reason.too-close-to-sun': 'demasiado cerca del Sol',
-  'reason.optics-unsafe': `solo ${hidden('visible', 'visible')} con binoculares o telescopio mientras el Sol está demasiado cerca del horizonte para usarlos con seguridad`,
+  'reason.optics-unsafe': `solo ${hidden('visible', 'visible')} con binoculares o telescopio, que no son seguros de usar mientras el Sol está sobre el horizonte o justo por debajo`,
   'reason.daylight': `${hidden('oculto', 'oculta')} por la luz del día`,
   'reason.twilight': `${hidden('perdido', 'perdida')} en el crepúsculo`,
   'reason.moonlight': `${hidden('apagado', 'apagada')} por la luz de la Luna`,

@@ -62,7 +62,7 @@ export const fr: Catalogue = {
   'reason.behind-skyline': `${agree('caché', 'cachée')} par le relief de l'horizon`,
   'reason.under-min-altitude': 'sous la hauteur minimale du site ({degrees}°)',
   'reason.too-close-to-sun': 'trop près du Soleil',
-  'reason.optics-unsafe': `${agree('visible', 'visible')} seulement aux jumelles ou au télescope tant que le Soleil est trop près de l'horizon pour s'en servir sans danger`,
+  'reason.optics-unsafe': `${agree('visible', 'visible')} seulement aux jumelles ou au télescope, dangereux à utiliser tant que le Soleil est levé ou juste sous l'horizon`,
   'reason.daylight': `${agree('noyé', 'noyée')} dans la lumière du jour`,
   'reason.twilight': `${agree('perdu', 'perdue')} dans le crépuscule`,
   'reason.moonlight': `${agree('effacé', 'effacée')} par le clair de Lune`,
